@@ -1,0 +1,10 @@
+import { AppProvider } from "./provider";
+import { AppRouter } from "./router";
+
+export function App() {
+  return (
+    <AppProvider>
+      <AppRouter />
+    </AppProvider>
+  );
+}

@@ -1,0 +1,27 @@
+// The one API client: JSON in and out, the server's error shape turned into ApiError.
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: Record<string, string>,
+  ) {
+    super(message);
+  }
+}
+
+export async function api<T>(path: string, init: RequestInit & { json?: unknown } = {}): Promise<T> {
+  const { json, headers, ...rest } = init;
+  const response = await fetch(`/api${path}`, {
+    credentials: "same-origin",
+    ...rest,
+    headers: { Accept: "application/json", ...(json === undefined ? {} : { "Content-Type": "application/json" }), ...headers },
+    body: json === undefined ? rest.body : JSON.stringify(json),
+  });
+  const body = response.status === 204 ? null : await response.json().catch(() => null);
+  if (!response.ok) {
+    const error = body?.error;
+    throw new ApiError(response.status, error?.code ?? "http_error", error?.message ?? `Request failed (${response.status})`, error?.fields);
+  }
+  return body as T;
+}
