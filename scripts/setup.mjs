@@ -219,7 +219,8 @@ async function main() {
   tsx("server/db/migrate.ts", env);
   tsx("server/db/seed.ts", env);
   if (mode === "dev") {
-    const api = spawn(bin("tsx"), ["watch", "server/index.ts"], { stdio: "inherit", cwd: root, env });
+    // Links in mails open the Vite dev server, which proxies /api to this process.
+    const api = spawn(bin("tsx"), ["watch", "server/index.ts"], { stdio: "inherit", cwd: root, env: { ...env, PUBLIC_URL: env.PUBLIC_URL ?? "http://localhost:5173" } });
     const vite = spawn(bin("vite"), [], { stdio: "inherit", cwd: root, env });
     const stop = () => { api.kill(); vite.kill(); };
     process.on("SIGINT", stop);
@@ -229,7 +230,7 @@ async function main() {
   log("building the client");
   run(bin("vite"), ["build", "--logLevel", "warn"], { env });
   if (mode === "start") {
-    const server = spawn(bin("tsx"), ["server/index.ts"], { stdio: "inherit", cwd: root, env: { ...env, NODE_ENV: env.NODE_ENV ?? "production" } });
+    const server = spawn(bin("tsx"), ["server/index.ts"], { stdio: "inherit", cwd: root, env });
     const stop = (signal) => server.kill(signal);
     process.on("SIGINT", stop);
     process.on("SIGTERM", stop);

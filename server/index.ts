@@ -1,16 +1,37 @@
+import { eq } from "drizzle-orm";
+import pino from "pino";
 import { createApp } from "./app.js";
-import { config } from "./config.js";
+import { config, isProduction } from "./config.js";
 import { createDatabase, createPool } from "./db/client.js";
+import { demoReviewer, demoShareToken, demoUser } from "./db/demo-data.js";
+import { users } from "./db/schema.js";
+import { startCaptureServerNear, type CaptureServer } from "./mail/capture-server.js";
+import { createSmtpMailer, smtpTarget } from "./mail/mailer.js";
 
+const log = pino({ level: config.logLevel });
 const pool = createPool(config.databaseUrl, config.dbPoolSize);
-const app = createApp({ pool, db: createDatabase(pool) });
+const db = createDatabase(pool);
+const ownUrl = `http://${config.host === "0.0.0.0" ? "localhost" : config.host}:${config.port}`;
 
-const server = app.listen(config.port, config.host, () => {
-  console.log(`[portfold] serving on http://${config.host === "0.0.0.0" ? "localhost" : config.host}:${config.port}`);
+// Without SMTP_HOST, mail goes over real SMTP to a capture server on loopback that keeps it in PostgreSQL.
+let capture: CaptureServer | null = null;
+if (!config.mail.smtpHost) {
+  capture = await startCaptureServerNear(db, config.mail.capturePort);
+  console.log(`[portfold] mail capture (SMTP) on ${capture.host}:${capture.port}${isProduction ? "" : `; read it at ${ownUrl}/dev/mailbox`}`);
+}
+const app = createApp({ pool, db, logger: log, mailer: createSmtpMailer(smtpTarget(capture?.port), config.mail.from, log) });
+
+const server = app.listen(config.port, config.host, async () => {
+  console.log(`[portfold] serving on ${ownUrl}`);
+  if (isProduction) return;
+  const [demo] = await db.select({ id: users.id }).from(users).where(eq(users.id, demoUser.id)).catch(() => []);
+  if (!demo) return;
+  console.log(`[portfold] demo login: ${demoUser.email} / ${config.demoPassword} (reviewer: ${demoReviewer.email}, same password)`);
+  console.log(`[portfold] demo share link: ${config.publicUrl}/s/${demoShareToken}`);
 });
 
 function shutdown() {
-  server.close(() => void pool.end().then(() => process.exit(0)));
+  server.close(() => void Promise.all([pool.end(), capture?.close()]).then(() => process.exit(0)));
 }
 process.on("SIGINT", shutdown);
 process.on("SIGTERM", shutdown);

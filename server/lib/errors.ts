@@ -1,24 +1,50 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
 
-// The one error shape of the API: { error: { code, message, fields? } }.
+// The one error shape of the API: { error: { code, message, fields?, diagnostics? } }.
 export class HttpError extends Error {
   constructor(
     readonly status: number,
     readonly code: string,
     message: string,
     readonly fields?: Record<string, string>,
+    // Engine diagnostics (code, message, line, column, elements) where the engine refused the input.
+    readonly diagnostics?: unknown[],
   ) {
     super(message);
   }
 }
 
+export const notFound = (what = "That") => new HttpError(404, "not_found", `${what} was not found.`);
+export const forbidden = (message = "Your role in this team does not allow this.") => new HttpError(403, "forbidden", message);
+
 export const notFoundApi: RequestHandler = (req, _res, next) => {
   next(new HttpError(404, "not_found", `No API route ${req.method} ${req.path}`));
 };
 
-export const errorHandler: ErrorRequestHandler = (error, _req, res, _next) => {
+// PostgreSQL SQLSTATE classes and node errors that mean "the database is not reachable right now".
+const unavailableCodes = new Set(["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "57P01", "57P02", "57P03", "08000", "08001", "08003", "08006"]);
+
+function databaseUnavailable(error: unknown): boolean {
+  const code = (error as { code?: unknown })?.code;
+  const message = String((error as { message?: unknown })?.message ?? "");
+  return (typeof code === "string" && unavailableCodes.has(code)) || message.includes("timeout exceeded when trying to connect")
+    || message.includes("Connection terminated");
+}
+
+export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
+  if (res.headersSent) {
+    res.end();
+    return;
+  }
   if (error instanceof HttpError) {
-    res.status(error.status).json({ error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) } });
+    res.status(error.status).json({
+      error: {
+        code: error.code,
+        message: error.message,
+        ...(error.fields ? { fields: error.fields } : {}),
+        ...(error.diagnostics ? { diagnostics: error.diagnostics } : {}),
+      },
+    });
     return;
   }
   const status = typeof error?.status === "number" ? error.status : 500;
@@ -34,6 +60,10 @@ export const errorHandler: ErrorRequestHandler = (error, _req, res, _next) => {
     res.status(status).json({ error: { code: "bad_request", message: String(error?.message ?? "Bad request") } });
     return;
   }
-  console.error(error);
+  if (databaseUnavailable(error) || databaseUnavailable(error?.cause)) {
+    res.status(503).json({ error: { code: "database_unavailable", message: "The database is not reachable right now; try again shortly." } });
+    return;
+  }
+  (req.log ?? console).error({ err: error }, "unhandled error");
   res.status(500).json({ error: { code: "internal", message: "Something went wrong on the server." } });
 };

@@ -1,15 +1,41 @@
 import { createBrowserRouter, RouterProvider } from "react-router-dom";
 import { AppLayout } from "@/components/ui/app-layout";
+import { ErrorState } from "@/components/ui/states";
+import { AcceptInvitationRoute } from "./routes/accept-invitation";
 import { HomeRoute } from "./routes/home";
 import { NotFoundRoute } from "./routes/not-found";
+import { ResetPasswordRoute } from "./routes/reset-password";
 import { SignInRoute } from "./routes/sign-in";
+import { SignUpRoute } from "./routes/sign-up";
+import { VerifyEmailRoute } from "./routes/verify-email";
 
+function RouteError() {
+  return (
+    <div className="mx-auto max-w-lg p-8">
+      <ErrorState error={new Error("This screen failed to load. Reload the page to try again.")} title="Something went wrong" />
+    </div>
+  );
+}
+
+// Screens that typeset, plot or read netlists load on first visit, so the first page stays small.
 const router = createBrowserRouter([
   {
     element: <AppLayout />,
+    errorElement: <RouteError />,
     children: [
       { path: "/", element: <HomeRoute /> },
       { path: "/sign-in", element: <SignInRoute /> },
+      { path: "/sign-up", element: <SignUpRoute /> },
+      { path: "/reset-password", element: <ResetPasswordRoute /> },
+      { path: "/verify-email", element: <VerifyEmailRoute /> },
+      { path: "/invitations/accept", element: <AcceptInvitationRoute /> },
+      { path: "/teams", lazy: async () => ({ Component: (await import("./routes/teams")).TeamsRoute }) },
+      { path: "/teams/:teamId", lazy: async () => ({ Component: (await import("./routes/team")).TeamRoute }) },
+      { path: "/networks/:networkId", handle: { wide: true }, lazy: async () => ({ Component: (await import("./routes/workbench")).WorkbenchRoute }) },
+      { path: "/networks/:networkId/r/:k", handle: { wide: true }, lazy: async () => ({ Component: (await import("./routes/workbench")).WorkbenchRoute }) },
+      { path: "/networks/:networkId/history", lazy: async () => ({ Component: (await import("./routes/revision-history")).RevisionHistoryRoute }) },
+      { path: "/n/:slug/r/:k", lazy: async () => ({ Component: (await import("./routes/workbench")).PermalinkRoute }) },
+      { path: "/s/:token", handle: { wide: true }, lazy: async () => ({ Component: (await import("./routes/shared-view")).SharedViewRoute }) },
       { path: "*", element: <NotFoundRoute /> },
     ],
   },

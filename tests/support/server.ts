@@ -1,15 +1,34 @@
-// Starts the real Express app on an ephemeral loopback port against the test database.
+// Starts the real Express app on an ephemeral loopback port against the test database,
+// with the SMTP capture server in-process on its own ephemeral port.
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { createServer, type Server } from "node:http";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import type { AddressInfo } from "node:net";
-import type { Server } from "node:http";
+import type { Logger } from "pino";
 import { createApp } from "../../server/app.js";
+import { defaultSettings, type AppSettings } from "../../server/config.js";
 import { createDatabase, createPool } from "../../server/db/client.js";
+import { startCaptureServer, type CaptureServer } from "../../server/mail/capture-server.js";
+import { createSmtpMailer } from "../../server/mail/mailer.js";
 
 export interface TestServer {
   url: string;
   pool: ReturnType<typeof createPool>;
   db: ReturnType<typeof createDatabase>;
+  capture: CaptureServer;
   close(): Promise<void>;
 }
+
+export interface TestServerOptions {
+  settings?: Partial<Omit<AppSettings, "limits">>;
+  limits?: Partial<AppSettings["limits"]>;
+  clientDir?: string;
+  logger?: Logger;
+}
+
+// Generous by default: only the rate-limit tests want to hit the limits.
+const testLimits: Partial<AppSettings["limits"]> = { loginFailuresPer15Min: 1_000, passwordResetsPer15Min: 1_000, signupsPerHour: 1_000 };
 
 export function testDatabaseUrl(): string {
   const url = process.env.DATABASE_URL;
@@ -17,22 +36,52 @@ export function testDatabaseUrl(): string {
   return url;
 }
 
-export async function startTestServer(): Promise<TestServer> {
+export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
   const pool = createPool(testDatabaseUrl(), 5);
   const db = createDatabase(pool);
-  const app = createApp({ pool, db });
-  const server: Server = await new Promise((resolve) => {
-    const listening = app.listen(0, "127.0.0.1", () => resolve(listening));
-  });
+  const capture = await startCaptureServer(db, { port: 0 });
+  // Listen first, so PUBLIC_URL (links in mail, the origin check) can name the real port.
+  const server: Server = createServer();
+  await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
   const { port } = server.address() as AddressInfo;
+  const url = `http://127.0.0.1:${port}`;
+  const settings: Partial<AppSettings> = {
+    publicUrl: url,
+    logLevel: "silent",
+    ...options.settings,
+    limits: { ...defaultSettings().limits, ...testLimits, ...options.limits },
+  };
+  const mailer = createSmtpMailer({ host: capture.host, port: capture.port }, "Portfold tests <tests@portfold.local>");
+  server.on("request", createApp({ pool, db, mailer, settings, clientDir: options.clientDir, logger: options.logger }));
   return {
-    url: `http://127.0.0.1:${port}`,
+    url,
     pool,
     db,
+    capture,
     close: async () => {
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      await capture.close();
       await pool.end();
     },
   };
+}
+
+// A stand-in for the built client (dist/client), so tests do not depend on a build having run.
+export function clientShellDir(): string {
+  const dir = mkdtempSync(join(tmpdir(), "portfold-shell-"));
+  writeFileSync(
+    join(dir, "index.html"),
+    `<!doctype html>
+<html lang="en">
+  <head>
+    <meta charset="UTF-8" />
+    <meta name="description" content="Portfold: exact Thevenin and Norton equivalents." />
+    <title>Portfold</title>
+  </head>
+  <body><div id="root"></div></body>
+</html>
+`,
+  );
+  return dir;
 }

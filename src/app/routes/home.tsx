@@ -1,6 +1,8 @@
 import { Link } from "react-router-dom";
+import { useMe } from "@/features/auth/api/get-me";
 
 export function HomeRoute() {
+  const me = useMe();
   return (
     <section className="max-w-3xl">
       <h1 className="text-3xl font-semibold tracking-tight">Portfold</h1>
@@ -15,12 +17,20 @@ export function HomeRoute() {
         <li>Values with SI prefixes, limits as a gain grows without bound, sweeps over decades.</li>
         <li>A share link a design review opens, comments on step by step, and approves.</li>
       </ul>
-      <Link
-        to="/sign-in"
-        className="mt-8 inline-block rounded bg-copper px-4 py-2 text-sm font-medium text-paper hover:bg-copper/90"
-      >
-        Sign in to your team
-      </Link>
+      {me.data ? (
+        <Link to="/teams" className="mt-8 inline-block rounded bg-copper px-4 py-2 text-sm font-medium text-paper hover:bg-copper/90">
+          Go to your networks
+        </Link>
+      ) : (
+        <div className="mt-8 flex items-center gap-4 text-sm">
+          <Link to="/sign-in" className="inline-block rounded bg-copper px-4 py-2 font-medium text-paper hover:bg-copper/90">
+            Sign in to your team
+          </Link>
+          <Link to="/sign-up" className="text-copper underline">
+            Create an account
+          </Link>
+        </div>
+      )}
     </section>
   );
 }

@@ -1,27 +1,76 @@
-import { Link, Outlet } from "react-router-dom";
+import { Link, NavLink, Outlet, useMatches, useNavigate } from "react-router-dom";
+import { useMe } from "@/features/auth/api/get-me";
+import { useSignOut } from "@/features/auth/api/sign-out";
 import { PortMark } from "./port-mark";
 
+interface RouteHandle {
+  wide?: boolean;
+}
+
+function AccountNav() {
+  const me = useMe();
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  if (me.isLoading) return <span className="text-ink/40">…</span>;
+  if (!me.data) {
+    return (
+      <>
+        <Link to="/sign-in" className="hover:text-copper">
+          Sign in
+        </Link>
+        <Link to="/sign-up" className="rounded border border-copper px-2 py-0.5 text-copper hover:bg-copper hover:text-paper">
+          Sign up
+        </Link>
+      </>
+    );
+  }
+  return (
+    <>
+      {me.data.teams.slice(0, 4).map((team) => (
+        <NavLink key={team.id} to={`/teams/${team.id}`} className={({ isActive }) => (isActive ? "text-copper" : "hover:text-copper")}>
+          {team.name}
+        </NavLink>
+      ))}
+      <span className="text-ink/60" title={me.data.user.email}>
+        {me.data.user.name}
+      </span>
+      <button
+        type="button"
+        className="hover:text-copper"
+        onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate("/") })}
+        disabled={signOut.isPending}
+      >
+        Sign out
+      </button>
+    </>
+  );
+}
+
 export function AppLayout() {
+  const matches = useMatches();
+  const wide = matches.some((m) => (m.handle as RouteHandle | undefined)?.wide);
+  const width = wide ? "max-w-[1680px]" : "max-w-7xl";
   return (
     <div className="flex min-h-screen flex-col">
-      <header className="border-b border-rule">
-        <div className="mx-auto flex max-w-7xl items-center justify-between px-6 py-3">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-paper focus:px-2">
+        Skip to content
+      </a>
+      <header className="border-b border-rule print:hidden">
+        <div className={`mx-auto flex ${width} items-center justify-between gap-4 px-6 py-3`}>
           <Link to="/" className="flex items-center gap-2 text-lg font-semibold tracking-tight">
             <PortMark />
             Portfold
           </Link>
-          <nav className="flex items-center gap-4 text-sm">
-            <Link to="/sign-in" className="hover:text-copper">
-              Sign in
-            </Link>
+          <nav aria-label="Account" className="flex flex-wrap items-center justify-end gap-4 text-sm">
+            <AccountNav />
           </nav>
         </div>
       </header>
-      <main className="mx-auto w-full max-w-7xl flex-1 px-6 py-8">
+      <main id="main" className={`mx-auto w-full ${width} flex-1 px-6 ${wide ? "py-4" : "py-8"}`}>
         <Outlet />
       </main>
       <footer className="border-t border-rule">
-        <div className="mx-auto max-w-7xl px-6 py-4 text-xs text-ink/70">
+        <div className={`mx-auto ${width} px-6 py-4 text-xs text-ink/70`}>
           <p className="font-medium text-ink">Portfold</p>
           <p className="mt-1 max-w-3xl">
             Results are linear, small-signal idealisations. Verify them against measurement, component ratings and the

@@ -1,0 +1,118 @@
+// Command line: solve one network file (JSON or Portfold netlist) and print one JSON object.
+//
+//   npm run -s solve -- FILE [--limit SYMBOL=inf|0]... [--set NAME=VALUE,...]... [--float]
+//                            [--solve-for SYMBOL:RESULT=VALUE]... [--quantity SYMBOL=QUANTITY]...
+//                            [--no-steps] [--compact]
+//
+// Exit status: 0 solved (degenerate ports included), 2 invalid input (diagnostics printed), 1 otherwise.
+
+import { readFileSync } from "node:fs";
+import { QUANTITIES, solveNetwork, toSolveOutput, type Quantity, type ResultName, type SolveOptions } from "../shared/engine";
+
+const USAGE = `usage: npm run -s solve -- FILE [--limit SYMBOL=inf|0] [--set NAME=VALUE,...] [--float]
+       [--solve-for SYMBOL:RESULT=VALUE] [--quantity SYMBOL=QUANTITY] [--no-steps] [--compact]
+  FILE       a network as JSON or as a Portfold netlist (.pfn)
+  --limit    take every result to the limit SYMBOL -> inf or SYMBOL -> 0 (repeatable)
+  --set      give symbols values, exact, SI prefixes allowed: --set R0=4.7k,mu=1e5
+  --float    also print floating-point values for --set
+  --solve-for  solve RESULT (vth, isc, rth) = VALUE for SYMBOL: --solve-for RL:rth=50
+  --quantity declare a symbol's quantity (${QUANTITIES.join(", ")})
+  --no-steps leave the derivation steps out
+  --compact  print the JSON on one line`;
+
+class UsageError extends Error {}
+
+function parseArgs(argv: string[]): { file: string; options: SolveOptions; compact: boolean } {
+  let file: string | null = null;
+  const options: SolveOptions = { limits: [], values: {}, solveFor: [], quantities: {} };
+  let compact = false;
+  const take = (i: number, flag: string): string => {
+    const v = argv[i + 1];
+    if (v === undefined || v.startsWith("--")) throw new UsageError(`${flag} needs a value`);
+    return v;
+  };
+  for (let i = 0; i < argv.length; i++) {
+    const arg = argv[i];
+    const [flag, inline] = arg.startsWith("--") && arg.includes("=") ? [arg.slice(0, arg.indexOf("=")), arg.slice(arg.indexOf("=") + 1)] : [arg, undefined];
+    const value = () => (inline !== undefined ? inline : take(i++, flag));
+    switch (flag) {
+      case "--limit": {
+        const v = value();
+        const m = /^([^=]+)=(inf|\+inf|infinity|oo|0|zero)$/i.exec(v);
+        if (!m) throw new UsageError(`--limit ${v}: write SYMBOL=inf or SYMBOL=0`);
+        options.limits!.push({ symbol: m[1].trim(), to: m[2] === "0" || m[2].toLowerCase() === "zero" ? "zero" : "inf" });
+        break;
+      }
+      case "--set": {
+        for (const pair of value().split(",")) {
+          if (pair.trim() === "") continue;
+          const eq = pair.indexOf("=");
+          if (eq <= 0) throw new UsageError(`--set ${pair}: write NAME=VALUE`);
+          options.values![pair.slice(0, eq).trim()] = pair.slice(eq + 1).trim();
+        }
+        break;
+      }
+      case "--solve-for": {
+        const v = value();
+        const m = /^([^:]+):(vth|isc|rth|rthFromVocIsc)=(.+)$/.exec(v);
+        if (!m) throw new UsageError(`--solve-for ${v}: write SYMBOL:RESULT=VALUE, e.g. RL:rth=50`);
+        options.solveFor!.push({ symbol: m[1].trim(), result: m[2] as ResultName, target: m[3].trim() });
+        break;
+      }
+      case "--quantity": {
+        const v = value();
+        const m = /^([^=]+)=(.+)$/.exec(v);
+        if (!m || !(QUANTITIES as readonly string[]).includes(m[2])) throw new UsageError(`--quantity ${v}: write SYMBOL=QUANTITY (${QUANTITIES.join(", ")})`);
+        options.quantities![m[1].trim()] = m[2] as Quantity;
+        break;
+      }
+      case "--float":
+        options.float = true;
+        break;
+      case "--no-steps":
+        options.steps = false;
+        break;
+      case "--compact":
+        compact = true;
+        break;
+      case "--help":
+      case "-h":
+        throw new UsageError("");
+      default:
+        if (arg.startsWith("-")) throw new UsageError(`unknown option ${arg}`);
+        if (file !== null) throw new UsageError(`one FILE only (got "${file}" and "${arg}")`);
+        file = arg;
+    }
+  }
+  if (file === null) throw new UsageError("FILE is missing");
+  return { file, options, compact };
+}
+
+function main(argv: string[]): number {
+  let args: ReturnType<typeof parseArgs>;
+  try {
+    args = parseArgs(argv);
+  } catch (e) {
+    if (!(e instanceof UsageError)) throw e;
+    if (e.message) process.stderr.write(`solve: ${e.message}\n`);
+    process.stderr.write(USAGE + "\n");
+    return 1;
+  }
+  let text: string;
+  try {
+    text = readFileSync(args.file, "utf8");
+  } catch (e) {
+    process.stderr.write(`solve: cannot read ${args.file}: ${e instanceof Error ? e.message : String(e)}\n`);
+    return 1;
+  }
+  const result = solveNetwork(text, args.options);
+  process.stdout.write(JSON.stringify(toSolveOutput(result), null, args.compact ? undefined : 2) + "\n");
+  return result.ok ? 0 : 2;
+}
+
+try {
+  process.exitCode = main(process.argv.slice(2));
+} catch (e) {
+  process.stderr.write(`solve: internal error: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`);
+  process.exitCode = 1;
+}

@@ -1,0 +1,100 @@
+// Attachments on a network (datasheets, scope captures): PDF, PNG, JPEG, stored in PostgreSQL.
+import { and, asc, eq } from "drizzle-orm";
+import type { Database } from "../db/client.js";
+import { attachments, users } from "../db/schema.js";
+import { HttpError, notFound } from "../lib/errors.js";
+import { requireNetworkRole } from "./access.js";
+
+// The type is read from the file's first bytes (its signature), not trusted from the client.
+const signatures: { type: string; bytes: number[] }[] = [
+  { type: "application/pdf", bytes: [0x25, 0x50, 0x44, 0x46, 0x2d] }, // "%PDF-"
+  { type: "image/png", bytes: [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a] },
+  { type: "image/jpeg", bytes: [0xff, 0xd8, 0xff] },
+];
+
+export const attachmentTypes = signatures.map((s) => s.type);
+
+export function sniffContentType(content: Buffer): string | null {
+  const match = signatures.find((s) => content.length >= s.bytes.length && s.bytes.every((b, i) => content[i] === b));
+  return match?.type ?? null;
+}
+
+// Keeps the name a person gave the file, minus anything that could break a header or a path.
+export function cleanFilename(name: string): string {
+  const base = name.split(/[\\/]/).pop() ?? "";
+  const cleaned = base.replace(/[\u0000-\u001f\u007f"]/g, "").trim().slice(0, 200);
+  return cleaned || "attachment";
+}
+
+type AttachmentRow = typeof attachments.$inferSelect;
+
+function view(row: Omit<AttachmentRow, "content">, uploaderName: string | null) {
+  return {
+    id: row.id,
+    networkId: row.networkId,
+    filename: row.filename,
+    contentType: row.contentType,
+    size: row.size,
+    uploadedBy: row.uploadedBy && uploaderName ? { id: row.uploadedBy, name: uploaderName } : null,
+    createdAt: row.createdAt.toISOString(),
+  };
+}
+
+export async function addAttachment(
+  db: Database,
+  networkId: string,
+  userId: string,
+  file: { originalname: string; mimetype: string; buffer: Buffer },
+) {
+  await requireNetworkRole(db, networkId, userId, "editor");
+  const contentType = sniffContentType(file.buffer);
+  if (!contentType) {
+    throw new HttpError(415, "unsupported_type", "Attachments are PDF, PNG or JPEG files.", { file: "not a PDF, PNG or JPEG file" });
+  }
+  const declared = file.mimetype.toLowerCase();
+  if (declared !== contentType && declared !== "application/octet-stream") {
+    throw new HttpError(415, "type_mismatch", `The file says it is ${declared} but its content is ${contentType}.`, { file: "content does not match its type" });
+  }
+  const [row] = await db
+    .insert(attachments)
+    .values({ networkId, filename: cleanFilename(file.originalname), contentType, size: file.buffer.length, content: file.buffer, uploadedBy: userId })
+    .returning();
+  const [uploader] = await db.select({ name: users.name }).from(users).where(eq(users.id, userId));
+  return view(row, uploader?.name ?? null);
+}
+
+export async function listAttachments(db: Database, networkId: string, userId: string) {
+  await requireNetworkRole(db, networkId, userId, "viewer");
+  const rows = await db
+    .select({
+      id: attachments.id,
+      networkId: attachments.networkId,
+      filename: attachments.filename,
+      contentType: attachments.contentType,
+      size: attachments.size,
+      uploadedBy: attachments.uploadedBy,
+      createdAt: attachments.createdAt,
+      uploaderName: users.name,
+    })
+    .from(attachments)
+    .leftJoin(users, eq(users.id, attachments.uploadedBy))
+    .where(eq(attachments.networkId, networkId))
+    .orderBy(asc(attachments.createdAt));
+  return rows.map((row) => view(row, row.uploaderName));
+}
+
+export async function attachmentContent(db: Database, networkId: string, attachmentId: string, userId: string) {
+  await requireNetworkRole(db, networkId, userId, "viewer");
+  const [row] = await db.select().from(attachments).where(and(eq(attachments.id, attachmentId), eq(attachments.networkId, networkId)));
+  if (!row) throw notFound("That attachment");
+  return { filename: row.filename, contentType: row.contentType, content: row.content };
+}
+
+export async function deleteAttachment(db: Database, networkId: string, attachmentId: string, userId: string): Promise<void> {
+  await requireNetworkRole(db, networkId, userId, "editor");
+  const deleted = await db
+    .delete(attachments)
+    .where(and(eq(attachments.id, attachmentId), eq(attachments.networkId, networkId)))
+    .returning({ id: attachments.id });
+  if (deleted.length === 0) throw notFound("That attachment");
+}

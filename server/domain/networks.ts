@@ -1,0 +1,237 @@
+// Networks: a team's circuits with their port and declared quantities.
+import { randomBytes } from "node:crypto";
+import { and, asc, count, eq, ilike, or, sql, type SQL } from "drizzle-orm";
+import type { Database } from "../db/client.js";
+import { networks, teamMembers, users, type Role } from "../db/schema.js";
+import { HttpError, notFound } from "../lib/errors.js";
+import { requireNetworkRole, requireTeamRole, type NetworkRow } from "./access.js";
+import { NETLIST_EXTENSION, readNetworkFile, type Network } from "./engine.js";
+
+export interface NetworkView {
+  id: string;
+  teamId: string;
+  slug: string;
+  title: string;
+  description: string;
+  circuit: Network;
+  port: Network["port"];
+  quantities: Record<string, string>;
+  author: { id: string; name: string } | null;
+  role: Role;
+  latestRevision: number | null;
+  createdAt: string;
+  updatedAt: string;
+}
+
+// The latest revision number and that revision's current verdict, read beside each network.
+const latestRevision = sql<number | null>`(select max(r.number) from revisions r where r.network_id = ${networks.id})`;
+const latestVerdict = sql<string | null>`(
+  select v.verdict from revision_verdicts v join revisions r on r.id = v.revision_id
+  where r.network_id = ${networks.id}
+    and r.number = (select max(r2.number) from revisions r2 where r2.network_id = ${networks.id})
+  order by v.created_at desc, v.id desc limit 1)`;
+
+function view(row: NetworkRow, role: Role, author: { id: string; name: string } | null, latest: number | null): NetworkView {
+  const circuit = row.circuit as Network;
+  return {
+    id: row.id,
+    teamId: row.teamId,
+    slug: row.slug,
+    title: row.title,
+    description: row.description,
+    circuit,
+    port: circuit.port,
+    quantities: circuit.quantities ?? {},
+    author,
+    role,
+    latestRevision: latest,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+// Human-readable and permanent: the title at creation plus a random suffix, never changed later.
+export function slugFor(title: string): string {
+  const base = title
+    .normalize("NFKD")
+    .replace(/[\u0300-\u036f]/g, "")
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 48)
+    .replace(/-+$/g, "");
+  const suffix = randomBytes(4).toString("hex").slice(0, 6);
+  return `${base || "network"}-${suffix}`;
+}
+
+async function loadView(db: Database, row: NetworkRow, role: Role): Promise<NetworkView> {
+  const [extra] = await db
+    .select({ authorName: users.name, latest: latestRevision })
+    .from(networks)
+    .leftJoin(users, eq(users.id, networks.authorId))
+    .where(eq(networks.id, row.id));
+  return view(row, role, row.authorId && extra?.authorName ? { id: row.authorId, name: extra.authorName } : null, extra?.latest ?? null);
+}
+
+export const networkSorts = ["title", "author", "lastRevision", "verdict", "updatedAt", "createdAt"] as const;
+
+export interface NetworkListQuery {
+  q?: string;
+  sort: (typeof networkSorts)[number];
+  order?: "asc" | "desc";
+  page: number;
+  pageSize: number;
+}
+
+export async function listNetworks(db: Database, teamId: string, userId: string, query: NetworkListQuery) {
+  await requireTeamRole(db, teamId, userId, "viewer");
+  const conditions: SQL[] = [eq(networks.teamId, teamId)];
+  if (query.q) {
+    const pattern = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    conditions.push(or(ilike(networks.title, pattern), ilike(networks.description, pattern))!);
+  }
+  const where = and(...conditions);
+  const column = {
+    title: sql`lower(${networks.title})`,
+    author: sql`lower(${users.name})`,
+    lastRevision: latestRevision,
+    verdict: latestVerdict,
+    updatedAt: sql`${networks.updatedAt}`,
+    createdAt: sql`${networks.createdAt}`,
+  }[query.sort];
+  const order = query.order ?? (query.sort === "title" || query.sort === "author" ? "asc" : "desc");
+  const rows = await db
+    .select({
+      id: networks.id,
+      slug: networks.slug,
+      title: networks.title,
+      description: networks.description,
+      authorId: networks.authorId,
+      authorName: users.name,
+      createdAt: networks.createdAt,
+      updatedAt: networks.updatedAt,
+      latestRevision,
+      verdict: latestVerdict,
+    })
+    .from(networks)
+    .leftJoin(users, eq(users.id, networks.authorId))
+    .where(where)
+    .orderBy(sql`${column} ${sql.raw(order)} nulls last`, asc(networks.id))
+    .limit(query.pageSize)
+    .offset((query.page - 1) * query.pageSize);
+  const [{ total }] = await db.select({ total: count() }).from(networks).where(where);
+  return {
+    networks: rows.map((row) => ({
+      id: row.id,
+      slug: row.slug,
+      title: row.title,
+      description: row.description,
+      author: row.authorId && row.authorName ? { id: row.authorId, name: row.authorName } : null,
+      latestRevision: row.latestRevision,
+      // A revision nobody has judged yet is open.
+      verdict: row.latestRevision === null ? null : (row.verdict ?? "open"),
+      createdAt: row.createdAt.toISOString(),
+      updatedAt: row.updatedAt.toISOString(),
+    })),
+    total,
+    page: query.page,
+    pageSize: query.pageSize,
+  };
+}
+
+export async function createNetwork(
+  db: Database,
+  teamId: string,
+  userId: string,
+  input: { title: string; description?: string; circuit: Network },
+): Promise<NetworkView> {
+  const role = await requireTeamRole(db, teamId, userId, "editor");
+  const [row] = await db
+    .insert(networks)
+    .values({ teamId, slug: slugFor(input.title), title: input.title, description: input.description ?? "", circuit: input.circuit, authorId: userId })
+    .returning();
+  return loadView(db, row, role);
+}
+
+export async function getNetwork(db: Database, networkId: string, userId: string): Promise<NetworkView> {
+  const { network, role } = await requireNetworkRole(db, networkId, userId, "viewer");
+  return loadView(db, network, role);
+}
+
+export async function networkIdForSlug(db: Database, slug: string, userId: string): Promise<string> {
+  const [row] = await db
+    .select({ id: networks.id })
+    .from(networks)
+    .innerJoin(teamMembers, and(eq(teamMembers.teamId, networks.teamId), eq(teamMembers.userId, userId)))
+    .where(eq(networks.slug, slug));
+  if (!row) throw notFound("That network");
+  return row.id;
+}
+
+export async function updateNetwork(
+  db: Database,
+  networkId: string,
+  userId: string,
+  patch: { title?: string; description?: string; circuit?: Network; expectedUpdatedAt?: string },
+): Promise<NetworkView> {
+  const { role } = await requireNetworkRole(db, networkId, userId, "editor");
+  const conditions: SQL[] = [eq(networks.id, networkId)];
+  // Optimistic concurrency: an edit made from a stale copy is refused rather than silently lost.
+  if (patch.expectedUpdatedAt) conditions.push(sql`date_trunc('milliseconds', ${networks.updatedAt}) = ${patch.expectedUpdatedAt}::timestamptz`);
+  const [row] = await db
+    .update(networks)
+    .set({
+      ...(patch.title !== undefined ? { title: patch.title } : {}),
+      ...(patch.description !== undefined ? { description: patch.description } : {}),
+      ...(patch.circuit !== undefined ? { circuit: patch.circuit } : {}),
+      updatedAt: new Date(),
+    })
+    .where(and(...conditions))
+    .returning();
+  if (!row) throw new HttpError(409, "stale", "The network changed since you loaded it; reload and apply your edit again.");
+  return loadView(db, row, role);
+}
+
+export async function deleteNetwork(db: Database, networkId: string, userId: string): Promise<void> {
+  await requireNetworkRole(db, networkId, userId, "editor");
+  await db.delete(networks).where(eq(networks.id, networkId));
+}
+
+export async function duplicateNetwork(db: Database, networkId: string, userId: string, title?: string): Promise<NetworkView> {
+  const { network } = await requireNetworkRole(db, networkId, userId, "editor");
+  return createNetwork(db, network.teamId, userId, {
+    title: title ?? `${network.title} (copy)`,
+    description: network.description,
+    circuit: network.circuit as Network,
+  });
+}
+
+const importExtensions = [".json", NETLIST_EXTENSION];
+const importTypes = ["application/json", "text/plain"];
+
+// Import from a file: our JSON or our text netlist, as UTF-8 text; refused with the engine's diagnostics.
+export async function importNetwork(
+  db: Database,
+  teamId: string,
+  userId: string,
+  file: { originalname: string; mimetype: string; buffer: Buffer },
+  title?: string,
+) {
+  const filename = file.originalname;
+  const dot = filename.lastIndexOf(".");
+  const extension = dot >= 0 ? filename.slice(dot).toLowerCase() : "";
+  if (!importExtensions.includes(extension) && !importTypes.includes(file.mimetype.toLowerCase())) {
+    throw new HttpError(415, "unsupported_type", `Import a Portfold network as JSON (.json) or as a Portfold netlist (${NETLIST_EXTENSION}).`, { file: "not a .json or netlist file" });
+  }
+  let text: string;
+  try {
+    text = new TextDecoder("utf-8", { fatal: true }).decode(file.buffer);
+  } catch {
+    text = "\u0000";
+  }
+  if (text.includes("\u0000")) throw new HttpError(415, "unsupported_type", "The file is not UTF-8 text.", { file: "binary content" });
+  const { network, format } = readNetworkFile(text);
+  const base = dot > 0 ? filename.slice(0, dot) : filename;
+  const created = await createNetwork(db, teamId, userId, { title: title?.trim() || base.trim() || "Imported network", circuit: network });
+  return { ...created, importedFrom: format };
+}

@@ -1,0 +1,170 @@
+// Derivation revisions: immutable solves of a network, numbered per network, steps as rows.
+import { and, asc, desc, eq, inArray, max } from "drizzle-orm";
+import type { Database } from "../db/client.js";
+import { networks, revisionSteps, revisionVerdicts, revisions, users, type Role, type Verdict } from "../db/schema.js";
+import { notFound } from "../lib/errors.js";
+import { requireNetworkRole, type NetworkRow } from "./access.js";
+import type { Diagnostic, Network } from "./engine.js";
+
+export interface StepInput {
+  id: string;
+  kind: string;
+  title: string;
+  explanation: string;
+  tex: string;
+  data: unknown;
+}
+
+export interface RevisionInput {
+  circuit: Network;
+  results: Record<string, unknown>;
+  diagnostics: Diagnostic[];
+  steps: StepInput[];
+}
+
+type RevisionRow = typeof revisions.$inferSelect;
+
+export interface VerdictView {
+  verdict: Verdict;
+  by: { id: string; name: string } | null;
+  at: string | null;
+}
+
+export function permalink(slug: string, number: number): string {
+  return `/n/${slug}/r/${number}`;
+}
+
+// Large derivations are written in slices so one INSERT stays under PostgreSQL's parameter limit.
+const stepsPerInsert = 500;
+
+// All or nothing: the revision row and every step commit together or not at all.
+export async function storeRevision(db: Database, networkId: string, userId: string, input: RevisionInput): Promise<RevisionRow> {
+  return db.transaction(async (tx) => {
+    // Locking the network row serializes concurrent solves, so numbers never collide.
+    await tx.select({ id: networks.id }).from(networks).where(eq(networks.id, networkId)).for("update");
+    const [{ last }] = await tx.select({ last: max(revisions.number) }).from(revisions).where(eq(revisions.networkId, networkId));
+    const [revision] = await tx
+      .insert(revisions)
+      .values({
+        networkId,
+        number: (last ?? 0) + 1,
+        circuit: input.circuit,
+        results: input.results,
+        diagnostics: input.diagnostics,
+        createdBy: userId,
+      })
+      .returning();
+    for (let start = 0; start < input.steps.length; start += stepsPerInsert) {
+      const slice = input.steps.slice(start, start + stepsPerInsert);
+      await tx.insert(revisionSteps).values(
+        slice.map((step, offset) => ({
+          revisionId: revision.id,
+          ordinal: start + offset + 1,
+          stepKey: step.id,
+          kind: step.kind,
+          title: step.title,
+          explanation: step.explanation,
+          tex: step.tex,
+          data: step.data ?? {},
+        })),
+      );
+    }
+    return revision;
+  });
+}
+
+export async function currentVerdicts(db: Database, revisionIds: string[]): Promise<Map<string, VerdictView>> {
+  const out = new Map<string, VerdictView>();
+  if (revisionIds.length === 0) return out;
+  const rows = await db
+    .selectDistinctOn([revisionVerdicts.revisionId], {
+      revisionId: revisionVerdicts.revisionId,
+      verdict: revisionVerdicts.verdict,
+      userId: revisionVerdicts.userId,
+      userName: users.name,
+      at: revisionVerdicts.createdAt,
+    })
+    .from(revisionVerdicts)
+    .leftJoin(users, eq(users.id, revisionVerdicts.userId))
+    .where(inArray(revisionVerdicts.revisionId, revisionIds))
+    .orderBy(revisionVerdicts.revisionId, desc(revisionVerdicts.createdAt), desc(revisionVerdicts.id));
+  for (const row of rows) {
+    out.set(row.revisionId, {
+      verdict: row.verdict,
+      by: row.userId && row.userName ? { id: row.userId, name: row.userName } : null,
+      at: row.at.toISOString(),
+    });
+  }
+  return out;
+}
+
+export const openVerdict: VerdictView = { verdict: "open", by: null, at: null };
+
+export async function revisionView(db: Database, network: Pick<NetworkRow, "id" | "slug" | "title">, revision: RevisionRow) {
+  const steps = await db
+    .select()
+    .from(revisionSteps)
+    .where(eq(revisionSteps.revisionId, revision.id))
+    .orderBy(asc(revisionSteps.ordinal));
+  const [author] = revision.createdBy ? await db.select({ name: users.name }).from(users).where(eq(users.id, revision.createdBy)) : [];
+  const verdict = (await currentVerdicts(db, [revision.id])).get(revision.id) ?? openVerdict;
+  return {
+    id: revision.id,
+    networkId: network.id,
+    number: revision.number,
+    permalink: permalink(network.slug, revision.number),
+    network: { id: network.id, slug: network.slug, title: network.title },
+    circuit: revision.circuit as Network,
+    results: revision.results as Record<string, unknown>,
+    diagnostics: revision.diagnostics as Diagnostic[],
+    steps: steps.map((step) => ({
+      id: step.stepKey,
+      ordinal: step.ordinal,
+      kind: step.kind,
+      title: step.title,
+      explanation: step.explanation,
+      tex: step.tex,
+      data: step.data,
+    })),
+    verdict,
+    createdBy: revision.createdBy && author ? { id: revision.createdBy, name: author.name } : null,
+    createdAt: revision.createdAt.toISOString(),
+  };
+}
+
+export type RevisionView = Awaited<ReturnType<typeof revisionView>>;
+
+export async function requireRevision(db: Database, networkId: string, number: number, userId: string, minimum: Role) {
+  const access = await requireNetworkRole(db, networkId, userId, minimum);
+  const [revision] = await db.select().from(revisions).where(and(eq(revisions.networkId, networkId), eq(revisions.number, number)));
+  if (!revision) throw notFound("That revision");
+  return { ...access, revision };
+}
+
+export async function getRevision(db: Database, networkId: string, number: number, userId: string): Promise<RevisionView> {
+  const { network, revision } = await requireRevision(db, networkId, number, userId, "viewer");
+  return revisionView(db, network, revision);
+}
+
+export async function listRevisions(db: Database, networkId: string, userId: string) {
+  const { network } = await requireNetworkRole(db, networkId, userId, "viewer");
+  const rows = await db
+    .select({ revision: revisions, authorName: users.name })
+    .from(revisions)
+    .leftJoin(users, eq(users.id, revisions.createdBy))
+    .where(eq(revisions.networkId, networkId))
+    .orderBy(desc(revisions.number));
+  const verdictByRevision = await currentVerdicts(db, rows.map((row) => row.revision.id));
+  return rows.map(({ revision, authorName }) => {
+    const results = revision.results as Record<string, { infix?: string } | null>;
+    return {
+      id: revision.id,
+      number: revision.number,
+      permalink: permalink(network.slug, revision.number),
+      createdBy: revision.createdBy && authorName ? { id: revision.createdBy, name: authorName } : null,
+      createdAt: revision.createdAt.toISOString(),
+      verdict: verdictByRevision.get(revision.id) ?? openVerdict,
+      summary: { vth: results.vth?.infix ?? null, rth: results.rth?.infix ?? null, isc: results.isc?.infix ?? null },
+    };
+  });
+}

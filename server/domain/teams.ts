@@ -1,0 +1,187 @@
+// Teams, their members and roles; invitations by e-mail with an expiring token.
+import { and, asc, count, eq, gt, isNull, sql } from "drizzle-orm";
+import type { Database } from "../db/client.js";
+import { invitations, teamMembers, teams, users, type Role } from "../db/schema.js";
+import { HttpError, notFound } from "../lib/errors.js";
+import { hashToken, newToken } from "../lib/tokens.js";
+import { invitationMail } from "../mail/templates.js";
+import { requireTeamRole } from "./access.js";
+import type { PublicUser } from "./accounts.js";
+import { link, type Services } from "./services.js";
+
+const invitationLifetimeMs = 7 * 24 * 3_600_000;
+
+export interface TeamMember {
+  userId: string;
+  name: string;
+  email: string;
+  role: Role;
+}
+
+export interface TeamDetail {
+  id: string;
+  name: string;
+  personal: boolean;
+  role: Role;
+  members: TeamMember[];
+  createdAt: string;
+}
+
+export async function createTeam(db: Database, userId: string, name: string) {
+  return db.transaction(async (tx) => {
+    const [team] = await tx.insert(teams).values({ name }).returning();
+    await tx.insert(teamMembers).values({ teamId: team.id, userId, role: "owner" });
+    return { id: team.id, name: team.name, personal: false, role: "owner" as Role, createdAt: team.createdAt.toISOString() };
+  });
+}
+
+export async function teamDetail(db: Database, teamId: string, userId: string): Promise<TeamDetail> {
+  const role = await requireTeamRole(db, teamId, userId, "viewer");
+  const [team] = await db.select().from(teams).where(eq(teams.id, teamId));
+  const members = await db
+    .select({ userId: users.id, name: users.name, email: users.email, role: teamMembers.role })
+    .from(teamMembers)
+    .innerJoin(users, eq(users.id, teamMembers.userId))
+    .where(eq(teamMembers.teamId, teamId))
+    .orderBy(asc(users.name));
+  return { id: team.id, name: team.name, personal: team.personalUserId === userId, role, members, createdAt: team.createdAt.toISOString() };
+}
+
+export async function renameTeam(db: Database, teamId: string, userId: string, name: string): Promise<TeamDetail> {
+  await requireTeamRole(db, teamId, userId, "owner");
+  await db.update(teams).set({ name }).where(eq(teams.id, teamId));
+  return teamDetail(db, teamId, userId);
+}
+
+export async function deleteTeam(db: Database, teamId: string, userId: string): Promise<void> {
+  await requireTeamRole(db, teamId, userId, "owner");
+  const [team] = await db.select({ personalUserId: teams.personalUserId }).from(teams).where(eq(teams.id, teamId));
+  if (team.personalUserId) throw new HttpError(409, "personal_team", "A personal team cannot be deleted.");
+  await db.delete(teams).where(eq(teams.id, teamId));
+}
+
+async function ownerCount(db: Database, teamId: string): Promise<number> {
+  const [row] = await db.select({ n: count() }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.role, "owner")));
+  return row.n;
+}
+
+async function memberOf(db: Database, teamId: string, memberId: string): Promise<Role> {
+  const [row] = await db.select({ role: teamMembers.role }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+  if (!row) throw notFound("That member");
+  return row.role;
+}
+
+const lastOwner = () => new HttpError(409, "last_owner", "A team keeps at least one owner; make someone else owner first.");
+
+export async function changeMemberRole(db: Database, teamId: string, userId: string, memberId: string, role: Role): Promise<TeamDetail> {
+  await requireTeamRole(db, teamId, userId, "owner");
+  const current = await memberOf(db, teamId, memberId);
+  if (current === "owner" && role !== "owner" && (await ownerCount(db, teamId)) <= 1) throw lastOwner();
+  await db.update(teamMembers).set({ role }).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+  return teamDetail(db, teamId, userId);
+}
+
+// Owners remove anyone; every member may leave by removing themselves.
+export async function removeMember(db: Database, teamId: string, userId: string, memberId: string): Promise<void> {
+  await requireTeamRole(db, teamId, userId, memberId === userId ? "viewer" : "owner");
+  const current = await memberOf(db, teamId, memberId);
+  if (current === "owner" && (await ownerCount(db, teamId)) <= 1) throw lastOwner();
+  await db.delete(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+}
+
+// ---- invitations ----
+
+type InvitationRow = typeof invitations.$inferSelect;
+
+function invitationView(row: InvitationRow) {
+  return {
+    id: row.id,
+    email: row.email,
+    role: row.role,
+    expiresAt: row.expiresAt.toISOString(),
+    acceptedAt: row.acceptedAt?.toISOString() ?? null,
+    createdAt: row.createdAt.toISOString(),
+  };
+}
+
+export async function inviteMember(services: Services, teamId: string, inviter: PublicUser, email: string, role: Role) {
+  const { db } = services;
+  await requireTeamRole(db, teamId, inviter.id, "owner");
+  // Mail to other people only from a confirmed address, so sign-ups cannot be used to send spam.
+  if (!inviter.emailVerified) throw new HttpError(403, "email_unverified", "Confirm your own e-mail address before inviting others.");
+  const [existing] = await db
+    .select({ id: users.id })
+    .from(teamMembers)
+    .innerJoin(users, eq(users.id, teamMembers.userId))
+    .where(and(eq(teamMembers.teamId, teamId), eq(users.email, email)));
+  if (existing) throw new HttpError(409, "already_member", "This address already belongs to a member of the team.", { email: "already a member" });
+  const [team] = await db.select({ name: teams.name }).from(teams).where(eq(teams.id, teamId));
+  const { token, hash } = newToken();
+  const [row] = await db
+    .insert(invitations)
+    .values({ teamId, email, role, tokenHash: hash, invitedBy: inviter.id, expiresAt: new Date(Date.now() + invitationLifetimeMs) })
+    .returning();
+  await services.mailer.send(invitationMail(email, inviter.name, team.name, role, link(services, `/invitations/accept?token=${token}`)));
+  return invitationView(row);
+}
+
+export async function pendingInvitations(db: Database, teamId: string, userId: string) {
+  await requireTeamRole(db, teamId, userId, "owner");
+  const rows = await db
+    .select()
+    .from(invitations)
+    .where(and(eq(invitations.teamId, teamId), isNull(invitations.acceptedAt), gt(invitations.expiresAt, sql`now()`)))
+    .orderBy(asc(invitations.createdAt));
+  return rows.map(invitationView);
+}
+
+export async function revokeInvitation(db: Database, teamId: string, userId: string, invitationId: string): Promise<void> {
+  await requireTeamRole(db, teamId, userId, "owner");
+  const deleted = await db
+    .delete(invitations)
+    .where(and(eq(invitations.id, invitationId), eq(invitations.teamId, teamId), isNull(invitations.acceptedAt)))
+    .returning({ id: invitations.id });
+  if (deleted.length === 0) throw notFound("That invitation");
+}
+
+async function openInvitation(db: Database, token: string) {
+  const [row] = await db
+    .select({ invitation: invitations, teamName: teams.name, inviterName: users.name })
+    .from(invitations)
+    .innerJoin(teams, eq(teams.id, invitations.teamId))
+    .leftJoin(users, eq(users.id, invitations.invitedBy))
+    .where(and(eq(invitations.tokenHash, hashToken(token)), isNull(invitations.acceptedAt), gt(invitations.expiresAt, sql`now()`)));
+  return row ?? null;
+}
+
+// What the accept page shows before the invitee signs in: the token is the only credential.
+export async function invitationPreview(db: Database, token: string) {
+  const row = await openInvitation(db, token);
+  if (!row) throw notFound("That invitation");
+  return {
+    team: { id: row.invitation.teamId, name: row.teamName },
+    role: row.invitation.role,
+    email: row.invitation.email,
+    invitedBy: row.inviterName,
+    expiresAt: row.invitation.expiresAt.toISOString(),
+  };
+}
+
+export async function acceptInvitation(db: Database, token: string, userId: string) {
+  return db.transaction(async (tx) => {
+    const [invitation] = await tx
+      .update(invitations)
+      .set({ acceptedAt: new Date(), acceptedBy: userId })
+      .where(and(eq(invitations.tokenHash, hashToken(token)), isNull(invitations.acceptedAt), gt(invitations.expiresAt, sql`now()`)))
+      .returning();
+    if (!invitation) throw notFound("That invitation");
+    const joined = await tx
+      .insert(teamMembers)
+      .values({ teamId: invitation.teamId, userId, role: invitation.role })
+      .onConflictDoNothing()
+      .returning({ role: teamMembers.role });
+    if (joined.length === 0) throw new HttpError(409, "already_member", "You are already a member of this team.");
+    const [team] = await tx.select().from(teams).where(eq(teams.id, invitation.teamId));
+    return { id: team.id, name: team.name, role: invitation.role, personal: false };
+  });
+}

@@ -1,0 +1,52 @@
+import { Router } from "express";
+import { signedInUser } from "../auth/session.js";
+import { requireNetworkRole } from "../domain/access.js";
+import { addAttachment, attachmentContent, deleteAttachment, listAttachments } from "../domain/attachments.js";
+import type { Services } from "../domain/services.js";
+import { readUpload } from "../lib/uploads.js";
+import { idParam } from "../lib/validate.js";
+
+export function attachmentsRouter(services: Services): Router {
+  const router = Router();
+  const { db } = services;
+  const path = "/networks/:networkId/attachments";
+
+  router.post(path, async (req, res) => {
+    const user = signedInUser(res);
+    const networkId = idParam(req.params.networkId, "That network");
+    // Access first: a file is only read into memory for someone allowed to attach it.
+    await requireNetworkRole(db, networkId, user.id, "editor");
+    const { file } = await readUpload(req, res, services.settings.limits.attachmentBytes);
+    res.status(201).json(await addAttachment(db, networkId, user.id, file));
+  });
+
+  router.get(path, async (req, res) => {
+    const user = signedInUser(res);
+    res.json({ attachments: await listAttachments(db, idParam(req.params.networkId, "That network"), user.id) });
+  });
+
+  router.get(`${path}/:attachmentId`, async (req, res) => {
+    const user = signedInUser(res);
+    const networkId = idParam(req.params.networkId, "That network");
+    const file = await attachmentContent(db, networkId, idParam(req.params.attachmentId, "That attachment"), user.id);
+    // Always a download with the sniffed type (set after attachment(), which guesses from the name);
+    // the sandbox keeps a crafted PDF from running as our page.
+    res.attachment(file.filename);
+    res.set({
+      "Content-Type": file.contentType,
+      "Content-Length": String(file.content.length),
+      "Content-Security-Policy": "sandbox; default-src 'none'",
+      "Cache-Control": "private, no-cache",
+    });
+    res.end(file.content);
+  });
+
+  router.delete(`${path}/:attachmentId`, async (req, res) => {
+    const user = signedInUser(res);
+    const networkId = idParam(req.params.networkId, "That network");
+    await deleteAttachment(db, networkId, idParam(req.params.attachmentId, "That attachment"), user.id);
+    res.status(204).end();
+  });
+
+  return router;
+}

@@ -1,0 +1,67 @@
+// The development mailbox: JSON for tests and tools, a plain page for people. 404 in production.
+import { Router, type RequestHandler } from "express";
+import { z } from "zod";
+import { capturedMail } from "../domain/mailbox.js";
+import type { Services } from "../domain/services.js";
+import { notFound } from "../lib/errors.js";
+import { escapeHtml } from "../lib/html.js";
+import { parseQuery, plainText } from "../lib/validate.js";
+
+const mailQuery = z.object({
+  to: plainText(254).optional(),
+  limit: z.coerce.number().int().min(1).max(500).default(100),
+});
+
+// Links become clickable after escaping; only the already-escaped text is ever emitted.
+function linkify(escaped: string): string {
+  return escaped.replace(/https?:\/\/[^\s<>"']+/g, (url) => `<a href="${url}">${url}</a>`);
+}
+
+function mailboxPage(messages: Awaited<ReturnType<typeof capturedMail>>): string {
+  const items = messages
+    .map(
+      (m) => `<article>
+  <h2>${escapeHtml(m.subject || "(no subject)")}</h2>
+  <p class="meta">to ${escapeHtml(m.to.join(", "))} · from ${escapeHtml(m.from)} · ${escapeHtml(m.receivedAt)}</p>
+  <pre>${linkify(escapeHtml(m.text))}</pre>
+</article>`,
+    )
+    .join("\n");
+  return `<!doctype html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta name="robots" content="noindex">
+<title>Mailbox · Portfold development</title>
+<style>
+body { font: 15px/1.5 system-ui, sans-serif; max-width: 52rem; margin: 2rem auto; padding: 0 1rem; color: #1d232a; }
+article { border-top: 1px solid #ccd; padding: .5rem 0 1rem; }
+h2 { font-size: 1.05rem; margin: .5rem 0 0; }
+.meta { color: #667; margin: .2rem 0 .6rem; font-size: .85rem; }
+pre { white-space: pre-wrap; font: inherit; margin: 0; }
+</style>
+</head>
+<body>
+<h1>Mailbox</h1>
+<p>Every message Portfold sent while running without <code>SMTP_HOST</code>, newest first. This page does not exist in production.</p>
+${items || "<p>No mail yet.</p>"}
+</body>
+</html>`;
+}
+
+export function devMailRouter(services: Services): Router {
+  const router = Router();
+  const developmentOnly: RequestHandler = (_req, _res, next) => next(services.settings.production ? notFound() : undefined);
+
+  router.get("/api/dev/mail", developmentOnly, async (req, res) => {
+    const query = parseQuery(mailQuery, req.query);
+    res.json({ messages: await capturedMail(services.db, query) });
+  });
+
+  router.get("/dev/mailbox", developmentOnly, async (req, res) => {
+    const query = parseQuery(mailQuery, req.query);
+    res.set("Cache-Control", "no-store").type("html").send(mailboxPage(await capturedMail(services.db, query)));
+  });
+
+  return router;
+}

@@ -1,0 +1,102 @@
+import { Router } from "express";
+import { z } from "zod";
+import { signedInUser } from "../auth/session.js";
+import { requireTeamRole } from "../domain/access.js";
+import { readCircuit } from "../domain/engine.js";
+import {
+  createNetwork,
+  deleteNetwork,
+  duplicateNetwork,
+  getNetwork,
+  importNetwork,
+  listNetworks,
+  networkIdForSlug,
+  networkSorts,
+  updateNetwork,
+} from "../domain/networks.js";
+import type { Services } from "../domain/services.js";
+import { notFound } from "../lib/errors.js";
+import { readUpload } from "../lib/uploads.js";
+import { idParam, parseBody, parseQuery, plainText } from "../lib/validate.js";
+
+const title = z.string().trim().min(1, { error: "Give the network a title." }).max(200);
+const description = z.string().max(5_000);
+// The circuit's shape is the engine's to judge (readCircuit); here it only has to be an object.
+const circuit = z.record(z.string(), z.unknown(), { error: "The circuit is a JSON object in Portfold's network format." });
+
+const createBody = z.object({ title, description: description.optional(), circuit });
+const patchBody = z
+  .object({ title: title.optional(), description: description.optional(), circuit: circuit.optional(), expectedUpdatedAt: z.iso.datetime({ offset: true }).optional() })
+  .refine((body) => body.title !== undefined || body.description !== undefined || body.circuit !== undefined, { error: "Change at least one of title, description, circuit." });
+const duplicateBody = z.object({ title: title.optional() });
+const listQuery = z.object({
+  q: plainText(200).optional(),
+  sort: z.enum(networkSorts).default("updatedAt"),
+  order: z.enum(["asc", "desc"]).optional(),
+  page: z.coerce.number().int().min(1).max(1_000_000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+});
+
+export function networksRouter(services: Services): Router {
+  const router = Router();
+  const { db } = services;
+
+  router.get("/teams/:teamId/networks", async (req, res) => {
+    const user = signedInUser(res);
+    const teamId = idParam(req.params.teamId, "That team");
+    const query = parseQuery(listQuery, req.query);
+    res.json(await listNetworks(db, teamId, user.id, { ...query, q: query.q || undefined }));
+  });
+
+  router.post("/teams/:teamId/networks", async (req, res) => {
+    const user = signedInUser(res);
+    const teamId = idParam(req.params.teamId, "That team");
+    const body = parseBody(createBody, req.body);
+    res.status(201).json(await createNetwork(db, teamId, user.id, { ...body, circuit: readCircuit(body.circuit) }));
+  });
+
+  router.post("/teams/:teamId/networks/import", async (req, res) => {
+    const user = signedInUser(res);
+    const teamId = idParam(req.params.teamId, "That team");
+    // Access first: a file is only read into memory for someone allowed to import it.
+    await requireTeamRole(db, teamId, user.id, "editor");
+    const { file, fields } = await readUpload(req, res, services.settings.limits.importBytes);
+    const given = plainText(200).safeParse(fields.title).data;
+    res.status(201).json(await importNetwork(db, teamId, user.id, file, given));
+  });
+
+  router.get("/networks/by-slug/:slug", async (req, res) => {
+    const user = signedInUser(res);
+    const slug = req.params.slug;
+    if (!/^[a-z0-9-]{1,80}$/.test(slug)) throw notFound("That network");
+    res.json(await getNetwork(db, await networkIdForSlug(db, slug, user.id), user.id));
+  });
+
+  router.get("/networks/:networkId", async (req, res) => {
+    const user = signedInUser(res);
+    res.json(await getNetwork(db, idParam(req.params.networkId, "That network"), user.id));
+  });
+
+  router.patch("/networks/:networkId", async (req, res) => {
+    const user = signedInUser(res);
+    const networkId = idParam(req.params.networkId, "That network");
+    const body = parseBody(patchBody, req.body);
+    const patch = { ...body, circuit: body.circuit === undefined ? undefined : readCircuit(body.circuit) };
+    res.json(await updateNetwork(db, networkId, user.id, patch));
+  });
+
+  router.delete("/networks/:networkId", async (req, res) => {
+    const user = signedInUser(res);
+    await deleteNetwork(db, idParam(req.params.networkId, "That network"), user.id);
+    res.status(204).end();
+  });
+
+  router.post("/networks/:networkId/duplicate", async (req, res) => {
+    const user = signedInUser(res);
+    const networkId = idParam(req.params.networkId, "That network");
+    const body = parseBody(duplicateBody, req.body);
+    res.status(201).json(await duplicateNetwork(db, networkId, user.id, body.title));
+  });
+
+  return router;
+}

@@ -1,0 +1,51 @@
+import { Router } from "express";
+import { z } from "zod";
+import { signedInUser } from "../auth/session.js";
+import type { Services } from "../domain/services.js";
+import { createShare, listShares, revokeShare, revokeShareByToken, sharedRevision } from "../domain/shares.js";
+import { idParam, parseBody, revisionNumberParam, tokenParam } from "../lib/validate.js";
+
+const shareBody = z.object({ expiresAt: z.iso.datetime({ offset: true }).nullable().optional() });
+
+export function sharesRouter(services: Services): Router {
+  const router = Router();
+  const { db } = services;
+  const path = "/networks/:networkId/revisions/:number/share";
+
+  router.post(path, async (req, res) => {
+    const user = signedInUser(res);
+    const networkId = idParam(req.params.networkId, "That network");
+    const number = revisionNumberParam(req.params.number);
+    const { expiresAt } = parseBody(shareBody, req.body);
+    res.status(201).json(await createShare(services, networkId, number, user.id, expiresAt ? new Date(expiresAt) : null));
+  });
+
+  router.get(path, async (req, res) => {
+    const user = signedInUser(res);
+    const networkId = idParam(req.params.networkId, "That network");
+    const number = revisionNumberParam(req.params.number);
+    res.json({ shares: await listShares(db, networkId, user.id, number) });
+  });
+
+  router.delete(`${path}/:shareId`, async (req, res) => {
+    const user = signedInUser(res);
+    const networkId = idParam(req.params.networkId, "That network");
+    const number = revisionNumberParam(req.params.number);
+    await revokeShare(db, networkId, number, idParam(req.params.shareId, "That share link"), user.id);
+    res.status(204).end();
+  });
+
+  // The link itself: no account needed to read; revoking by token needs an editor of its team.
+  router.get("/share/:token", async (req, res) => {
+    res.set("Cache-Control", "no-store");
+    res.json(await sharedRevision(db, tokenParam(req.params.token)));
+  });
+
+  router.delete("/share/:token", async (req, res) => {
+    const user = signedInUser(res);
+    await revokeShareByToken(db, tokenParam(req.params.token), user.id);
+    res.status(204).end();
+  });
+
+  return router;
+}

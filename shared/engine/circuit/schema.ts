@@ -1,0 +1,117 @@
+// The interchange format (JSON) checked at the edge with zod; issues become diagnostics with a path.
+
+import { z } from "zod";
+import type { Diagnostic, Network, NetworkInput, Quantity } from "../types";
+import { ELEMENT_KINDS, QUANTITIES } from "../types";
+import { diagnostic } from "./diagnostics";
+
+/** Element and node names: letters, digits and underscore, so the text netlist can always spell them. */
+export const NAME_PATTERN = /^[\p{L}\p{N}_]+$/u;
+
+const name = z.string().regex(NAME_PATTERN, "a name is letters, digits and underscore");
+const node = z.string().regex(NAME_PATTERN, "a node name is letters, digits and underscore");
+// Numbers are accepted for convenience and kept as their decimal text.
+const value = z.union([z.string().trim().min(1, "a value cannot be empty"), z.number().finite().transform((n) => String(n))]);
+const nodePair = z.tuple([node, node]);
+
+const twoTerminal = z.strictObject({
+  name,
+  kind: z.enum(["resistor", "conductance", "capacitor", "inductor", "vsource", "isource"]),
+  nodes: nodePair,
+  value,
+});
+
+const control = z.union([z.strictObject({ nodes: nodePair }), z.strictObject({ element: name })]);
+
+const controlled = z.strictObject({
+  name,
+  kind: z.enum(["vcvs", "vccs", "ccvs", "cccs"]),
+  nodes: nodePair,
+  control,
+  value,
+});
+
+const opamp = z.strictObject({
+  name,
+  kind: z.literal("opamp"),
+  inputs: nodePair,
+  output: node,
+});
+
+const element = z.discriminatedUnion("kind", [twoTerminal, controlled, opamp]);
+
+export const networkSchema = z.strictObject({
+  ground: node.optional(),
+  port: z.strictObject({ plus: node, minus: node }),
+  elements: z.array(element),
+  quantities: z.record(z.string(), z.enum(QUANTITIES)).optional(),
+});
+
+/** Check a parsed JSON value against the interchange format. */
+export function validateNetworkJson(input: unknown): { network: Network | null; diagnostics: Diagnostic[] } {
+  const kindProblems = unknownKinds(input);
+  if (kindProblems.length > 0) return { network: null, diagnostics: kindProblems };
+  const parsed = networkSchema.safeParse(input);
+  if (!parsed.success) {
+    return {
+      network: null,
+      diagnostics: parsed.error.issues.map((issue) => {
+        const path = issue.path.map((p) => (typeof p === "number" ? p : String(p)));
+        const elementName = elementNameAt(input, path);
+        return diagnostic("schema-invalid", `${formatPath(path)}: ${issue.message}`, {
+          path,
+          elements: elementName ? [elementName] : [],
+        });
+      }),
+    };
+  }
+  return { network: normalizeNetwork(parsed.data as NetworkInput), diagnostics: [] };
+}
+
+/** Fill in defaults so later stages see one shape. */
+export function normalizeNetwork(input: NetworkInput): Network {
+  const network: Network = {
+    ground: input.ground ?? "0",
+    port: { plus: input.port.plus, minus: input.port.minus },
+    elements: input.elements.map((e) => ({ ...e }) as typeof e),
+  };
+  if (input.quantities && Object.keys(input.quantities).length > 0) {
+    network.quantities = { ...input.quantities } as Record<string, Quantity>;
+  }
+  return network;
+}
+
+// zod's message for an unknown discriminator is generic; name the kinds we accept instead.
+function unknownKinds(input: unknown): Diagnostic[] {
+  if (typeof input !== "object" || input === null) return [];
+  const elements = (input as { elements?: unknown }).elements;
+  if (!Array.isArray(elements)) return [];
+  const out: Diagnostic[] = [];
+  elements.forEach((e, i) => {
+    if (typeof e !== "object" || e === null) return;
+    const kind = (e as { kind?: unknown }).kind;
+    if (typeof kind === "string" && !(ELEMENT_KINDS as readonly string[]).includes(kind)) {
+      const n = (e as { name?: unknown }).name;
+      out.push(
+        diagnostic("schema-invalid", `elements[${i}].kind: unknown element kind "${kind}" (one of ${ELEMENT_KINDS.join(", ")})`, {
+          path: ["elements", i, "kind"],
+          elements: typeof n === "string" ? [n] : [],
+        }),
+      );
+    }
+  });
+  return out;
+}
+
+function elementNameAt(input: unknown, path: (string | number)[]): string | null {
+  if (path[0] !== "elements" || typeof path[1] !== "number") return null;
+  const elements = (input as { elements?: unknown[] }).elements;
+  const e = Array.isArray(elements) ? elements[path[1]] : undefined;
+  const n = e && typeof e === "object" ? (e as { name?: unknown }).name : undefined;
+  return typeof n === "string" ? n : null;
+}
+
+function formatPath(path: (string | number)[]): string {
+  if (path.length === 0) return "network";
+  return path.map((p, i) => (typeof p === "number" ? `[${p}]` : i === 0 ? p : `.${p}`)).join("");
+}

@@ -1,0 +1,476 @@
+// Element stamps of modified nodal analysis: one function per element kind.
+//
+// Rows are KCL equations "sum of currents leaving the node = 0" (sources moved to the right side)
+// and one branch equation per extra unknown. Unknowns are node voltages V:<node> and branch
+// currents I:<element>. An element's reference current flows from its first node, through it,
+// to its second node; an op-amp's current I:<name> is what it delivers into its output node.
+
+import { Poly, RationalFunction } from "../algebra";
+import type { ControlledSourceElement, Element, OpampElement, TwoTerminalElement } from "../types";
+import { currentInfix, currentTex, differenceOf, negate, over, times, voltageInfix, voltageTex, type Written } from "./display";
+import { LAPLACE, coefficientOf, type Coefficient, type InternalSymbol } from "./values";
+
+export const kclRow = (node: string) => `KCL:${node}`;
+export const branchRow = (element: string) => `BR:${element}`;
+export const voltageUnknown = (node: string) => `V:${node}`;
+export const currentUnknown = (element: string) => `I:${element}`;
+
+export interface MatrixEntry {
+  row: string;
+  col: string;
+  coeff: Poly;
+  display: RationalFunction;
+}
+
+/** A right-side term contributed by an independent source. */
+export interface SourceEntry {
+  row: string;
+  value: Poly;
+  display: RationalFunction;
+}
+
+/** The current an element carries out of a node, as the KCL step writes it. */
+export interface NodeCurrent {
+  node: string;
+  written: Written;
+}
+
+export interface BranchEquation {
+  row: string;
+  unknown: string;
+  kind: "constraint" | "control";
+  /** "lhs = rhs" */
+  equation: Written;
+  explanation: string;
+}
+
+export interface ControlVariable {
+  equation: Written;
+  explanation: string;
+}
+
+export interface ElementStamp {
+  element: string;
+  kind: Element["kind"];
+  entries: MatrixEntry[];
+  sources: SourceEntry[];
+  currents: NodeCurrent[];
+  branch: BranchEquation | null;
+  control: ControlVariable | null;
+  internals: InternalSymbol[];
+}
+
+export interface StampContext {
+  ground: string;
+  /** Position of the element in the network, for internal variable names. */
+  index: number;
+  /** Parsed value (user symbols); null for op-amps. */
+  value: RationalFunction | null;
+  /** The element's current is an unknown (it is some dependent source's control). */
+  branchForm: boolean;
+}
+
+const ONE = RationalFunction.constant(1);
+
+function entry(row: string, col: string, c: { poly: Poly; display: RationalFunction }, sign: 1 | -1 = 1): MatrixEntry {
+  return sign === 1 ? { row, col, coeff: c.poly, display: c.display } : { row, col, coeff: c.poly.neg(), display: c.display.neg() };
+}
+
+const unit = { poly: Poly.one(), display: ONE };
+
+function internalsOf(...cs: (Coefficient | null)[]): InternalSymbol[] {
+  return cs.flatMap((c) => (c && c.internal ? [c.internal] : []));
+}
+
+/** ±I at the two nodes: the element's branch current enters KCL. */
+function branchCurrentEntries(e: { name: string; nodes: [string, string] }): MatrixEntry[] {
+  const col = currentUnknown(e.name);
+  return [entry(kclRow(e.nodes[0]), col, unit), entry(kclRow(e.nodes[1]), col, unit, -1)];
+}
+
+function branchCurrents(e: { name: string; nodes: [string, string] }): NodeCurrent[] {
+  const i = { infix: currentInfix(e.name), tex: currentTex(e.name) };
+  return [
+    { node: e.nodes[0], written: i },
+    { node: e.nodes[1], written: negate(i) },
+  ];
+}
+
+/** The four entries of an admittance between two nodes. */
+function admittanceEntries(a: string, b: string, c: Coefficient): MatrixEntry[] {
+  return [
+    entry(kclRow(a), voltageUnknown(a), c),
+    entry(kclRow(a), voltageUnknown(b), c, -1),
+    entry(kclRow(b), voltageUnknown(a), c, -1),
+    entry(kclRow(b), voltageUnknown(b), c),
+  ];
+}
+
+/** Entries that add coefficient × (V(c1) − V(c2)) to a row. */
+function differenceEntries(row: string, c1: string, c2: string, c: { poly: Poly; display: RationalFunction }, sign: 1 | -1 = 1): MatrixEntry[] {
+  return [entry(row, voltageUnknown(c1), c, sign), entry(row, voltageUnknown(c2), c, sign === 1 ? -1 : 1)];
+}
+
+function written(lhs: Written, rhs: Written): Written {
+  return { infix: `${lhs.infix} = ${rhs.infix}`, tex: `${lhs.tex} = ${rhs.tex}` };
+}
+
+function valueWritten(v: RationalFunction): Written {
+  return { infix: v.toInfix(), tex: v.toTex() };
+}
+
+// ---- passives ---------------------------------------------------------------------------
+
+interface PassiveForm {
+  /** Admittance in user symbols. */
+  admittance: RationalFunction;
+  /** Impedance in user symbols. */
+  impedance: RationalFunction;
+  /** Current from a to b written from the difference. */
+  current: (diff: Written & { terms: number }) => Written;
+  phrase: string;
+}
+
+function stampPassive(e: TwoTerminalElement, ctx: StampContext, form: PassiveForm): ElementStamp {
+  const [a, b] = e.nodes;
+  const base = { element: e.name, kind: e.kind, sources: [], control: null };
+  if (!ctx.branchForm) {
+    const y = coefficientOf(form.admittance, e.name, ctx.index, "admittance");
+    return {
+      ...base,
+      entries: admittanceEntries(a, b, y),
+      currents: [
+        { node: a, written: form.current(differenceOf(a, b, ctx.ground)) },
+        { node: b, written: form.current(differenceOf(b, a, ctx.ground)) },
+      ],
+      branch: null,
+      internals: internalsOf(y),
+    };
+  }
+  // Its current controls a source: keep the current as an unknown, with a branch equation.
+  const row = branchRow(e.name);
+  const i = currentUnknown(e.name);
+  const iw = { infix: currentInfix(e.name), tex: currentTex(e.name) };
+  const eq = written(iw, form.current(differenceOf(a, b, ctx.ground)));
+  const explanation = `The current of ${form.phrase} "${e.name}" controls a source, so it is kept as an unknown with its own branch equation.`;
+  const admittancePolynomial = form.admittance.den.constantValue() !== null;
+  if (!admittancePolynomial) {
+    // V(a) − V(b) − Z·I = 0 keeps the entry a polynomial without an internal variable.
+    const z = coefficientOf(form.impedance, e.name, ctx.index, "impedance");
+    return {
+      ...base,
+      entries: [...branchCurrentEntries(e), ...differenceEntries(row, a, b, unit), entry(row, i, z, -1)],
+      currents: branchCurrents(e),
+      branch: { row, unknown: i, kind: "control", equation: eq, explanation },
+      internals: internalsOf(z),
+    };
+  }
+  const y = coefficientOf(form.admittance, e.name, ctx.index, "admittance");
+  return {
+    ...base,
+    entries: [...branchCurrentEntries(e), ...differenceEntries(row, a, b, y), entry(row, i, unit, -1)],
+    currents: branchCurrents(e),
+    branch: { row, unknown: i, kind: "control", equation: eq, explanation },
+    internals: internalsOf(y),
+  };
+}
+
+export function stampResistor(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+  const r = ctx.value!;
+  return stampPassive(e, ctx, { admittance: r.inverse(), impedance: r, current: (d) => over(d, r), phrase: "resistor" });
+}
+
+export function stampConductance(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+  const g = ctx.value!;
+  return stampPassive(e, ctx, {
+    admittance: g,
+    impedance: g.isZero() ? g : g.inverse(),
+    current: (d) => times(g, d),
+    phrase: "conductance",
+  });
+}
+
+export function stampCapacitor(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+  const y = RationalFunction.variable(LAPLACE).mul(ctx.value!);
+  return stampPassive(e, ctx, { admittance: y, impedance: y.isZero() ? y : y.inverse(), current: (d) => times(y, d), phrase: "capacitor" });
+}
+
+export function stampInductor(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+  const z = RationalFunction.variable(LAPLACE).mul(ctx.value!);
+  return stampPassive(e, ctx, { admittance: z.inverse(), impedance: z, current: (d) => over(d, z), phrase: "inductor" });
+}
+
+// ---- independent sources ---------------------------------------------------------------
+
+export function stampVsource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+  const [a, b] = e.nodes;
+  const row = branchRow(e.name);
+  const v = coefficientOf(ctx.value!, e.name, ctx.index, "source");
+  return {
+    element: e.name,
+    kind: e.kind,
+    entries: [...branchCurrentEntries(e), ...differenceEntries(row, a, b, unit)],
+    sources: [{ row, value: v.poly, display: v.display }],
+    currents: branchCurrents(e),
+    branch: {
+      row,
+      unknown: currentUnknown(e.name),
+      kind: "constraint",
+      equation: written(differenceOf(a, b, ctx.ground), valueWritten(ctx.value!)),
+      explanation: `Voltage source "${e.name}" fixes the voltage between its nodes; its current is a new unknown.`,
+    },
+    control: null,
+    internals: internalsOf(v),
+  };
+}
+
+export function stampIsource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+  const [a, b] = e.nodes;
+  const v = coefficientOf(ctx.value!, e.name, ctx.index, "source");
+  const base = { element: e.name, kind: e.kind, control: null, internals: internalsOf(v) };
+  if (!ctx.branchForm) {
+    // The source current leaves node a and enters node b; on the right side it changes sign.
+    const vw = valueWritten(ctx.value!);
+    return {
+      ...base,
+      entries: [],
+      sources: [
+        { row: kclRow(a), value: v.poly.neg(), display: v.display.neg() },
+        { row: kclRow(b), value: v.poly, display: v.display },
+      ],
+      currents: [
+        { node: a, written: vw },
+        { node: b, written: negate(vw) },
+      ],
+      branch: null,
+    };
+  }
+  const row = branchRow(e.name);
+  return {
+    ...base,
+    entries: [...branchCurrentEntries(e), entry(row, currentUnknown(e.name), unit)],
+    sources: [{ row, value: v.poly, display: v.display }],
+    currents: branchCurrents(e),
+    branch: {
+      row,
+      unknown: currentUnknown(e.name),
+      kind: "control",
+      equation: written({ infix: currentInfix(e.name), tex: currentTex(e.name) }, valueWritten(ctx.value!)),
+      explanation: `The current of current source "${e.name}" controls a source, so it is written as an unknown equal to the source value.`,
+    },
+  };
+}
+
+// ---- dependent sources -----------------------------------------------------------------
+
+function voltageControl(e: ControlledSourceElement, ctx: StampContext): { c1: string; c2: string; diff: Written & { terms: number }; variable: ControlVariable } {
+  if (!("nodes" in e.control)) throw new Error(`${e.name}: expected a voltage control`);
+  const [c1, c2] = e.control.nodes;
+  const diff = differenceOf(c1, c2, ctx.ground);
+  const v = { infix: `v_${e.name}`, tex: `v_{${e.name.replace(/_/g, "\\_")}}` };
+  return {
+    c1,
+    c2,
+    diff,
+    variable: {
+      equation: written(v, diff),
+      explanation: `The controlling voltage of "${e.name}" is V(${c1}) − V(${c2}), written directly in the node voltages.`,
+    },
+  };
+}
+
+function currentControl(e: ControlledSourceElement): { col: string; current: Written; variable: ControlVariable } {
+  if (!("element" in e.control)) throw new Error(`${e.name}: expected a current control`);
+  const x = e.control.element;
+  const current = { infix: currentInfix(x), tex: currentTex(x) };
+  const i = { infix: `i_${e.name}`, tex: `i_{${e.name.replace(/_/g, "\\_")}}` };
+  return {
+    col: currentUnknown(x),
+    current,
+    variable: {
+      equation: written(i, current),
+      explanation: `The controlling current of "${e.name}" is the reference current of "${x}", an unknown of the system.`,
+    },
+  };
+}
+
+export function stampVcvs(e: ControlledSourceElement, ctx: StampContext): ElementStamp {
+  const [a, b] = e.nodes;
+  const row = branchRow(e.name);
+  const k = coefficientOf(ctx.value!, e.name, ctx.index, "gain");
+  const c = voltageControl(e, ctx);
+  return {
+    element: e.name,
+    kind: e.kind,
+    entries: [...branchCurrentEntries(e), ...differenceEntries(row, a, b, unit), ...differenceEntries(row, c.c1, c.c2, k, -1)],
+    sources: [],
+    currents: branchCurrents(e),
+    branch: {
+      row,
+      unknown: currentUnknown(e.name),
+      kind: "constraint",
+      equation: written(differenceOf(a, b, ctx.ground), times(ctx.value!, c.diff)),
+      explanation: `VCVS "${e.name}" sets its output voltage to the gain times the controlling voltage; its current is a new unknown.`,
+    },
+    control: c.variable,
+    internals: internalsOf(k),
+  };
+}
+
+export function stampVccs(e: ControlledSourceElement, ctx: StampContext): ElementStamp {
+  const [a, b] = e.nodes;
+  const g = coefficientOf(ctx.value!, e.name, ctx.index, "gain");
+  const c = voltageControl(e, ctx);
+  const driven = times(ctx.value!, c.diff);
+  if (!ctx.branchForm) {
+    return {
+      element: e.name,
+      kind: e.kind,
+      entries: [...differenceEntries(kclRow(a), c.c1, c.c2, g), ...differenceEntries(kclRow(b), c.c1, c.c2, g, -1)],
+      sources: [],
+      currents: [
+        { node: a, written: driven },
+        { node: b, written: negate(driven) },
+      ],
+      branch: null,
+      control: c.variable,
+      internals: internalsOf(g),
+    };
+  }
+  const row = branchRow(e.name);
+  const i = currentUnknown(e.name);
+  return {
+    element: e.name,
+    kind: e.kind,
+    entries: [...branchCurrentEntries(e), entry(row, i, unit), ...differenceEntries(row, c.c1, c.c2, g, -1)],
+    sources: [],
+    currents: branchCurrents(e),
+    branch: {
+      row,
+      unknown: i,
+      kind: "control",
+      equation: written({ infix: currentInfix(e.name), tex: currentTex(e.name) }, driven),
+      explanation: `The current of VCCS "${e.name}" controls another source, so it is kept as an unknown.`,
+    },
+    control: c.variable,
+    internals: internalsOf(g),
+  };
+}
+
+export function stampCcvs(e: ControlledSourceElement, ctx: StampContext): ElementStamp {
+  const [a, b] = e.nodes;
+  const row = branchRow(e.name);
+  const r = coefficientOf(ctx.value!, e.name, ctx.index, "gain");
+  const c = currentControl(e);
+  return {
+    element: e.name,
+    kind: e.kind,
+    entries: [...branchCurrentEntries(e), ...differenceEntries(row, a, b, unit), entry(row, c.col, r, -1)],
+    sources: [],
+    currents: branchCurrents(e),
+    branch: {
+      row,
+      unknown: currentUnknown(e.name),
+      kind: "constraint",
+      equation: written(differenceOf(a, b, ctx.ground), times(ctx.value!, c.current)),
+      explanation: `CCVS "${e.name}" sets its output voltage to the transresistance times the controlling current; its current is a new unknown.`,
+    },
+    control: c.variable,
+    internals: internalsOf(r),
+  };
+}
+
+export function stampCccs(e: ControlledSourceElement, ctx: StampContext): ElementStamp {
+  const [a, b] = e.nodes;
+  const k = coefficientOf(ctx.value!, e.name, ctx.index, "gain");
+  const c = currentControl(e);
+  const driven = times(ctx.value!, c.current);
+  if (!ctx.branchForm) {
+    return {
+      element: e.name,
+      kind: e.kind,
+      entries: [entry(kclRow(a), c.col, k), entry(kclRow(b), c.col, k, -1)],
+      sources: [],
+      currents: [
+        { node: a, written: driven },
+        { node: b, written: negate(driven) },
+      ],
+      branch: null,
+      control: c.variable,
+      internals: internalsOf(k),
+    };
+  }
+  const row = branchRow(e.name);
+  const i = currentUnknown(e.name);
+  return {
+    element: e.name,
+    kind: e.kind,
+    entries: [...branchCurrentEntries(e), entry(row, i, unit), entry(row, c.col, k, -1)],
+    sources: [],
+    currents: branchCurrents(e),
+    branch: {
+      row,
+      unknown: i,
+      kind: "control",
+      equation: written({ infix: currentInfix(e.name), tex: currentTex(e.name) }, driven),
+      explanation: `The current of CCCS "${e.name}" controls another source, so it is kept as an unknown.`,
+    },
+    control: c.variable,
+    internals: internalsOf(k),
+  };
+}
+
+// ---- op-amp ------------------------------------------------------------------------------
+
+/** Nullor: the nullator holds V(p) = V(n) and draws no current; the norator's output current is free. */
+export function stampOpamp(e: OpampElement, ctx: StampContext): ElementStamp {
+  const [p, n] = e.inputs;
+  const row = branchRow(e.name);
+  const i = currentUnknown(e.name);
+  const iw = { infix: currentInfix(e.name), tex: currentTex(e.name) };
+  const lhs = p === ctx.ground ? { infix: "0", tex: "0" } : { infix: voltageInfix(p), tex: voltageTex(p) };
+  const rhs = n === ctx.ground ? { infix: "0", tex: "0" } : { infix: voltageInfix(n), tex: voltageTex(n) };
+  return {
+    element: e.name,
+    kind: e.kind,
+    entries: [entry(kclRow(e.output), i, unit, -1), ...differenceEntries(row, p, n, unit)],
+    sources: [],
+    currents: [{ node: e.output, written: negate(iw) }],
+    branch: {
+      row,
+      unknown: i,
+      kind: "constraint",
+      equation: written(lhs, rhs),
+      explanation: `Ideal op-amp "${e.name}" holds its inputs at equal voltage and draws no input current; the current it delivers at its output is a new unknown.`,
+    },
+    control: null,
+    internals: [],
+  };
+}
+
+export function stampElement(e: Element, ctx: StampContext): ElementStamp {
+  switch (e.kind) {
+    case "resistor":
+      return stampResistor(e as TwoTerminalElement, ctx);
+    case "conductance":
+      return stampConductance(e as TwoTerminalElement, ctx);
+    case "capacitor":
+      return stampCapacitor(e as TwoTerminalElement, ctx);
+    case "inductor":
+      return stampInductor(e as TwoTerminalElement, ctx);
+    case "vsource":
+      return stampVsource(e as TwoTerminalElement, ctx);
+    case "isource":
+      return stampIsource(e as TwoTerminalElement, ctx);
+    case "vcvs":
+      return stampVcvs(e as ControlledSourceElement, ctx);
+    case "vccs":
+      return stampVccs(e as ControlledSourceElement, ctx);
+    case "ccvs":
+      return stampCcvs(e as ControlledSourceElement, ctx);
+    case "cccs":
+      return stampCccs(e as ControlledSourceElement, ctx);
+    case "opamp":
+      return stampOpamp(e as OpampElement, ctx);
+  }
+}

@@ -1,0 +1,330 @@
+// The ledger: the derivation as an ordered list of steps with stable ids, in our own words.
+// Deterministic: the same network gives the same steps, in network order.
+
+import { RationalFunction, type Poly } from "../algebra";
+import type { Network, Step } from "../types";
+import { differenceOf, labelTex, sumOf, voltageTex } from "./display";
+import { elementNodes, isControlled, isOpamp, kindPhrase, networkNodes } from "./elements";
+import type { NodalSystem, Unknown } from "./mna";
+import type { OpenPortSolution, ShortPortSolution } from "./port-solution";
+import { displayRing, portVector, shortPort, zeroIndependentSources } from "./ports";
+import { kclRow } from "./stamps";
+
+/** Expressions longer than this many terms are left out of the TeX (the data keeps them). */
+const TEX_TERM_LIMIT = 300;
+
+export interface LedgerInput {
+  network: Network;
+  system: NodalSystem;
+  values: ReadonlyMap<string, RationalFunction>;
+  open: OpenPortSolution;
+  short: ShortPortSolution;
+  vth: RationalFunction | null;
+  rth: RationalFunction | null;
+  isc: RationalFunction | null;
+  rthFromVocIsc: RationalFunction | null;
+  agree: boolean | null;
+}
+
+function size(f: RationalFunction): number {
+  return f.num.termCount() + f.den.termCount();
+}
+
+function texOf(f: RationalFunction | null): string {
+  if (f === null) return "\\text{none}";
+  if (size(f) > TEX_TERM_LIMIT) return `\\text{(${f.num.termCount()} / ${f.den.termCount()} terms)}`;
+  return f.compactTex();
+}
+
+/** Expressions of the ledger's data; a large result is referenced by name instead of repeated. */
+const DATA_TERM_LIMIT = 2000;
+
+type ResultData = string | null | { result: string; terms: number };
+
+function dataOf(f: RationalFunction | null, name: string): ResultData {
+  if (f === null) return null;
+  return size(f) > DATA_TERM_LIMIT ? { result: name, terms: size(f) } : f.toInfix();
+}
+
+function polyTex(p: Poly): string {
+  return p.termCount() > TEX_TERM_LIMIT ? `\\text{(${p.termCount()} terms)}` : p.toTex();
+}
+
+function matrixTex(rows: string[][]): string {
+  return `\\begin{bmatrix} ${rows.map((r) => r.join(" & ")).join(" \\\\ ")} \\end{bmatrix}`;
+}
+
+function systemTex(a: RationalFunction[][], unknowns: Unknown[], b: RationalFunction[]): string {
+  const entry = (f: RationalFunction) => (size(f) > 40 ? "\\ast" : f.toTex());
+  return `${matrixTex(a.map((r) => r.map(entry)))} ${matrixTex(unknowns.map((u) => [u.tex]))} = ${matrixTex(b.map((x) => [entry(x)]))}`;
+}
+
+function systemData(a: RationalFunction[][], unknowns: Unknown[], b: RationalFunction[]): Record<string, unknown> {
+  return {
+    unknowns: unknowns.map((u) => u.infix),
+    matrix: a.map((r) => r.map((f) => f.toInfix())),
+    rhs: b.map((f) => f.toInfix()),
+  };
+}
+
+export function buildLedger(input: LedgerInput): Step[] {
+  const { network, system: sys, open, short } = input;
+  const { port, ground } = network;
+  const steps: Step[] = [];
+  const portTex = `V_{th} = ${differenceOf(port.plus, port.minus, ground).tex}`;
+
+  steps.push({
+    id: "port",
+    kind: "port",
+    title: "The port",
+    explanation: `The port is taken from node "${port.plus}" (+) to node "${port.minus}" (−), with node "${ground}" as ground. Vth is the voltage across it when open; Isc is the current leaving at "${port.plus}" through a short.`,
+    tex: portTex,
+    data: { plus: port.plus, minus: port.minus, ground },
+  });
+
+  const nodes = networkNodes(network);
+  steps.push({
+    id: "network",
+    kind: "network",
+    title: "The network as given",
+    explanation: `${network.elements.length} element${network.elements.length === 1 ? "" : "s"} on ${nodes.length} node${nodes.length === 1 ? "" : "s"} besides ground. Each element's reference current runs from its first node to its second.`,
+    tex: `\\begin{aligned} ${network.elements.map((e) => elementTex(e, input.values)).join(" \\\\ ")} \\end{aligned}`,
+    data: { elements: network.elements, nodes },
+  });
+
+  // ---- Vth: the open port
+  steps.push({
+    id: "vth.setup",
+    kind: "setup",
+    title: "Open port",
+    explanation: "Nothing is connected to the port, so no current flows through it; every source keeps its value.",
+    tex: "I_{\\text{port}} = 0",
+    data: { port: "open" },
+  });
+  steps.push({
+    id: "vth.unknowns",
+    kind: "unknowns",
+    title: "The unknowns",
+    explanation: `One voltage per node besides ground, plus one current for each source that fixes a voltage, each op-amp output and each element whose current controls a source: ${sys.unknowns.length} in all.`,
+    tex: `x = ${matrixTex([sys.unknowns.map((u) => u.tex)])}^{T}`,
+    data: { unknowns: sys.unknowns.map((u) => ({ name: u.infix, kind: u.kind, of: u.of })) },
+  });
+
+  for (const n of sys.nodes) {
+    const contributions = sys.stamps.flatMap((s) => s.currents.filter((c) => c.node === n).map((c) => ({ element: s.element, current: c.written })));
+    const lhs = sumOf(contributions.map((c) => c.current));
+    const r = sys.rowIndex.get(kclRow(n))!;
+    steps.push({
+      id: `vth.kcl.${n}`,
+      kind: "kcl",
+      title: `KCL at node ${n}`,
+      explanation: `The currents leaving node "${n}" through ${contributions.map((c) => `"${c.element}"`).join(", ")} add up to zero.`,
+      tex: `${lhs.tex} = 0`,
+      data: {
+        node: n,
+        contributions: contributions.map((c) => ({ element: c.element, current: c.current.infix })),
+        equation: `${lhs.infix} = 0`,
+        row: rowData(sys.aDisplay[r], sys.unknowns, sys.bDisplay[r]),
+      },
+    });
+  }
+
+  for (const s of sys.stamps) {
+    if (!s.control) continue;
+    steps.push({
+      id: `vth.control.${s.element}`,
+      kind: "control",
+      title: `Controlling variable of ${s.element}`,
+      explanation: s.control.explanation,
+      tex: s.control.equation.tex,
+      data: { element: s.element, equation: s.control.equation.infix },
+    });
+  }
+  for (const s of sys.stamps) {
+    if (!s.branch) continue;
+    const r = sys.rowIndex.get(s.branch.row)!;
+    steps.push({
+      id: `vth.branch.${s.element}`,
+      kind: s.branch.kind,
+      title: s.branch.kind === "constraint" ? `Source constraint of ${s.element}` : `Branch equation of ${s.element}`,
+      explanation: s.branch.explanation,
+      tex: s.branch.equation.tex,
+      data: { element: s.element, equation: s.branch.equation.infix, row: rowData(sys.aDisplay[r], sys.unknowns, sys.bDisplay[r]) },
+    });
+  }
+
+  steps.push({
+    id: "vth.matrix",
+    kind: "matrix",
+    title: "The open-port system",
+    explanation: "The equations above in matrix form A x = b, with the independent sources on the right side.",
+    tex: systemTex(sys.aDisplay, sys.unknowns, sys.bDisplay),
+    data: systemData(sys.aDisplay, sys.unknowns, sys.bDisplay),
+  });
+
+  steps.push({
+    id: "vth.solution",
+    kind: "solution",
+    title: "Solving for Vth",
+    explanation: open.singular
+      ? "det A is zero: the open-port equations have no unique solution, so the port has no Thevenin voltage."
+      : "By Cramer's rule with division-free determinants, Vth = cᵀx, where c picks V(plus) − V(minus). Δ is det A with the element values' denominators cleared; the result is in lowest terms.",
+    tex: open.singular ? "\\det A = 0" : `\\Delta = ${polyTex(open.determinant)}, \\qquad V_{th} = ${texOf(input.vth)}`,
+    data: {
+      singular: open.singular,
+      determinant: open.singular ? "0" : open.determinant.termCount() <= TEX_TERM_LIMIT ? open.determinant.toInfix() : null,
+      determinantTerms: open.determinant.termCount(),
+      vth: dataOf(input.vth, "vth"),
+    },
+  });
+
+  // ---- Rth: test source with sources zeroed
+  const zeroed = zeroIndependentSources(network);
+  const zeroTex = [...zeroed.shorted.map((n) => `V_{${labelTex(n)}} \\to 0`), ...zeroed.opened.map((n) => `I_{${labelTex(n)}} \\to 0`)];
+  steps.push({
+    id: "rth.zeroing",
+    kind: "zeroing",
+    title: "Independent sources zeroed",
+    explanation:
+      zeroed.shorted.length + zeroed.opened.length === 0
+        ? "The network has no independent sources, so nothing is zeroed; dependent sources always stay."
+        : `Voltage sources ${listOrNone(zeroed.shorted)} become shorts and current sources ${listOrNone(zeroed.opened)} become opens; dependent sources stay.`,
+    tex: zeroTex.length > 0 ? zeroTex.join(",\\quad ") : "\\text{no independent sources}",
+    data: zeroed,
+  });
+  steps.push({
+    id: "rth.test-source",
+    kind: "test-source",
+    title: "Test source at the port",
+    explanation: `A test current I_T enters at "${port.plus}" and leaves at "${port.minus}"; the voltage it produces across the port, divided by I_T, is Rth. I_T = 1 A is used.`,
+    tex: `I_T = 1\\,\\mathrm{A}, \\qquad R_{th} = \\frac{V_T}{I_T}`,
+    data: { plus: port.plus, minus: port.minus, current: "1" },
+  });
+  const c = portVector(sys, port);
+  const cDisplay = c.map((p) => RationalFunction.constant(p.constantValue()!));
+  steps.push({
+    id: "rth.matrix",
+    kind: "matrix",
+    title: "The test-source system",
+    explanation: "The left side is the same matrix A; the right side now holds only the test current at the port nodes.",
+    tex: systemTex(sys.aDisplay, sys.unknowns, cDisplay),
+    data: systemData(sys.aDisplay, sys.unknowns, cDisplay),
+  });
+  steps.push({
+    id: "rth.solution",
+    kind: "solution",
+    title: "Solving for Rth",
+    explanation: open.singular
+      ? "det A is zero: with the sources zeroed, no finite voltage answers the test current, so Rth is infinite."
+      : "Rth = cᵀx for the test current, by the same cofactors of A, reduced to lowest terms.",
+    tex: open.singular ? "R_{th} = \\infty" : `R_{th} = ${texOf(input.rth)}`,
+    data: { singular: open.singular, rth: dataOf(input.rth, "rth") },
+  });
+
+  // ---- Isc: the shorted port
+  const sd = shortPort(sys, port, sys.aDisplay, sys.bDisplay, displayRing);
+  const mergedTex = `${voltageOrZero(port.plus, ground)} = ${voltageOrZero(port.minus, ground)}`;
+  steps.push({
+    id: "isc.short",
+    kind: "short",
+    title: "Shorted port",
+    explanation: `A short joins "${sd.merged}" to "${sd.into}", so their voltages are equal; the KCL equation of "${sd.merged}" then gives the current through the short.`,
+    tex: mergedTex,
+    data: { merged: sd.merged, into: sd.into, probe: rowData(sd.probeRow, sd.unknowns, sd.probeRhs), sign: sd.sign },
+  });
+  steps.push({
+    id: "isc.matrix",
+    kind: "matrix",
+    title: "The shorted-port system",
+    explanation: `With "${sd.merged}" joined to "${sd.into}", its voltage column and KCL row merge into the other node's.`,
+    tex: systemTex(sd.a, sd.unknowns, sd.b),
+    data: systemData(sd.a, sd.unknowns, sd.b),
+  });
+  steps.push({
+    id: "isc.solution",
+    kind: "solution",
+    title: "Solving for Isc",
+    explanation: short.singular
+      ? "The shorted-port equations have no unique solution: the port fixes its own voltage (Rth = 0), so the short current is unbounded."
+      : "Cramer's rule on the shorted system gives the node voltages; the short current is what the merged node's KCL leaves over.",
+    tex: short.singular ? "I_{sc}\\ \\text{unbounded}" : `I_{sc} = ${texOf(input.isc)}`,
+    data: { singular: short.singular, isc: dataOf(input.isc, "isc"), determinantTerms: short.determinant.termCount() },
+  });
+
+  // ---- cross-check and equivalents
+  steps.push({
+    id: "check.voc-isc",
+    kind: "cross-check",
+    title: "Cross-check: Voc / Isc",
+    explanation:
+      input.rthFromVocIsc === null
+        ? "Voc/Isc cannot be formed here (one of them does not exist, or both are zero), so Rth rests on the test source alone."
+        : input.agree
+          ? "Voc divided by Isc, from two separate solves, equals the test-source Rth exactly."
+          : "Voc divided by Isc does NOT equal the test-source Rth; the derivation should not be trusted.",
+    tex: input.rthFromVocIsc === null ? "\\frac{V_{th}}{I_{sc}}\\ \\text{undefined}" : `\\frac{V_{th}}{I_{sc}} = ${texOf(input.rthFromVocIsc)} ${input.agree ? "= R_{th}" : "\\neq R_{th}"}`,
+    data: { rthFromVocIsc: dataOf(input.rthFromVocIsc, "rthFromVocIsc"), agree: input.agree },
+  });
+
+  const thevenin = input.vth !== null && input.rth !== null;
+  steps.push({
+    id: "result.thevenin",
+    kind: "equivalent",
+    title: "Thevenin equivalent",
+    explanation: thevenin
+      ? "Seen from the port, the network is a voltage source Vth in series with Rth."
+      : "The port behaves as an ideal current source (Rth is infinite), so it has no Thevenin form.",
+    tex: thevenin ? `V_{th} = ${texOf(input.vth)}, \\qquad R_{th} = ${texOf(input.rth)}` : "R_{th} = \\infty",
+    data: { exists: thevenin, vth: dataOf(input.vth, "vth"), rth: dataOf(input.rth, "rth") },
+  });
+  const norton = input.isc !== null && input.rth !== null && !input.rth.isZero();
+  steps.push({
+    id: "result.norton",
+    kind: "equivalent",
+    title: "Norton equivalent",
+    explanation: norton
+      ? "Seen from the port, the network is a current source Isc in parallel with Rth."
+      : input.isc !== null && input.rth === null
+        ? "Rth is infinite: the port is the current source Isc alone, with nothing in parallel."
+        : "Rth is zero: the port is an ideal voltage source, so it has no Norton form.",
+    tex: norton
+      ? `I_{sc} = ${texOf(input.isc)}, \\qquad R_{th} = ${texOf(input.rth)}`
+      : input.isc !== null
+        ? `I_{sc} = ${texOf(input.isc)}, \\qquad R_{th} = \\infty`
+        : "R_{th} = 0",
+    data: { exists: norton, isc: dataOf(input.isc, "isc"), rth: dataOf(input.rth, "rth") },
+  });
+  return steps;
+}
+
+function voltageOrZero(node: string, ground: string): string {
+  return node === ground ? "0" : voltageTex(node);
+}
+
+function listOrNone(names: string[]): string {
+  return names.length === 0 ? "(none)" : names.map((n) => `"${n}"`).join(", ");
+}
+
+function rowData(row: RationalFunction[], unknowns: Unknown[], rhs: RationalFunction): Record<string, unknown> {
+  const coefficients: Record<string, string> = {};
+  row.forEach((f, j) => {
+    if (!f.isZero()) coefficients[unknowns[j].infix] = f.toInfix();
+  });
+  return { coefficients, rhs: rhs.toInfix() };
+}
+
+function elementTex(e: Network["elements"][number], values: ReadonlyMap<string, RationalFunction>): string {
+  const name = `\\mathrm{${e.name.replace(/_/g, "\\_")}}`;
+  if (isOpamp(e)) {
+    return `${name} &: \\text{${kindPhrase(e.kind)}},\\ ${labelTex(e.inputs[0])}^{+}\\ ${labelTex(e.inputs[1])}^{-} \\to ${labelTex(e.output)}`;
+  }
+  const v = values.get(e.name);
+  const value = v ? v.toTex() : e.value;
+  const [a, b] = elementNodes(e);
+  let control = "";
+  if (isControlled(e)) {
+    control = "nodes" in e.control ? ` \\cdot v(${labelTex(e.control.nodes[0])}, ${labelTex(e.control.nodes[1])})` : ` \\cdot i(\\mathrm{${e.control.element.replace(/_/g, "\\_")}})`;
+  }
+  return `${name} &: \\text{${kindPhrase(e.kind)}},\\ ${labelTex(a)} \\to ${labelTex(b)},\\ ${value}${control}`;
+}
+

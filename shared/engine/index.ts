@@ -1,0 +1,70 @@
+// Portfold's engine: read a network (JSON or Portfold netlist), solve its port exactly.
+// Pure: no I/O, usable by the server and the client alike.
+
+import { diagnostic } from "./circuit/diagnostics";
+import { jsonErrorOffset } from "./circuit/json-position";
+import { parseNetlistText } from "./circuit/netlist-text";
+import { normalizeNetwork, validateNetworkJson } from "./circuit/schema";
+import { checkNetwork, emptyResult, solveParsedNetwork, solvePortExact, type ExactPort } from "./circuit/solve";
+import type { Diagnostic, Network, NetworkInput, ParseResult, SolveOptions, SolveResult } from "./types";
+
+export * from "./types";
+export { DIAGNOSTIC_CODES, type DiagnosticCode } from "./circuit/diagnostics";
+export { NETLIST_EXTENSION, parseNetlistText, printNetlistText } from "./circuit/netlist-text";
+export { networkSchema } from "./circuit/schema";
+export { toSolveOutput, type SolveOutput } from "./circuit/output";
+
+/**
+ * Read a network from the text netlist, from JSON text, or from an already-parsed JSON value.
+ * Text starting with "{" is taken as JSON.
+ */
+export function parseNetwork(input: string | unknown): ParseResult {
+  if (typeof input !== "string") {
+    const v = validateNetworkJson(input);
+    return { network: v.network, diagnostics: v.diagnostics, format: "json" };
+  }
+  if (input.trimStart().startsWith("{")) {
+    let value: unknown;
+    try {
+      value = JSON.parse(input);
+    } catch (e) {
+      const message = e instanceof Error ? e.message : String(e);
+      const at = jsonErrorPosition(input);
+      const where = at.line !== undefined ? ` (line ${at.line}, column ${at.column})` : "";
+      return { network: null, diagnostics: [diagnostic("invalid-json", `the input is not valid JSON${where}: ${message}`, at)], format: "json" };
+    }
+    const v = validateNetworkJson(value);
+    return { network: v.network, diagnostics: v.diagnostics, format: "json" };
+  }
+  return parseNetlistText(input);
+}
+
+/** Solve a network's port: Vth, Isc, Rth (test source and Voc/Isc), with the ledger and diagnostics. */
+export function solveNetwork(input: string | NetworkInput | Network, options: SolveOptions = {}): SolveResult {
+  const parsed = parseNetwork(input);
+  if (!parsed.network) return emptyResult(null, parsed.diagnostics);
+  return solveParsedNetwork(normalizeNetwork(parsed.network), options, parsed.positions);
+}
+
+/**
+ * The exact results only, as rational functions (no printing, no ledger): for callers that evaluate
+ * or compare results themselves, and for the benchmark. `port` is null when a check failed.
+ */
+export function solveNetworkExact(input: string | NetworkInput | Network): { network: Network | null; diagnostics: Diagnostic[]; port: ExactPort | null } {
+  const parsed = parseNetwork(input);
+  if (!parsed.network) return { network: null, diagnostics: parsed.diagnostics, port: null };
+  const network = normalizeNetwork(parsed.network);
+  const checked = checkNetwork(network, parsed.positions);
+  if (checked.values === null) return { network, diagnostics: checked.diagnostics, port: null };
+  return { network, diagnostics: checked.diagnostics, port: solvePortExact(network, checked.values) };
+}
+
+export type { ExactPort };
+
+// JSON.parse does not always say where; find the offset ourselves and turn it into a line and column.
+function jsonErrorPosition(text: string): { line?: number; column?: number } {
+  const at = jsonErrorOffset(text);
+  if (at === null) return {};
+  const lines = text.slice(0, at).split("\n");
+  return { line: lines.length, column: lines[lines.length - 1].length + 1 };
+}

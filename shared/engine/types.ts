@@ -1,0 +1,317 @@
+// Public types of the engine: the interchange format, the solve options and the solve result.
+// Plain data only (strings, numbers, arrays), so a result can be stored and sent as JSON.
+
+/** Every element kind Portfold knows, spelled as the word used in both the JSON and the text netlist. */
+export const ELEMENT_KINDS = [
+  "resistor",
+  "conductance",
+  "capacitor",
+  "inductor",
+  "vsource",
+  "isource",
+  "vcvs",
+  "vccs",
+  "ccvs",
+  "cccs",
+  "opamp",
+] as const;
+export type ElementKind = (typeof ELEMENT_KINDS)[number];
+
+export type PassiveKind = "resistor" | "conductance" | "capacitor" | "inductor";
+export type IndependentSourceKind = "vsource" | "isource";
+export type ControlledSourceKind = "vcvs" | "vccs" | "ccvs" | "cccs";
+
+/** Control by the voltage V(c1) − V(c2). */
+export interface NodePairControl {
+  nodes: [string, string];
+}
+/** Control by the reference current of a named element. */
+export interface ElementControl {
+  element: string;
+}
+export type Control = NodePairControl | ElementControl;
+
+/** Passive or independent source: nodes [first, second]; reference current flows first -> second. */
+export interface TwoTerminalElement {
+  name: string;
+  kind: PassiveKind | IndependentSourceKind;
+  nodes: [string, string];
+  value: string;
+}
+
+/** Dependent source: output between nodes, gain in value, controlling quantity in control. */
+export interface ControlledSourceElement {
+  name: string;
+  kind: ControlledSourceKind;
+  nodes: [string, string];
+  control: Control;
+  value: string;
+}
+
+/** Ideal op-amp (nullor): V(inputs[0]) = V(inputs[1]), output current free, output referenced to ground. */
+export interface OpampElement {
+  name: string;
+  kind: "opamp";
+  inputs: [string, string];
+  output: string;
+}
+
+export type Element = TwoTerminalElement | ControlledSourceElement | OpampElement;
+
+export interface Port {
+  plus: string;
+  minus: string;
+}
+
+/** The interchange format exactly as read; `ground` defaults to "0". */
+export interface NetworkInput {
+  ground?: string;
+  port: Port;
+  elements: Element[];
+  /** Optional declared quantity per symbol (an extension; inferred from elements otherwise). */
+  quantities?: Record<string, Quantity>;
+}
+
+/** A network after validation: ground filled in. */
+export interface Network {
+  ground: string;
+  port: Port;
+  elements: Element[];
+  quantities?: Record<string, Quantity>;
+}
+
+export const QUANTITIES = [
+  "resistance",
+  "conductance",
+  "voltage",
+  "current",
+  "dimensionless",
+  "transconductance",
+  "transresistance",
+  "capacitance",
+  "inductance",
+  "frequency",
+  "time",
+] as const;
+export type Quantity = (typeof QUANTITIES)[number];
+
+// ---------------------------------------------------------------------------------------------
+// Diagnostics
+
+export type Severity = "error" | "warning";
+
+export interface Diagnostic {
+  /** Stable code, see DIAGNOSTIC_CODES in circuit/diagnostics.ts. */
+  code: string;
+  severity: Severity;
+  message: string;
+  /** Elements involved, by name, in network order. */
+  elements: string[];
+  /** Nodes involved. */
+  nodes: string[];
+  /** Text netlist position, 1-based, when the input was text. */
+  line?: number;
+  column?: number;
+  /** JSON position (e.g. ["elements", 2, "value"]) when the input was JSON. */
+  path?: (string | number)[];
+}
+
+// ---------------------------------------------------------------------------------------------
+// Options
+
+export type LimitPoint = "inf" | "zero";
+
+export interface SolveOptions {
+  /** Limits to take of every result, e.g. [{ symbol: "mu", to: "inf" }]. */
+  limits?: { symbol: string; to: LimitPoint }[];
+  /** Symbol values for evaluation, exact decimal text with optional SI prefix ("4.7k") or numbers. */
+  values?: Record<string, string | number>;
+  /** Also evaluate in floating point (needs every symbol of a result given). */
+  float?: boolean;
+  /** Normalized sensitivities: true = every symbol, list = those symbols, false = none. Default true. */
+  sensitivities?: boolean | string[];
+  /** Skip sensitivities of results larger than this many terms (numerator + denominator). Default 4000. */
+  sensitivityTermLimit?: number;
+  /** Solve result = target for a symbol, e.g. [{ result: "rth", symbol: "RL", target: "50" }]. */
+  solveFor?: { result: ResultName; symbol: string; target: string }[];
+  /** Above this many terms (numerator + denominator) a result gets only its expanded infix form. Default 5000. */
+  printTermLimit?: number;
+  /** Record the derivation steps. Default true. */
+  steps?: boolean;
+  /** Run the dimension check. Default true. */
+  dimensions?: boolean;
+  /** Declared quantities, overriding inference. */
+  quantities?: Record<string, Quantity>;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Results
+
+export type ResultName = "vth" | "isc" | "rth" | "rthFromVocIsc";
+
+/** One exact result in every printed form. */
+export interface ExactExpression {
+  /** Canonical expanded N/D in lowest terms, plain infix. */
+  infix: string;
+  /** TeX and compact forms are null for results above SolveOptions.printTermLimit terms. */
+  tex: string | null;
+  /** Common factors pulled out, N and D factored where cheap. */
+  compact: string | null;
+  compactTex: string | null;
+  terms: { numerator: number; denominator: number };
+  symbols: string[];
+}
+
+/** A statement about the port that is not an error (degenerate ports, agreement). */
+export interface PortStatement {
+  code:
+    | "rth-zero"
+    | "rth-infinite"
+    | "vth-zero"
+    | "isc-zero"
+    | "voc-isc-undefined"
+    | "rth-agree"
+    | "rth-disagree"
+    | "sensitivity-skipped"
+    | "forms-skipped";
+  message: string;
+}
+
+export interface LimitEntry {
+  kind: "finite" | "infinite" | "none";
+  /** Finite limit value (infix), or null. */
+  value: string | null;
+  valueTex: string | null;
+  /** +1 / -1 for ±∞, 0 when the sign depends on other symbols. */
+  sign?: 1 | -1 | 0;
+  /** Leading-order form (infix), e.g. "R0/mu" for Rth as mu -> inf. */
+  leading: string | null;
+  leadingTex: string | null;
+}
+
+export interface LimitResult {
+  symbol: string;
+  to: LimitPoint;
+  /** key like "mu=inf" */
+  key: string;
+  results: Partial<Record<ResultName, LimitEntry>>;
+}
+
+export interface ValueEntry {
+  /** Exact value after substitution (infix; a number when every symbol was given); null when the substitution makes a denominator vanish. */
+  exact: string | null;
+  /** Float when requested and every symbol was given. */
+  float: number | null;
+  /** Engineering notation with unit, e.g. "4.7 kΩ", when fully numeric. */
+  display: string | null;
+}
+
+export interface ValuesResult {
+  given: Record<string, string>;
+  results: Partial<Record<ResultName, ValueEntry>>;
+}
+
+export interface SolveForResult {
+  result: ResultName;
+  symbol: string;
+  target: string;
+  /** The symbol's value (infix) or null with the reason. */
+  value: string | null;
+  reason?: string;
+}
+
+export interface DimensionCheck {
+  expected: Quantity;
+  /** "ok": comes out in the expected unit; "mismatch": a different unit; "inhomogeneous": terms of different units; "unknown": a symbol has no quantity. */
+  status: "ok" | "mismatch" | "inhomogeneous" | "unknown";
+  /** The unit found, e.g. "V/A", when homogeneous. */
+  found: string | null;
+  message: string;
+}
+
+export interface DimensionReport {
+  /** Quantity per symbol, null when none could be inferred. */
+  quantities: Record<string, Quantity | null>;
+  /** Where each quantity came from: element name, "declared", or "Laplace variable". */
+  sources: Record<string, string>;
+  conflicts: { symbol: string; quantities: Quantity[]; elements: string[] }[];
+  checks: Partial<Record<ResultName, DimensionCheck>>;
+}
+
+export type StepKind =
+  | "port"
+  | "network"
+  | "setup"
+  | "unknowns"
+  | "kcl"
+  | "control"
+  | "constraint"
+  | "matrix"
+  | "solution"
+  | "zeroing"
+  | "test-source"
+  | "short"
+  | "cross-check"
+  | "equivalent";
+
+/** One entry of the ledger. */
+export interface Step {
+  id: string;
+  kind: StepKind;
+  title: string;
+  explanation: string;
+  tex: string;
+  data: Record<string, unknown>;
+}
+
+/** The numeric leg of the check badge: the exact results evaluated at a point against a floating-point solve. */
+export interface NumericCheck {
+  agree: boolean | null;
+  /** Largest relative difference over the results that exist. */
+  relativeError: number | null;
+  point: Record<string, number>;
+}
+
+export interface TheveninEquivalent {
+  vth: string;
+  rth: string;
+}
+export interface NortonEquivalent {
+  isc: string;
+  rth: string;
+}
+
+export interface SolveResult {
+  /** True when no error diagnostic was raised (degenerate ports included). */
+  ok: boolean;
+  network: Network | null;
+  vth: ExactExpression | null;
+  isc: ExactExpression | null;
+  /** By the test source with independent sources zeroed. */
+  rth: ExactExpression | null;
+  /** Voc / Isc. */
+  rthFromVocIsc: ExactExpression | null;
+  /** Whether the two Rth agree; null when only one exists. */
+  agree: boolean | null;
+  numericCheck: NumericCheck | null;
+  thevenin: TheveninEquivalent | null;
+  norton: NortonEquivalent | null;
+  statements: PortStatement[];
+  limits: LimitResult[];
+  values: ValuesResult | null;
+  sensitivities: Partial<Record<ResultName, Record<string, string>>>;
+  solved: SolveForResult[];
+  dimensions: DimensionReport | null;
+  steps: Step[];
+  diagnostics: Diagnostic[];
+}
+
+/** What parseNetwork returns: the network when it could be read, and what went wrong. */
+export interface ParseResult {
+  network: Network | null;
+  diagnostics: Diagnostic[];
+  /** "json" or "text", as detected. */
+  format: "json" | "text";
+  /** Text netlist positions per element (1-based), to place later diagnostics. */
+  positions?: Record<string, { line: number; valueColumn: number | null }>;
+}

@@ -1,0 +1,175 @@
+import { useState } from "react";
+import { Link, useParams, useSearchParams } from "react-router-dom";
+import { Button } from "@/components/ui/button";
+import { MathTex } from "@/components/ui/math";
+import { EmptyState, ErrorState, LoadingState } from "@/components/ui/states";
+import { RequireAccount } from "@/features/auth/components/require-account";
+import { useRevision } from "@/features/derivations/api/get-revision";
+import { useRevisions } from "@/features/derivations/api/get-revisions";
+import { circuitDifferences, resultChanged } from "@/features/history/lib/compare";
+import { Schematic } from "@/features/network-editor/components/schematic";
+import { useNetwork } from "@/features/networks/api/get-network";
+import { VerdictMark } from "@/features/review/components/verdict-control";
+import { printElementLine, type EngineNetwork } from "@/lib/engine-netlist";
+import type { Revision } from "@/types/api";
+
+const RESULTS = [
+  ["vth", "V_{\\mathrm{th}}"],
+  ["rth", "R_{\\mathrm{th}}"],
+  ["isc", "I_{\\mathrm{sc}}"],
+] as const;
+
+function RevisionSide({ revision, other }: { revision: Revision; other: Revision }) {
+  return (
+    <div className="min-w-0">
+      <h3 className="text-sm font-semibold">Revision {revision.k}</h3>
+      <p className="text-xs text-ink/60">
+        {revision.author ?? ""} {revision.createdAt ? `· ${new Date(revision.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""}
+      </p>
+      <div className="mt-2 rounded border border-rule bg-white/40 p-1">
+        <Schematic network={{ ground: "0", ...revision.circuit } as EngineNetwork} />
+      </div>
+      <dl className="mt-2 space-y-1 text-sm">
+        {RESULTS.map(([name, tex]) => (
+          <div key={name} className={resultChanged(revision, other, name) ? "border-l-2 border-copper pl-2" : "pl-2.5"}>
+            <dt className="sr-only">{name}</dt>
+            <dd className="overflow-x-auto">{revision.results[name] ? <MathTex tex={`${tex} = ${revision.results[name]!.compactTex}`} /> : <span className="text-ink/50">none</span>}</dd>
+          </div>
+        ))}
+      </dl>
+    </div>
+  );
+}
+
+function Comparison({ networkId, from, to }: { networkId: string; from: number; to: number }) {
+  const a = useRevision(networkId, from);
+  const b = useRevision(networkId, to);
+  if (a.isLoading || b.isLoading) return <LoadingState label="Loading both revisions…" />;
+  if (a.isError || b.isError) return <ErrorState error={a.error ?? b.error} title="The revisions could not be compared" />;
+  if (!a.data || !b.data) return null;
+  const diff = circuitDifferences(a.data.circuit, b.data.circuit);
+  const changedResults = RESULTS.filter(([n]) => resultChanged(a.data!, b.data!, n)).map(([n]) => n);
+  const line = (e: Parameters<typeof printElementLine>[0] | null) => (e ? printElementLine(e) : "—");
+  return (
+    <section aria-label={`Revision ${from} compared with ${to}`} className="mt-6">
+      <h2 className="text-lg font-semibold tracking-tight">
+        Revision {from} and revision {to}
+      </h2>
+      <div className="mt-2 text-sm">
+        <p>
+          Circuit: {diff.elements.length === 0 && !diff.portChanged ? "the same." : `${diff.elements.length} element${diff.elements.length === 1 ? " differs" : "s differ"}${diff.portChanged ? "; the port moved" : ""}.`}{" "}
+          Results: {changedResults.length === 0 ? "the same." : `${changedResults.map((n) => ({ vth: "Vth", rth: "Rth", isc: "Isc" })[n]).join(", ")} changed (marked in copper).`}
+        </p>
+        {diff.elements.length > 0 && (
+          <table className="mt-2 w-full font-mono text-xs">
+            <caption className="sr-only">Elements that differ</caption>
+            <thead>
+              <tr className="text-left font-sans text-ink/60">
+                <th scope="col" className="font-medium">Revision {from}</th>
+                <th scope="col" className="font-medium">Revision {to}</th>
+              </tr>
+            </thead>
+            <tbody>
+              {diff.elements.map((d) => (
+                <tr key={d.name} className="border-t border-rule/60">
+                  <td className={`py-0.5 ${d.after ? "" : "text-signal line-through"}`}>{line(d.before)}</td>
+                  <td className={`py-0.5 ${d.before ? "" : "text-verdigris"}`}>{line(d.after)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+      </div>
+      <div className="mt-4 grid gap-6 md:grid-cols-2">
+        <RevisionSide revision={a.data} other={b.data} />
+        <RevisionSide revision={b.data} other={a.data} />
+      </div>
+    </section>
+  );
+}
+
+export function RevisionHistoryRoute() {
+  const { networkId = "" } = useParams();
+  const [params, setParams] = useSearchParams();
+  const network = useNetwork(networkId);
+  const revisions = useRevisions(networkId);
+  const [picked, setPicked] = useState<number[]>([]);
+  const from = Number(params.get("from")) || null;
+  const to = Number(params.get("to")) || null;
+  const toggle = (k: number) => setPicked((list) => (list.includes(k) ? list.filter((x) => x !== k) : [...list, k].slice(-2)));
+  return (
+    <RequireAccount>
+      {() => (
+        <section>
+          <p className="text-xs text-ink/60">
+            <Link to={`/networks/${networkId}`} className="hover:text-copper">
+              {network.data?.title ?? "Network"}
+            </Link>{" "}
+            / history
+          </p>
+          <h1 className="text-2xl font-semibold tracking-tight">Revision history</h1>
+          <div className="mt-4">
+            {revisions.isLoading ? (
+              <LoadingState label="Loading revisions…" />
+            ) : revisions.isError ? (
+              <ErrorState error={revisions.error} title="The revisions could not be loaded" />
+            ) : !revisions.data?.length ? (
+              <EmptyState title="No revisions yet.">Each Solve stores one.</EmptyState>
+            ) : (
+              <>
+                <p className="text-sm text-ink/70">Tick two revisions to compare their circuits and results side by side.</p>
+                <table className="mt-2 w-full text-sm">
+                  <caption className="sr-only">Derivation revisions, newest first</caption>
+                  <thead>
+                    <tr className="border-b border-ink/30 text-left">
+                      <th scope="col" className="w-16 py-1 font-medium">Compare</th>
+                      <th scope="col" className="py-1 font-medium">Revision</th>
+                      <th scope="col" className="py-1 font-medium">Solved</th>
+                      <th scope="col" className="py-1 font-medium">By</th>
+                      <th scope="col" className="py-1 font-medium">Verdict</th>
+                      <th scope="col" className="py-1 font-medium">Rth</th>
+                    </tr>
+                  </thead>
+                  <tbody>
+                    {revisions.data.map((r) => (
+                      <tr key={r.k} className="border-b border-rule">
+                        <td className="py-1">
+                          <input type="checkbox" aria-label={`Compare revision ${r.k}`} checked={picked.includes(r.k)} onChange={() => toggle(r.k)} className="accent-copper" />
+                        </td>
+                        <td className="py-1">
+                          <Link to={`/networks/${networkId}/r/${r.k}`} className="font-medium hover:text-copper">
+                            revision {r.k}
+                          </Link>
+                        </td>
+                        <td className="py-1 text-xs text-ink/70">{r.createdAt ? new Date(r.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : ""}</td>
+                        <td className="py-1 text-xs">{r.author ?? "—"}</td>
+                        <td className="py-1 text-xs">
+                          <VerdictMark verdict={r.verdict} />
+                        </td>
+                        <td className="max-w-xs truncate py-1 font-mono text-xs" title={r.summary.rth ?? undefined}>
+                          {r.summary.rth ?? "—"}
+                        </td>
+                      </tr>
+                    ))}
+                  </tbody>
+                </table>
+                <Button
+                  className="mt-3"
+                  variant="primary"
+                  disabled={picked.length !== 2}
+                  onClick={() => {
+                    const [x, y] = [...picked].sort((p, q) => p - q);
+                    setParams({ from: String(x), to: String(y) });
+                  }}
+                >
+                  Compare the two
+                </Button>
+              </>
+            )}
+          </div>
+          {from && to && <Comparison networkId={networkId} from={from} to={to} />}
+        </section>
+      )}
+    </RequireAccount>
+  );
+}

@@ -1,0 +1,116 @@
+import { Link, useParams } from "react-router-dom";
+import { ErrorState, LoadingState } from "@/components/ui/states";
+import { AnalysisColumn } from "@/features/analysis/components/analysis-column";
+import { useMe } from "@/features/auth/api/get-me";
+import { Ledger } from "@/features/derivations/components/ledger";
+import { ExportMenu } from "@/features/export/components/export-menu";
+import { Schematic } from "@/features/network-editor/components/schematic";
+import { useNetwork } from "@/features/networks/api/get-network";
+import { useComments } from "@/features/review/api/get-comments";
+import { VerdictControl, VerdictMark } from "@/features/review/components/verdict-control";
+import { useSharedRevision } from "@/features/sharing/api/get-shared-revision";
+import { ApiError } from "@/lib/api-client";
+import type { EngineNetwork } from "@/lib/engine-netlist";
+
+// The page behind a share link: one revision, read-only, no account needed. Team members who
+// sign in see the review notes and may add their own.
+export function SharedViewRoute() {
+  const { token = "" } = useParams();
+  const shared = useSharedRevision(token);
+  const me = useMe();
+  const revision = shared.data;
+  // Membership is the server's to decide: reading the network succeeds only for members.
+  const network = useNetwork(me.data && revision ? revision.networkId : "");
+  const member = Boolean(me.data && network.data);
+  const role = network.data?.role ?? null;
+  const canReview = role === "owner" || role === "editor" || role === "reviewer";
+  const comments = useComments(revision?.networkId ?? "", revision?.k ?? 0, member);
+  const here = `/s/${token}`;
+
+  if (shared.isLoading) return <LoadingState label="Opening the shared revision…" />;
+  if (shared.isError) {
+    const gone = shared.error instanceof ApiError && (shared.error.status === 404 || shared.error.status === 410);
+    return (
+      <section className="max-w-lg">
+        <h1 className="text-2xl font-semibold tracking-tight">This share link does not open</h1>
+        <div className="mt-3">
+          <ErrorState error={shared.error} title={gone ? "The link was revoked, has expired, or never existed." : "The shared revision could not be loaded."} />
+        </div>
+        <p className="mt-3 text-sm text-ink/70">Ask whoever sent it for a new link.</p>
+      </section>
+    );
+  }
+  if (!revision) return null;
+
+  const commentPath = me.data ? (
+    member ? null : (
+      <p className="text-[11px] text-ink/50">Notes are for members of the network's team.</p>
+    )
+  ) : (
+    <Link to={`/sign-in?next=${encodeURIComponent(here)}`} className="text-[11px] text-copper hover:underline">
+      Sign in to comment
+    </Link>
+  );
+
+  return (
+    <div>
+      <div className="flex flex-wrap items-end justify-between gap-3 border-b border-rule pb-3">
+        <div className="min-w-0">
+          <p className="text-xs text-ink/60">Shared revision · read-only</p>
+          <h1 className="truncate text-2xl font-semibold tracking-tight">{revision.title}</h1>
+          <p className="mt-0.5 text-xs text-ink/70">
+            Derivation revision {revision.k}
+            {revision.author ? ` · solved by ${revision.author}` : ""}
+            {revision.createdAt ? ` · ${new Date(revision.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""} · review:{" "}
+            <VerdictMark verdict={revision.verdict.verdict} />
+          </p>
+        </div>
+        <div className="flex flex-wrap items-center gap-2 print:hidden">
+          {member && canReview && <VerdictControl networkId={revision.networkId} k={revision.k} verdict={revision.verdict.verdict} canSet />}
+          {member && (
+            <Link to={`/networks/${revision.networkId}/r/${revision.k}`} className="rounded border border-rule px-3 py-1.5 text-sm hover:border-ink/40">
+              Open in the workbench
+            </Link>
+          )}
+          {!me.data && !me.isLoading && (
+            <Link to={`/sign-in?next=${encodeURIComponent(here)}`} className="rounded bg-copper px-3 py-1.5 text-sm font-medium text-paper hover:bg-copper/90">
+              Sign in to comment
+            </Link>
+          )}
+          <ExportMenu revision={revision} />
+        </div>
+      </div>
+      <div className="mt-4 grid grid-cols-1 gap-6 lg:grid-cols-[minmax(16rem,21rem)_minmax(0,1fr)_18rem] print:block">
+        <section aria-labelledby="shared-network-heading" className="min-w-0 print:hidden">
+          <h2 id="shared-network-heading" className="mb-1 text-sm font-semibold">
+            Network
+          </h2>
+          <div className="rounded border border-rule bg-white/40 p-1">
+            <Schematic network={{ ground: "0", ...revision.circuit } as EngineNetwork} />
+          </div>
+          <ul className="mt-2 space-y-0.5 font-mono text-[11px] text-ink/80" aria-label="Elements">
+            {revision.circuit.elements.map((e) => (
+              <li key={e.name}>
+                {e.name} {e.kind} {e.kind === "opamp" ? `${e.inputs.join(" ")} -> ${e.output}` : `${e.nodes.join(" ")} = ${e.value}${"control" in e ? ` · ${"element" in e.control ? `through(${e.control.element})` : `across(${e.control.nodes.join(", ")})`}` : ""}`}
+              </li>
+            ))}
+            <li>
+              port {revision.circuit.port.plus} {revision.circuit.port.minus}
+            </li>
+          </ul>
+        </section>
+        <section aria-labelledby="ledger-heading" className="min-w-0">
+          <h2 id="ledger-heading" className="text-sm font-semibold tracking-tight">
+            Ledger
+          </h2>
+          <div className="mt-2">
+            <Ledger revision={revision} comments={comments.data ?? []} review={{ networkId: revision.networkId, k: revision.k, canComment: member && canReview, currentUserId: me.data?.user.id ?? null, commentPath }} />
+          </div>
+        </section>
+        <section aria-label="Values, Limits and Sweep" className="min-w-0">
+          <AnalysisColumn results={revision.results} />
+        </section>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,64 @@
+import { useState } from "react";
+import { useParams } from "react-router-dom";
+import { Button } from "@/components/ui/button";
+import { EmptyState } from "@/components/ui/states";
+import { RequireAccount } from "@/features/auth/components/require-account";
+import { CreateNetworkDialog } from "@/features/networks/components/create-network-dialog";
+import { ImportNetworkDialog } from "@/features/networks/components/import-network-dialog";
+import { NetworksTable } from "@/features/networks/components/networks-table";
+import { CreateTeamForm } from "@/features/teams/components/create-team-form";
+import { InviteMemberForm } from "@/features/teams/components/invite-member-form";
+
+export function TeamRoute() {
+  const { teamId = "" } = useParams();
+  const [creating, setCreating] = useState(false);
+  const [importing, setImporting] = useState(false);
+  return (
+    <RequireAccount>
+      {(me) => {
+        const team = me.teams.find((t) => t.id === teamId);
+        if (!team) {
+          return <EmptyState title="No such team, or you are not a member of it.">Ask the team's owner for an invitation.</EmptyState>;
+        }
+        const canEdit = team.role === "owner" || team.role === "editor";
+        return (
+          <section>
+            <div className="flex flex-wrap items-end justify-between gap-3 border-b border-rule pb-3">
+              <div>
+                <h1 className="text-2xl font-semibold tracking-tight">{team.name}</h1>
+                <p className="mt-0.5 text-sm text-ink/70">
+                  Your role: {team.role}
+                  {team.personal ? " · your personal team" : ""}
+                </p>
+              </div>
+              {canEdit && (
+                <div className="flex gap-2">
+                  <Button onClick={() => setImporting(true)}>Import from file</Button>
+                  <Button variant="primary" onClick={() => setCreating(true)}>
+                    New network
+                  </Button>
+                </div>
+              )}
+            </div>
+            <div className="mt-4">
+              <NetworksTable teamId={team.id} role={team.role} />
+            </div>
+            {team.role === "owner" && (
+              <section className="mt-10 border-t border-rule pt-4" aria-label="Members">
+                <h2 className="text-sm font-semibold">Members</h2>
+                <div className="mt-2">
+                  <InviteMemberForm teamId={team.id} />
+                </div>
+              </section>
+            )}
+            <section className="mt-10 border-t border-rule pt-4" aria-label="Teams">
+              <CreateTeamForm />
+            </section>
+            {creating && <CreateNetworkDialog teamId={team.id} open={creating} onClose={() => setCreating(false)} />}
+            {importing && <ImportNetworkDialog teamId={team.id} open={importing} onClose={() => setImporting(false)} />}
+          </section>
+        );
+      }}
+    </RequireAccount>
+  );
+}

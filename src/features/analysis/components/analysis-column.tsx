@@ -1,0 +1,41 @@
+import { useMemo, useState, type ReactNode } from "react";
+import { Caution } from "@/components/ui/caution";
+import type { Results } from "@/types/api";
+import { readExactResults, symbolsOf } from "../lib/exact-results";
+import { LimitsPanel } from "./limits-panel";
+import { SweepPanel } from "./sweep-panel";
+import { ValuesPanel, type TypedValues } from "./values-panel";
+
+function Panel({ title, children }: { title: string; children: ReactNode }) {
+  const id = `panel-${title.toLowerCase()}`;
+  return (
+    <section aria-labelledby={id} className="border-b border-rule pb-4 pt-3 first:pt-0">
+      <h2 id={id} className="mb-2 text-sm font-semibold tracking-tight">
+        {title}
+      </h2>
+      {children}
+    </section>
+  );
+}
+
+// The narrow right column: Values, Limits and Sweep, all computed in the browser from the stored exact result.
+export function AnalysisColumn({ results }: { results: Results }) {
+  const exact = useMemo(() => readExactResults(results), [results]);
+  const symbols = useMemo(() => symbolsOf(exact), [exact]);
+  const [values, setValues] = useState<TypedValues>({});
+  const gain = symbols.find((s) => results.quantities[s] === "dimensionless" || results.quantities[s] === "transconductance");
+  return (
+    <div className="print:hidden">
+      <Panel title="Values">
+        <ValuesPanel exact={exact} symbols={symbols} quantities={results.quantities} values={values} onChange={setValues} />
+      </Panel>
+      <Panel title="Limits">
+        <LimitsPanel exact={exact} symbols={symbols} initialSymbol={gain} />
+      </Panel>
+      <Panel title="Sweep">
+        <SweepPanel exact={exact} symbols={symbols} quantities={results.quantities} values={values} initialSymbol={gain} />
+      </Panel>
+      <Caution className="mt-3" />
+    </div>
+  );
+}

@@ -1,0 +1,39 @@
+import type { ResultName } from "@/types/api";
+
+// SI units for the engine's quantities; gains are dimensionless and carry no unit.
+const UNITS: Record<string, string> = {
+  resistance: "Ω",
+  conductance: "S",
+  voltage: "V",
+  current: "A",
+  dimensionless: "",
+  transconductance: "S",
+  transresistance: "Ω",
+  capacitance: "F",
+  inductance: "H",
+  frequency: "Hz",
+  time: "s",
+};
+
+export function unitOf(quantity: string | null | undefined): string {
+  return quantity ? (UNITS[quantity] ?? "") : "";
+}
+
+export function quantityLabel(quantity: string | null | undefined): string {
+  if (!quantity) return "quantity not known";
+  return quantity === "dimensionless" ? "gain, no unit" : quantity;
+}
+
+export const RESULT_NAMES: ResultName[] = ["vth", "rth", "isc"];
+
+export const RESULT_UNIT: Record<ResultName, string> = { vth: "V", rth: "Ω", isc: "A" };
+
+export const RESULT_LABEL: Record<ResultName, string> = { vth: "Vth", rth: "Rth", isc: "Isc" };
+
+export const RESULT_TEX: Record<ResultName, string> = { vth: "V_{\\mathrm{th}}", rth: "R_{\\mathrm{th}}", isc: "I_{\\mathrm{sc}}" };
+
+export const RESULT_MEANING: Record<ResultName, string> = {
+  vth: "open-circuit voltage",
+  rth: "Thevenin resistance",
+  isc: "short-circuit current",
+};

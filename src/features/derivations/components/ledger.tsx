@@ -1,0 +1,72 @@
+import { Caution } from "@/components/ui/caution";
+import { MathTex } from "@/components/ui/math";
+import { EmptyState } from "@/components/ui/states";
+import { StepComments, type ReviewContext } from "@/features/review/components/step-comments";
+import type { Comment, Revision } from "@/types/api";
+import { CheckBadge, DimensionCheck } from "./check-badge";
+import { Equivalents } from "./equivalents";
+
+// The ledger: every stored step, numbered and typeset, with its review notes in the margin.
+export function Ledger({ revision, comments, review }: { revision: Revision; comments: Comment[]; review: ReviewContext }) {
+  const { results, steps } = revision;
+  return (
+    <div>
+      <div className="flex flex-wrap items-center justify-between gap-2 border-b border-rule pb-2">
+        <CheckBadge results={results} />
+        <DimensionCheck results={results} />
+      </div>
+      {results.statements.length > 0 && (
+        <ul className="mt-2 space-y-0.5 text-sm" aria-label="Statements about the port">
+          {results.statements.map((s) => (
+            <li key={s.code} className={s.code === "rth-disagree" ? "text-signal" : "text-ink/80"}>
+              {s.message}
+            </li>
+          ))}
+        </ul>
+      )}
+      {steps.length === 0 ? (
+        <div className="mt-4">
+          <EmptyState title="No steps were stored with this revision." />
+        </div>
+      ) : (
+        <ol className="mt-2" aria-label="Ledger">
+          {steps.map((step, index) => (
+            <li
+              key={step.id}
+              id={`step-${step.id}`}
+              data-step-kind={step.kind}
+              className="grid grid-cols-[1.75rem_minmax(0,1fr)_11rem] gap-x-3 border-b border-rule/70 py-3 print:break-inside-avoid"
+            >
+              <span className="pt-0.5 text-right font-mono text-xs text-ink/50">{index + 1}</span>
+              <div className="min-w-0">
+                <h3 className="text-sm font-medium">{step.title}</h3>
+                {step.explanation && <p className="mt-0.5 text-xs leading-relaxed text-ink/70">{step.explanation}</p>}
+                {step.tex && (
+                  <div className="ledger-tex mt-1.5 overflow-x-auto text-[0.88rem]">
+                    <MathTex tex={step.tex} block />
+                  </div>
+                )}
+              </div>
+              <div className="border-l border-dashed border-rule pl-3">
+                <StepComments
+                  stepId={step.id}
+                  stepTitle={`step ${index + 1}, ${step.title}`}
+                  comments={comments}
+                  // The way to comment is offered once, beside the first step, not in every margin.
+                  review={index === 0 ? review : { ...review, commentPath: undefined }}
+                />
+              </div>
+            </li>
+          ))}
+        </ol>
+      )}
+      <section aria-labelledby="equivalents-heading" className="mt-5 print:break-inside-avoid">
+        <h3 id="equivalents-heading" className="mb-2 text-sm font-semibold">
+          The equivalents at the port
+        </h3>
+        <Equivalents results={results} />
+        <Caution className="mt-3" />
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,57 @@
+import { useEffect, useRef, useState } from "react";
+import { Button } from "@/components/ui/button";
+import { NETLIST_EXTENSION, printNetlistText, type EngineNetwork } from "@/lib/engine-netlist";
+import type { Revision } from "@/types/api";
+import { downloadText, fileSafe, ledgerLatex } from "../lib/latex";
+
+// Export of one revision: the ledger as LaTeX, the network as our JSON and as our text, and print.
+export function ExportMenu({ revision }: { revision: Revision }) {
+  const [open, setOpen] = useState(false);
+  const menu = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (!open) return;
+    const close = (event: MouseEvent | KeyboardEvent) => {
+      if (event instanceof KeyboardEvent ? event.key === "Escape" : !menu.current?.contains(event.target as Node)) setOpen(false);
+    };
+    document.addEventListener("mousedown", close);
+    document.addEventListener("keydown", close);
+    return () => {
+      document.removeEventListener("mousedown", close);
+      document.removeEventListener("keydown", close);
+    };
+  }, [open]);
+  const base = `${fileSafe(revision.title)}-r${revision.k}`;
+  const network = { ground: "0", ...revision.circuit } as EngineNetwork;
+  const item = "block w-full px-3 py-1.5 text-left text-sm hover:bg-rule/50 focus:bg-rule/50 focus:outline-none";
+  return (
+    <div ref={menu} className="relative print:hidden">
+      <Button aria-haspopup="menu" aria-expanded={open} onClick={() => setOpen(!open)}>
+        Export
+      </Button>
+      {open && (
+        <div role="menu" className="absolute right-0 z-20 mt-1 w-64 rounded border border-rule bg-paper py-1 shadow-lg">
+          <button role="menuitem" type="button" className={item} onClick={() => downloadText(`${base}.tex`, ledgerLatex(revision), "application/x-tex")}>
+            Ledger as LaTeX (.tex)
+          </button>
+          <button role="menuitem" type="button" className={item} onClick={() => downloadText(`${base}.json`, `${JSON.stringify(revision.circuit, null, 2)}\n`, "application/json")}>
+            Network as JSON (.json)
+          </button>
+          <button role="menuitem" type="button" className={item} onClick={() => downloadText(`${base}${NETLIST_EXTENSION}`, printNetlistText(network, revision.title), "text/plain")}>
+            Network as Portfold netlist ({NETLIST_EXTENSION})
+          </button>
+          <button
+            role="menuitem"
+            type="button"
+            className={item}
+            onClick={() => {
+              setOpen(false);
+              requestAnimationFrame(() => window.print());
+            }}
+          >
+            Print or save as PDF
+          </button>
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,48 @@
+import type { Revision } from "@/types/api";
+
+// Plain text into LaTeX text mode: every special character escaped, so titles cannot inject commands.
+export function latexText(text: string): string {
+  return text.replace(/[\\{}$&#^_%~]/g, (c) =>
+    c === "\\" ? "\\textbackslash{}" : c === "^" ? "\\textasciicircum{}" : c === "~" ? "\\textasciitilde{}" : `\\${c}`,
+  );
+}
+
+/** The whole ledger as a stand-alone LaTeX document (amsmath), one subsection per step. */
+export function ledgerLatex(revision: Revision): string {
+  const lines = [
+    "\\documentclass[11pt]{article}",
+    "\\usepackage{amsmath,amssymb}",
+    "\\usepackage[margin=2cm]{geometry}",
+    `\\title{${latexText(revision.title)} --- derivation revision ${revision.k}}`,
+    "\\date{}",
+    "\\begin{document}",
+    "\\maketitle",
+    "\\noindent Results are linear, small-signal idealisations. Verify them against measurement, component ratings and the codes and licensed practice that apply before building hardware, above all at mains or high voltage.",
+    "",
+  ];
+  revision.steps.forEach((step, i) => {
+    lines.push(`\\subsection*{${i + 1}. ${latexText(step.title)}}`);
+    if (step.explanation) lines.push(latexText(step.explanation), "");
+    if (step.tex) lines.push("\\[", step.tex, "\\]", "");
+  });
+  const { vth, rth, isc } = revision.results;
+  lines.push("\\subsection*{Equivalents at the port}");
+  if (vth) lines.push(`\\[ V_{\\mathrm{th}} = ${vth.compactTex} \\]`);
+  if (rth) lines.push(`\\[ R_{\\mathrm{th}} = ${rth.compactTex} \\]`);
+  if (isc) lines.push(`\\[ I_{\\mathrm{sc}} = ${isc.compactTex} \\]`);
+  lines.push("\\end{document}", "");
+  return lines.join("\n");
+}
+
+export function fileSafe(title: string): string {
+  return title.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "network";
+}
+
+export function downloadText(filename: string, text: string, type: string) {
+  const url = URL.createObjectURL(new Blob([text], { type }));
+  const a = document.createElement("a");
+  a.href = url;
+  a.download = filename;
+  a.click();
+  URL.revokeObjectURL(url);
+}

@@ -1,0 +1,114 @@
+import { useMemo, useState } from "react";
+import { Button } from "@/components/ui/button";
+import { ErrorState, Progress } from "@/components/ui/states";
+import { ApiError } from "@/lib/api-client";
+import type { EngineNetwork } from "@/lib/engine-netlist";
+import type { Diagnostic } from "@/types/api";
+import { printNetlistText } from "@/lib/engine-netlist";
+import { nodesOf, readNetlist, withPort } from "../lib/netlist";
+import { ElementTable } from "./element-table";
+import { NetlistEditor, editorDiagnostics } from "./netlist-editor";
+import { PortPicker } from "./port-picker";
+import { Schematic } from "./schematic";
+
+type Tab = "text" | "table";
+
+// Diagnostics that name elements but no line (e.g. from the solve) are placed on those elements' lines.
+function placeDiagnostics(diagnostics: Diagnostic[], text: string): Diagnostic[] {
+  const lines = text.split("\n");
+  const lineOf = (name: string) => {
+    const index = lines.findIndex((l) => l.trim().split(/\s+/)[0] === name);
+    return index >= 0 ? index + 1 : undefined;
+  };
+  return diagnostics.map((d) => (d.line !== undefined ? d : { ...d, line: d.elements.map(lineOf).find((l) => l !== undefined) }));
+}
+
+export interface NetworkPanelProps {
+  text: string;
+  onTextChange: (text: string) => void;
+  canEdit: boolean;
+  dirty: boolean;
+  onSave: () => void;
+  onSolve: () => void;
+  saving: boolean;
+  solving: boolean;
+  saveError: unknown;
+  solveError: unknown;
+}
+
+export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSolve, saving, solving, saveError, solveError }: NetworkPanelProps) {
+  const [tab, setTab] = useState<Tab>("text");
+  const read = useMemo(() => readNetlist(text), [text]);
+  const [lastGood, setLastGood] = useState<EngineNetwork | null>(read.network);
+  if (read.network && read.network !== lastGood) setLastGood(read.network);
+  const network = read.network ?? lastGood;
+  const errors = read.diagnostics.filter((d) => d.severity === "error");
+  const serverDiagnostics = [solveError, saveError].flatMap((e) => (e instanceof ApiError && e.diagnostics ? e.diagnostics : []));
+  const shown = editorDiagnostics([...read.diagnostics, ...placeDiagnostics(serverDiagnostics, text)]);
+  const unplaced = [...read.diagnostics, ...serverDiagnostics].filter((d) => d.line === undefined && !d.elements?.length);
+  const nodes = nodesOf(read.network);
+
+  const tabButton = (value: Tab, label: string) => (
+    <button
+      type="button"
+      role="tab"
+      aria-selected={tab === value}
+      aria-controls={`network-${value}`}
+      id={`network-tab-${value}`}
+      onClick={() => setTab(value)}
+      className={`border-b-2 px-2 py-1 text-sm ${tab === value ? "border-copper font-medium text-ink" : "border-transparent text-ink/60 hover:text-ink"}`}
+    >
+      {label}
+    </button>
+  );
+
+  return (
+    <div className="space-y-4">
+      <pre className="hidden whitespace-pre-wrap font-mono text-[9pt] print:block">{text}</pre>
+      <div className="print:hidden">
+        <div role="tablist" aria-label="Network form" className="mb-2 flex gap-1 border-b border-rule">
+          {tabButton("text", "Netlist text")}
+          {tabButton("table", "Element table")}
+        </div>
+        <div role="tabpanel" id={`network-${tab}`} aria-labelledby={`network-tab-${tab}`}>
+          {tab === "text" ? (
+            <NetlistEditor value={text} onChange={onTextChange} diagnostics={shown} readOnly={!canEdit} />
+          ) : (
+            <ElementTable network={read.network} readOnly={!canEdit} onChange={(next) => onTextChange(printNetlistText(next))} />
+          )}
+        </div>
+        {unplaced.map((d, i) => (
+          <p key={i} role="alert" className="mt-1 text-xs text-signal">
+            {d.message}
+          </p>
+        ))}
+      </div>
+
+      {read.network && <div className="print:hidden"><PortPicker nodes={nodes} plus={read.network.port.plus} minus={read.network.port.minus} disabled={!canEdit} onChange={(plus, minus) => onTextChange(withPort(text, plus, minus))} /></div>}
+
+      <section aria-labelledby="schematic-heading">
+        <h2 id="schematic-heading" className="mb-1 text-sm font-medium">
+          Schematic preview {!read.network && network && <span className="font-normal text-ink/50">(last version that read without errors)</span>}
+        </h2>
+        <div className="rounded border border-rule bg-white/40 p-1">{network ? <Schematic network={network} /> : <p className="p-3 text-sm text-ink/60">Fix the netlist to see the drawing.</p>}</div>
+      </section>
+
+      {canEdit && (
+        <div className="sticky bottom-0 -mx-1 flex flex-wrap items-center gap-2 border-t border-rule bg-paper px-1 py-2 print:hidden">
+          <Button variant="primary" onClick={onSolve} disabled={solving || saving || errors.length > 0} aria-describedby="solve-note">
+            {solving ? "Solving…" : "Solve"}
+          </Button>
+          <Button onClick={onSave} disabled={!dirty || saving || errors.length > 0}>
+            {saving ? "Saving…" : dirty ? "Save" : "Saved"}
+          </Button>
+          <span id="solve-note" className="text-xs text-ink/60">
+            {errors.length > 0 ? `${errors.length} error${errors.length > 1 ? "s" : ""} in the netlist` : dirty ? "Unsaved changes; Solve saves first." : "Solve stores a new derivation revision."}
+          </span>
+          {solving && <Progress label="Solving: nodal analysis, exact…" />}
+        </div>
+      )}
+      {solveError != null && !(solveError instanceof ApiError && solveError.diagnostics?.length) && <ErrorState error={solveError} title="The network could not be solved" />}
+      {saveError != null && <ErrorState error={saveError} title="The network could not be saved" />}
+    </div>
+  );
+}

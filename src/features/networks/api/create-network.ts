@@ -1,0 +1,22 @@
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+import type { Circuit } from "@/types/api";
+
+export interface CreateNetworkInput {
+  teamId: string;
+  title: string;
+  description?: string;
+  circuit: Circuit;
+}
+
+export function createNetwork({ teamId, ...input }: CreateNetworkInput) {
+  return api<{ id: string; slug?: string }>(`/teams/${encodeURIComponent(teamId)}/networks`, { method: "POST", json: input });
+}
+
+export function useCreateNetwork() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: createNetwork,
+    onSuccess: (_data, { teamId }) => queryClient.invalidateQueries({ queryKey: ["teams", teamId, "networks"] }),
+  });
+}

@@ -1,0 +1,15 @@
+import { queryOptions, useQuery } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+import { normaliseNetwork } from "./get-network";
+
+// The permanent, human-readable link /n/<slug>/r/<k> resolves through the slug.
+export async function getNetworkBySlug(slug: string) {
+  return normaliseNetwork(await api<Record<string, unknown>>(`/networks/by-slug/${encodeURIComponent(slug)}`));
+}
+
+export const networkBySlugQueryOptions = (slug: string) =>
+  queryOptions({ queryKey: ["networks", "by-slug", slug], queryFn: () => getNetworkBySlug(slug), retry: false });
+
+export function useNetworkBySlug(slug: string) {
+  return useQuery(networkBySlugQueryOptions(slug));
+}

@@ -1,0 +1,182 @@
+import { useEffect, useId, useState } from "react";
+import { Link, useNavigate } from "react-router-dom";
+import { Button } from "@/components/ui/button";
+import { Dialog } from "@/components/ui/dialog";
+import { EmptyState, ErrorState, InlineError, LoadingState } from "@/components/ui/states";
+import { VerdictMark } from "@/features/review/components/verdict-control";
+import type { NetworkSummary, Role } from "@/types/api";
+import { useDeleteNetwork } from "../api/delete-network";
+import { useDuplicateNetwork } from "../api/duplicate-network";
+import { useNetworks, type NetworkSort } from "../api/get-networks";
+
+const PAGE_SIZE = 20;
+
+const COLUMNS: { key: NetworkSort; label: string }[] = [
+  { key: "title", label: "Title" },
+  { key: "author", label: "Author" },
+  { key: "lastRevision", label: "Last revision" },
+  { key: "verdict", label: "Verdict" },
+  { key: "updatedAt", label: "Updated" },
+];
+
+function updated(iso: string) {
+  const date = new Date(iso);
+  return Number.isNaN(date.getTime()) ? "" : date.toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" });
+}
+
+function useDebounced<T>(value: T, ms: number): T {
+  const [debounced, setDebounced] = useState(value);
+  useEffect(() => {
+    const timer = setTimeout(() => setDebounced(value), ms);
+    return () => clearTimeout(timer);
+  }, [value, ms]);
+  return debounced;
+}
+
+function RowActions({ network, teamId, canEdit }: { network: NetworkSummary; teamId: string; canEdit: boolean }) {
+  const [confirming, setConfirming] = useState(false);
+  const remove = useDeleteNetwork();
+  const duplicate = useDuplicateNetwork();
+  const navigate = useNavigate();
+  if (!canEdit) return null;
+  return (
+    <div className="flex justify-end gap-1">
+      <Button variant="quiet" className="px-2 py-0.5 text-xs" onClick={() => duplicate.mutate({ networkId: network.id, teamId }, { onSuccess: (created) => navigate(`/networks/${created.id}`) })} disabled={duplicate.isPending} aria-label={`Duplicate ${network.title}`}>
+        {duplicate.isPending ? "Duplicating…" : "Duplicate"}
+      </Button>
+      <Button variant="quiet" className="px-2 py-0.5 text-xs hover:text-signal" onClick={() => setConfirming(true)} aria-label={`Delete ${network.title}`}>
+        Delete
+      </Button>
+      <InlineError error={duplicate.error} />
+      <Dialog open={confirming} onClose={() => setConfirming(false)} title="Delete this network?">
+        <p className="text-sm">
+          “{network.title}” and all its derivation revisions, share links and review notes will be deleted. This cannot be undone.
+        </p>
+        <InlineError error={remove.error} />
+        <div className="mt-4 flex justify-end gap-2">
+          <Button onClick={() => setConfirming(false)}>Keep it</Button>
+          <Button variant="danger" disabled={remove.isPending} onClick={() => remove.mutate({ networkId: network.id, teamId }, { onSuccess: () => setConfirming(false) })}>
+            {remove.isPending ? "Deleting…" : "Delete network"}
+          </Button>
+        </div>
+      </Dialog>
+    </div>
+  );
+}
+
+// The team's networks: searched, sorted and paged by the server.
+export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) {
+  const searchId = useId();
+  const [search, setSearch] = useState("");
+  const [sort, setSort] = useState<NetworkSort>("updatedAt");
+  const [direction, setDirection] = useState<"asc" | "desc">("desc");
+  const [page, setPage] = useState(1);
+  const debouncedSearch = useDebounced(search, 250);
+  useEffect(() => setPage(1), [debouncedSearch, sort, direction]);
+  const networks = useNetworks({ teamId, search: debouncedSearch, sort, direction, page, pageSize: PAGE_SIZE });
+  const canEdit = role === "owner" || role === "editor";
+
+  const sortBy = (key: NetworkSort) => {
+    if (key === sort) setDirection(direction === "asc" ? "desc" : "asc");
+    else {
+      setSort(key);
+      setDirection(key === "updatedAt" || key === "lastRevision" ? "desc" : "asc");
+    }
+  };
+
+  const data = networks.data;
+  const from = data && data.total > 0 ? (data.page - 1) * data.pageSize + 1 : 0;
+  const to = data ? Math.min(data.total, data.page * data.pageSize) : 0;
+  const lastPage = data ? Math.max(1, Math.ceil(data.total / data.pageSize)) : 1;
+
+  return (
+    <div>
+      <div className="flex items-end justify-between gap-3">
+        <div className="w-72">
+          <label htmlFor={searchId} className="block text-sm font-medium">
+            Search networks
+          </label>
+          <input
+            id={searchId}
+            type="search"
+            value={search}
+            onChange={(e) => setSearch(e.target.value)}
+            placeholder="title, author"
+            className="mt-1 block w-full rounded border border-rule bg-white px-2.5 py-1.5 text-sm focus:border-copper focus:outline-none"
+          />
+        </div>
+        {networks.isFetching && !networks.isLoading && <span className="text-xs text-ink/50">Updating…</span>}
+      </div>
+      <div className="mt-3">
+        {networks.isLoading ? (
+          <LoadingState label="Loading the team's networks…" />
+        ) : networks.isError ? (
+          <ErrorState error={networks.error} title="The networks could not be loaded" />
+        ) : !data || data.items.length === 0 ? (
+          <EmptyState title={debouncedSearch ? `No network matches “${debouncedSearch}”.` : "No networks in this team yet."}>
+            {!debouncedSearch && (canEdit ? "Create one from text or import a file to begin." : "Editors and owners of the team can create networks.")}
+          </EmptyState>
+        ) : (
+          <>
+            <table className="w-full border-collapse text-sm">
+              <caption className="sr-only">Networks of the team, sorted by {sort}</caption>
+              <thead>
+                <tr className="border-b border-ink/30 text-left">
+                  {COLUMNS.map((c) => (
+                    <th key={c.key} scope="col" aria-sort={sort === c.key ? (direction === "asc" ? "ascending" : "descending") : "none"} className="py-1.5 pr-3 font-medium">
+                      <button type="button" onClick={() => sortBy(c.key)} className="flex items-center gap-1 hover:text-copper">
+                        {c.label}
+                        <span aria-hidden="true" className="text-xs text-ink/50">
+                          {sort === c.key ? (direction === "asc" ? "▲" : "▼") : ""}
+                        </span>
+                      </button>
+                    </th>
+                  ))}
+                  <th scope="col">
+                    <span className="sr-only">Actions</span>
+                  </th>
+                </tr>
+              </thead>
+              <tbody>
+                {data.items.map((n) => (
+                  <tr key={n.id} className="border-b border-rule">
+                    <td className="py-1.5 pr-3">
+                      <Link to={`/networks/${n.id}`} className="font-medium hover:text-copper hover:underline">
+                        {n.title}
+                      </Link>
+                    </td>
+                    <td className="py-1.5 pr-3 text-ink/80">{n.author ?? "—"}</td>
+                    <td className="py-1.5 pr-3 font-mono text-xs">{n.lastRevision ? `revision ${n.lastRevision}` : <span className="font-sans text-ink/50">not solved</span>}</td>
+                    <td className="py-1.5 pr-3 text-xs">
+                      <VerdictMark verdict={n.verdict} />
+                    </td>
+                    <td className="py-1.5 pr-3 text-xs text-ink/70">{updated(n.updatedAt)}</td>
+                    <td className="py-1.5">
+                      <RowActions network={n} teamId={teamId} canEdit={canEdit} />
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+            <nav aria-label="Pages" className="mt-3 flex items-center justify-between text-sm">
+              <span className="text-ink/70">
+                {from}–{to} of {data.total}
+              </span>
+              <div className="flex gap-2">
+                <Button disabled={page <= 1} onClick={() => setPage(page - 1)}>
+                  Previous
+                </Button>
+                <span className="self-center text-xs text-ink/60">
+                  page {page} of {lastPage}
+                </span>
+                <Button disabled={page >= lastPage} onClick={() => setPage(page + 1)}>
+                  Next
+                </Button>
+              </div>
+            </nav>
+          </>
+        )}
+      </div>
+    </div>
+  );
+}

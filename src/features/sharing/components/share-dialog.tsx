@@ -1,0 +1,167 @@
+import { useId, useState } from "react";
+import { Button } from "@/components/ui/button";
+import { Dialog } from "@/components/ui/dialog";
+import { InlineError, Progress } from "@/components/ui/states";
+import { useTeamMembers } from "@/features/teams/api/get-team-members";
+import type { ShareLink } from "@/types/api";
+import { useCreateShareLink } from "../api/create-share-link";
+import { useShareLinks } from "../api/get-share-links";
+import { useRevokeShareLink } from "../api/revoke-share-link";
+
+const ROLE_RIGHTS = [
+  ["owner", "everything, members and deletion"],
+  ["editor", "change networks, solve, share"],
+  ["reviewer", "read, note on steps, give a verdict"],
+  ["viewer", "read"],
+] as const;
+
+function CopyButton({ text }: { text: string }) {
+  const [copied, setCopied] = useState(false);
+  return (
+    <Button
+      className="px-2 py-1 text-xs"
+      onClick={async () => {
+        await navigator.clipboard?.writeText(text).catch(() => undefined);
+        setCopied(true);
+        setTimeout(() => setCopied(false), 1500);
+      }}
+    >
+      {copied ? "Copied" : "Copy"}
+    </Button>
+  );
+}
+
+function LinkRow({ link, networkId, k }: { link: ShareLink; networkId: string; k: number }) {
+  const revoke = useRevokeShareLink();
+  const live = link.status === "active" && !link.revokedAt && !revoke.isSuccess;
+  const state = !live
+    ? link.revokedAt || revoke.isSuccess
+      ? "Revoked: no longer opens."
+      : "Expired: no longer opens."
+    : link.expiresAt
+      ? `Opens until ${new Date(link.expiresAt).toLocaleString("en-GB")}.`
+      : "Opens until revoked.";
+  return (
+    <li className="rounded border border-rule bg-white/60 p-2">
+      <div className="flex items-center gap-2">
+        {link.url ? (
+          <input aria-label="Share link address" readOnly value={link.url} className="min-w-0 flex-1 bg-transparent font-mono text-xs" onFocus={(e) => e.target.select()} data-testid="share-url" />
+        ) : (
+          <span className="min-w-0 flex-1 text-xs text-ink/70">
+            Link made {link.createdAt ? new Date(link.createdAt).toLocaleString("en-GB") : ""}
+            {link.createdBy ? ` by ${link.createdBy}` : ""} (its address was shown once, when it was made)
+          </span>
+        )}
+        {live && link.url && <CopyButton text={link.url} />}
+        {live && (
+          <Button
+            variant="quiet"
+            className="px-2 py-1 text-xs hover:text-signal"
+            disabled={revoke.isPending}
+            onClick={() => {
+              if (window.confirm("Revoke this share link? Anyone holding it loses access at once.")) revoke.mutate({ networkId, k, shareId: link.id });
+            }}
+          >
+            Revoke
+          </Button>
+        )}
+      </div>
+      <p className="mt-1 text-[11px] text-ink/60">{state}</p>
+      <InlineError error={revoke.error} />
+    </li>
+  );
+}
+
+// Share links for one revision, and who can see what.
+export function ShareDialog({ open, onClose, networkId, teamId, k }: { open: boolean; onClose: () => void; networkId: string; teamId: string; k: number }) {
+  const expiryId = useId();
+  const [expiry, setExpiry] = useState("");
+  const links = useShareLinks(networkId, k, open);
+  const create = useCreateShareLink();
+  const members = useTeamMembers(open ? teamId : undefined);
+  // The address of a link is known only in the answer that made it; keep it for this dialog.
+  const [created, setCreated] = useState<ShareLink[]>([]);
+  const all = [...(links.data ?? [])].reverse().map((link) => {
+    const made = created.find((c) => c.id === link.id);
+    return made ? { ...link, token: made.token, url: made.url } : link;
+  });
+  for (const c of created) if (!all.some((l) => l.id === c.id)) all.unshift(c);
+
+  return (
+    <Dialog open={open} onClose={onClose} title={`Share revision ${k}`} wide>
+      <p className="text-sm text-ink/80">
+        A share link opens revision {k} read-only, without an account: the ledger, Values, Limits and Sweep. It cannot change anything or
+        add notes. Each link is its own unguessable address and can be revoked.
+      </p>
+      <form
+        className="mt-3 flex flex-wrap items-end gap-2"
+        onSubmit={(event) => {
+          event.preventDefault();
+          create.mutate(
+            { networkId, k, expiresAt: expiry ? new Date(`${expiry}T23:59:59`).toISOString() : undefined },
+            {
+              onSuccess: (link) => setCreated((list) => [link, ...list]),
+            },
+          );
+        }}
+      >
+        <div>
+          <label htmlFor={expiryId} className="block text-xs font-medium">
+            Expires after (optional)
+          </label>
+          <input id={expiryId} type="date" value={expiry} onChange={(e) => setExpiry(e.target.value)} className="mt-0.5 rounded border border-rule bg-white px-2 py-1 text-xs" />
+        </div>
+        <Button type="submit" variant="primary" disabled={create.isPending}>
+          {create.isPending ? "Creating…" : "Create share link"}
+        </Button>
+      </form>
+      <InlineError error={create.error} />
+      <div className="mt-3">
+        {links.isLoading && <Progress label="Loading share links…" />}
+        {all.length > 0 ? (
+          <ul className="space-y-2" aria-label="Share links of this revision">
+            {all.map((link) => (
+              <LinkRow key={link.id} link={link} networkId={networkId} k={k} />
+            ))}
+          </ul>
+        ) : (
+          !links.isLoading && <p className="text-xs text-ink/60">No share links for this revision yet.</p>
+        )}
+      </div>
+      <section className="mt-4 border-t border-rule pt-3" aria-labelledby={`${expiryId}-who`}>
+        <h3 id={`${expiryId}-who`} className="text-sm font-semibold">
+          Who can see what
+        </h3>
+        <ul className="mt-1 text-xs text-ink/80">
+          <li>Anyone with an open share link: revision {k}, read-only.</li>
+          {ROLE_RIGHTS.map(([role, rights]) => (
+            <li key={role}>
+              Team {role}s: {rights}.
+            </li>
+          ))}
+        </ul>
+        {members.data && members.data.length > 0 && (
+          <table className="mt-2 w-full text-xs">
+            <caption className="sr-only">Team members</caption>
+            <thead>
+              <tr className="text-left text-ink/60">
+                <th scope="col" className="font-medium">Member</th>
+                <th scope="col" className="font-medium">Role</th>
+              </tr>
+            </thead>
+            <tbody>
+              {members.data.map((m) => (
+                <tr key={m.userId} className="border-t border-rule/60">
+                  <td className="py-0.5">
+                    {m.name} <span className="text-ink/50">{m.email}</span>
+                  </td>
+                  <td className="py-0.5">{m.role}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+      </section>
+    </Dialog>
+  );
+}

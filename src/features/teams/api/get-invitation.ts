@@ -1,0 +1,23 @@
+import { queryOptions, useQuery } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+import type { Role } from "@/types/api";
+
+export interface InvitationPreview {
+  team: { id: string; name: string };
+  role: Role;
+  email: string;
+  invitedBy: string | null;
+  expiresAt: string;
+}
+
+// Readable without an account, so the invited person sees what they are joining before signing in.
+export function getInvitation(token: string) {
+  return api<InvitationPreview>(`/invitations/${encodeURIComponent(token)}`);
+}
+
+export const invitationQueryOptions = (token: string) =>
+  queryOptions({ queryKey: ["invitations", token], queryFn: () => getInvitation(token), retry: false });
+
+export function useInvitation(token: string) {
+  return useQuery({ ...invitationQueryOptions(token), enabled: Boolean(token) });
+}

@@ -1,0 +1,6 @@
+// The netlist reader and printer of the shared engine, apart from the algebra so the team
+// screen can read a netlist without loading the exact-algebra bundle.
+export { parseNetlistText, printElementLine, printNetlistText, NETLIST_EXTENSION } from "../../shared/engine/circuit/netlist-text";
+export { validateNetworkJson } from "../../shared/engine/circuit/schema";
+export { ELEMENT_KINDS, QUANTITIES } from "../../shared/engine/types";
+export type { Element, ElementKind, Network as EngineNetwork, ParseResult, Quantity } from "../../shared/engine/types";

@@ -1,0 +1,145 @@
+// Shapes of the server's JSON as the client reads them. The server owns them; the client
+// normalises what it receives in one place per resource (see features/*/api).
+import type { Diagnostic as EngineDiagnostic, Element, NetworkInput } from "../../shared/engine/types";
+
+export type Role = "owner" | "editor" | "reviewer" | "viewer";
+export type Verdict = "open" | "approved" | "needs_changes";
+export type Diagnostic = EngineDiagnostic;
+
+export interface User {
+  id: string;
+  email: string;
+  name: string;
+  emailVerified?: boolean;
+}
+
+export interface TeamMembership {
+  id: string;
+  name: string;
+  role: Role;
+  personal?: boolean;
+}
+
+export interface Me {
+  user: User;
+  teams: TeamMembership[];
+}
+
+/** The engine's interchange format (issue 3), exactly as stored. */
+export type Circuit = NetworkInput;
+export type CircuitElement = Element;
+
+export interface NetworkSummary {
+  id: string;
+  slug: string;
+  title: string;
+  author: string | null;
+  lastRevision: number | null;
+  verdict: Verdict | null;
+  updatedAt: string;
+}
+
+export interface NetworkPage {
+  items: NetworkSummary[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+export interface Network {
+  id: string;
+  teamId: string;
+  slug: string;
+  title: string;
+  description: string;
+  circuit: Circuit;
+  quantities: Record<string, string>;
+  author: string | null;
+  authorId: string | null;
+  createdAt: string;
+  updatedAt: string;
+  role: Role | null;
+  latestRevision: number | null;
+}
+
+export interface RevisionSummary {
+  k: number;
+  createdAt: string;
+  author: string | null;
+  verdict: Verdict | null;
+  permalink: string | null;
+  summary: { vth: string | null; rth: string | null; isc: string | null };
+}
+
+export interface Step {
+  id: string;
+  ordinal: number;
+  kind: string;
+  title: string;
+  explanation: string;
+  tex: string;
+  data: unknown;
+}
+
+export interface Comment {
+  id: string;
+  stepId: string;
+  parentId: string | null;
+  body: string;
+  deleted: boolean;
+  author: string | null;
+  authorId: string | null;
+  createdAt: string;
+  updatedAt: string;
+}
+
+/** One exact result in the forms the client shows: canonical N/D and compact, as infix and TeX. */
+export interface ResultForm {
+  infix: string;
+  tex: string;
+  compact: string;
+  compactTex: string;
+}
+
+export type ResultName = "vth" | "isc" | "rth";
+
+export interface Results {
+  vth: ResultForm | null;
+  isc: ResultForm | null;
+  rth: ResultForm | null;
+  rthFromVocIsc: ResultForm | null;
+  agree: boolean | null;
+  statements: { code: string; message: string }[];
+  checks: { testSource: boolean | null; vocIsc: boolean | null; numeric: boolean | null };
+  /** Quantity per symbol (resistance, voltage, dimensionless, ...), null when none could be inferred. */
+  quantities: Record<string, string | null>;
+  dimensionChecks: Partial<Record<ResultName, { status: string; message: string; found: string | null }>>;
+}
+
+export interface Revision {
+  networkId: string;
+  slug: string;
+  title: string;
+  k: number;
+  permalink: string | null;
+  createdAt: string;
+  author: string | null;
+  circuit: Circuit;
+  results: Results;
+  diagnostics: Diagnostic[];
+  steps: Step[];
+  verdict: { verdict: Verdict; by: string | null; at: string | null };
+}
+
+export interface ShareLink {
+  id: string;
+  /** Only known right after creation: the server keeps a hash, never the token. */
+  token: string | null;
+  url: string | null;
+  k: number;
+  status: string;
+  createdBy: string | null;
+  createdAt: string;
+  expiresAt: string | null;
+  revokedAt: string | null;
+}

@@ -1,0 +1,115 @@
+import { describe, expect, it } from "vitest";
+import fc from "fast-check";
+import { Poly, Rational, parseValue, polyDivide, polyDivideExact, polyGcd, polyGcdList, polyLcm } from "../../shared/engine/algebra/index";
+import { nonZeroPoly, polyArb } from "./algebra-arbitraries";
+import { askSympy, type SympyQuestion } from "./algebra-sympy";
+
+const runs = { numRuns: 120 };
+const P = (s: string) => parseValue(s).num;
+
+describe("polyDivideExact", () => {
+  it("(a*b)/b = a for any nonzero b", () => {
+    fc.assert(
+      fc.property(polyArb(4), nonZeroPoly(3), (a, b) => {
+        expect(polyDivideExact(a.mul(b), b).equals(a)).toBe(true);
+      }),
+      runs,
+    );
+  });
+
+  it("stays exact with coefficients near and beyond 2^53", () => {
+    fc.assert(
+      fc.property(fc.array(fc.bigInt(-(2n ** 40n), 2n ** 40n), { minLength: 4, maxLength: 4 }), ([a, b, c, d]) => {
+        const x = Poly.variable("x");
+        const y = Poly.variable("y");
+        const f = x.scale(Rational.of(a === 0n ? 1n : a)).add(y.scale(Rational.of(b))).add(Poly.one());
+        const g = x.mul(y).scale(Rational.of(c)).add(x.scale(Rational.of(d))).add(Poly.constant(3));
+        expect(polyDivideExact(f.mul(g), g).equals(f)).toBe(true);
+        expect(polyDivideExact(f.mul(g), f).equals(g)).toBe(true);
+        expect(polyDivide(f.mul(g).add(Poly.one()), f)).toBeNull();
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  it("refuses a divisor that does not divide", () => {
+    expect(polyDivide(P("x^2 + 1"), P("x + 1"))).toBeNull();
+    expect(() => polyDivideExact(P("x*y + 1"), P("x"))).toThrow();
+    expect(polyDivide(P("x"), P("y"))).toBeNull();
+    expect(() => polyDivideExact(P("x"), Poly.zero())).toThrow();
+  });
+});
+
+describe("polyGcd: laws (common practice)", () => {
+  it("the gcd divides both inputs", () => {
+    fc.assert(
+      fc.property(nonZeroPoly(4), nonZeroPoly(4), (a, b) => {
+        const g = polyGcd(a, b);
+        expect(polyDivide(a, g)).not.toBeNull();
+        expect(polyDivide(b, g)).not.toBeNull();
+      }),
+      runs,
+    );
+  });
+
+  it("gcd(a*g, b*g) is a multiple of g (it is maximal on constructed examples)", () => {
+    fc.assert(
+      fc.property(nonZeroPoly(3), nonZeroPoly(3), nonZeroPoly(3), (a, b, g) => {
+        const h = polyGcd(a.mul(g), b.mul(g));
+        expect(polyDivide(h, g)).not.toBeNull();
+        // and exactly g times gcd(a, b), up to the normalization of constants
+        expect(h.equals(polyGcd(a, b).mul(g).primitivePart())).toBe(true);
+      }),
+      runs,
+    );
+  });
+
+  it("is symmetric, normalized, and gcd * lcm = a * b up to a constant", () => {
+    fc.assert(
+      fc.property(nonZeroPoly(4), nonZeroPoly(4), (a, b) => {
+        const g = polyGcd(a, b);
+        expect(g.equals(polyGcd(b, a))).toBe(true);
+        expect(g.den).toBe(1n);
+        expect(g.leadingCoefficient().sign()).toBe(1);
+        const ratio = polyDivide(a.mul(b), g.mul(polyLcm(a, b)));
+        expect(ratio).not.toBeNull();
+        expect(ratio!.isConstant()).toBe(true);
+      }),
+      runs,
+    );
+  });
+
+  it("zero and constants", () => {
+    expect(polyGcd(Poly.zero(), Poly.zero()).isZero()).toBe(true);
+    expect(polyGcd(Poly.zero(), P("-2*x - 4")).toInfix()).toBe("x + 2");
+    expect(polyGcd(P("6"), P("x")).isOne()).toBe(true);
+    expect(polyGcdList([P("x*y + x"), P("x^2*y + x^2"), P("x*y^2 - x")]).toInfix()).toBe("x*y + x");
+  });
+
+  it("finds factors shared inside large multilinear polynomials (elimination path)", () => {
+    // (Ra + Rb) is planted in two coprime sums of products; the gcd must recover it exactly.
+    const f = P("Ra*Rc*Rd + Rc*Re + Rd*Re + Rb*Rc + Ra*Re");
+    const g = P("Rc*Rd*Re + Ra*Rd + Rb*Re + Rc");
+    const h = P("Ra + Rb");
+    expect(polyGcd(f.mul(h), g.mul(h)).toInfix()).toBe("Ra + Rb");
+    expect(polyGcd(f, g).isOne()).toBe(true);
+  });
+
+  it("finds a gcd in all variables (Euclid path)", () => {
+    const h = P("x*y + x + y^2 + 1");
+    expect(polyGcd(P("x + y + 1").mul(h), P("x - y + 2").mul(h)).equals(h)).toBe(true);
+    expect(polyGcd(P("(x + y)^3"), P("(x + y)^2*(x - y)")).toInfix()).toBe("x^2 + 2*x*y + y^2");
+  });
+});
+
+describe("polyGcd agrees with sympy.gcd", () => {
+  it("random pairs with a planted common factor", () => {
+    const samples = fc.sample(fc.tuple(nonZeroPoly(3, true), nonZeroPoly(3, true), nonZeroPoly(2, true)), { numRuns: 30, seed: 11 });
+    const questions: SympyQuestion[] = samples.map(([a, b, g]) => {
+      const pa = a.mul(g);
+      const pb = b.mul(g);
+      return { kind: "gcd", a: pa.toInfix(), b: pb.toInfix(), ours: polyGcd(pa, pb).toInfix() };
+    });
+    expect(askSympy(questions)).toEqual(questions.map(() => true));
+  });
+});

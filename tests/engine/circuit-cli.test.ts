@@ -1,0 +1,60 @@
+// The command line: output keys and exit codes 0 (solved), 2 (invalid input), 1 (otherwise).
+
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+
+const ROOT = new URL("../../", import.meta.url).pathname;
+
+function solve(...args: string[]) {
+  const r = spawnSync(process.execPath, ["--import", "tsx", "scripts/solve.ts", ...args], { cwd: ROOT, encoding: "utf8" });
+  return { code: r.status, out: r.stdout, err: r.stderr };
+}
+
+describe("solve CLI", () => {
+  it("prints one JSON object with the issue's keys and exits 0 when solved", () => {
+    const r = solve("fixtures/sensor-buffer.pfn", "--limit", "A=inf", "--set", "Ro=4.7k,A=1e5,Vs=1", "--float");
+    expect(r.code).toBe(0);
+    const o = JSON.parse(r.out);
+    for (const key of ["vth", "isc", "rth", "rthFromVocIsc", "agree", "compact", "tex", "limits", "values", "steps", "diagnostics"]) expect(o).toHaveProperty(key);
+    expect(o.rth).toBe("Ro/(A + 1)");
+    expect(o.agree).toBe(true);
+    expect(o.limits["A=inf"].rth.leading).toBe("Ro/A");
+    expect(o.values.exact.rth).toBe("4700/100001");
+    expect(o.values.float.rth).toBeCloseTo(0.0469995, 6);
+    expect(o.steps[0].id).toBe("port");
+    expect(o.diagnostics).toEqual([]);
+  });
+
+  it("exits 0 for a degenerate port, with null where a result does not exist", () => {
+    const r = solve("fixtures/current-loop-transmitter.json", "--no-steps");
+    expect(r.code).toBe(0);
+    const o = JSON.parse(r.out);
+    expect(o.vth).toBeNull();
+    expect(o.rth).toBeNull();
+    expect(o.isc).toBe("Iloop");
+    expect(o.steps).toEqual([]);
+  });
+
+  it("exits 2 for invalid input and prints the diagnostics", () => {
+    const dir = mkdtempSync(join(tmpdir(), "portfold-cli-"));
+    const file = join(dir, "bad.pfn");
+    writeFileSync(file, "port a 0\nR1 resistor a 0 = R\nV1 vsource a 0 = Va\nV2 vsource a 0 = Vb\n");
+    const r = solve(file);
+    expect(r.code).toBe(2);
+    const o = JSON.parse(r.out);
+    expect(o.diagnostics.map((d: { code: string }) => d.code)).toContain("voltage-source-loop");
+    expect(o.vth).toBeNull();
+  });
+
+  it("exits 1 when the file cannot be read or the command is malformed", () => {
+    const missing = solve("fixtures/no-such-network.pfn");
+    expect(missing.code).toBe(1);
+    expect(missing.err).toMatch(/cannot read/);
+    const usage = solve("fixtures/sensor-buffer.pfn", "--limit", "A=5");
+    expect(usage.code).toBe(1);
+    expect(usage.err).toMatch(/SYMBOL=inf or SYMBOL=0/);
+  });
+});

@@ -1,0 +1,120 @@
+// Every diagnostic code has a network that triggers it, with the elements involved and, for the
+// text netlist, the line and column. The list is checked against DIAGNOSTIC_CODES, so a new code
+// without a case here fails.
+
+import { describe, expect, it } from "vitest";
+import { DIAGNOSTIC_CODES, solveNetwork, type Diagnostic, type SolveOptions } from "../../shared/engine";
+
+interface Trigger {
+  input: string | object;
+  options?: SolveOptions;
+  /** Expected fields of the diagnostic with that code. */
+  expect?: Partial<Diagnostic>;
+  /** Still solves (warnings only). */
+  ok?: boolean;
+}
+
+const TRIGGERS: Record<keyof typeof DIAGNOSTIC_CODES, Trigger> = {
+  "parse-error": {
+    input: "port out 0\nRload resister out 0 = RL\n",
+    expect: { line: 2, column: 7 },
+  },
+  "invalid-json": { input: '{ "port": { "plus": "a", "minus": "0" },\n  "elements": [ }', expect: { line: 2, column: 17 } },
+  "schema-invalid": {
+    input: { port: { plus: "a", minus: "0" }, elements: [{ name: "R1", kind: "resistor", nodes: ["a"], value: "R" }] },
+    expect: { elements: ["R1"], path: ["elements", 0, "nodes"] },
+  },
+  "value-syntax": {
+    input: "port a 0\nR1 resistor a 0 = R1 + * 2\n",
+    expect: { elements: ["R1"], line: 2, column: 24 },
+  },
+  "duplicate-name": {
+    input: "port a 0\nR1 resistor a 0 = Ra\nR1 resistor a 0 = Rb\n",
+    expect: { elements: ["R1"], line: 2 },
+  },
+  "empty-network": { input: { port: { plus: "a", minus: "0" }, elements: [] } },
+  "port-unknown-node": { input: "port out 0\nR1 resistor a 0 = R\n", expect: { nodes: ["out"] } },
+  "port-same-node": { input: "port a a\nR1 resistor a 0 = R\n", expect: { nodes: ["a"] } },
+  "control-missing-element": {
+    input: "port a 0\nR1 resistor a 0 = R\nF1 cccs 0 a = beta * through(Rx)\n",
+    expect: { elements: ["F1"], line: 3 },
+  },
+  "control-self": { input: "port a 0\nR1 resistor a 0 = R\nF1 cccs 0 a = beta * through(F1)\n", expect: { elements: ["F1"] } },
+  "control-unknown-node": {
+    input: "port a 0\nR1 resistor a 0 = R\nG1 vccs 0 a = gm * across(b, 0)\n",
+    expect: { elements: ["G1"], nodes: ["b"] },
+  },
+  "control-kind-mismatch": { input: "port a 0\nR1 resistor a 0 = R\nE1 vcvs b 0 = mu * through(R1)\nR2 resistor b a = R\n", expect: { elements: ["E1"] } },
+  "control-unsupported": {
+    input: "port o 0\nVs vsource p 0 = V\nR1 resistor n 0 = R1\nR2 resistor n o = R2\nU1 opamp p n -> o\nF1 cccs 0 o = beta * through(U1)\n",
+    expect: { elements: ["F1", "U1"] },
+  },
+  "value-zero": { input: "port a 0\nR1 resistor a 0 = 0\n", expect: { elements: ["R1"], line: 2, column: 19 } },
+  "floating-node": {
+    input: "port a 0\nR1 resistor a 0 = R1\nR2 resistor b c = R2\n",
+    expect: { nodes: ["b", "c"], elements: ["R2"] },
+  },
+  "no-dc-path": {
+    input: "port a 0\nVs vsource in 0 = V\nR1 resistor in a = R1\nC1 capacitor a b = C1\nR2 resistor b c = R2\nC2 capacitor c 0 = C2\n",
+    ok: true,
+    expect: { nodes: ["b", "c"], elements: ["C1", "C2"] },
+  },
+  "voltage-source-loop": {
+    input: "port a 0\nV1 vsource a 0 = Va\nV2 vsource a 0 = Vb\n",
+    expect: { elements: ["V1", "V2"] },
+  },
+  "current-source-cutset": {
+    input: "port a 0\nR1 resistor a 0 = R\nI1 isource 0 b = Ib\nR2 resistor b c = R2\n",
+    expect: { elements: ["I1"], nodes: ["b", "c"] },
+  },
+  "singular-system": {
+    input: "port o 0\nVs vsource p 0 = V\nR1 resistor n 0 = R1\nU1 opamp p n -> o\nRL resistor o 0 = RL\n",
+  },
+  "option-invalid": { input: "port a 0\nR1 resistor a 0 = R\n", options: { values: { R: "4.7 kilo" } }, ok: false },
+  "quantity-conflict": {
+    input: "port b 0\nVs vsource a 0 = V\nR1 resistor a 0 = R\nE1 vcvs b 0 = R * across(a, 0)\n",
+    ok: true,
+    expect: { elements: ["R1", "E1"] },
+  },
+  "dimension-mismatch": { input: "port a 0\nquantity V current\nVs vsource a 0 = V\n", ok: true },
+};
+
+describe("diagnostics", () => {
+  it("every code in DIAGNOSTIC_CODES has a trigger here", () => {
+    expect(Object.keys(TRIGGERS).sort()).toEqual(Object.keys(DIAGNOSTIC_CODES).sort());
+  });
+
+  it.each(Object.entries(TRIGGERS))("%s is raised with what is involved", (code, t) => {
+    const r = solveNetwork(t.input as string, t.options);
+    const d = r.diagnostics.find((x) => x.code === code);
+    expect(d, JSON.stringify(r.diagnostics)).toBeDefined();
+    expect(d!.message.length).toBeGreaterThan(10);
+    if (t.expect) expect(d).toMatchObject(t.expect);
+    expect(r.ok).toBe(t.ok ?? false);
+  });
+
+  it("a well-posed network raises no diagnostic at all", () => {
+    const r = solveNetwork("port a 0\nVs vsource in 0 = V\nR1 resistor in a = R1\nR2 resistor a 0 = R2\n");
+    expect(r.diagnostics).toEqual([]);
+    expect(r.ok).toBe(true);
+  });
+
+  it("a voltage source across the port is a degenerate port, not a loop error", () => {
+    const r = solveNetwork("port a 0\nV1 vsource a 0 = Va\nR1 resistor a 0 = R\n");
+    expect(r.ok).toBe(true);
+    expect(r.statements.map((s) => s.code)).toContain("rth-zero");
+  });
+
+  it("a current source alone at the port is a degenerate port, not a cutset error", () => {
+    const r = solveNetwork("port a 0\nI1 isource 0 a = I\n");
+    expect(r.ok).toBe(true);
+    expect(r.statements.map((s) => s.code)).toContain("rth-infinite");
+  });
+
+  it("a node seen only by op-amp inputs is floating, with the reason", () => {
+    const r = solveNetwork("port o 0\nR1 resistor n o = R\nR2 resistor n 0 = R\nU1 opamp p n -> o\n");
+    const d = r.diagnostics.find((x) => x.code === "floating-node");
+    expect(d?.nodes).toEqual(["p"]);
+    expect(d?.message).toMatch(/op-amp inputs draw no current/);
+  });
+});

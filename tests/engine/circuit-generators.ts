@@ -1,0 +1,114 @@
+// Random networks for the cross-check tests: small, connected, every element kind, deterministic per seed.
+
+import type { Element, ElementKind, NetworkInput } from "../../shared/engine";
+
+export function mulberry32(seed: number): () => number {
+  let t = seed >>> 0;
+  return () => {
+    t = (t + 0x6d2b79f5) >>> 0;
+    let r = Math.imul(t ^ (t >>> 15), 1 | t);
+    r = (r + Math.imul(r ^ (r >>> 7), 61 | r)) ^ r;
+    return ((r ^ (r >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const TWO_TERMINAL: ElementKind[] = ["resistor", "conductance", "capacitor", "inductor", "vsource", "isource", "vcvs", "vccs", "ccvs", "cccs"];
+
+export interface GeneratorOptions {
+  /** Allow plain numbers with SI prefixes and composite values. */
+  numbers?: boolean;
+  /** Allow reactive elements (results in s). */
+  reactive?: boolean;
+  /** Force this kind to appear. */
+  force?: ElementKind;
+}
+
+/** A connected network of 2–4 nodes with a passive backbone, extra elements of any kind, and a port. */
+export function randomNetwork(rand: () => number, opts: GeneratorOptions = {}): NetworkInput {
+  const pick = <T>(xs: readonly T[]): T => xs[Math.floor(rand() * xs.length)];
+  const nodeCount = 2 + Math.floor(rand() * 3);
+  const nodes = Array.from({ length: nodeCount }, (_, i) => `n${i + 1}`);
+  const all = ["0", ...nodes];
+  const elements: Element[] = [];
+  // V-type elements and op-amp inputs must not close a loop among themselves.
+  const parent = new Map<string, string>();
+  const find = (a: string): string => (parent.get(a) ?? a) === a ? a : find(parent.get(a)!);
+  const fixes = (a: string, b: string) => {
+    const ra = find(a);
+    const rb = find(b);
+    if (ra === rb) return false;
+    parent.set(ra, rb);
+    return true;
+  };
+  let k = 0;
+  const name = (prefix: string) => `${prefix}${++k}`;
+  const passiveValue = (kind: ElementKind, id: string): string => {
+    const letter = { resistor: "R", conductance: "G", capacitor: "C", inductor: "L" }[kind as "resistor"];
+    const r = rand();
+    if (opts.numbers && r < 0.15) return pick(kind === "resistor" ? ["4.7k", "1k", "220", "2.2M"] : kind === "conductance" ? ["1m", "20u"] : kind === "capacitor" ? ["100n", "4.7u"] : ["10m", "2.2u"]);
+    if (opts.numbers && r < 0.22) return `${letter}${id}a + ${letter}${id}b`;
+    if (opts.numbers && r < 0.27) return `2*${letter}${id}`;
+    return `${letter}${id}`;
+  };
+  const addPassive = (a: string, b: string, kind?: ElementKind) => {
+    const kinds: ElementKind[] = opts.reactive ? ["resistor", "resistor", "resistor", "conductance", "capacitor", "inductor"] : ["resistor", "resistor", "conductance"];
+    const kd = kind ?? pick(kinds);
+    const id = String(k + 1);
+    const prefix = { resistor: "R", conductance: "G", capacitor: "C", inductor: "L" }[kd as "resistor"];
+    elements.push({ name: name(prefix), kind: kd as "resistor", nodes: [a, b], value: passiveValue(kd, id) });
+  };
+
+  // Backbone: every node joined to an earlier node or ground through a passive.
+  nodes.forEach((n, i) => addPassive(n, pick(all.slice(0, i + 1))));
+
+  const extras = 1 + Math.floor(rand() * 4);
+  const kinds: ElementKind[] = [];
+  if (opts.force && opts.force !== "opamp") kinds.push(opts.force);
+  while (kinds.length < extras) {
+    const kd = pick(TWO_TERMINAL);
+    if (!opts.reactive && (kd === "capacitor" || kd === "inductor")) continue;
+    kinds.push(kd);
+  }
+  for (const kd of kinds) {
+    const a = pick(all);
+    let b = pick(all);
+    if (a === b) b = a === "0" ? nodes[0] : "0";
+    const id = String(k + 1);
+    if (kd === "resistor" || kd === "conductance" || kd === "capacitor" || kd === "inductor") {
+      addPassive(a, b, kd);
+    } else if (kd === "vsource" || kd === "isource") {
+      if (kd === "vsource" && !fixes(a, b)) continue;
+      const value = opts.numbers && rand() < 0.2 ? pick(["5", "1.5", "3.3"]) : `${kd === "vsource" ? "V" : "I"}${id}`;
+      elements.push({ name: name(kd === "vsource" ? "Vs" : "Is"), kind: kd, nodes: [a, b], value });
+    } else if (kd === "vcvs" || kd === "vccs") {
+      if (kd === "vcvs" && !fixes(a, b)) continue;
+      const c1 = pick(all);
+      let c2 = pick(all);
+      if (c1 === c2) c2 = c1 === "0" ? nodes[nodes.length - 1] : "0";
+      const gain = kd === "vcvs" ? (opts.reactive && rand() < 0.25 ? `A${id}/(1 + s*T${id})` : `mu${id}`) : `gm${id}`;
+      elements.push({ name: name(kd === "vcvs" ? "E" : "Gm"), kind: kd, nodes: [a, b], control: { nodes: [c1, c2] }, value: gain });
+    } else {
+      const candidates = elements.filter((e) => e.kind !== "opamp");
+      if (kd === "ccvs" && !fixes(a, b)) continue;
+      const ctrl = pick(candidates).name;
+      elements.push({ name: name(kd === "ccvs" ? "H" : "F"), kind: kd as "ccvs" | "cccs", nodes: [a, b], control: { element: ctrl }, value: kd === "ccvs" ? `rm${id}` : `beta${id}` });
+    }
+  }
+
+  if (opts.force === "opamp") {
+    // Op-amp in a feedback loop: output on a new node, feedback passive to its inverting input.
+    const o = `n${nodeCount + 1}`;
+    const inv = pick(nodes);
+    const non = pick(["0", ...nodes.filter((n) => n !== inv)]);
+    if (fixes(non, inv)) {
+      elements.push({ name: name("U"), kind: "opamp", inputs: [non, inv], output: o });
+      addPassive(o, inv, "resistor");
+      if (rand() < 0.5) addPassive(o, "0", "resistor");
+      nodes.push(o);
+    }
+  }
+  const plus = pick([...nodes]);
+  let minus = pick(["0", "0", ...nodes]);
+  if (minus === plus) minus = "0";
+  return { port: { plus, minus }, elements };
+}

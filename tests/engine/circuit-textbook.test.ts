@@ -1,0 +1,214 @@
+// Named results from published texts, each network written in the Portfold netlist.
+// Each check names its source; "from memory" means the formula was recalled, not re-read.
+
+import { describe, expect, it } from "vitest";
+import { parseValue, RationalFunction } from "../../shared/engine/algebra";
+import { solveNetwork, type SolveResult } from "../../shared/engine";
+
+function solve(text: string): SolveResult {
+  const r = solveNetwork(text, { steps: false, sensitivities: false });
+  expect(r.diagnostics.filter((d) => d.severity === "error")).toEqual([]);
+  return r;
+}
+
+/** Our printed result equals the textbook expression as rational functions (difference is 0). */
+function expectSame(actual: string | undefined | null, expected: string): void {
+  expect(actual, `expected ${expected}`).toBeTypeOf("string");
+  expect(parseValue(actual!).sub(parseValue(expected)).isZero(), `${actual} vs ${expected}`).toBe(true);
+}
+
+describe("textbook results", () => {
+  it("finite-gain voltage follower: Rout = Ro/(1+A), Vth = A Vs/(1+A)", () => {
+    // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 2 (op-amp with finite gain and output resistance); from memory.
+    const r = solve(`
+      port out 0
+      Vsig vsource in 0 = Vs
+      Amp vcvs x 0 = A * across(in, out)
+      Rout resistor x out = Ro`);
+    expectSame(r.rth?.infix, "Ro/(1 + A)");
+    expectSame(r.vth?.infix, "A*Vs/(1 + A)");
+    expect(r.agree).toBe(true);
+  });
+
+  it("emitter follower output resistance: RE parallel (Rs + r_pi)/(beta + 1)", () => {
+    // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 7 (emitter follower, ro neglected); from memory.
+    const r = solve(`
+      port e 0
+      Vsig vsource s 0 = Vs
+      Rsrc resistor s b = Rs
+      Rpi resistor b e = r_pi
+      Fb cccs 0 e = beta * through(Rpi)
+      Remit resistor e 0 = RE`);
+    const follower = "(Rs + r_pi)/(beta + 1)";
+    expectSame(r.rth?.infix, `RE*${follower}/(RE + ${follower})`);
+    // Open-circuit gain RE (beta+1) / (Rs + r_pi + (beta+1) RE), same source.
+    expectSame(r.vth?.infix, "Vs*RE*(beta + 1)/(Rs + r_pi + (beta + 1)*RE)");
+  });
+
+  it("common-source stage with source degeneration: Rout = ro (1 + gm Rs) + Rs", () => {
+    // Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3 (degenerated CS stage, no body effect); from memory.
+    const r = solve(`
+      port d 0
+      M1 vccs d src = gm * across(0, src)
+      Ro1 resistor d src = ro
+      Rdeg resistor src 0 = Rs`);
+    expectSame(r.rth?.infix, "ro*(1 + gm*Rs) + Rs");
+    expect(r.statements.map((s) => s.code)).toContain("vth-zero");
+  });
+
+  it("cascode output resistance: Rout = ro1 + ro2 + gm2 ro1 ro2", () => {
+    // Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3 (cascode stage, exact small-signal result); from memory.
+    const r = solve(`
+      port d 0
+      M2 vccs d x = gm2 * across(0, x)
+      R2 resistor d x = ro2
+      R1 resistor x 0 = ro1`);
+    expectSame(r.rth?.infix, "ro1 + ro2 + gm2*ro1*ro2");
+  });
+
+  it("CE stage with emitter degeneration: Rout = ro (1 + gm (RE || r_pi)) + RE || r_pi", () => {
+    // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 7 (output resistance of a degenerated BJT); from memory.
+    const r = solve(`
+      port c 0
+      Q1 vccs c e = gm * across(0, e)
+      Rce resistor c e = ro
+      Rpi resistor 0 e = r_pi
+      Remit resistor e 0 = RE`);
+    const rp = "(RE*r_pi/(RE + r_pi))";
+    expectSame(r.rth?.infix, `ro*(1 + gm*${rp}) + ${rp}`);
+  });
+
+  it("source follower output resistance: ro/(1 + gm ro), open-circuit gain gm ro/(1 + gm ro)", () => {
+    // Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3 (source follower without body effect); from memory.
+    const r = solve(`
+      port out 0
+      Vg vsource g 0 = Vin
+      M1 vccs 0 out = gm * across(g, out)
+      Ro1 resistor 0 out = ro`);
+    expectSame(r.rth?.infix, "ro/(1 + gm*ro)");
+    expectSame(r.vth?.infix, "gm*ro*Vin/(1 + gm*ro)");
+  });
+
+  it("Norton–Thevenin conversion: a current source I parallel R is Vth = I R, Rth = R, Isc = I", () => {
+    // Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed., ch. 5 (source transformation); from memory.
+    const r = solve(`
+      port a 0
+      Is isource 0 a = I
+      Rp resistor a 0 = R`);
+    expectSame(r.vth?.infix, "I*R");
+    expectSame(r.rth?.infix, "R");
+    expectSame(r.isc?.infix, "I");
+    expect(r.norton).toEqual({ isc: "I", rth: "R" });
+  });
+
+  it("maximum power transfer: the load power peaks at RL = Rth, with Pmax = Vth^2 / (4 Rth)", () => {
+    // Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed., ch. 5 (maximum power transfer); from memory.
+    const r = solve(`
+      port out 0
+      Vs vsource in 0 = V
+      Ra resistor in out = R1
+      Rb resistor out 0 = R2`);
+    const vth = parseValue(r.vth!.infix);
+    const rth = parseValue(r.rth!.infix);
+    const rl = RationalFunction.variable("RL");
+    const power = vth.mul(vth).mul(rl).div(rth.add(rl).pow(2));
+    const slope = power.derivative("RL");
+    expect(slope.substituteExpressions({ RL: rth }).isZero()).toBe(true);
+    expect(power.substituteExpressions({ RL: rth }).sub(vth.mul(vth).div(rth.scale(parseValue("4").constantValue()!))).isZero()).toBe(true);
+    // Off the peak the slope is not zero (RL = 2 Rth).
+    expect(slope.substituteExpressions({ RL: rth.add(rth) }).isZero()).toBe(false);
+  });
+
+  it("voltage divider: Vth = Vs R2/(R1+R2), Rth = R1 R2/(R1+R2)", () => {
+    // Common practice.
+    const r = solve(`
+      port out 0
+      Vs vsource in 0 = V
+      Ra resistor in out = R1
+      Rb resistor out 0 = R2`);
+    expectSame(r.vth?.infix, "V*R2/(R1 + R2)");
+    expectSame(r.rth?.infix, "R1*R2/(R1 + R2)");
+  });
+
+  it("inverting amplifier on an ideal op-amp: Vth = -(R2/R1) Vs and Rth = 0 (no Norton form)", () => {
+    // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 2 (inverting configuration); from memory.
+    const r = solve(`
+      port o 0
+      Vs vsource in 0 = V
+      R1 resistor in n = R1
+      R2 resistor n o = R2
+      U1 opamp 0 n -> o`);
+    expectSame(r.vth?.infix, "-R2*V/R1");
+    expectSame(r.rth?.infix, "0");
+    expect(r.isc).toBeNull();
+    expect(r.norton).toBeNull();
+    expect(r.statements.map((s) => s.code)).toContain("rth-zero");
+  });
+
+  it("non-inverting amplifier on an ideal op-amp: gain 1 + R2/R1", () => {
+    // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 2 (non-inverting configuration); from memory.
+    const r = solve(`
+      port o 0
+      Vs vsource p 0 = V
+      R1 resistor n 0 = R1
+      R2 resistor n o = R2
+      U1 opamp p n -> o`);
+    expectSame(r.vth?.infix, "V*(1 + R2/R1)");
+  });
+
+  it("inverting amplifier with finite open-loop gain A: G = -(R2/R1) / (1 + (1 + R2/R1)/A)", () => {
+    // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 2 (effect of finite open-loop gain); from memory.
+    const r = solve(`
+      port o 0
+      Vs vsource in 0 = V
+      R1 resistor in n = R1
+      R2 resistor n o = R2
+      Amp vcvs o 0 = A * across(0, n)`);
+    expectSame(r.vth?.infix, "-V*(R2/R1)/(1 + (1 + R2/R1)/A)");
+    const lim = solveNetwork(
+      `port o 0\nVs vsource in 0 = V\nR1 resistor in n = R1\nR2 resistor n o = R2\nAmp vcvs o 0 = A * across(0, n)`,
+      { limits: [{ symbol: "A", to: "inf" }], steps: false },
+    ).limits[0].results.vth;
+    expectSame(lim?.value, "-R2*V/R1");
+  });
+
+  it("Wheatstone bridge: Vth = Vr (RT/(R1+RT) - R4/(R3+R4)), Rth = R1||RT + R3||R4", () => {
+    // Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed., ch. 5 (Thevenin equivalent of a bridge); from memory.
+    const r = solve(`
+      port a b
+      Vref vsource top 0 = Vr
+      Ra resistor top a = R1
+      Rt resistor a 0 = RT
+      Rb resistor top b = R3
+      Rc resistor b 0 = R4`);
+    expectSame(r.vth?.infix, "Vr*(RT/(R1 + RT) - R4/(R3 + R4))");
+    expectSame(r.rth?.infix, "R1*RT/(R1 + RT) + R3*R4/(R3 + R4)");
+  });
+
+  it("RC low-pass: Vth = Vs/(1 + sRC), Zth = R/(1 + sRC)", () => {
+    // Common practice.
+    const r = solve(`
+      port out 0
+      Vin vsource in 0 = Vs
+      Rf resistor in out = R
+      Cf capacitor out 0 = C`);
+    expectSame(r.vth?.infix, "Vs/(1 + s*R*C)");
+    expectSame(r.rth?.infix, "R/(1 + s*R*C)");
+  });
+
+  it("series RL: Zth = R + sL, and an ideal current source port has no Thevenin form", () => {
+    // Common practice (impedance of an inductor is sL; an ideal current source has infinite output resistance).
+    const rl = solve(`
+      port a 0
+      Rs resistor a m = R
+      Ls inductor m 0 = L`);
+    expectSame(rl.rth?.infix, "R + s*L");
+    const cs = solve(`
+      port a 0
+      Is isource 0 a = I`);
+    expect(cs.rth).toBeNull();
+    expect(cs.thevenin).toBeNull();
+    expectSame(cs.isc?.infix, "I");
+    expect(cs.statements.map((s) => s.code)).toContain("rth-infinite");
+  });
+});
