@@ -93,7 +93,9 @@ for (let n = 3; n <= maxN; n++) {
   const d = reciprocalSubstitute(table.determinant(), pairs).poly;
   const c = reciprocalSubstitute(table.cofactor(n - 1, n - 1), pairs).poly;
   const g = Poly.variable("Ra_1").add(Poly.variable("Rb_2"));
-  const [, tGcd] = time(() => polyGcd(d.mul(g), c.mul(g)));
+  const a = d.mul(g);
+  const b = c.mul(g);
+  const [, tGcd] = time(() => polyGcd(a, b));
   rows.push([`gcd, planted factor (ladder-${n})`, "", "", "", tGcd.toFixed(1), "", "", "", "", ""]);
 }
 const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));

@@ -1,10 +1,8 @@
 import express, { type Express } from "express";
-import helmet from "helmet";
 import { existsSync } from "node:fs";
 import { join, resolve } from "node:path";
 import type pg from "pg";
-import pino, { type Logger } from "pino";
-import { pinoHttp } from "pino-http";
+import type { Logger } from "pino";
 import { createLucia } from "./auth/lucia.js";
 import { createRateLimits } from "./auth/rate-limits.js";
 import { checkOrigin, loadSession } from "./auth/session.js";
@@ -12,6 +10,8 @@ import { defaultSettings, type AppSettings } from "./config.js";
 import type { Database } from "./db/client.js";
 import type { Services } from "./domain/services.js";
 import { errorHandler, notFoundApi } from "./lib/errors.js";
+import { createLogger, requestLogger } from "./lib/logging.js";
+import { securityHeaders } from "./lib/security.js";
 import { createSmtpMailer, smtpTarget, type Mailer } from "./mail/mailer.js";
 import { attachmentsRouter } from "./routes/attachments.js";
 import { authRouter } from "./routes/auth.js";
@@ -23,6 +23,9 @@ import { revisionsRouter } from "./routes/revisions.js";
 import { sharePageRouter } from "./routes/share-page.js";
 import { sharesRouter } from "./routes/shares.js";
 import { teamsRouter } from "./routes/teams.js";
+import { createSolver, type Solver } from "./solver/pool.js";
+
+export { redactTokens } from "./lib/logging.js";
 
 export interface AppContext {
   pool: pg.Pool;
@@ -31,11 +34,9 @@ export interface AppContext {
   mailer?: Mailer;
   logger?: Logger;
   settings?: Partial<AppSettings>;
-}
-
-// Tokens travel in some paths (share links, invitations); logs keep the route, not the secret.
-export function redactTokens(url: string): string {
-  return url.replace(/\/(s|share|invitations)\/[A-Za-z0-9_-]{20,}/g, "/$1/[token]").replace(/token=[^&]+/g, "token=[token]");
+  // The solver threads; the caller that passes them closes them. Without, the app makes its own
+  // (threads start on the first solve).
+  solver?: Solver;
 }
 
 // PostgreSQL text and jsonb cannot hold U+0000; refusing it while parsing makes it a 400, not a database error.
@@ -46,33 +47,18 @@ function refuseNul(key: string, value: unknown): unknown {
 
 export function createApp(context: AppContext): Express {
   const settings: AppSettings = { ...defaultSettings(), ...context.settings };
-  const log = context.logger ?? pino({ level: settings.logLevel });
+  const log = context.logger ?? createLogger(settings.logLevel);
   const mailer = context.mailer ?? createSmtpMailer(smtpTarget(), settings.mailFrom, log);
-  const services: Services = { db: context.db, auth: createLucia(context.db, { secureCookie: settings.production }), mailer, settings, log };
+  const solver = context.solver ?? createSolver(settings.solve);
+  const services: Services = { db: context.db, auth: createLucia(context.db, { secureCookie: settings.production }), mailer, solver, settings, log };
 
   const app = express();
   app.disable("x-powered-by");
   app.set("trust proxy", "loopback");
-  app.use(
-    pinoHttp({
-      logger: log,
-      // Requests to the API and share pages are worth a line each; static assets are not.
-      autoLogging: { ignore: (req) => !/^\/(api|s|dev)\//.test(req.url ?? "") },
-      serializers: {
-        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: redactTokens(req.url) }),
-        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
-      },
-    }),
-  );
-  // helmet's defaults (a same-origin Content-Security-Policy, nosniff, no referrer); HTTPS-only
-  // headers only in production, so plain http on loopback keeps working.
-  app.use(
-    helmet({
-      contentSecurityPolicy: { directives: { upgradeInsecureRequests: settings.production ? [] : null } },
-      strictTransportSecurity: settings.production,
-    }),
-  );
-  app.use(express.json({ limit: "256kb", reviver: refuseNul }));
+  app.use(requestLogger(log));
+  // CSP of exactly what the client loads, nosniff, no referrer, no framing; HSTS only in production.
+  app.use(securityHeaders(settings.production));
+  app.use(express.json({ limit: settings.jsonBodyBytes, reviver: refuseNul }));
 
   app.use("/api/health", healthRouter(context.pool));
   app.use("/api", checkOrigin(settings.publicUrl), loadSession(services.auth));

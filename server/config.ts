@@ -1,4 +1,6 @@
 // Every setting the server reads, with its default, in one place (documented in README.md).
+import { availableParallelism } from "node:os";
+
 const env = process.env;
 
 function numberFrom(name: string, fallback: number): number {
@@ -37,8 +39,22 @@ export const config = {
     importBytes: numberFrom("IMPORT_MAX_BYTES", 256 * 1024),
     attachmentBytes: numberFrom("ATTACHMENT_MAX_BYTES", 5 * 1024 * 1024),
   },
+  jsonBodyBytes: numberFrom("JSON_MAX_BYTES", 256 * 1024),
+  solve: {
+    // One core stays with the request thread, so health and reads keep answering while solves run.
+    threads: Math.max(1, Math.floor(numberFrom("SOLVE_THREADS", Math.max(1, availableParallelism() - 1)))),
+    timeLimitMs: numberFrom("SOLVE_TIME_LIMIT_MS", 20_000),
+    memoryMb: numberFrom("SOLVE_MEMORY_MB", 1_024),
+    maxElements: numberFrom("SOLVE_MAX_ELEMENTS", 60),
+    maxSymbols: numberFrom("SOLVE_MAX_SYMBOLS", 40),
+    maxResultTerms: numberFrom("SOLVE_MAX_RESULT_TERMS", 20_000),
+    waitMs: numberFrom("SOLVE_WAIT_MS", 2_000),
+    queueMax: numberFrom("SOLVE_QUEUE_MAX", 32),
+  },
   demoPassword: env.DEMO_PASSWORD ?? "sensor-lab-demo",
 };
+
+export type SolveSettings = typeof config.solve;
 
 export const isProduction = config.nodeEnv === "production";
 
@@ -49,6 +65,8 @@ export interface AppSettings {
   mailFrom: string;
   logLevel: string;
   limits: typeof config.limits;
+  jsonBodyBytes: number;
+  solve: SolveSettings;
 }
 
 export function defaultSettings(): AppSettings {
@@ -58,5 +76,7 @@ export function defaultSettings(): AppSettings {
     mailFrom: config.mail.from,
     logLevel: config.logLevel,
     limits: { ...config.limits },
+    jsonBodyBytes: config.jsonBodyBytes,
+    solve: { ...config.solve },
   };
 }

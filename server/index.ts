@@ -1,14 +1,15 @@
 import { eq } from "drizzle-orm";
-import pino from "pino";
 import { createApp } from "./app.js";
-import { config, isProduction } from "./config.js";
+import { config, defaultSettings, isProduction } from "./config.js";
 import { createDatabase, createPool } from "./db/client.js";
 import { demoReviewer, demoShareToken, demoUser } from "./db/demo-data.js";
 import { users } from "./db/schema.js";
 import { startCaptureServerNear, type CaptureServer } from "./mail/capture-server.js";
 import { createSmtpMailer, smtpTarget } from "./mail/mailer.js";
+import { createLogger } from "./lib/logging.js";
+import { createSolver } from "./solver/pool.js";
 
-const log = pino({ level: config.logLevel });
+const log = createLogger(config.logLevel);
 const pool = createPool(config.databaseUrl, config.dbPoolSize);
 const db = createDatabase(pool);
 const ownUrl = `http://${config.host === "0.0.0.0" ? "localhost" : config.host}:${config.port}`;
@@ -19,7 +20,10 @@ if (!config.mail.smtpHost) {
   capture = await startCaptureServerNear(db, config.mail.capturePort);
   console.log(`[portfold] mail capture (SMTP) on ${capture.host}:${capture.port}${isProduction ? "" : `; read it at ${ownUrl}/dev/mailbox`}`);
 }
-const app = createApp({ pool, db, logger: log, mailer: createSmtpMailer(smtpTarget(capture?.port), config.mail.from, log) });
+const solver = createSolver(defaultSettings().solve);
+// Threads start now, so the first solve does not wait for the engine to load.
+solver.warm();
+const app = createApp({ pool, db, logger: log, solver, mailer: createSmtpMailer(smtpTarget(capture?.port), config.mail.from, log) });
 
 const server = app.listen(config.port, config.host, async () => {
   console.log(`[portfold] serving on ${ownUrl}`);
@@ -31,7 +35,7 @@ const server = app.listen(config.port, config.host, async () => {
 });
 
 function shutdown() {
-  server.close(() => void Promise.all([pool.end(), capture?.close()]).then(() => process.exit(0)));
+  server.close(() => void Promise.all([pool.end(), capture?.close(), solver.close()]).then(() => process.exit(0)));
 }
 process.on("SIGINT", shutdown);
 process.on("SIGTERM", shutdown);

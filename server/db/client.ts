@@ -10,6 +10,11 @@ export function createPool(connectionString: string, max = 10): pg.Pool {
   pool.on("error", () => {
     // Idle clients die when PostgreSQL restarts; the pool replaces them on next use.
   });
+  // A client in use when PostgreSQL goes away also emits "error" after its query fails; unheard, that
+  // event would end the process. The query's own error reaches the request (a 503); the pool drops the client.
+  pool.on("connect", (client) => {
+    client.on("error", () => undefined);
+  });
   return pool;
 }
 

@@ -1,4 +1,5 @@
 import {
+  boolean,
   customType,
   foreignKey,
   index,
@@ -246,3 +247,41 @@ export const mailMessages = pgTable("mail_messages", {
   html: text("html"),
   receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
 });
+
+// ---- solving ----
+
+// Finished derivations by a canonical hash of (engine, circuit with its port, options): a network
+// solved twice is derived once, whichever server process asks, and restarts keep the entries.
+export const solveCache = pgTable(
+  "solve_cache",
+  {
+    key: text("key").primaryKey(),
+    derivation: jsonb("derivation").notNull(),
+    hits: integer("hits").notNull().default(0),
+    createdAt: createdAt(),
+    lastUsedAt: timestamp("last_used_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [index("solve_cache_last_used_idx").on(table.lastUsedAt)],
+);
+
+export const solveJobStatuses = ["queued", "solving", "done", "failed"] as const;
+export type SolveJobStatus = (typeof solveJobStatuses)[number];
+
+// A solve that outlived the request's wait: the client polls this row (any server can answer).
+export const solveJobs = pgTable(
+  "solve_jobs",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    networkId: uuid("network_id").notNull().references(() => networks.id, { onDelete: "cascade" }),
+    requestedBy: text("requested_by").references(() => users.id, { onDelete: "set null" }),
+    status: text("status", { enum: solveJobStatuses }).notNull(),
+    cacheHit: boolean("cache_hit"),
+    revisionNumber: integer("revision_number"),
+    // The error the synchronous answer would have had: { status, code, message, cap?, diagnostics? }.
+    error: jsonb("error"),
+    createdAt: createdAt(),
+    startedAt: timestamp("started_at", { withTimezone: true }),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (table) => [index("solve_jobs_network_idx").on(table.networkId), index("solve_jobs_finished_idx").on(table.finishedAt)],
+);

@@ -1,9 +1,9 @@
 // The one door from the server into the engine: reading circuits and netlists, solving.
-import { NETLIST_EXTENSION, parseNetwork, solveNetwork, type Diagnostic, type Network, type SolveResult } from "../../shared/engine/index.js";
+import { NETLIST_EXTENSION, parseNetwork, solveNetwork, type Diagnostic, type Network, type SolveOptions, type SolveResult } from "../../shared/engine/index.js";
 import { HttpError } from "../lib/errors.js";
 
-export { NETLIST_EXTENSION, solveNetwork };
-export type { Diagnostic, Network, SolveResult };
+export { NETLIST_EXTENSION, parseNetwork, solveNetwork };
+export type { Diagnostic, Network, SolveOptions, SolveResult };
 
 // A stored circuit must have the engine's shape; whether it is solvable is the solve's business.
 export function readCircuit(input: Record<string, unknown>, field = "circuit"): Network {

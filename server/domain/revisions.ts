@@ -4,23 +4,12 @@ import type { Database } from "../db/client.js";
 import { networks, revisionSteps, revisionVerdicts, revisions, users, type Role, type Verdict } from "../db/schema.js";
 import { notFound } from "../lib/errors.js";
 import { requireNetworkRole, type NetworkRow } from "./access.js";
+import type { Derivation, StepRecord } from "../solver/derive.js";
 import type { Diagnostic, Network } from "./engine.js";
 
-export interface StepInput {
-  id: string;
-  kind: string;
-  title: string;
-  explanation: string;
-  tex: string;
-  data: unknown;
-}
-
-export interface RevisionInput {
-  circuit: Network;
-  results: Record<string, unknown>;
-  diagnostics: Diagnostic[];
-  steps: StepInput[];
-}
+// What a revision stores is exactly what a solve derives (server/solver/derive.ts).
+export type StepInput = StepRecord;
+export type RevisionInput = Derivation;
 
 type RevisionRow = typeof revisions.$inferSelect;
 

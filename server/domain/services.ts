@@ -3,12 +3,14 @@ import type { Auth } from "../auth/lucia.js";
 import type { AppSettings } from "../config.js";
 import type { Database } from "../db/client.js";
 import type { Mailer } from "../mail/mailer.js";
+import type { Solver } from "../solver/pool.js";
 
-// What domain functions may touch: the database, sessions, outgoing mail and the settings.
+// What domain functions may touch: the database, sessions, outgoing mail, the solver threads and the settings.
 export interface Services {
   db: Database;
   auth: Auth;
   mailer: Mailer;
+  solver: Solver;
   settings: AppSettings;
   log: Logger;
 }

@@ -9,8 +9,21 @@ export class HttpError extends Error {
     readonly fields?: Record<string, string>,
     // Engine diagnostics (code, message, line, column, elements) where the engine refused the input.
     readonly diagnostics?: unknown[],
+    // More members of the error object (e.g. the cap a solve went past) and headers (Retry-After).
+    readonly extra: { details?: Record<string, unknown>; headers?: Record<string, string> } = {},
   ) {
     super(message);
+  }
+
+  /** The `error` member of the answer, also what a solve job keeps when it fails. */
+  body(): Record<string, unknown> {
+    return {
+      code: this.code,
+      message: this.message,
+      ...(this.fields ? { fields: this.fields } : {}),
+      ...(this.diagnostics ? { diagnostics: this.diagnostics } : {}),
+      ...this.extra.details,
+    };
   }
 }
 
@@ -21,10 +34,15 @@ export const notFoundApi: RequestHandler = (req, _res, next) => {
   next(new HttpError(404, "not_found", `No API route ${req.method} ${req.path}`));
 };
 
+export const databaseUnavailableError = () =>
+  new HttpError(503, "database_unavailable", "The database is not reachable right now, so this request was not carried out and nothing was saved; try again in a few seconds.", undefined, undefined, {
+    headers: { "Retry-After": "5" },
+  });
+
 // PostgreSQL SQLSTATE classes and node errors that mean "the database is not reachable right now".
 const unavailableCodes = new Set(["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "57P01", "57P02", "57P03", "08000", "08001", "08003", "08006"]);
 
-function databaseUnavailable(error: unknown): boolean {
+export function databaseUnavailable(error: unknown): boolean {
   const code = (error as { code?: unknown })?.code;
   const message = String((error as { message?: unknown })?.message ?? "");
   return (typeof code === "string" && unavailableCodes.has(code)) || message.includes("timeout exceeded when trying to connect")
@@ -37,14 +55,8 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
     return;
   }
   if (error instanceof HttpError) {
-    res.status(error.status).json({
-      error: {
-        code: error.code,
-        message: error.message,
-        ...(error.fields ? { fields: error.fields } : {}),
-        ...(error.diagnostics ? { diagnostics: error.diagnostics } : {}),
-      },
-    });
+    res.set(error.extra.headers ?? {});
+    res.status(error.status).json({ error: error.body() });
     return;
   }
   const status = typeof error?.status === "number" ? error.status : 500;
@@ -61,7 +73,9 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
     return;
   }
   if (databaseUnavailable(error) || databaseUnavailable(error?.cause)) {
-    res.status(503).json({ error: { code: "database_unavailable", message: "The database is not reachable right now; try again shortly." } });
+    const unavailable = databaseUnavailableError();
+    res.set(unavailable.extra.headers ?? {});
+    res.status(503).json({ error: unavailable.body() });
     return;
   }
   (req.log ?? console).error({ err: error }, "unhandled error");

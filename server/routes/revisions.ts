@@ -1,18 +1,40 @@
 import { Router } from "express";
+import { z } from "zod";
 import { signedInUser } from "../auth/session.js";
 import { compareRevisions } from "../domain/compare.js";
 import { getRevision, listRevisions } from "../domain/revisions.js";
 import type { Services } from "../domain/services.js";
+import { getSolveJob } from "../domain/solve-jobs.js";
 import { solve } from "../domain/solve.js";
-import { idParam, revisionNumberParam } from "../lib/validate.js";
+import { idParam, parseQuery, revisionNumberParam } from "../lib/validate.js";
+
+// How long the request may wait for the solve, in ms; never longer than SOLVE_WAIT_MS.
+const solveQuery = z.object({ wait: z.coerce.number().int().min(0).max(3_600_000).optional() });
 
 export function revisionsRouter(services: Services): Router {
   const router = Router();
   const { db } = services;
 
+  // 201 with the revision when the solve ends within the wait; otherwise 202 with a job to poll.
   router.post("/networks/:networkId/solve", async (req, res) => {
     const user = signedInUser(res);
-    res.status(201).json(await solve(db, idParam(req.params.networkId, "That network"), user.id));
+    const networkId = idParam(req.params.networkId, "That network");
+    const { wait } = parseQuery(solveQuery, req.query);
+    const answer = await solve(services, networkId, user.id, Math.min(wait ?? services.settings.solve.waitMs, services.settings.solve.waitMs));
+    if (answer.kind === "job") {
+      res.status(202).location(answer.job.poll).json({ job: answer.job });
+      return;
+    }
+    res.set("Portfold-Solve-Cache", answer.cacheHit ? "hit" : "miss");
+    res.status(201).json(answer.revision);
+  });
+
+  router.get("/networks/:networkId/solve-jobs/:jobId", async (req, res) => {
+    const user = signedInUser(res);
+    const networkId = idParam(req.params.networkId, "That network");
+    const jobId = idParam(req.params.jobId, "That solve job");
+    res.set("Cache-Control", "no-store");
+    res.json(await getSolveJob(db, services.settings.solve, networkId, jobId, user.id));
   });
 
   router.get("/networks/:networkId/revisions", async (req, res) => {

@@ -130,8 +130,11 @@ export interface SolveOptions {
   float?: boolean;
   /** Normalized sensitivities: true = every symbol, list = those symbols, false = none. Default true. */
   sensitivities?: boolean | string[];
-  /** Skip sensitivities of results larger than this many terms (numerator + denominator). Default 4000. */
-  sensitivityTermLimit?: number;
+  /**
+   * Skip the sensitivities of a result when (numerator terms) × (denominator terms) exceeds this:
+   * each sensitivity costs about the product N·D. Default 20000.
+   */
+  sensitivitySizeLimit?: number;
   /** Solve result = target for a symbol, e.g. [{ result: "rth", symbol: "RL", target: "50" }]. */
   solveFor?: { result: ResultName; symbol: string; target: string }[];
   /** Above this many terms (numerator + denominator) a result gets only its expanded infix form. Default 5000. */
@@ -294,6 +297,8 @@ export interface SolveResult {
   /** Whether the two Rth agree; null when only one exists. */
   agree: boolean | null;
   numericCheck: NumericCheck | null;
+  /** The check badge: Rth found by the test source, Voc/Isc agreeing with it, the numeric check. */
+  checks: { testSource: boolean | null; vocIsc: boolean | null; numeric: boolean | null };
   thevenin: TheveninEquivalent | null;
   norton: NortonEquivalent | null;
   statements: PortStatement[];

@@ -7,6 +7,7 @@ import { parseValue } from "../../shared/engine/algebra/index.js";
 import { launchBrowser, screenshotDir, type TestBrowser } from "../support/browser.js";
 import { linkIn, waitForMail } from "../support/mail.js";
 import { startTestServer, type TestServer } from "../support/server.js";
+import { watchPage } from "./page-watch.js";
 
 // A sensor buffer: a finite-gain amplifier (gain mu, output resistance R0) wired as a voltage follower.
 // Textbook fact (finite-gain voltage follower; e.g. Sedra & Smith, Microelectronic Circuits, from memory):
@@ -14,9 +15,9 @@ import { startTestServer, type TestServer } from "../support/server.js";
 const NETLIST = `# sensor buffer behind a strain bridge
 ground 0
 port out 0
-Vsense vsource in 0 = Vs
+Sensor vsource in 0 = Vs
 Amp vcvs x 0 = mu * across(in, out)
-Rout resistor x out = R0
+OutputRes resistor x out = R0
 `;
 
 const run = Date.now().toString(36);
@@ -41,6 +42,7 @@ describe("review flow in chromium", () => {
   let page: Page;
   let shareUrl = "";
   let teamUrl = "";
+  const pageErrors: string[] = [];
 
   beforeAll(async () => {
     mkdirSync(screenshotDir, { recursive: true });
@@ -48,7 +50,7 @@ describe("review flow in chromium", () => {
     authorBrowser = await launchBrowser();
     reviewerBrowser = await launchBrowser();
     page = await authorBrowser.context.newPage();
-    page.setDefaultTimeout(10_000);
+    watchPage(page, pageErrors);
   });
   afterAll(async () => {
     await reviewerBrowser?.close();
@@ -84,7 +86,8 @@ describe("review flow in chromium", () => {
     await expect(page.locator('svg[role="img"][aria-label^="Schematic preview"]').getAttribute("aria-label")).resolves.toContain("3 elements, port out to 0");
 
     await page.getByRole("button", { name: "Solve" }).click();
-    await page.waitForURL(/\/r\/1$/);
+    // A solve runs the exact engine on the server: allow for a busy machine.
+    await page.waitForURL(/\/r\/1$/, { timeout: 30_000 });
     const steps = page.locator('ol[aria-label="Ledger"] > li');
     await steps.first().waitFor();
     expect(await steps.count()).toBeGreaterThan(3);
@@ -129,6 +132,10 @@ describe("review flow in chromium", () => {
     await page.mouse.move(box.x + box.width * 0.2, box.y + box.height / 2);
     await page.mouse.move(box.x + box.width * 0.3, box.y + box.height / 2, { steps: 5 });
     await expect.poll(() => sweep.locator("figcaption").textContent()).toMatch(/mu = [\d.]+ ?k?, Rth = [\d.]+ [kmµ]?Ω/);
+    // From the keyboard: the last point is mu = 10^6, where Rth = 4700/(1 + 10^6) = 4.7 mΩ to four digits.
+    await sweep.getByLabel("Read at a point (arrow keys)").focus();
+    await page.keyboard.press("End");
+    await expect.poll(() => sweep.locator("figcaption").textContent()).toContain("mu = 1 M, Rth = 4.7 mΩ");
     await shot(page, "workbench-values-limits-sweep");
 
     const [download] = await Promise.all([page.waitForEvent("download"), sweep.getByRole("button", { name: "Download CSV" }).click()]);
@@ -152,7 +159,7 @@ describe("review flow in chromium", () => {
 
     await page.goto(teamUrl);
     await page.getByLabel("Invite by e-mail").fill(reviewer.email);
-    await page.getByLabel("Role").selectOption("reviewer");
+    await page.getByLabel("Role", { exact: true }).selectOption("reviewer");
     await page.getByRole("button", { name: "Send invitation" }).click();
     await page.getByText("Invitation sent.").waitFor();
     await page.getByRole("link", { name: "Strain-gauge buffer" }).waitFor();
@@ -161,6 +168,7 @@ describe("review flow in chromium", () => {
 
   it("opens the share link signed out, then the reviewer signs in and notes a step", async () => {
     const guest = await reviewerBrowser.context.newPage();
+    watchPage(guest, pageErrors);
     await guest.goto(shareUrl);
     await guest.getByRole("heading", { level: 1, name: "Strain-gauge buffer" }).waitFor();
     await guest.locator('ol[aria-label="Ledger"] .katex').first().waitFor();
@@ -177,6 +185,8 @@ describe("review flow in chromium", () => {
 
     const invitation = await waitForMail(server.db, reviewer.email, { subject: /invit/i });
     await guest.goto(linkIn(invitation, "/invitations/accept").toString());
+    await guest.getByText(`invites ${reviewer.email} to join`).waitFor();
+    await shot(guest, "accept-invitation");
     await guest.getByRole("button", { name: /^Join / }).click();
     await guest.waitForURL(/\/teams\//);
 
@@ -188,13 +198,26 @@ describe("review flow in chromium", () => {
     await guest.getByRole("button", { name: "Add note" }).click();
     await guest.getByRole("complementary", { name: /^Review notes on step 1,/ }).locator("li p").getByText(note).waitFor();
     await shot(guest, "shared-view-with-note");
+    await guest.getByLabel("Review verdict").selectOption("approved");
+    await guest.getByText("review: approved").waitFor();
   });
 
-  it("sends the author a mail about the note", async () => {
+  it("sends the author a mail about the note whose link opens the revision with the note beside its step", async () => {
     const mail = await waitForMail(server.db, author.email, { subject: /note|comment/i, timeoutMs: 10_000 });
     expect(mail.text).toContain("Please state which node is the reference");
+    await waitForMail(server.db, author.email, { subject: /verdict|approved/i, timeoutMs: 10_000 });
     await page.goto(`${server.url}/dev/mailbox?to=${encodeURIComponent(author.email)}`);
     await page.getByText(mail.subject).first().waitFor();
     await shot(page, "author-mailbox");
+
+    await page.goto(linkIn(mail, "/n/").toString());
+    await page.waitForURL(/\/networks\/[0-9a-f-]{36}\/r\/1$/);
+    await page.getByRole("complementary", { name: /^Review notes on step 1,/ }).getByText("Please state which node is the reference").waitFor();
+    await page.goto(teamUrl);
+    await expect.poll(() => page.locator("tbody tr").first().textContent()).toContain("approved");
+  });
+
+  it("raised no uncaught error and no console error in either page on the way", () => {
+    expect(pageErrors).toEqual([]);
   });
 });

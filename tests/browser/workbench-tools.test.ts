@@ -9,6 +9,7 @@ import { ApiClient } from "../support/api.js";
 import { launchBrowser, screenshotDir, type TestBrowser } from "../support/browser.js";
 import { linkIn, waitForMail } from "../support/mail.js";
 import { startTestServer, type TestServer } from "../support/server.js";
+import { watchPage } from "./page-watch.js";
 
 // A strain-gauge bridge read differentially between its two mid-points.
 // Common practice (Wheatstone bridge): Vth = Vs*(Rb/(Ra+Rb) - Rd/(Rc+Rd)), zero when balanced,
@@ -16,11 +17,11 @@ import { startTestServer, type TestServer } from "../support/server.js";
 const BRIDGE = `# strain-gauge bridge, read across its mid-points
 ground 0
 port a b
-Vexc vsource top 0 = Vs
-Ra resistor top a = Ra
-Rb resistor a 0 = Rb
-Rc resistor top b = Rc
-Rd resistor b 0 = Rd
+Excite vsource top 0 = Vs
+ArmA resistor top a = Ra
+ArmB resistor a 0 = Rb
+ArmC resistor top b = Rc
+Gauge resistor b 0 = Rd
 `;
 
 const run = Date.now().toString(36);
@@ -32,7 +33,6 @@ async function shot(page: Page, name: string) {
 
 async function downloaded(page: Page, menuItem: string): Promise<{ name: string; text: string }> {
   await page.getByRole("button", { name: "Export" }).click();
-  await page.screenshot({ path: `${screenshotDir}/debug-export.png` });
   const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("menuitem", { name: menuItem }).click()]);
   return { name: download.suggestedFilename(), text: readFileSync((await download.path())!, "utf8") };
 }
@@ -48,17 +48,16 @@ describe("workbench tools in chromium", () => {
 
   beforeAll(async () => {
     mkdirSync(screenshotDir, { recursive: true });
-    server = await startTestServer();
+    // Every solve here is answered with a job (wait 0), so the workbench's polling is what brings the revision.
+    server = await startTestServer({ solve: { waitMs: 0 } });
     api = new ApiClient(server.url);
     expect((await api.post("/api/auth/signup", user)).status).toBe(201);
     teamId = (await api.get("/api/me")).body.teams[0].id;
     browser = await launchBrowser();
     page = await browser.context.newPage();
-    page.setDefaultTimeout(10_000);
-    page.on("pageerror", (error) => pageErrors.push(error.message));
+    watchPage(page, pageErrors);
   });
   afterAll(async () => {
-    console.log("page errors:", pageErrors);
     await browser?.close();
     await server?.close();
   });
@@ -81,12 +80,12 @@ describe("workbench tools in chromium", () => {
   it("shows a diagnostic on the line it names, and the schematic keeps the last good network", async () => {
     const editor = page.getByLabel("Portfold netlist");
     const text = await editor.inputValue();
-    await editor.fill(text.replace("Rd resistor b 0 = Rd", "Rd resistr b 0 = Rd"));
+    await editor.fill(text.replace("Gauge resistor b 0 = Rd", "Gauge resistr b 0 = Rd"));
     const diagnostics = page.getByRole("list", { name: "Netlist diagnostics" });
     await diagnostics.waitFor();
-    // The stored network prints as ground, port, then the elements in order: "Rd ..." is line 7.
-    expect(text.split("\n")[6]).toBe("Rd resistor b 0 = Rd");
-    await expect(diagnostics.textContent()).resolves.toMatch(/^Line 7, column 4: /);
+    // The stored network prints as ground, port, then the elements in order: "Gauge ..." is line 7.
+    expect(text.split("\n")[6]).toBe("Gauge resistor b 0 = Rd");
+    await expect(diagnostics.textContent()).resolves.toMatch(/^Line 7, column 7: /);
     await expect(page.getByText("(last version that read without errors)")).toBeTruthy();
     expect(await page.getByRole("button", { name: "Solve" }).isDisabled()).toBe(true);
     await shot(page, "workbench-diagnostic");
@@ -96,17 +95,17 @@ describe("workbench tools in chromium", () => {
 
   it("keeps the element table and the port picker in step with the text", async () => {
     await page.getByRole("tab", { name: "Element table" }).click();
-    await page.getByLabel("Value of Rd").fill("2*Rd");
+    await page.getByLabel("Value of Gauge").fill("2*Rd");
     await page.getByRole("button", { name: "Add element" }).click();
-    await page.getByLabel("Name of element 6").fill("Rload");
-    await page.getByLabel("First node of Rload").fill("b");
-    await page.getByLabel("Second node of Rload").fill("0");
-    await page.getByLabel("Value of Rload").fill("RL");
+    await page.getByLabel("Name of element 6").fill("Load");
+    await page.getByLabel("First node of Load").fill("b");
+    await page.getByLabel("Second node of Load").fill("0");
+    await page.getByLabel("Value of Load").fill("RL");
     await shot(page, "workbench-element-table");
     await page.getByRole("tab", { name: "Netlist text" }).click();
     const text = await page.getByLabel("Portfold netlist").inputValue();
-    expect(text).toContain("Rd resistor b 0 = 2*Rd");
-    expect(text).toContain("Rload resistor b 0 = RL");
+    expect(text).toContain("Gauge resistor b 0 = 2*Rd");
+    expect(text).toContain("Load resistor b 0 = RL");
     // Back to the bridge alone, then move the port's minus terminal to ground and back.
     await page.getByLabel("Portfold netlist").fill(BRIDGE);
     await page.getByLabel("− terminal (node)").selectOption("0");
@@ -117,7 +116,7 @@ describe("workbench tools in chromium", () => {
 
   it("solves the bridge and reads the balanced-bridge values", async () => {
     await page.getByRole("button", { name: "Solve" }).click();
-    await page.waitForURL(/\/r\/1$/);
+    await page.waitForURL(/\/r\/1$/, { timeout: 30_000 });
     const values = page.getByRole("region", { name: "Values" });
     for (const arm of ["Ra", "Rb", "Rc", "Rd"]) await values.getByLabel(arm, { exact: true }).fill("1k");
     await values.getByLabel("Vs", { exact: true }).fill("5");
@@ -128,9 +127,9 @@ describe("workbench tools in chromium", () => {
 
   it("solves a changed bridge and compares the two revisions", async () => {
     const editor = page.getByLabel("Portfold netlist");
-    await editor.fill(BRIDGE.replace("Rd resistor b 0 = Rd", "Rd resistor b 0 = Rd + dR"));
+    await editor.fill(BRIDGE.replace("Gauge resistor b 0 = Rd", "Gauge resistor b 0 = Rd + dR"));
     await page.getByRole("button", { name: "Solve" }).click();
-    await page.waitForURL(/\/r\/2$/);
+    await page.waitForURL(/\/r\/2$/, { timeout: 30_000 });
     await page.getByRole("link", { name: "History" }).click();
     await page.getByLabel("Compare revision 1").check();
     await page.getByLabel("Compare revision 2").check();
@@ -139,7 +138,7 @@ describe("workbench tools in chromium", () => {
     await comparison.waitFor();
     await expect(comparison.textContent()).resolves.toContain("1 element differs");
     await expect(comparison.textContent()).resolves.toContain("Vth, Rth, Isc changed");
-    await expect(comparison.getByRole("table").textContent()).resolves.toContain("Rd resistor b 0 = Rd + dR");
+    await expect(comparison.getByRole("table").textContent()).resolves.toContain("Gauge resistor b 0 = Rd + dR");
     await shot(page, "revision-compare");
   });
 
@@ -206,10 +205,15 @@ describe("workbench tools in chromium", () => {
     await page.getByLabel("New password", { exact: true }).fill("second password 2");
     await page.getByLabel("New password again").fill("second password 2");
     await page.getByRole("button", { name: "Set the password" }).click();
-    await page.getByText("Your password is set.").waitFor();
+    await page.getByText("Your password is set and you are signed in.").waitFor();
+    await page.getByRole("button", { name: "Sign out" }).waitFor();
     await shot(page, "reset-password");
     const fresh = new ApiClient(server.url);
     expect((await fresh.post("/api/auth/login", { email: user.email, password: "second password 2" })).status).toBe(200);
     expect((await fresh.post("/api/auth/login", { email: user.email, password: user.password })).status).toBe(401);
+  });
+
+  it("raised no uncaught error and no console error in the page on the way", () => {
+    expect(pageErrors).toEqual([]);
   });
 });

@@ -122,5 +122,6 @@ describe("results", () => {
     const r = solveNetwork(follower, { steps: false });
     expect(r.numericCheck!.agree).toBe(true);
     expect(r.numericCheck!.relativeError!).toBeLessThan(1e-12);
+    expect(r.checks).toEqual({ testSource: true, vocIsc: true, numeric: true });
   });
 });

@@ -39,6 +39,7 @@ interface World {
   stepId: string;
   attachmentId: string;
   inviteToken: string;
+  solveJobId: string;
 }
 
 interface Case {
@@ -140,6 +141,7 @@ const cases: Case[] = [
   { method: "GET", route: "/api/networks/:networkId/revisions", expect: members(200), path: (w) => `${net(w)}/revisions` },
   { method: "GET", route: "/api/networks/:networkId/revisions/:number", expect: members(200), path: rev },
   { method: "GET", route: "/api/networks/:networkId/revisions/:from/compare/:to", expect: members(200), path: (w) => `${rev(w)}/compare/1` },
+  { method: "GET", route: "/api/networks/:networkId/solve-jobs/:jobId", expect: members(200), path: (w) => `${net(w)}/solve-jobs/${w.solveJobId}` },
   // ---- share links ----
   { method: "POST", route: "/api/networks/:networkId/revisions/:number/share", expect: editorsUp(201), path: (w) => `${rev(w)}/share`, body: () => ({}) },
   { method: "GET", route: "/api/networks/:networkId/revisions/:number/share", expect: members(200), path: (w) => `${rev(w)}/share` },
@@ -208,6 +210,7 @@ describe("authorization matrix", () => {
     world.commentId = (await world.team.clients.reviewer.post(`/api/networks/${network.id}/revisions/1/comments`, { stepId: world.stepId, body: "Reviewer's own" })).body.id;
     world.attachmentId = (await owner.upload(`/api/networks/${network.id}/attachments`, { name: "scope.png", type: "image/png", content: png })).body.id;
     world.inviteToken = (await invite(world)).token;
+    world.solveJobId = (await owner.post(`/api/networks/${network.id}/solve?wait=0`)).body.job.id;
   });
   afterAll(async () => {
     await world.server.close();

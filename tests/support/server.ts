@@ -11,24 +11,33 @@ import { defaultSettings, type AppSettings } from "../../server/config.js";
 import { createDatabase, createPool } from "../../server/db/client.js";
 import { startCaptureServer, type CaptureServer } from "../../server/mail/capture-server.js";
 import { createSmtpMailer } from "../../server/mail/mailer.js";
+import { createSolver, type Solver } from "../../server/solver/pool.js";
 
 export interface TestServer {
   url: string;
   pool: ReturnType<typeof createPool>;
   db: ReturnType<typeof createDatabase>;
   capture: CaptureServer;
+  solver: Solver;
   close(): Promise<void>;
 }
 
 export interface TestServerOptions {
-  settings?: Partial<Omit<AppSettings, "limits">>;
+  settings?: Partial<Omit<AppSettings, "limits" | "solve">>;
   limits?: Partial<AppSettings["limits"]>;
+  // Caps and threads of this server's solver; the rest stays at the defaults.
+  solve?: Partial<AppSettings["solve"]>;
   clientDir?: string;
   logger?: Logger;
+  // Another database than the shared test database (the fault tests bring their own cluster).
+  databaseUrl?: string;
 }
 
 // Generous by default: only the rate-limit tests want to hit the limits.
 const testLimits: Partial<AppSettings["limits"]> = { loginFailuresPer15Min: 1_000, passwordResetsPer15Min: 1_000, signupsPerHour: 1_000 };
+// One solver thread per test server; requests wait for their solve (a loaded machine must not turn a
+// 201 into a 202), except where a test asks for the job with ?wait=0.
+const testSolve: Partial<AppSettings["solve"]> = { threads: 1, waitMs: 60_000 };
 
 export function testDatabaseUrl(): string {
   const url = process.env.DATABASE_URL;
@@ -37,7 +46,7 @@ export function testDatabaseUrl(): string {
 }
 
 export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
-  const pool = createPool(testDatabaseUrl(), 5);
+  const pool = createPool(options.databaseUrl ?? testDatabaseUrl(), 5);
   const db = createDatabase(pool);
   const capture = await startCaptureServer(db, { port: 0 });
   // Listen first, so PUBLIC_URL (links in mail, the origin check) can name the real port.
@@ -50,17 +59,21 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     logLevel: "silent",
     ...options.settings,
     limits: { ...defaultSettings().limits, ...testLimits, ...options.limits },
+    solve: { ...defaultSettings().solve, ...testSolve, ...options.solve },
   };
   const mailer = createSmtpMailer({ host: capture.host, port: capture.port }, "Portfold tests <tests@portfold.local>");
-  server.on("request", createApp({ pool, db, mailer, settings, clientDir: options.clientDir, logger: options.logger }));
+  const solver = createSolver(settings.solve!);
+  server.on("request", createApp({ pool, db, mailer, settings, solver, clientDir: options.clientDir, logger: options.logger }));
   return {
     url,
     pool,
     db,
     capture,
+    solver,
     close: async () => {
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      await solver.close();
       await capture.close();
       await pool.end();
     },

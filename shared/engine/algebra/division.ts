@@ -1,7 +1,7 @@
 // Exact division of sparse polynomials: leading-term division with the remainder held in
 // a hash map and its terms ordered by a max-heap (after Monagan and Pearce, 2007, simplified).
 
-import { Key, Poly, fromKeys, keysIn, makeLayout, varMap, type Layout } from "./polynomial";
+import { Key, Poly, fieldDecoder, fromKeys, keysIn, makeLayout, varMap, type Layout } from "./polynomial";
 
 class MaxHeap {
   private readonly items: any[] = [];
@@ -125,12 +125,17 @@ function divideIntegral(A: Poly, B: Poly, degA: Int32Array, map: Int32Array, deg
  * The leading remainder term must be a multiple of B's leading term within the quotient's
  * degree bounds; checked on the decoded exponents of key k.
  */
-function quotientTermFits(layout: Layout, k: Key, ltB: Int32Array, qMax: Int32Array): boolean {
+type Decoder = ReturnType<typeof fieldDecoder>;
+
+function quotientTermFits(layout: Layout, dec: Decoder | null, k: Key, ltB: Int32Array, qMax: Int32Array): boolean {
   const nv = ltB.length;
-  if (layout.packed) {
+  if (dec) {
     const kk = k as number;
+    const hi = Math.floor(kk / 4294967296);
+    const lo = (kk - hi * 4294967296) >>> 0;
     for (let v = 0; v < nv; v++) {
-      const e = Math.floor(kk / layout.mult[v]) % 2 ** layout.bits[v];
+      const off = dec.off[v];
+      const e = (off >= 32 ? hi >>> (off - 32) : off + dec.bits[v] <= 32 ? lo >>> off : (lo >>> off) | (hi << (32 - off))) & dec.mask[v];
       const d = e - ltB[v];
       if (d < 0 || d > qMax[v]) return false;
     }
@@ -156,6 +161,7 @@ function divideSmall(
   const cB = B.coefs.map(Number);
   const lcB = cB[0];
   const kB0 = kB[0];
+  const dec = fieldDecoder(layout);
   const corr = new Map<number, number>();
   const heap = new MaxHeap();
   const qKeys: number[] = [];
@@ -180,7 +186,7 @@ function divideSmall(
     }
     if (c === 0) continue;
     if (Math.abs(c) > MAX_SAFE) return "overflow";
-    if (!quotientTermFits(layout, k, ltB, qMax)) return null;
+    if (!quotientTermFits(layout, dec, k, ltB, qMax)) return null;
     const qc = c / lcB;
     // Near 2^53 a rounded quotient could look integral; the product check is exact.
     if (!Number.isInteger(qc) || qc * lcB !== c) return null;
@@ -213,6 +219,7 @@ function divideBig(
   const cB = B.coefs;
   const lcB = cB[0];
   const kB0: any = kB[0];
+  const dec = layout.packed ? fieldDecoder(layout) : null;
   const corr = new Map<Key, bigint>();
   const heap = new MaxHeap();
   const qKeys: Key[] = [];
@@ -236,7 +243,7 @@ function divideBig(
       corr.delete(k);
     }
     if (c === 0n) continue;
-    if (!quotientTermFits(layout, k, ltB, qMax)) return null;
+    if (!quotientTermFits(layout, dec, k, ltB, qMax)) return null;
     if (c % lcB !== 0n) return null;
     const qc = c / lcB;
     const t: any = k - kB0;

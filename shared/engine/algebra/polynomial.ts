@@ -734,9 +734,11 @@ export function fromKeys(layout: Layout, keys: ArrayLike<Key>, coefs: ArrayLike<
   const exps = new Uint16Array(n * nv);
   if (layout.packed) {
     const dec = fieldDecoder(layout);
+    // One array kind for the loop (keys arrive as Float64Array or as arrays of doubles).
+    const ks = keys instanceof Float64Array ? keys : Float64Array.from(keys as ArrayLike<number>);
     for (let t = 0; t < n; t++) {
       const i = keep[t];
-      const k = keys[i] as number;
+      const k = ks[i];
       const hi = Math.floor(k / 4294967296);
       const lo = (k - hi * 4294967296) >>> 0;
       const o = t * nv;

@@ -14,12 +14,13 @@ export interface SolveOutput {
   compact: PerResult<string | null>;
   tex: PerResult<string | null>;
   limits: Record<string, Partial<PerResult<LimitEntry>>>;
+  /** Empty maps when no values were given. */
   values: {
     given: Record<string, string>;
     exact: Partial<PerResult<string | null>>;
     float: Partial<PerResult<number | null>>;
     display: Partial<PerResult<string | null>>;
-  } | null;
+  };
   steps: Step[];
   diagnostics: Diagnostic[];
   // Extensions beyond the keys the issue fixes.
@@ -29,6 +30,7 @@ export interface SolveOutput {
   /** Which equivalent forms exist (their expressions are vth, rth, isc above). */
   equivalents: { thevenin: boolean; norton: boolean };
   numericCheck: SolveResult["numericCheck"];
+  checks: SolveResult["checks"];
   sensitivities: SolveResult["sensitivities"];
   solved: SolveResult["solved"];
   dimensions: SolveResult["dimensions"];
@@ -48,9 +50,9 @@ export function toSolveOutput(result: SolveResult): SolveOutput {
   }
   const limits: SolveOutput["limits"] = {};
   for (const l of result.limits) limits[l.key] = l.results;
-  let values: SolveOutput["values"] = null;
+  const values: SolveOutput["values"] = { given: {}, exact: {}, float: {}, display: {} };
   if (result.values) {
-    values = { given: result.values.given, exact: {}, float: {}, display: {} };
+    values.given = result.values.given;
     for (const r of RESULT_NAMES) {
       const v = result.values.results[r];
       if (!v) continue;
@@ -76,6 +78,7 @@ export function toSolveOutput(result: SolveResult): SolveOutput {
     statements: result.statements,
     equivalents: { thevenin: result.thevenin !== null, norton: result.norton !== null },
     numericCheck: result.numericCheck,
+    checks: result.checks,
     sensitivities: result.sensitivities,
     solved: result.solved,
     dimensions: result.dimensions,

@@ -118,7 +118,7 @@ export function valuesOf(results: Results, values: NonNullable<SolveOptions["val
 export function sensitivitiesOf(
   results: Results,
   which: boolean | string[],
-  termLimit: number,
+  sizeLimit: number,
 ): { sensitivities: Partial<Record<ResultName, Record<string, string>>>; skipped: ResultName[] } {
   const sensitivities: Partial<Record<ResultName, Record<string, string>>> = {};
   const skipped: ResultName[] = [];
@@ -126,7 +126,8 @@ export function sensitivitiesOf(
   for (const r of RESULT_NAMES) {
     const f = results[r];
     if (!f || f.isZero()) continue;
-    if (f.num.termCount() + f.den.termCount() > termLimit) {
+    // (x/F) dF/dx has the denominator N·D before reduction: its size bounds the work.
+    if (f.num.termCount() * f.den.termCount() > sizeLimit) {
       skipped.push(r);
       continue;
     }

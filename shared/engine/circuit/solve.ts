@@ -24,6 +24,7 @@ export function emptyResult(network: Network | null, diagnostics: Diagnostic[]):
     rthFromVocIsc: null,
     agree: null,
     numericCheck: null,
+    checks: { testSource: null, vocIsc: null, numeric: null },
     thevenin: null,
     norton: null,
     statements: [],
@@ -103,6 +104,12 @@ export function solveParsedNetwork(network: Network, options: SolveOptions = {},
   const seed = hashString(JSON.stringify(network));
   if (!(open.singular && short.singular)) result.numericCheck = numericCheck(sys, network, results, seed);
 
+  result.checks = {
+    testSource: rth !== null ? true : null,
+    vocIsc: agree,
+    numeric: result.numericCheck?.agree ?? null,
+  };
+
   if (options.limits && options.limits.length > 0) {
     const l = limitsOf(results, options.limits);
     result.limits = l.limits;
@@ -113,10 +120,13 @@ export function solveParsedNetwork(network: Network, options: SolveOptions = {},
     result.values = v.values;
     diagnostics.push(...v.diagnostics);
   }
-  const sens = sensitivitiesOf(results, options.sensitivities ?? true, options.sensitivityTermLimit ?? 4000);
+  const sens = sensitivitiesOf(results, options.sensitivities ?? true, options.sensitivitySizeLimit ?? 20000);
   result.sensitivities = sens.sensitivities;
   if (sens.skipped.length > 0) {
-    statements.push({ code: "sensitivity-skipped", message: `Sensitivities of ${sens.skipped.join(", ")} were skipped: the result is larger than the term limit.` });
+    statements.push({
+      code: "sensitivity-skipped",
+      message: `Sensitivities of ${sens.skipped.join(", ")} were skipped: numerator × denominator terms exceed the size limit (SolveOptions.sensitivitySizeLimit).`,
+    });
   }
   if (options.solveFor && options.solveFor.length > 0) {
     const s = solveForTargets(results, options.solveFor);
@@ -203,7 +213,8 @@ export function solvePortExact(network: Network, values: ReadonlyMap<string, Rat
       else agree = false;
     } else {
       rthFromVocIsc = vth.div(isc);
-      if (rth) agree = rthFromVocIsc.equals(rth);
+      // Mathematical equality (the difference cancels), not just equal printed forms.
+      if (rth) agree = rthFromVocIsc.equals(rth) || rthFromVocIsc.sub(rth).isZero();
     }
   }
   if (agree === true) statements.push({ code: "rth-agree", message: "Rth from the test source equals Voc/Isc exactly." });

@@ -428,8 +428,9 @@ export function stampOpamp(e: OpampElement, ctx: StampContext): ElementStamp {
   const row = branchRow(e.name);
   const i = currentUnknown(e.name);
   const iw = { infix: currentInfix(e.name), tex: currentTex(e.name) };
-  const lhs = p === ctx.ground ? { infix: "0", tex: "0" } : { infix: voltageInfix(p), tex: voltageTex(p) };
-  const rhs = n === ctx.ground ? { infix: "0", tex: "0" } : { infix: voltageInfix(n), tex: voltageTex(n) };
+  const side = (x: string) => (x === ctx.ground ? { infix: "0", tex: "0" } : { infix: voltageInfix(x), tex: voltageTex(x) });
+  // Written with the node voltage on the left: V_p = V_n, or V_n = 0 when p is ground.
+  const [lhs, rhs] = p === ctx.ground ? [side(n), side(p)] : [side(p), side(n)];
   return {
     element: e.name,
     kind: e.kind,

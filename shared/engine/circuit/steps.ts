@@ -180,7 +180,12 @@ export function buildLedger(input: LedgerInput): Step[] {
 
   // ---- Rth: test source with sources zeroed
   const zeroed = zeroIndependentSources(network);
-  const zeroTex = [...zeroed.shorted.map((n) => `V_{${labelTex(n)}} \\to 0`), ...zeroed.opened.map((n) => `I_{${labelTex(n)}} \\to 0`)];
+  const valueTex = (name: string) => input.values.get(name)?.toTex() ?? "0";
+  const zeroTex = [...zeroed.shorted, ...zeroed.opened].map((n) => `\\mathrm{${n.replace(/_/g, "\\_")}}:\\ ${valueTex(n)} \\to 0`);
+  const zeroPhrase = [
+    zeroed.shorted.length > 0 ? `voltage source${zeroed.shorted.length > 1 ? "s" : ""} ${listOrNone(zeroed.shorted)} become${zeroed.shorted.length > 1 ? "" : "s"} a short` : "",
+    zeroed.opened.length > 0 ? `current source${zeroed.opened.length > 1 ? "s" : ""} ${listOrNone(zeroed.opened)} become${zeroed.opened.length > 1 ? "" : "s"} an open` : "",
+  ].filter((x) => x !== "");
   steps.push({
     id: "rth.zeroing",
     kind: "zeroing",
@@ -188,7 +193,7 @@ export function buildLedger(input: LedgerInput): Step[] {
     explanation:
       zeroed.shorted.length + zeroed.opened.length === 0
         ? "The network has no independent sources, so nothing is zeroed; dependent sources always stay."
-        : `Voltage sources ${listOrNone(zeroed.shorted)} become shorts and current sources ${listOrNone(zeroed.opened)} become opens; dependent sources stay.`,
+        : `${capitalize(zeroPhrase.join(" and "))}; dependent sources stay.`,
     tex: zeroTex.length > 0 ? zeroTex.join(",\\quad ") : "\\text{no independent sources}",
     data: zeroed,
   });
@@ -299,6 +304,10 @@ export function buildLedger(input: LedgerInput): Step[] {
 
 function voltageOrZero(node: string, ground: string): string {
   return node === ground ? "0" : voltageTex(node);
+}
+
+function capitalize(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
 }
 
 function listOrNone(names: string[]): string {

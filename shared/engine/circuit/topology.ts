@@ -93,7 +93,7 @@ export function floatingNodes(network: Network): Diagnostic[] {
       .filter(isOpamp)
       .some((u) => nodes.every((n) => u.inputs.includes(n)) && elementsTouching(network, nodes).every((x) => x === u.name));
     const why = opampInputsOnly
-      ? "op-amp inputs draw no current, so these nodes need another element to set their voltage"
+      ? `op-amp inputs draw no current, so ${nodes.length > 1 ? "these nodes need" : "it needs"} another element to set ${nodes.length > 1 ? "their voltages" : "its voltage"}`
       : `no element joins them to ground "${network.ground}"`;
     return diagnostic("floating-node", `node${nodes.length > 1 ? "s" : ""} ${nodeList(nodes)} ${nodes.length > 1 ? "have" : "has"} no path to ground: ${why}`, {
       nodes,

@@ -25,7 +25,7 @@ export function AcceptInvitationRoute() {
           <>
             <p>
               {invitation.data.invitedBy ?? "The team's owner"} invites {invitation.data.email} to join <strong>{invitation.data.team.name}</strong> as{" "}
-              {invitation.data.role}. The invitation expires on {new Date(invitation.data.expiresAt).toLocaleString("en-GB")}.
+              {invitation.data.role}. The invitation expires on {new Date(invitation.data.expiresAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}.
             </p>
             {me.isLoading ? null : me.data ? (
               <>

@@ -36,9 +36,9 @@ function NewPasswordForm({ token }: { token: string }) {
   if (reset.isSuccess) {
     return (
       <p className="mt-4 text-sm">
-        Your password is set.{" "}
-        <Link to="/sign-in" className="text-copper underline">
-          Sign in
+        Your password is set and you are signed in.{" "}
+        <Link to="/teams" className="text-copper underline">
+          Go to your networks
         </Link>
       </p>
     );

@@ -8,6 +8,7 @@ import { ImportNetworkDialog } from "@/features/networks/components/import-netwo
 import { NetworksTable } from "@/features/networks/components/networks-table";
 import { CreateTeamForm } from "@/features/teams/components/create-team-form";
 import { InviteMemberForm } from "@/features/teams/components/invite-member-form";
+import { TeamMembers } from "@/features/teams/components/team-members";
 
 export function TeamRoute() {
   const { teamId = "" } = useParams();
@@ -43,14 +44,19 @@ export function TeamRoute() {
             <div className="mt-4">
               <NetworksTable teamId={team.id} role={team.role} />
             </div>
-            {team.role === "owner" && (
-              <section className="mt-10 border-t border-rule pt-4" aria-label="Members">
-                <h2 className="text-sm font-semibold">Members</h2>
-                <div className="mt-2">
+            <section className="mt-10 border-t border-rule pt-4" aria-labelledby="members-heading">
+              <h2 id="members-heading" className="text-sm font-semibold">
+                Members
+              </h2>
+              <div className="mt-2">
+                <TeamMembers teamId={team.id} isOwner={team.role === "owner"} currentUserId={me.user.id} />
+              </div>
+              {team.role === "owner" && (
+                <div className="mt-3">
                   <InviteMemberForm teamId={team.id} />
                 </div>
-              </section>
-            )}
+              )}
+            </section>
             <section className="mt-10 border-t border-rule pt-4" aria-label="Teams">
               <CreateTeamForm />
             </section>

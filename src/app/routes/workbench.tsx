@@ -5,7 +5,7 @@ import { EmptyState, ErrorState, LoadingState } from "@/components/ui/states";
 import { AnalysisColumn } from "@/features/analysis/components/analysis-column";
 import { RequireAccount } from "@/features/auth/components/require-account";
 import { useRevision } from "@/features/derivations/api/get-revision";
-import { useSolveNetwork } from "@/features/derivations/api/solve-network";
+import { useSolveNetwork, type SolveProgress } from "@/features/derivations/api/solve-network";
 import { Ledger } from "@/features/derivations/components/ledger";
 import { ExportMenu } from "@/features/export/components/export-menu";
 import { NetworkPanel } from "@/features/network-editor/components/network-panel";
@@ -22,6 +22,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
   const navigate = useNavigate();
   const [text, setText] = useState(() => netlistOf(network.circuit));
   const [sharing, setSharing] = useState(false);
+  const [solveProgress, setSolveProgress] = useState<SolveProgress>("sending");
   const saved = useMemo(() => netlistOf(network.circuit), [network.circuit]);
   const dirty = text !== saved;
   const update = useUpdateNetwork();
@@ -50,7 +51,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
     solve.reset();
     try {
       if (dirty && !(await save())) return;
-      const created = await solve.mutateAsync({ networkId: network.id });
+      const created = await solve.mutateAsync({ networkId: network.id, onProgress: setSolveProgress });
       navigate(`/networks/${network.id}/r/${created.k}`);
     } catch {
       // The error is shown beside the netlist by the mutation's state.
@@ -64,8 +65,8 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
 
   return (
     <div>
-      <div className="flex flex-wrap items-end justify-between gap-3 border-b border-rule pb-3 print:border-0">
-        <div className="min-w-0">
+      <div className="flex items-end justify-between gap-3 border-b border-rule pb-3 print:border-0">
+        <div className="min-w-0 flex-1">
           <p className="text-xs text-ink/60 print:hidden">
             <Link to={`/teams/${network.teamId}`} className="hover:text-copper">
               {me.teams.find((t) => t.id === network.teamId)?.name ?? "Team"}
@@ -95,7 +96,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
             {network.author ? ` · network by ${network.author}` : ""} · your role: {role}
           </p>
         </div>
-        <div className="flex flex-wrap items-center gap-2 print:hidden">
+        <div className="flex shrink-0 flex-wrap items-center justify-end gap-2 print:hidden">
           {k && revision.data && <VerdictControl networkId={network.id} k={k} verdict={revision.data.verdict.verdict} canSet={canReview} />}
           {latest && latest > 0 && (
             <Link to={`/networks/${network.id}/history`} className="rounded border border-rule px-3 py-1.5 text-sm hover:border-ink/40">
@@ -122,8 +123,10 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
             onSolve={() => void runSolve()}
             saving={update.isPending}
             solving={solve.isPending}
+            solveProgress={solveProgress}
             saveError={update.error}
             solveError={solve.error}
+            printText={revision.data ? netlistOf(revision.data.circuit) : undefined}
           />
         </section>
         <section aria-labelledby="ledger-heading" className="min-w-0">

@@ -1,6 +1,7 @@
 import { Link, NavLink, Outlet, useMatches, useNavigate } from "react-router-dom";
 import { useMe } from "@/features/auth/api/get-me";
 import { useSignOut } from "@/features/auth/api/sign-out";
+import { VerifyEmailBanner } from "@/features/auth/components/verify-email-banner";
 import { PortMark } from "./port-mark";
 
 interface RouteHandle {
@@ -66,6 +67,7 @@ export function AppLayout() {
           </nav>
         </div>
       </header>
+      <VerifyEmailBanner />
       <main id="main" className={`mx-auto w-full ${width} flex-1 px-6 ${wide ? "py-4" : "py-8"}`}>
         <Outlet />
       </main>

@@ -19,11 +19,14 @@ export interface SweepChartProps {
   formatX: (v: number) => string;
   formatY: (v: number) => string;
   onCursor: (index: number | null) => void;
+  /** A point chosen from the keyboard: the plot's cursor is moved there. */
+  keyboardIndex: number | null;
 }
 
 // uPlot draws; React only hands it data. Recreated when the axes change, data-only updates otherwise.
-export default function SweepChart({ x, series, logX, logY, xLabel, yLabel, formatX, formatY, onCursor }: SweepChartProps) {
+export default function SweepChart({ x, series, logX, logY, xLabel, yLabel, formatX, formatY, onCursor, keyboardIndex }: SweepChartProps) {
   const host = useRef<HTMLDivElement>(null);
+  const plotRef = useRef<uPlot | null>(null);
   const cursor = useRef(onCursor);
   cursor.current = onCursor;
 
@@ -35,7 +38,11 @@ export default function SweepChart({ x, series, logX, logY, xLabel, yLabel, form
     const axis = { font, labelFont: '11px "IBM Plex Sans", sans-serif', stroke: "#1E2430", grid: { stroke: "#E4DED2", width: 1 }, ticks: { stroke: "#E4DED2" } };
     // On a log axis only the decades get a tick, a label and a grid line.
     const isDecade = (v: number) => Math.abs(Math.log10(Math.abs(v)) - Math.round(Math.log10(Math.abs(v)))) < 1e-9;
-    const decades = (log: boolean) => (log ? { filter: (_u: uPlot, splits: number[]) => splits.map((v) => (isDecade(v) ? v : null)) } : {});
+    const onlyDecades = (_u: uPlot, splits: number[]) => splits.map((v) => (isDecade(v) ? v : null));
+    const decades = (log: boolean) =>
+      log
+        ? { filter: onlyDecades, grid: { ...axis.grid, filter: onlyDecades }, ticks: { ...axis.ticks, filter: onlyDecades } }
+        : {};
     const labels = (format: (v: number) => string) => (_u: uPlot, ticks: number[]) => ticks.map((v) => (v == null ? "" : format(v)));
     const opts: uPlot.Options = {
       width,
@@ -52,13 +59,22 @@ export default function SweepChart({ x, series, logX, logY, xLabel, yLabel, form
     };
     const data = [x, ...series.map((s) => s.values)] as uPlot.AlignedData;
     const plot = new uPlot(opts, data, el);
+    plotRef.current = plot;
     const observer = new ResizeObserver(() => plot.setSize({ width: Math.max(200, el.clientWidth), height: 210 }));
     observer.observe(el);
     return () => {
       observer.disconnect();
       plot.destroy();
+      plotRef.current = null;
     };
   }, [x, series, logX, logY, xLabel, yLabel, formatX, formatY]);
+
+  useEffect(() => {
+    const plot = plotRef.current;
+    if (!plot || keyboardIndex === null || x[keyboardIndex] === undefined) return;
+    const y = series[0]?.values[keyboardIndex];
+    plot.setCursor({ left: plot.valToPos(x[keyboardIndex], "x"), top: y == null ? 0 : plot.valToPos(y, "y") });
+  }, [keyboardIndex, x, series]);
 
   return <div ref={host} className="w-full" onMouseLeave={() => cursor.current(null)} />;
 }

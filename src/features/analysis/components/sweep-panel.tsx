@@ -4,7 +4,7 @@ import { Progress } from "@/components/ui/states";
 import { formatSI } from "@/lib/engine";
 import type { ResultName } from "@/types/api";
 import { readTypedValues, type ExactResults } from "../lib/exact-results";
-import { RESULT_LABEL, RESULT_NAMES, RESULT_UNIT, unitOf } from "../lib/quantities";
+import { RESULT_LABEL, RESULT_NAMES, RESULT_UNIT, symbolUnit } from "../lib/quantities";
 import { sweepCsv, sweepResult } from "../lib/sweep";
 import type { ChartSeries } from "./sweep-chart";
 import type { TypedValues } from "./values-panel";
@@ -36,6 +36,7 @@ export function SweepPanel({
   const [logX, setLogX] = useState(true);
   const [logY, setLogY] = useState(true);
   const [cursor, setCursor] = useState<number | null>(null);
+  const [keyboardIndex, setKeyboardIndex] = useState<number | null>(null);
 
   const fixed = useMemo(() => readTypedValues(values).exact, [values]);
   const rf = exact[result];
@@ -45,7 +46,7 @@ export function SweepPanel({
   }, [rf, symbol, fromDecade, toDecade, fixed]);
 
   const unit = RESULT_UNIT[result];
-  const xUnit = unitOf(quantities[symbol]);
+  const xUnit = symbolUnit(symbol, quantities[symbol]);
   const positive = outcome?.kind === "ok" && outcome.y.every((v) => Number.isNaN(v) || v > 0);
   const useLogY = logY && positive;
 
@@ -131,8 +132,23 @@ export function SweepPanel({
             {logY && !positive && <p className="mb-1 text-[11px] text-copper">{RESULT_LABEL[result]} is not positive over this range: linear axis shown.</p>}
             <figure aria-label={`Sweep of ${RESULT_LABEL[result]} against ${symbol}`} data-testid="sweep-plot">
               <Suspense fallback={<Progress label="Drawing the sweep…" />}>
-                <SweepChart x={outcome.x} series={series} logX={logX} logY={useLogY} xLabel={symbol} yLabel={`${RESULT_LABEL[result]} (${unit})`} formatX={formatX} formatY={formatY} onCursor={setCursor} />
+                <SweepChart x={outcome.x} series={series} logX={logX} logY={useLogY} xLabel={symbol} yLabel={`${RESULT_LABEL[result]} (${unit})`} formatX={formatX} formatY={formatY} onCursor={setCursor} keyboardIndex={keyboardIndex} />
               </Suspense>
+              <label className="mt-1 block text-[11px] text-ink/60">
+                Read at a point (arrow keys)
+                <input
+                  type="range"
+                  min={0}
+                  max={outcome.x.length - 1}
+                  value={cursor ?? 0}
+                  onChange={(e) => {
+                    const index = Number(e.target.value);
+                    setKeyboardIndex(index);
+                    setCursor(index);
+                  }}
+                  className="block w-full accent-copper"
+                />
+              </label>
               <figcaption className="mt-1 min-h-[2.5rem] font-mono text-[11px] text-ink/80" aria-live="polite">
                 {cursor !== null && outcome.x[cursor] !== undefined ? (
                   <>

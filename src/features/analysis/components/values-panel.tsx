@@ -3,7 +3,7 @@ import { MathTex } from "@/components/ui/math";
 import { formatSI, RationalFunction } from "@/lib/engine";
 import type { ResultName } from "@/types/api";
 import { readTypedValues, type ExactResults } from "../lib/exact-results";
-import { quantityLabel, RESULT_LABEL, RESULT_MEANING, RESULT_NAMES, RESULT_TEX, RESULT_UNIT, unitOf } from "../lib/quantities";
+import { RESULT_LABEL, RESULT_MEANING, RESULT_NAMES, RESULT_TEX, RESULT_UNIT, symbolLabel, symbolUnit } from "../lib/quantities";
 
 export type TypedValues = Record<string, string>;
 
@@ -16,7 +16,7 @@ interface Evaluated {
 
 function SymbolInput({ symbol, quantity, value, error, onChange }: { symbol: string; quantity: string | null; value: string; error?: string; onChange: (text: string) => void }) {
   const id = useId();
-  const unit = unitOf(quantity);
+  const unit = symbolUnit(symbol, quantity);
   return (
     <div className="grid grid-cols-[5.5rem_minmax(0,1fr)] items-center gap-x-2 gap-y-0.5">
       <div className="min-w-0 leading-tight">
@@ -24,7 +24,7 @@ function SymbolInput({ symbol, quantity, value, error, onChange }: { symbol: str
           {symbol}
         </label>
         <span id={`${id}-quantity`} className="block truncate text-[10px] text-ink/50">
-          {quantityLabel(quantity)}
+          {symbolLabel(symbol, quantity)}
         </span>
       </div>
       <div className="flex items-center rounded border border-rule bg-white focus-within:border-copper">

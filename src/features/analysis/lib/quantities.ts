@@ -19,6 +19,15 @@ export function unitOf(quantity: string | null | undefined): string {
   return quantity ? (UNITS[quantity] ?? "") : "";
 }
 
+/** The unit a symbol's numbers are typed in; "s" is the engine's Laplace variable (complex frequency, s⁻¹). */
+export function symbolUnit(symbol: string, quantity: string | null | undefined): string {
+  return symbol === "s" ? "s⁻¹" : unitOf(quantity);
+}
+
+export function symbolLabel(symbol: string, quantity: string | null | undefined): string {
+  return symbol === "s" ? "Laplace variable" : quantityLabel(quantity);
+}
+
 export function quantityLabel(quantity: string | null | undefined): string {
   if (!quantity) return "quantity not known";
   return quantity === "dimensionless" ? "gain, no unit" : quantity;

@@ -1,10 +1,12 @@
-import { useMutation } from "@tanstack/react-query";
+import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
 export function resetPassword(input: { token: string; password: string }) {
   return api<unknown>("/auth/password-reset/confirm", { method: "POST", json: input });
 }
 
+// The server signs the account in with the new password, so everything cached is refetched.
 export function useResetPassword() {
-  return useMutation({ mutationFn: resetPassword });
+  const queryClient = useQueryClient();
+  return useMutation({ mutationFn: resetPassword, onSuccess: () => queryClient.resetQueries() });
 }

@@ -21,6 +21,10 @@ export function ExportMenu({ revision }: { revision: Revision }) {
     };
   }, [open]);
   const base = `${fileSafe(revision.title)}-r${revision.k}`;
+  const choose = (action: () => void) => () => {
+    setOpen(false);
+    action();
+  };
   const network = { ground: "0", ...revision.circuit } as EngineNetwork;
   const item = "block w-full px-3 py-1.5 text-left text-sm hover:bg-rule/50 focus:bg-rule/50 focus:outline-none";
   return (
@@ -30,23 +34,20 @@ export function ExportMenu({ revision }: { revision: Revision }) {
       </Button>
       {open && (
         <div role="menu" className="absolute right-0 z-20 mt-1 w-64 rounded border border-rule bg-paper py-1 shadow-lg">
-          <button role="menuitem" type="button" className={item} onClick={() => downloadText(`${base}.tex`, ledgerLatex(revision), "application/x-tex")}>
+          <button role="menuitem" type="button" className={item} onClick={choose(() => downloadText(`${base}.tex`, ledgerLatex(revision), "application/x-tex"))}>
             Ledger as LaTeX (.tex)
           </button>
-          <button role="menuitem" type="button" className={item} onClick={() => downloadText(`${base}.json`, `${JSON.stringify(revision.circuit, null, 2)}\n`, "application/json")}>
+          <button role="menuitem" type="button" className={item} onClick={choose(() => downloadText(`${base}.json`, `${JSON.stringify(revision.circuit, null, 2)}\n`, "application/json"))}>
             Network as JSON (.json)
           </button>
-          <button role="menuitem" type="button" className={item} onClick={() => downloadText(`${base}${NETLIST_EXTENSION}`, printNetlistText(network, revision.title), "text/plain")}>
+          <button role="menuitem" type="button" className={item} onClick={choose(() => downloadText(`${base}${NETLIST_EXTENSION}`, printNetlistText(network, revision.title), "text/plain"))}>
             Network as Portfold netlist ({NETLIST_EXTENSION})
           </button>
           <button
             role="menuitem"
             type="button"
             className={item}
-            onClick={() => {
-              setOpen(false);
-              requestAnimationFrame(() => window.print());
-            }}
+            onClick={choose(() => requestAnimationFrame(() => window.print()))}
           >
             Print or save as PDF
           </button>

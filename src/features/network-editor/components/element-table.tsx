@@ -3,18 +3,19 @@ import { Button } from "@/components/ui/button";
 
 const cell = "w-full min-w-0 rounded border border-transparent bg-transparent px-1 py-0.5 font-mono text-xs hover:border-rule focus:border-copper focus:bg-white focus:outline-none";
 
-const KIND_WORDS: Record<ElementKind, string> = {
+// The option text is the netlist's own word for the kind, so table and text read alike.
+const KIND_MEANING: Record<ElementKind, string> = {
   resistor: "resistor",
   conductance: "conductance",
-  capacitor: "capacitor",
-  inductor: "inductor",
-  vsource: "voltage source",
-  isource: "current source",
-  vcvs: "VCVS",
-  vccs: "VCCS",
-  ccvs: "CCVS",
-  cccs: "CCCS",
-  opamp: "ideal op-amp",
+  capacitor: "capacitor, impedance 1/(sC)",
+  inductor: "inductor, impedance sL",
+  vsource: "independent voltage source",
+  isource: "independent current source",
+  vcvs: "voltage-controlled voltage source",
+  vccs: "voltage-controlled current source",
+  ccvs: "current-controlled voltage source",
+  cccs: "current-controlled current source",
+  opamp: "ideal op-amp (nullor)",
 };
 
 // Changing the kind keeps name and nodes and fills in what the new kind needs.
@@ -58,12 +59,12 @@ export function ElementTable({
           <caption className="sr-only">Elements of the network</caption>
           <thead>
             <tr className="border-b border-rule text-left text-ink/60">
-              <th scope="col" className="w-[16%] py-1 font-medium">Name</th>
-              <th scope="col" className="w-[20%] py-1 font-medium">Kind</th>
+              <th scope="col" className="w-[15%] py-1 font-medium">Name</th>
+              <th scope="col" className="w-[24%] py-1 font-medium">Kind</th>
               <th scope="col" className="w-[22%] py-1 font-medium">Nodes</th>
-              <th scope="col" className="w-[18%] py-1 font-medium">Value</th>
-              <th scope="col" className="w-[18%] py-1 font-medium">Control</th>
-              <th scope="col" className="w-[6%] py-1"><span className="sr-only">Remove</span></th>
+              <th scope="col" className="w-[17%] py-1 font-medium">Value</th>
+              <th scope="col" className="w-[17%] py-1 font-medium">Control</th>
+              <th scope="col" className="w-[5%] py-1"><span className="sr-only">Remove</span></th>
             </tr>
           </thead>
           <tbody>
@@ -73,10 +74,10 @@ export function ElementTable({
                   <input aria-label={`Name of element ${i + 1}`} className={cell} value={e.name} readOnly={readOnly} onChange={(ev) => update(i, { ...e, name: ev.target.value })} />
                 </td>
                 <td className="py-0.5">
-                  <select aria-label={`Kind of ${e.name}`} className={cell} value={e.kind} disabled={readOnly} onChange={(ev) => update(i, rekind(e, ev.target.value as ElementKind))}>
+                  <select aria-label={`Kind of ${e.name}`} title={KIND_MEANING[e.kind]} className={cell} value={e.kind} disabled={readOnly} onChange={(ev) => update(i, rekind(e, ev.target.value as ElementKind))}>
                     {ELEMENT_KINDS.map((k) => (
-                      <option key={k} value={k}>
-                        {KIND_WORDS[k]}
+                      <option key={k} value={k} title={KIND_MEANING[k]}>
+                        {k}
                       </option>
                     ))}
                   </select>
@@ -127,7 +128,7 @@ export function ElementTable({
       </div>
       {!readOnly && (
         <div className="mt-2 flex items-center justify-between gap-2">
-          <Button onClick={add}>Add element</Button>
+          <Button onClick={add} className="shrink-0 whitespace-nowrap">Add element</Button>
           <p className="text-[11px] text-ink/60">Edits here rewrite the text in its standard layout; comments in the text are not kept.</p>
         </div>
       )}

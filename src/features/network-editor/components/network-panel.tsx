@@ -32,11 +32,14 @@ export interface NetworkPanelProps {
   onSolve: () => void;
   saving: boolean;
   solving: boolean;
+  solveProgress?: "sending" | "queued" | "solving" | "done";
   saveError: unknown;
   solveError: unknown;
+  /** What a printed page shows as the netlist: the revision's own circuit when one is shown. */
+  printText?: string;
 }
 
-export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSolve, saving, solving, saveError, solveError }: NetworkPanelProps) {
+export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSolve, saving, solving, saveError, solveError, printText, solveProgress = "sending" }: NetworkPanelProps) {
   const [tab, setTab] = useState<Tab>("text");
   const read = useMemo(() => readNetlist(text), [text]);
   const [lastGood, setLastGood] = useState<EngineNetwork | null>(read.network);
@@ -55,7 +58,16 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
       aria-selected={tab === value}
       aria-controls={`network-${value}`}
       id={`network-tab-${value}`}
+      tabIndex={tab === value ? 0 : -1}
       onClick={() => setTab(value)}
+      onKeyDown={(event) => {
+        // Arrow keys move between the two tabs, as in any tab list.
+        if (event.key === "ArrowRight" || event.key === "ArrowLeft") {
+          const next = tab === "text" ? "table" : "text";
+          setTab(next);
+          document.getElementById(`network-tab-${next}`)?.focus();
+        }
+      }}
       className={`border-b-2 px-2 py-1 text-sm ${tab === value ? "border-copper font-medium text-ink" : "border-transparent text-ink/60 hover:text-ink"}`}
     >
       {label}
@@ -64,7 +76,7 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
 
   return (
     <div className="space-y-4">
-      <pre className="hidden whitespace-pre-wrap font-mono text-[9pt] print:block">{text}</pre>
+      <pre className="hidden whitespace-pre-wrap font-mono text-[9pt] print:block">{printText ?? text}</pre>
       <div className="print:hidden">
         <div role="tablist" aria-label="Network form" className="mb-2 flex gap-1 border-b border-rule">
           {tabButton("text", "Netlist text")}
@@ -84,7 +96,17 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
         ))}
       </div>
 
-      {read.network && <div className="print:hidden"><PortPicker nodes={nodes} plus={read.network.port.plus} minus={read.network.port.minus} disabled={!canEdit} onChange={(plus, minus) => onTextChange(withPort(text, plus, minus))} /></div>}
+      {read.network && (
+        <div className="print:hidden">
+          <PortPicker
+            nodes={nodes}
+            plus={read.network.port.plus}
+            minus={read.network.port.minus}
+            disabled={!canEdit}
+            onChange={(plus, minus) => onTextChange(withPort(text, plus, minus))}
+          />
+        </div>
+      )}
 
       <section aria-labelledby="schematic-heading">
         <h2 id="schematic-heading" className="mb-1 text-sm font-medium">
@@ -104,7 +126,17 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
           <span id="solve-note" className="text-xs text-ink/60">
             {errors.length > 0 ? `${errors.length} error${errors.length > 1 ? "s" : ""} in the netlist` : dirty ? "Unsaved changes; Solve saves first." : "Solve stores a new derivation revision."}
           </span>
-          {solving && <Progress label="Solving: nodal analysis, exact…" />}
+          {solving && (
+            <Progress
+              label={
+                solveProgress === "queued"
+                  ? "Queued: waiting for a free solver…"
+                  : solveProgress === "done"
+                    ? "Solved; loading the ledger…"
+                    : "Solving: exact nodal analysis…"
+              }
+            />
+          )}
         </div>
       )}
       {solveError != null && !(solveError instanceof ApiError && solveError.diagnostics?.length) && <ErrorState error={solveError} title="The network could not be solved" />}

@@ -84,15 +84,22 @@ export function layoutSchematic(network: EngineNetwork): SchematicLayout {
     }
   }
 
-  // Column positions: each node's bus is as wide as the elements hanging from it.
+  // Column positions: each node's bus is as wide as the elements hanging from it, labels included.
   const busStart: number[] = [];
   const busEnd: number[] = [];
+  const slotX: number[][] = [];
   let x = 0;
   columns.forEach((n, i) => {
-    const slots = Math.max(1, hanging.get(n)!.length);
+    const list = hanging.get(n)!;
     busStart[i] = x;
-    busEnd[i] = x + (slots - 1) * SLOT;
-    x = busEnd[i] + GAP;
+    slotX[i] = [];
+    let sx = x;
+    list.forEach((e, j) => {
+      slotX[i].push(sx);
+      if (j < list.length - 1) sx += slotWidth(e);
+    });
+    busEnd[i] = sx;
+    x = busEnd[i] + GAP + (list.length ? Math.max(0, slotWidth(list[list.length - 1]) - SLOT) : 0);
   });
 
   const wires: Segment[] = [];
@@ -105,7 +112,7 @@ export function layoutSchematic(network: EngineNetwork): SchematicLayout {
   columns.forEach((n, i) => {
     if (busEnd[i] > busStart[i]) wires.push([busStart[i], RAIL_Y, busEnd[i], RAIL_Y]);
     hanging.get(n)!.forEach((e, slot) => {
-      const sx = busStart[i] + slot * SLOT;
+      const sx = slotX[i][slot];
       if (e.kind === "opamp") {
         opamps.push({ element: e, x: sx, y: RAIL_Y + 34 });
         wires.push([sx, RAIL_Y, sx, RAIL_Y + 34]);
@@ -182,7 +189,7 @@ export function layoutSchematic(network: EngineNetwork): SchematicLayout {
   for (const o of opamps) touch(o.x, o.y);
   // Bus interior points count twice (the bus runs through them).
   columns.forEach((_, i) => {
-    for (let sx = busStart[i] + SLOT; sx < busEnd[i]; sx += SLOT) touch(sx, RAIL_Y), touch(sx, RAIL_Y);
+    for (const sx of slotX[i]) if (sx > busStart[i] && sx < busEnd[i]) touch(sx, RAIL_Y), touch(sx, RAIL_Y);
   });
   if (groundRail) for (const p of parts) if (p.y2 === GROUND_Y && p.x2 > groundRail[0] && p.x2 < groundRail[2]) touch(p.x2, GROUND_Y), touch(p.x2, GROUND_Y);
   const junctions = [...ends.entries()]
@@ -204,6 +211,14 @@ export function layoutSchematic(network: EngineNetwork): SchematicLayout {
     port,
     bounds: { minX: -50, minY, maxX: maxX + 70, maxY: Math.max(GROUND_Y + 40, hasOpamp ? RAIL_Y + 110 : 0) },
   };
+}
+
+// Room for an element hanging from a bus: its symbol plus the name and value written beside it.
+function slotWidth(e: Element): number {
+  if (e.kind === "opamp") return SLOT;
+  const value = "control" in e ? controlLabel(e) : e.value;
+  const chars = Math.max(e.name.length * 1.1, Math.min(18, value.length));
+  return Math.max(SLOT, Math.ceil(30 + 5.6 * chars));
 }
 
 /** The control written the Portfold way, for a dependent source's label. */

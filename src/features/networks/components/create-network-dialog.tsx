@@ -12,9 +12,9 @@ import { useCreateNetwork } from "../api/create-network";
 const STARTER = `# sensor buffer: finite-gain amplifier wired as a follower
 ground 0
 port out 0
-Vsense vsource in 0 = Vs
+Sensor vsource in 0 = Vs
 Amp vcvs x 0 = mu * across(in, out)
-Rout resistor x out = R0
+OutputRes resistor x out = R0
 `;
 
 export function CreateNetworkDialog({ teamId, open, onClose }: { teamId: string; open: boolean; onClose: () => void }) {

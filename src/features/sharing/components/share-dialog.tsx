@@ -39,7 +39,7 @@ function LinkRow({ link, networkId, k }: { link: ShareLink; networkId: string; k
       ? "Revoked: no longer opens."
       : "Expired: no longer opens."
     : link.expiresAt
-      ? `Opens until ${new Date(link.expiresAt).toLocaleString("en-GB")}.`
+      ? `Opens until ${new Date(link.expiresAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}.`
       : "Opens until revoked.";
   return (
     <li className="rounded border border-rule bg-white/60 p-2">
@@ -48,7 +48,7 @@ function LinkRow({ link, networkId, k }: { link: ShareLink; networkId: string; k
           <input aria-label="Share link address" readOnly value={link.url} className="min-w-0 flex-1 bg-transparent font-mono text-xs" onFocus={(e) => e.target.select()} data-testid="share-url" />
         ) : (
           <span className="min-w-0 flex-1 text-xs text-ink/70">
-            Link made {link.createdAt ? new Date(link.createdAt).toLocaleString("en-GB") : ""}
+            Link made {link.createdAt ? new Date(link.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : ""}
             {link.createdBy ? ` by ${link.createdBy}` : ""} (its address was shown once, when it was made)
           </span>
         )}
@@ -118,6 +118,7 @@ export function ShareDialog({ open, onClose, networkId, teamId, k }: { open: boo
       <InlineError error={create.error} />
       <div className="mt-3">
         {links.isLoading && <Progress label="Loading share links…" />}
+        {links.isError && <InlineError error={links.error} />}
         {all.length > 0 ? (
           <ul className="space-y-2" aria-label="Share links of this revision">
             {all.map((link) => (

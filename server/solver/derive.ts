@@ -1,0 +1,34 @@
+// One solve, as a pure function: the engine derives, the outcome is split the way a revision stores it.
+import { solveNetwork, type Diagnostic, type Network, type SolveOptions } from "../domain/engine.js";
+import { resultBreach, type CapBreach } from "./caps.js";
+
+export interface StepRecord {
+  id: string;
+  kind: string;
+  title: string;
+  explanation: string;
+  tex: string;
+  data: unknown;
+}
+
+/** A finished derivation: the circuit as the engine read it, the results (every form), diagnostics, steps. */
+export interface Derivation {
+  circuit: Network;
+  results: Record<string, unknown>;
+  diagnostics: Diagnostic[];
+  steps: StepRecord[];
+}
+
+export type SolveOutcome =
+  | { kind: "solved"; derivation: Derivation }
+  | { kind: "ill_posed"; diagnostics: Diagnostic[] }
+  | { kind: "capped"; breach: CapBreach };
+
+export function deriveOutcome(circuit: Network, options: SolveOptions, maxResultTerms: number): SolveOutcome {
+  const outcome = solveNetwork(circuit, options);
+  if (!outcome.ok || !outcome.network) return { kind: "ill_posed", diagnostics: outcome.diagnostics };
+  const { steps, diagnostics, network: solved, ...results } = outcome;
+  const tooLarge = resultBreach(results, maxResultTerms);
+  if (tooLarge) return { kind: "capped", breach: tooLarge };
+  return { kind: "solved", derivation: { circuit: solved, results, diagnostics, steps } };
+}

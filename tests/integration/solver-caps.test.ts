@@ -1,0 +1,152 @@
+// Solves run on solver threads under caps: size caps refuse before a thread is used, the time cap
+// terminates the thread (a fresh one takes its place), and the server answers meanwhile.
+import { eq, inArray } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { revisions, solveJobs } from "../../server/db/schema.js";
+import { evaluateInfix } from "../support/expressions.js";
+import { signedInPerson, type Person } from "../support/fixtures.js";
+import { completeMesh, resistorChain, sensorSource, type CircuitJson } from "../support/networks.js";
+import { startTestServer, type TestServer } from "../support/server.js";
+
+const caps = { timeLimitMs: 1_500, maxElements: 16, maxSymbols: 16, maxResultTerms: 2, queueMax: 1 };
+
+describe("solver caps", () => {
+  let server: TestServer;
+  let editor: Person;
+  let teamId: string;
+  beforeAll(async () => {
+    server = await startTestServer({ solve: caps });
+    editor = await signedInPerson(server, "capped");
+    teamId = (await editor.client.post("/api/teams", { name: "Cap lab" })).body.id;
+  });
+  afterAll(async () => {
+    await server.close();
+  });
+
+  const newNetwork = async (title: string, circuit: CircuitJson) => {
+    const created = await editor.client.post(`/api/teams/${teamId}/networks`, { title, circuit });
+    expect(created.status, JSON.stringify(created.body)).toBe(201);
+    return created.body.id as string;
+  };
+  const storedRevisions = async (networkId: string) => server.db.select().from(revisions).where(eq(revisions.networkId, networkId));
+
+  it("refuses a network over the element or symbol cap with a 422 naming the cap, before any thread runs", async () => {
+    // 17 elements: the source and 16 links.
+    const wide = await newNetwork("Long divider chain", resistorChain(16, (i) => `Rlink${i}`));
+    // 10 elements with 2 symbols each but the source's: 1 + 9·2 = 19 symbols.
+    const symbolic = await newNetwork("Trimmed chain", resistorChain(9, (i) => `Rfix${i} + Rtrim${i}`));
+    const before = server.solver.stats().started;
+    const tooWide = await editor.client.post(`/api/networks/${wide}/solve`);
+    expect(tooWide.status).toBe(422);
+    expect(tooWide.body.error).toMatchObject({ code: "solve_cap_exceeded", cap: { cap: "elements", limit: 16, actual: 17, setting: "SOLVE_MAX_ELEMENTS" } });
+    expect(tooWide.body.error.message).toContain("SOLVE_MAX_ELEMENTS");
+    const tooSymbolic = await editor.client.post(`/api/networks/${symbolic}/solve`);
+    expect(tooSymbolic.status).toBe(422);
+    expect(tooSymbolic.body.error).toMatchObject({ code: "solve_cap_exceeded", cap: { cap: "symbols", limit: 16, actual: 19, setting: "SOLVE_MAX_SYMBOLS" } });
+    expect(server.solver.stats().started).toBe(before);
+    expect([...(await storedRevisions(wide)), ...(await storedRevisions(symbolic))]).toEqual([]);
+  });
+
+  it("refuses a result larger than the result-term cap", async () => {
+    // Finite-gain follower: Vth = A·Vs/(1 + A) and Rth = Ro/(1 + A), one term over two
+    // (Sedra & Smith, Microelectronic Circuits, feedback chapter; from memory): 3 terms > 2.
+    const follower = await newNetwork("Follower", {
+      ground: "0",
+      port: { plus: "out", minus: "0" },
+      elements: [
+        { name: "Vbridge", kind: "vsource", nodes: ["in", "0"], value: "Vs" },
+        { name: "Amp", kind: "vcvs", nodes: ["x", "0"], control: { nodes: ["in", "out"] }, value: "A" },
+        { name: "Rout", kind: "resistor", nodes: ["x", "out"], value: "Ro" },
+      ],
+    });
+    const response = await editor.client.post(`/api/networks/${follower}/solve`);
+    expect(response.status).toBe(422);
+    expect(response.body.error).toMatchObject({ code: "solve_cap_exceeded", cap: { cap: "resultTerms", limit: 2, actual: 3, setting: "SOLVE_MAX_RESULT_TERMS" } });
+    expect(await storedRevisions(follower)).toEqual([]);
+  });
+
+  it("stops a solve at the time cap by terminating its thread, answers health meanwhile, and solves on a fresh thread after", async () => {
+    const mesh = await newNetwork("Six-node mesh", completeMesh(6));
+    const terminatedBefore = server.solver.stats().terminated;
+    let solveAnswered = false;
+    const solving = editor.client.post(`/api/networks/${mesh}/solve`).finally(() => {
+      solveAnswered = true;
+    });
+    // If the solve held the request thread, no health answer could arrive before the solve's.
+    const healthBeforeSolve: number[] = [];
+    while (!solveAnswered) {
+      const health = await fetch(`${server.url}/api/health`);
+      if (!solveAnswered) healthBeforeSolve.push(health.status);
+    }
+    const capped = await solving;
+    expect(capped.status).toBe(422);
+    expect(capped.body.error).toMatchObject({ code: "solve_cap_exceeded", cap: { cap: "time", limit: 1_500, setting: "SOLVE_TIME_LIMIT_MS" } });
+    expect(capped.body.error.message).toContain("1.5 s");
+    expect(healthBeforeSolve.length).toBeGreaterThanOrEqual(3);
+    expect(new Set(healthBeforeSolve)).toEqual(new Set([200]));
+    expect(server.solver.stats().terminated).toBe(terminatedBefore + 1);
+    expect(await storedRevisions(mesh)).toEqual([]);
+
+    const sensor = await newNetwork("Sensor terminals", sensorSource);
+    const solved = await editor.client.post(`/api/networks/${sensor}/solve`);
+    expect(solved.status).toBe(201);
+    const at = { Vs: 1.25, Rs: 350 };
+    expect(evaluateInfix(solved.body.results.vth.infix, at)).toBeCloseTo(1.25, 12);
+    expect(evaluateInfix(solved.body.results.rth.infix, at)).toBeCloseTo(350, 12);
+  });
+
+  it("hands out jobs that go queued → solving → failed or done, and answers 503 when the queue is full", async () => {
+    const first = await newNetwork("Mesh, first", completeMesh(6, "ga"));
+    const second = await newNetwork("Mesh, second", completeMesh(6, "gb"));
+    const third = await newNetwork("Mesh, third", completeMesh(4, "gc"));
+    const a = await editor.client.post(`/api/networks/${first}/solve?wait=0`);
+    const b = await editor.client.post(`/api/networks/${second}/solve?wait=0`);
+    expect([a.status, b.status]).toEqual([202, 202]);
+    expect(a.headers.get("location")).toBe(a.body.job.poll);
+    expect(a.body.job).toMatchObject({ networkId: first, status: expect.stringMatching(/^(queued|solving)$/), revision: null, error: null });
+    while (server.solver.stats().running + server.solver.stats().queued < 2) await new Promise((resolve) => setTimeout(resolve, 20));
+    // One thread and a queue of one: a third solve cannot be taken now.
+    const busy = await editor.client.post(`/api/networks/${third}/solve`);
+    expect(busy.status).toBe(503);
+    expect(busy.body.error.code).toBe("solver_busy");
+    expect(busy.headers.get("retry-after")).toBe("5");
+
+    const seen: Record<string, string[]> = { a: [], b: [] };
+    const poll = async (name: "a" | "b", url: string) => {
+      for (;;) {
+        const job = await editor.client.get(url);
+        expect(job.status).toBe(200);
+        if (seen[name].at(-1) !== job.body.status) seen[name].push(job.body.status);
+        if (job.body.status === "done" || job.body.status === "failed") return job.body;
+        await new Promise((resolve) => setTimeout(resolve, 100));
+      }
+    };
+    const [jobA, jobB] = await Promise.all([poll("a", a.body.job.poll), poll("b", b.body.job.poll)]);
+    // b waited behind a on the one thread.
+    expect(seen.b.slice(0, 2)).toEqual(["queued", "solving"]);
+    expect(seen.a.at(-2)).toBe("solving");
+    for (const job of [jobA, jobB]) {
+      expect(job).toMatchObject({ status: "failed", revision: null, error: { status: 422, code: "solve_cap_exceeded", cap: { cap: "time" } } });
+      expect(Date.parse(job.finishedAt)).toBeGreaterThanOrEqual(Date.parse(job.startedAt));
+    }
+
+    const sensor = await newNetwork("Sensor behind the meshes", sensorSource);
+    const done = await editor.client.post(`/api/networks/${sensor}/solve?wait=0`);
+    expect(done.status).toBe(202);
+    const finished = await poll("a", done.body.job.poll);
+    expect(finished).toMatchObject({ status: "done", cacheHit: expect.any(Boolean), error: null, revision: { number: 1, permalink: expect.stringMatching(/\/r\/1$/) } });
+    expect((await editor.client.get(`/api/networks/${sensor}/revisions/1`)).status).toBe(200);
+    const rows = await server.db.select().from(solveJobs).where(inArray(solveJobs.networkId, [first, second, third, sensor]));
+    // The refused third solve left no job behind.
+    expect(rows.map((row) => row.status).sort()).toEqual(["done", "failed", "failed"]);
+  });
+
+  it("shows a job only to members of the network's team", async () => {
+    const sensor = await newNetwork("Sensor for the outsider", sensorSource);
+    const job = (await editor.client.post(`/api/networks/${sensor}/solve?wait=0`)).body.job;
+    const outsider = await signedInPerson(server, "outsider");
+    expect((await outsider.client.get(job.poll)).status).toBe(404);
+    expect((await editor.client.get(`/api/networks/${sensor}/solve-jobs/${crypto.randomUUID()}`)).status).toBe(404);
+    expect((await editor.client.get(`/api/networks/${sensor}/solve-jobs/not-a-job`)).status).toBe(404);
+  });
+});
