@@ -70,6 +70,8 @@ export interface NetworkInput {
   elements: Element[];
   /** Optional declared quantity per symbol (an extension; inferred from elements otherwise). */
   quantities?: Record<string, Quantity>;
+  /** Optional drawing of the network (an extension); the engine carries it unchanged and never reads it. */
+  layout?: Record<string, unknown>;
 }
 
 /** A network after validation: ground filled in. */
@@ -78,6 +80,7 @@ export interface Network {
   port: Port;
   elements: Element[];
   quantities?: Record<string, Quantity>;
+  layout?: Record<string, unknown>;
 }
 
 export const QUANTITIES = [

@@ -58,6 +58,13 @@ describe("results", () => {
     expect(Object.keys(r.sensitivities.rth!)).toEqual(["A", "Ro"]);
   });
 
+  it("skips sensitivities of large results and says so", () => {
+    const r = solveNetwork(follower, { sensitivitySizeLimit: 1, steps: false });
+    expect(r.sensitivities.rth).toBeUndefined();
+    expect(r.sensitivities.isc).toBeDefined(); // A*Vs/Ro: 1 × 1 terms
+    expect(r.statements.find((x) => x.code === "sensitivity-skipped")?.message).toMatch(/vth, rth/);
+  });
+
   it("solves a result = target for a symbol where it is linear-fractional", () => {
     const r = solveNetwork(follower, {
       solveFor: [

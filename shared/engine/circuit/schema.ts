@@ -45,6 +45,8 @@ export const networkSchema = z.strictObject({
   port: z.strictObject({ plus: node, minus: node }),
   elements: z.array(element),
   quantities: z.record(z.string(), z.enum(QUANTITIES)).optional(),
+  // The drawing belongs to the client; the engine only keeps it with the network.
+  layout: z.record(z.string(), z.unknown()).optional(),
 });
 
 /** Check a parsed JSON value against the interchange format. */
@@ -78,6 +80,7 @@ export function normalizeNetwork(input: NetworkInput): Network {
   if (input.quantities && Object.keys(input.quantities).length > 0) {
     network.quantities = { ...input.quantities } as Record<string, Quantity>;
   }
+  if (input.layout !== undefined) network.layout = input.layout;
   return network;
 }
 

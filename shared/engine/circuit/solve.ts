@@ -69,7 +69,8 @@ export function solveParsedNetwork(network: Network, options: SolveOptions = {},
   const values = checked.values;
 
   const port = solvePortExact(network, values);
-  const { system: sys, open, short, vth, rth, isc, rthFromVocIsc, agree, statements } = port;
+  const { system: sys, open, short, vth, rth, isc, rthFromVocIsc, agree } = port;
+  const statements = [...port.statements];
   if (open.singular && short.singular) {
     const suspects = suspectStructures(network);
     const why = suspects.length > 0 ? ` Look at: ${suspects.map((s) => s.note).join("; ")}.` : "";

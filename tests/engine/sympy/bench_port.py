@@ -8,6 +8,7 @@ import os
 import sys
 import time
 
+sys.dont_write_bytecode = True  # keep the repository free of __pycache__
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 from port_reference import solve_port  # noqa: E402
 
