@@ -1,6 +1,7 @@
 // Portfold's engine: read a network (JSON or Portfold netlist), solve its port exactly.
 // Pure: no I/O, usable by the server and the client alike.
 
+import { attributeToCells, expandCells } from "./circuit/cells";
 import { diagnostic } from "./circuit/diagnostics";
 import { jsonErrorOffset } from "./circuit/json-position";
 import { parseNetlistText } from "./circuit/netlist-text";
@@ -13,6 +14,10 @@ export { DIAGNOSTIC_CODES, type DiagnosticCode } from "./circuit/diagnostics";
 export { NETLIST_EXTENSION, parseNetlistText, printNetlistText } from "./circuit/netlist-text";
 export { networkSchema } from "./circuit/schema";
 export { toSolveOutput, type SolveOutput } from "./circuit/output";
+export { AMPLIFIER, BJT_HYBRID_PI, BUILT_IN_CELLS, MOSFET, checkCellDefinition, expandCells, printCellLine } from "./circuit/cells";
+export { frequencyLimit, frequencyReport, frequencyResponse, frequencySpan, logFrequencies, numericCoefficientsInS, polesAndZeros, polynomialRoots } from "./circuit/frequency";
+export { approximate, parseAssumption, type Assumption } from "./circuit/approximations";
+export { designSolve, type DesignSolveAnswer, type DesignSolveRequest } from "./circuit/design-solve";
 
 /**
  * Read a network from the text netlist, from JSON text, or from an already-parsed JSON value.
@@ -53,10 +58,12 @@ export function solveNetwork(input: string | NetworkInput | Network, options: So
 export function solveNetworkExact(input: string | NetworkInput | Network): { network: Network | null; diagnostics: Diagnostic[]; port: ExactPort | null } {
   const parsed = parseNetwork(input);
   if (!parsed.network) return { network: null, diagnostics: parsed.diagnostics, port: null };
-  const network = normalizeNetwork(parsed.network);
-  const checked = checkNetwork(network, parsed.positions);
-  if (checked.values === null) return { network, diagnostics: checked.diagnostics, port: null };
-  return { network, diagnostics: checked.diagnostics, port: solvePortExact(network, checked.values) };
+  const expanded = expandCells(normalizeNetwork(parsed.network), parsed.positions);
+  if (expanded.network === null) return { network: null, diagnostics: expanded.diagnostics, port: null };
+  const network = expanded.network;
+  const checked = checkNetwork(network, expanded.positions);
+  if (checked.values === null) return { network, diagnostics: attributeToCells(checked.diagnostics, expanded.origin, parsed.network.cells), port: null };
+  return { network, diagnostics: attributeToCells(checked.diagnostics, expanded.origin, parsed.network.cells), port: solvePortExact(network, checked.values) };
 }
 
 export type { ExactPort };

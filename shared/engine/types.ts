@@ -1,6 +1,11 @@
 // Public types of the engine: the interchange format, the solve options and the solve result.
 // Plain data only (strings, numbers, arrays), so a result can be stored and sent as JSON.
 
+import type { ApproximationReport } from "./circuit/approximations";
+import type { FrequencyReport } from "./circuit/frequency";
+export type { ApproximationEntry, ApproximationReport } from "./circuit/approximations";
+export type { FrequencyEquivalent, FrequencyLimitValue, FrequencyReport, PolesZeros, SRoot } from "./circuit/frequency";
+
 /** Every element kind Portfold knows, spelled as the word used in both the JSON and the text netlist. */
 export const ELEMENT_KINDS = [
   "resistor",
@@ -72,6 +77,10 @@ export interface NetworkInput {
   quantities?: Record<string, Quantity>;
   /** Optional drawing of the network (an extension); the engine carries it unchanged and never reads it. */
   layout?: Record<string, unknown>;
+  /** Cell instances (an extension), expanded into elements before solving. */
+  cells?: CellInstance[];
+  /** Cells defined with the network (an extension), beside the built-in ones. */
+  cellDefinitions?: CellDefinition[];
 }
 
 /** A network after validation: ground filled in. */
@@ -81,6 +90,33 @@ export interface Network {
   elements: Element[];
   quantities?: Record<string, Quantity>;
   layout?: Record<string, unknown>;
+  cells?: CellInstance[];
+  cellDefinitions?: CellDefinition[];
+}
+
+/** One placed cell: a part with named terminals, standing for the cell's elements. */
+export interface CellInstance {
+  name: string;
+  /** Cell id: "bjt-hybrid-pi", "mosfet", "amplifier", or one in cellDefinitions. */
+  cell: string;
+  /** Cell terminal -> network node. */
+  terminals: Record<string, string>;
+  /** Per-instance names (or expressions) of the cell's symbols, e.g. { "gm": "gm1" }. */
+  symbols?: Record<string, string>;
+  /** Optional parts of the cell to include, e.g. ["Cgs", "Cgd"]. */
+  include?: string[];
+}
+
+/** A reusable block: elements whose nodes are its terminals, "0" (ground) or its own internal nodes. */
+export interface CellDefinition {
+  id: string;
+  title: string;
+  terminals: string[];
+  /** The symbols its values use, which an instance may rename. */
+  symbols: string[];
+  elements: Element[];
+  /** Elements left out unless an instance includes them by name. */
+  optional?: string[];
 }
 
 export const QUANTITIES = [
@@ -148,6 +184,8 @@ export interface SolveOptions {
   dimensions?: boolean;
   /** Declared quantities, overriding inference. */
   quantities?: Record<string, Quantity>;
+  /** Design assumptions such as "gm*ro >> 1": each result is also given with its dominant terms only (an extension). */
+  assume?: string[];
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -258,7 +296,8 @@ export type StepKind =
   | "test-source"
   | "short"
   | "cross-check"
-  | "equivalent";
+  | "equivalent"
+  | "approximation";
 
 /** One entry of the ledger. */
 export interface Step {
@@ -312,6 +351,10 @@ export interface SolveResult {
   dimensions: DimensionReport | null;
   steps: Step[];
   diagnostics: Diagnostic[];
+  /** Extension: present only when a result depends on the Laplace variable s. */
+  frequency?: FrequencyReport;
+  /** Extension: present only when SolveOptions.assume was given. */
+  approximations?: ApproximationReport;
 }
 
 /** What parseNetwork returns: the network when it could be read, and what went wrong. */

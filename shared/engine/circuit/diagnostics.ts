@@ -26,6 +26,9 @@ export const DIAGNOSTIC_CODES = {
   "option-invalid": "a solve option (value, limit or target) cannot be read",
   "quantity-conflict": "one symbol is given two different quantities by the elements it sits on",
   "dimension-mismatch": "a result does not come out in its unit",
+  "cell-unknown": "a cell instance names a cell that is not defined",
+  "cell-terminals": "a cell instance leaves a terminal unconnected or names one the cell does not have",
+  "cell-symbols": "a cell instance renames a symbol the cell does not have, or includes a part it does not have",
 } as const;
 
 export type DiagnosticCode = keyof typeof DIAGNOSTIC_CODES;

@@ -13,6 +13,7 @@
 // The kind is always the word in the second column; element names are free.
 
 import type {
+  CellInstance,
   Control,
   ControlledSourceKind,
   Diagnostic,
@@ -23,6 +24,7 @@ import type {
   Quantity,
 } from "../types";
 import { ELEMENT_KINDS, QUANTITIES } from "../types";
+import { CellLineError, printCellLine, readCellLine } from "./cells";
 import { diagnostic } from "./diagnostics";
 import { NAME_PATTERN } from "./schema";
 
@@ -50,6 +52,7 @@ class NetlistSyntaxError extends Error {
 export function parseNetlistText(text: string): ParseResult {
   const diagnostics: Diagnostic[] = [];
   const elements: Element[] = [];
+  const cells: CellInstance[] = [];
   const positions: Record<string, { line: number; valueColumn: number | null }> = {};
   const quantities: Record<string, Quantity> = {};
   let ground: string | null = null;
@@ -66,6 +69,13 @@ export function parseNetlistText(text: string): ParseResult {
       const head = eq >= 0 ? content.slice(0, eq) : content;
       const tokens = tokenize(head);
       const first = tokens[0];
+      // A cell instance: "<name> cell <cell> <terminal>=<node> ..." (see cells.ts).
+      if (tokens[1]?.text === "cell" && !DIRECTIVES.has(first.text)) {
+        const instance = readCellLine(tokenize(content));
+        if (positions[instance.name] === undefined) positions[instance.name] = { line, valueColumn: null };
+        cells.push(instance);
+        return;
+      }
       if (DIRECTIVES.has(first.text)) {
         if (eq >= 0) throw new NetlistSyntaxError(`"${first.text}" takes no "=": write "${directiveUsage(first.text)}"`, eq + 1);
         if (first.text === "ground") {
@@ -93,7 +103,7 @@ export function parseNetlistText(text: string): ParseResult {
       }
       elements.push(element.element);
     } catch (e) {
-      if (!(e instanceof NetlistSyntaxError)) throw e;
+      if (!(e instanceof NetlistSyntaxError) && !(e instanceof CellLineError)) throw e;
       diagnostics.push(diagnostic("parse-error", `line ${line}, column ${e.column}: ${e.message}`, { line, column: e.column }));
     }
   });
@@ -109,6 +119,7 @@ export function parseNetlistText(text: string): ParseResult {
   if (diagnostics.length > 0 || port === null) return { network: null, diagnostics, format: "text", positions };
   const network: Network = { ground: ground ?? "0", port, elements };
   if (Object.keys(quantities).length > 0) network.quantities = quantities;
+  if (cells.length > 0) network.cells = cells;
   return { network, diagnostics, format: "text", positions };
 }
 
@@ -329,6 +340,7 @@ export function printNetlistText(network: Network, title?: string): string {
   lines.push(`port ${network.port.plus} ${network.port.minus}`);
   for (const [symbol, q] of Object.entries(network.quantities ?? {})) lines.push(`quantity ${symbol} ${q}`);
   for (const e of network.elements) lines.push(printElementLine(e));
+  for (const c of network.cells ?? []) lines.push(printCellLine(c));
   return lines.join("\n") + "\n";
 }
 

@@ -35,6 +35,10 @@ export interface SolveOutput {
   solved: SolveResult["solved"];
   dimensions: SolveResult["dimensions"];
   terms: Partial<PerResult<{ numerator: number; denominator: number }>>;
+  /** Only when a result depends on s: DC and high-frequency equivalents, poles and zeros. */
+  frequency?: SolveResult["frequency"];
+  /** Only when assumptions were given: each result beside its dominant-term form. */
+  approximations?: SolveResult["approximations"];
 }
 
 function per<T>(f: (r: ResultName) => T): PerResult<T> {
@@ -83,5 +87,7 @@ export function toSolveOutput(result: SolveResult): SolveOutput {
     solved: result.solved,
     dimensions: result.dimensions,
     terms,
+    ...(result.frequency ? { frequency: result.frequency } : {}),
+    ...(result.approximations ? { approximations: result.approximations } : {}),
   };
 }

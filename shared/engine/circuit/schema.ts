@@ -40,6 +40,24 @@ const opamp = z.strictObject({
 
 const element = z.discriminatedUnion("kind", [twoTerminal, controlled, opamp]);
 
+// Cells (an extension): instances are parts with named terminals, expanded before solving (circuit/cells.ts).
+const cellId = z.string().regex(/^[\p{L}\p{N}_-]+$/u, "a cell id is letters, digits, underscore and hyphen");
+const cellInstance = z.strictObject({
+  name,
+  cell: cellId,
+  terminals: z.record(name, node),
+  symbols: z.record(name, z.string().trim().min(1, "a symbol's new name cannot be empty")).optional(),
+  include: z.array(name).optional(),
+});
+const cellDefinition = z.strictObject({
+  id: cellId,
+  title: z.string(),
+  terminals: z.array(node).min(2, "a cell has at least two terminals"),
+  symbols: z.array(name),
+  elements: z.array(element).min(1, "a cell has at least one element"),
+  optional: z.array(name).optional(),
+});
+
 export const networkSchema = z.strictObject({
   ground: node.optional(),
   port: z.strictObject({ plus: node, minus: node }),
@@ -47,6 +65,8 @@ export const networkSchema = z.strictObject({
   quantities: z.record(z.string(), z.enum(QUANTITIES)).optional(),
   // The drawing belongs to the client; the engine only keeps it with the network.
   layout: z.record(z.string(), z.unknown()).optional(),
+  cells: z.array(cellInstance).optional(),
+  cellDefinitions: z.array(cellDefinition).optional(),
 });
 
 /** Check a parsed JSON value against the interchange format. */
@@ -81,6 +101,8 @@ export function normalizeNetwork(input: NetworkInput): Network {
     network.quantities = { ...input.quantities } as Record<string, Quantity>;
   }
   if (input.layout !== undefined) network.layout = input.layout;
+  if (input.cells && input.cells.length > 0) network.cells = input.cells.map((c) => ({ ...c }));
+  if (input.cellDefinitions && input.cellDefinitions.length > 0) network.cellDefinitions = input.cellDefinitions;
   return network;
 }
 

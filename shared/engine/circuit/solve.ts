@@ -3,12 +3,15 @@
 
 import type { RationalFunction } from "../algebra";
 import type { Diagnostic, Network, NumericCheck, ParseResult, PortStatement, SolveOptions, SolveResult } from "../types";
+import { approximationsOf, AssumptionSyntaxError, parseAssumption, type Assumption } from "./approximations";
+import { attributeToCells, expandCells } from "./cells";
 import { checkDimensions } from "./dimensions";
 import { diagnostic, hasErrors } from "./diagnostics";
 import { assembleNodalSystem, type NodalSystem } from "./mna";
 import { floatPortValues, hashString, seededRandom } from "./numeric";
 import { solveOpenPort, solveShortedPort, type OpenPortSolution, type ShortPortSolution } from "./port-solution";
-import { exactExpression, limitsOf, sensitivitiesOf, solveForTargets, valuesOf, type Results } from "./results";
+import { frequencyReport } from "./frequency";
+import { exactExpression, limitsOf, parseAssignments, sensitivitiesOf, solveForTargets, valuesOf, type Results } from "./results";
 import { buildLedger } from "./steps";
 import { checkTopology, suspectStructures } from "./topology";
 import { checkStructure } from "./validate";
@@ -62,7 +65,15 @@ export function checkNetwork(
   return { values: hasErrors(diagnostics) ? null : parsed.values, diagnostics: placeDiagnostics(diagnostics, positions) };
 }
 
-export function solveParsedNetwork(network: Network, options: SolveOptions = {}, positions?: ParseResult["positions"]): SolveResult {
+export function solveParsedNetwork(input: Network, options: SolveOptions = {}, inputPositions?: ParseResult["positions"]): SolveResult {
+  // Cell instances become elements first; diagnostics then name the instance as well.
+  const expanded = expandCells(input, inputPositions);
+  if (expanded.network === null) return emptyResult(input, expanded.diagnostics);
+  const result = solveExpandedNetwork(expanded.network, options, expanded.positions);
+  return { ...result, network: input, diagnostics: attributeToCells(result.diagnostics, expanded.origin, input.cells) };
+}
+
+function solveExpandedNetwork(network: Network, options: SolveOptions, positions?: ParseResult["positions"]): SolveResult {
   const checked = checkNetwork(network, positions);
   const diagnostics: Diagnostic[] = checked.diagnostics;
   if (checked.values === null) return emptyResult(network, diagnostics);
@@ -143,6 +154,18 @@ export function solveParsedNetwork(network: Network, options: SolveOptions = {},
   if (options.steps ?? true) {
     result.steps = buildLedger({ network, system: sys, values, open, short, vth, rth, isc, rthFromVocIsc, agree });
   }
+  const { [LAPLACE]: _s, ...given } = options.values ? parseAssignments(options.values).exact : {};
+  const frequency = frequencyReport(results, given);
+  if (frequency) result.frequency = frequency;
+  if (options.assume && options.assume.length > 0) {
+    const a = assumptionsOf(options.assume);
+    diagnostics.push(...a.diagnostics);
+    if (a.assumptions.length > 0) {
+      const approximated = approximationsOf(results, a.assumptions);
+      result.approximations = approximated.report;
+      if (options.steps ?? true) result.steps = [...result.steps, ...approximated.steps];
+    }
+  }
   result.statements = statements;
   result.diagnostics = placeDiagnostics(diagnostics, positions);
   result.ok = !hasErrors(result.diagnostics);
@@ -222,4 +245,18 @@ export function solvePortExact(network: Network, values: ReadonlyMap<string, Rat
   if (agree === false) statements.push({ code: "rth-disagree", message: "Rth from the test source differs from Voc/Isc; the derivation is inconsistent." });
 
   return { system: sys, open, short, vth, rth, isc, rthFromVocIsc, agree, statements };
+}
+
+function assumptionsOf(texts: readonly string[]): { assumptions: Assumption[]; diagnostics: Diagnostic[] } {
+  const assumptions: Assumption[] = [];
+  const diagnostics: Diagnostic[] = [];
+  for (const t of texts) {
+    try {
+      assumptions.push(parseAssumption(t));
+    } catch (e) {
+      if (!(e instanceof AssumptionSyntaxError)) throw e;
+      diagnostics.push(diagnostic("option-invalid", `assumption ${e.message}`));
+    }
+  }
+  return { assumptions, diagnostics };
 }

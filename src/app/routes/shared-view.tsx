@@ -4,7 +4,7 @@ import { AnalysisColumn } from "@/features/analysis/components/analysis-column";
 import { useMe } from "@/features/auth/api/get-me";
 import { Ledger } from "@/features/derivations/components/ledger";
 import { ExportMenu } from "@/features/export/components/export-menu";
-import { Schematic } from "@/features/network-editor/components/schematic";
+import { DrawingView } from "@/features/canvas/components/drawing-view";
 import { useNetwork } from "@/features/networks/api/get-network";
 import { useComments } from "@/features/review/api/get-comments";
 import { VerdictControl, VerdictMark } from "@/features/review/components/verdict-control";
@@ -86,7 +86,7 @@ export function SharedViewRoute() {
             Network
           </h2>
           <div className="rounded border border-rule bg-white/40 p-1">
-            <Schematic network={{ ground: "0", ...revision.circuit } as EngineNetwork} />
+            <DrawingView network={{ ground: "0", ...revision.circuit } as EngineNetwork} layout={revision.circuit.layout} readOnly height={300} />
           </div>
           <ul className="mt-2 space-y-0.5 font-mono text-[11px] text-ink/80" aria-label="Elements">
             {revision.circuit.elements.map((e) => (

@@ -8,7 +8,8 @@ import { useRevision } from "@/features/derivations/api/get-revision";
 import { useSolveNetwork, type SolveProgress } from "@/features/derivations/api/solve-network";
 import { Ledger } from "@/features/derivations/components/ledger";
 import { ExportMenu } from "@/features/export/components/export-menu";
-import { NetworkPanel } from "@/features/network-editor/components/network-panel";
+import { layoutFor } from "@/features/canvas/model/sync";
+import { NetworkPanel, type NetworkTab } from "@/features/network-editor/components/network-panel";
 import { circuitOf, netlistOf, readNetlist } from "@/features/network-editor/lib/netlist";
 import { useNetwork } from "@/features/networks/api/get-network";
 import { useNetworkBySlug } from "@/features/networks/api/get-network-by-slug";
@@ -21,10 +22,13 @@ import type { Me, Network } from "@/types/api";
 function Workbench({ me, network, k }: { me: Me; network: Network; k: number | null }) {
   const navigate = useNavigate();
   const [text, setText] = useState(() => netlistOf(network.circuit));
+  // The drawing's layout as edited here; the stored one until the drawing changes.
+  const [layout, setLayout] = useState<unknown>(() => network.circuit.layout);
+  const [tab, setTab] = useState<NetworkTab>("text");
   const [sharing, setSharing] = useState(false);
   const [solveProgress, setSolveProgress] = useState<SolveProgress>("sending");
   const saved = useMemo(() => netlistOf(network.circuit), [network.circuit]);
-  const dirty = text !== saved;
+  const dirty = text !== saved || layout !== network.circuit.layout;
   const update = useUpdateNetwork();
   const solve = useSolveNetwork();
   const revision = useRevision(network.id, k);
@@ -44,7 +48,8 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
   const save = async () => {
     const read = readNetlist(text);
     if (!read.network) return false;
-    await update.mutateAsync({ networkId: network.id, circuit: circuitOf(read.network) });
+    // The drawing is saved in step with the text (parts added in the text get their automatic place).
+    await update.mutateAsync({ networkId: network.id, circuit: circuitOf({ ...read.network, layout: layoutFor(read.network, layout) }) });
     return true;
   };
   const runSolve = async () => {
@@ -112,7 +117,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
         </div>
       </div>
 
-      <div className="mt-4 grid grid-cols-1 gap-6 lg:grid-cols-[minmax(18rem,23rem)_minmax(0,1fr)_18rem] print:block">
+      <div className={`mt-4 grid grid-cols-1 gap-6 ${tab === "drawing" ? "lg:grid-cols-[minmax(30rem,1.25fr)_minmax(0,1fr)_16rem]" : "lg:grid-cols-[minmax(18rem,23rem)_minmax(0,1fr)_18rem]"} print:block`}>
         <section aria-label="Network" className="min-w-0 print:mb-4 print:max-w-md">
           <NetworkPanel
             text={text}
@@ -127,6 +132,9 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
             saveError={update.error}
             solveError={solve.error}
             printText={revision.data ? netlistOf(revision.data.circuit) : undefined}
+            layout={layout}
+            onLayoutChange={setLayout}
+            onTabChange={setTab}
           />
         </section>
         <section aria-labelledby="ledger-heading" className="min-w-0">

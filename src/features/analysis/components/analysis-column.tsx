@@ -5,6 +5,8 @@ import { readExactResults, symbolsOf } from "../lib/exact-results";
 import { LimitsPanel } from "./limits-panel";
 import { SweepPanel } from "./sweep-panel";
 import { ValuesPanel, type TypedValues } from "./values-panel";
+import { DesignSolve } from "@/features/frequency/components/design-solve";
+import { FrequencyPanel } from "@/features/frequency/components/frequency-panel";
 
 function Panel({ title, children }: { title: string; children: ReactNode }) {
   const id = `panel-${title.toLowerCase()}`;
@@ -28,7 +30,14 @@ export function AnalysisColumn({ results }: { results: Results }) {
     <div className="print:hidden">
       <Panel title="Values">
         <ValuesPanel exact={exact} symbols={symbols} quantities={results.quantities} values={values} onChange={setValues} />
+        <DesignSolve exact={exact} symbols={symbols} quantities={results.quantities} values={values} />
       </Panel>
+      {/* Only when a result depends on the Laplace variable s. */}
+      {symbols.includes("s") && (
+        <Panel title="Frequency">
+          <FrequencyPanel exact={exact} values={values} />
+        </Panel>
+      )}
       <Panel title="Limits">
         <LimitsPanel exact={exact} symbols={symbols} initialSymbol={gain} />
       </Panel>

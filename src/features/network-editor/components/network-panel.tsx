@@ -10,8 +10,12 @@ import { ElementTable } from "./element-table";
 import { NetlistEditor, editorDiagnostics } from "./netlist-editor";
 import { PortPicker } from "./port-picker";
 import { Schematic } from "./schematic";
+import { DrawingView } from "@/features/canvas/components/drawing-view";
+import type { Layout } from "@/features/canvas/model/drawing";
 
-type Tab = "text" | "table";
+export type NetworkTab = "text" | "table" | "drawing";
+type Tab = NetworkTab;
+const TABS: Tab[] = ["text", "table", "drawing"];
 
 // Diagnostics that name elements but no line (e.g. from the solve) are placed on those elements' lines.
 function placeDiagnostics(diagnostics: Diagnostic[], text: string): Diagnostic[] {
@@ -21,6 +25,13 @@ function placeDiagnostics(diagnostics: Diagnostic[], text: string): Diagnostic[]
     return index >= 0 ? index + 1 : undefined;
   };
   return diagnostics.map((d) => (d.line !== undefined ? d : { ...d, line: d.elements.map(lineOf).find((l) => l !== undefined) }));
+}
+
+// Each element a diagnostic names, with what it says, for the drawing to mark.
+function faultsOf(diagnostics: Diagnostic[]): Map<string, string> {
+  const faults = new Map<string, string>();
+  for (const d of diagnostics) for (const name of d.elements ?? []) if (d.severity === "error" && !faults.has(name)) faults.set(name, d.message);
+  return faults;
 }
 
 export interface NetworkPanelProps {
@@ -37,10 +48,18 @@ export interface NetworkPanelProps {
   solveError: unknown;
   /** What a printed page shows as the netlist: the revision's own circuit when one is shown. */
   printText?: string;
+  /** The drawing's stored layout (the circuit's `layout` member, or as edited since). */
+  layout?: unknown;
+  onLayoutChange?: (layout: Layout) => void;
+  onTabChange?: (tab: NetworkTab) => void;
 }
 
-export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSolve, saving, solving, saveError, solveError, printText, solveProgress = "sending" }: NetworkPanelProps) {
-  const [tab, setTab] = useState<Tab>("text");
+export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSolve, saving, solving, saveError, solveError, printText, solveProgress = "sending", layout, onLayoutChange, onTabChange }: NetworkPanelProps) {
+  const [tab, setTabState] = useState<Tab>("text");
+  const setTab = (next: Tab) => {
+    setTabState(next);
+    onTabChange?.(next);
+  };
   const read = useMemo(() => readNetlist(text), [text]);
   const [lastGood, setLastGood] = useState<EngineNetwork | null>(read.network);
   if (read.network && read.network !== lastGood) setLastGood(read.network);
@@ -61,9 +80,9 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
       tabIndex={tab === value ? 0 : -1}
       onClick={() => setTab(value)}
       onKeyDown={(event) => {
-        // Arrow keys move between the two tabs, as in any tab list.
+        // Arrow keys move between the tabs, as in any tab list.
         if (event.key === "ArrowRight" || event.key === "ArrowLeft") {
-          const next = tab === "text" ? "table" : "text";
+          const next = TABS[(TABS.indexOf(tab) + (event.key === "ArrowRight" ? 1 : TABS.length - 1)) % TABS.length];
           setTab(next);
           document.getElementById(`network-tab-${next}`)?.focus();
         }
@@ -81,10 +100,29 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
         <div role="tablist" aria-label="Network form" className="mb-2 flex gap-1 border-b border-rule">
           {tabButton("text", "Netlist text")}
           {tabButton("table", "Element table")}
+          {tabButton("drawing", "Drawing")}
         </div>
         <div role="tabpanel" id={`network-${tab}`} aria-labelledby={`network-tab-${tab}`}>
           {tab === "text" ? (
             <NetlistEditor value={text} onChange={onTextChange} diagnostics={shown} readOnly={!canEdit} />
+          ) : tab === "drawing" ? (
+            network ? (
+              <>
+                {!read.network && <p className="mb-1 text-xs text-signal">The text has errors; the drawing shows the last version that read without them.</p>}
+                <DrawingView
+                  network={network}
+                  layout={layout}
+                  readOnly={!canEdit}
+                  faults={faultsOf([...read.diagnostics, ...serverDiagnostics])}
+                  onEdit={(nextText, nextLayout) => {
+                    onLayoutChange?.(nextLayout);
+                    onTextChange(nextText);
+                  }}
+                />
+              </>
+            ) : (
+              <p className="text-sm text-ink/60">Fix the netlist to see the drawing.</p>
+            )
           ) : (
             <ElementTable network={read.network} readOnly={!canEdit} onChange={(next) => onTextChange(printNetlistText(next))} />
           )}
@@ -108,7 +146,7 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
         </div>
       )}
 
-      <section aria-labelledby="schematic-heading">
+      <section aria-labelledby="schematic-heading" className={tab === "drawing" ? "hidden print:block" : undefined}>
         <h2 id="schematic-heading" className="mb-1 text-sm font-medium">
           Schematic preview {!read.network && network && <span className="font-normal text-ink/50">(last version that read without errors)</span>}
         </h2>

@@ -9,7 +9,7 @@ function shorten(text: string, max = 16): string {
 }
 
 // Symbol bodies in a local frame: axis along +x from −BODY to +BODY (IEC 60617 / IEEE 315 shapes).
-function SymbolBody({ element, reversed }: { element: Element; reversed: boolean }) {
+export function SymbolBody({ element, reversed }: { element: Element; reversed: boolean }) {
   const dir = reversed ? -1 : 1;
   switch (element.kind) {
     case "resistor":
@@ -46,7 +46,7 @@ function SymbolBody({ element, reversed }: { element: Element; reversed: boolean
   }
 }
 
-function hasPolarity(e: Element) {
+export function hasPolarity(e: Element) {
   return e.kind === "vsource" || e.kind === "vcvs" || e.kind === "ccvs";
 }
 

@@ -1,0 +1,20 @@
+// Portfold's own keys for the drawing, chosen from our words (Connect, Name, zero node, Terminals,
+// Quarter turn, eXchange sides); the help sheet lists exactly this table.
+export const SHORTCUTS: { keys: string; does: string }[] = [
+  { keys: "C", does: "Connect: draw wires (click point to point; Escape ends)" },
+  { keys: "N", does: "Name a node: click a point to put the node label there" },
+  { keys: "Z", does: "Zero node: put a ground symbol (node 0)" },
+  { keys: "T", does: "Terminals of the port: click the + terminal, then the − terminal" },
+  { keys: "Escape", does: "Back to selecting; drops a wire or port in progress" },
+  { keys: "Q / Shift+Q", does: "Quarter turn clockwise / back" },
+  { keys: "X", does: "Exchange sides (mirror)" },
+  { keys: "Delete or Backspace", does: "Remove what is selected" },
+  { keys: "Arrow keys", does: "Nudge the selection one grid step" },
+  { keys: "Ctrl+Z / Ctrl+Shift+Z or Ctrl+Y", does: "Undo / redo" },
+  { keys: "Ctrl+A", does: "Select everything" },
+  { keys: "= / -", does: "Zoom in / out (the wheel zooms at the pointer)" },
+  { keys: "Home", does: "Fit the drawing in view" },
+  { keys: "Alt+drag or middle drag", does: "Pan" },
+  { keys: "Shift+click or drag a box", does: "Select several" },
+  { keys: "?", does: "This sheet" },
+];

@@ -1,0 +1,88 @@
+// The drawing of a network and its stored form, the circuit's optional `layout` member.
+import { z } from "zod";
+import type { Element } from "@/lib/engine-netlist";
+import { localPins, place, type Point, type Turn } from "./geometry";
+
+export interface Part {
+  /** The element as the netlist has it; its node fields are recomputed from the wires. */
+  element: Element;
+  at: Point;
+  turn: Turn;
+  mirror: boolean;
+}
+
+export type Wire = readonly [Point, Point];
+
+/** A node label: names the node at its point (labels with one name join their nodes). */
+export interface NodeLabel {
+  node: string;
+  at: Point;
+}
+
+export interface Drawing {
+  parts: Part[];
+  wires: Wire[];
+  labels: NodeLabel[];
+  /** Ground symbols: each ties its point to the ground node. */
+  grounds: Point[];
+  /** The port's two terminals (copper open circles), or null before it is marked. */
+  port: { plus: Point; minus: Point } | null;
+}
+
+export const EMPTY_DRAWING: Drawing = { parts: [], wires: [], labels: [], grounds: [], port: null };
+
+export const LAYOUT_VERSION = 1;
+
+const point = z.tuple([z.number().int(), z.number().int()]);
+
+/** The stored layout: geometry only, parts keyed by element name; the elements stay in `elements`. */
+export const layoutSchema = z.object({
+  version: z.literal(LAYOUT_VERSION),
+  parts: z.array(z.object({ element: z.string(), at: point, turn: z.union([z.literal(0), z.literal(1), z.literal(2), z.literal(3)]), mirror: z.boolean() })),
+  wires: z.array(z.tuple([point, point])),
+  labels: z.array(z.object({ node: z.string().min(1), at: point })),
+  grounds: z.array(point),
+  port: z.object({ plus: point, minus: point }).nullable(),
+});
+export type Layout = z.infer<typeof layoutSchema>;
+
+export function toLayout(drawing: Drawing): Layout {
+  return {
+    version: LAYOUT_VERSION,
+    parts: drawing.parts.map((p) => ({ element: p.element.name, at: [p.at[0], p.at[1]], turn: p.turn, mirror: p.mirror })),
+    wires: drawing.wires.map(([a, b]) => [
+      [a[0], a[1]],
+      [b[0], b[1]],
+    ]),
+    labels: drawing.labels.map((l) => ({ node: l.node, at: [l.at[0], l.at[1]] })),
+    grounds: drawing.grounds.map((g) => [g[0], g[1]]),
+    port: drawing.port && { plus: [drawing.port.plus[0], drawing.port.plus[1]], minus: [drawing.port.minus[0], drawing.port.minus[1]] },
+  };
+}
+
+/** The stored layout read back against the elements; null when there is none or it is not ours. */
+export function readLayout(layout: unknown, elements: readonly Element[]): Drawing | null {
+  const parsed = layoutSchema.safeParse(layout);
+  if (!parsed.success) return null;
+  const byName = new Map(elements.map((e) => [e.name, e]));
+  const parts: Part[] = [];
+  for (const p of parsed.data.parts) {
+    const element = byName.get(p.element);
+    if (element) parts.push({ element, at: p.at, turn: p.turn, mirror: p.mirror });
+  }
+  return { parts, wires: parsed.data.wires, labels: parsed.data.labels, grounds: parsed.data.grounds, port: parsed.data.port };
+}
+
+export function partPins(part: Part): Point[] {
+  return localPins(part.element.kind).map((p) => place(p, part.at, part.turn, part.mirror));
+}
+
+/** The element's nodes in pin order. */
+export function elementNodes(e: Element): string[] {
+  return e.kind === "opamp" ? [e.inputs[0], e.inputs[1], e.output] : [e.nodes[0], e.nodes[1]];
+}
+
+export function withNodes(e: Element, nodes: readonly string[]): Element {
+  if (e.kind === "opamp") return { ...e, inputs: [nodes[0], nodes[1]], output: nodes[2] };
+  return { ...e, nodes: [nodes[0], nodes[1]] };
+}

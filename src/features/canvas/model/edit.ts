@@ -1,0 +1,133 @@
+// Editing the drawing: pure functions from one drawing to the next. Wires, labels, ground
+// symbols and port terminals that sit on a pin travel with it when the part moves or turns.
+import type { Element, ElementKind, EngineNetwork } from "@/lib/engine-netlist";
+import { partPins, type Drawing, type Part } from "./drawing";
+import { insideSegment, pointKey, samePoint, type Point, type Turn } from "./geometry";
+
+export interface Selection {
+  parts: string[];
+  wires: number[];
+  labels: number[];
+  grounds: number[];
+}
+
+export const NOTHING: Selection = { parts: [], wires: [], labels: [], grounds: [] };
+
+export const isEmpty = (s: Selection) => s.parts.length + s.wires.length + s.labels.length + s.grounds.length === 0;
+
+export function selectAll(d: Drawing): Selection {
+  return { parts: d.parts.map((p) => p.element.name), wires: d.wires.map((_, i) => i), labels: d.labels.map((_, i) => i), grounds: d.grounds.map((_, i) => i) };
+}
+
+// Every point that ends up somewhere else, old → new; the rest of the drawing follows the map.
+function follow(d: Drawing, moves: Map<string, Point>, parts: Part[], selected: Selection): Drawing {
+  const to = (p: Point, force: boolean, delta?: Point): Point => {
+    const m = moves.get(pointKey(p));
+    if (m) return m;
+    return force && delta ? [p[0] + delta[0], p[1] + delta[1]] : p;
+  };
+  const wires = new Set(selected.wires);
+  const labels = new Set(selected.labels);
+  const grounds = new Set(selected.grounds);
+  const delta = moves.get("delta");
+  return {
+    parts,
+    wires: d.wires.map(([a, b], i) => [to(a, wires.has(i), delta), to(b, wires.has(i), delta)] as const),
+    labels: d.labels.map((l, i) => ({ ...l, at: to(l.at, labels.has(i), delta) })),
+    grounds: d.grounds.map((g, i) => to(g, grounds.has(i), delta)),
+    port: d.port && { plus: to(d.port.plus, false), minus: to(d.port.minus, false) },
+  };
+}
+
+export function moveSelection(d: Drawing, s: Selection, delta: Point): Drawing {
+  if (delta[0] === 0 && delta[1] === 0) return d;
+  const chosen = new Set(s.parts);
+  const moves = new Map<string, Point>();
+  const shift = (p: Point): Point => [p[0] + delta[0], p[1] + delta[1]];
+  for (const part of d.parts) if (chosen.has(part.element.name)) for (const p of partPins(part)) moves.set(pointKey(p), shift(p));
+  for (const i of s.wires) for (const p of d.wires[i]) moves.set(pointKey(p), shift(p));
+  for (const i of s.labels) moves.set(pointKey(d.labels[i].at), shift(d.labels[i].at));
+  for (const i of s.grounds) moves.set(pointKey(d.grounds[i]), shift(d.grounds[i]));
+  moves.set("delta", delta);
+  const parts = d.parts.map((p) => (chosen.has(p.element.name) ? { ...p, at: shift(p.at) } : p));
+  return follow(d, moves, parts, s);
+}
+
+function reorient(d: Drawing, s: Selection, change: (p: Part) => Part): Drawing {
+  const chosen = new Set(s.parts);
+  const moves = new Map<string, Point>();
+  const parts = d.parts.map((p) => {
+    if (!chosen.has(p.element.name)) return p;
+    const next = change(p);
+    const before = partPins(p);
+    const after = partPins(next);
+    before.forEach((q, j) => moves.set(pointKey(q), after[j]));
+    return next;
+  });
+  return follow(d, moves, parts, NOTHING);
+}
+
+export const turnSelection = (d: Drawing, s: Selection, by: 1 | 3) => reorient(d, s, (p) => ({ ...p, turn: ((p.turn + by) % 4) as Turn }));
+export const mirrorSelection = (d: Drawing, s: Selection) => reorient(d, s, (p) => ({ ...p, mirror: !p.mirror }));
+
+export function deleteSelection(d: Drawing, s: Selection): Drawing {
+  const parts = new Set(s.parts);
+  const keep = <T,>(list: readonly T[], gone: number[]) => list.filter((_, i) => !gone.includes(i));
+  return { ...d, parts: d.parts.filter((p) => !parts.has(p.element.name)), wires: keep(d.wires, s.wires), labels: keep(d.labels, s.labels), grounds: keep(d.grounds, s.grounds) };
+}
+
+/** A wire from a to b drawn as one straight run or an L (across first, then down). */
+export function addWire(d: Drawing, a: Point, b: Point): Drawing {
+  if (samePoint(a, b)) return d;
+  const corner: Point = [b[0], a[1]];
+  const runs: [Point, Point][] = a[0] === b[0] || a[1] === b[1] ? [[a, b]] : [
+    [a, corner],
+    [corner, b],
+  ];
+  const fresh = runs.filter(([p, q]) => !d.wires.some(([u, v]) => (samePoint(u, p) && samePoint(v, q)) || (samePoint(u, q) && samePoint(v, p))));
+  return fresh.length ? { ...d, wires: [...d.wires, ...fresh] } : d;
+}
+
+export const addLabel = (d: Drawing, at: Point, node: string): Drawing => ({ ...d, labels: [...d.labels.filter((l) => !samePoint(l.at, at)), { node, at }] });
+export const addGround = (d: Drawing, at: Point): Drawing => (d.grounds.some((g) => samePoint(g, at)) ? d : { ...d, grounds: [...d.grounds, at] });
+export const setPort = (d: Drawing, plus: Point, minus: Point): Drawing => ({ ...d, port: { plus, minus } });
+
+export function replaceElement(d: Drawing, name: string, element: Element): Drawing {
+  return { ...d, parts: d.parts.map((p) => (p.element.name === name ? { ...p, element } : p)) };
+}
+
+/** Names are ours: the kind's word and a number, never a letter prefix. */
+export function freshName(d: Drawing, kind: ElementKind): string {
+  const names = new Set(d.parts.map((p) => p.element.name));
+  for (let k = 1; ; k += 1) if (!names.has(`${kind}${k}`)) return `${kind}${k}`;
+}
+
+const DEFAULT_VALUE: Record<Exclude<ElementKind, "opamp">, string> = {
+  resistor: "R",
+  conductance: "G",
+  capacitor: "C",
+  inductor: "L",
+  vsource: "V",
+  isource: "I",
+  vcvs: "mu",
+  vccs: "gm",
+  ccvs: "rm",
+  cccs: "beta",
+};
+
+/** A new element of a kind, as the palette places it; nodes are filled in by the wires. */
+export function newElement(kind: ElementKind, name: string, network: EngineNetwork, d: Drawing): Element {
+  const g = network.ground;
+  if (kind === "opamp") return { name, kind, inputs: [g, g], output: g };
+  const value = DEFAULT_VALUE[kind];
+  if (kind === "vcvs" || kind === "vccs") return { name, kind, nodes: [g, g], value, control: { nodes: [g, g] } };
+  if (kind === "ccvs" || kind === "cccs") return { name, kind, nodes: [g, g], value, control: { element: d.parts[0]?.element.name ?? name } };
+  return { name, kind, nodes: [g, g], value };
+}
+
+export function addPart(d: Drawing, element: Element, at: Point, turn: Turn, mirror = false): Drawing {
+  return { ...d, parts: [...d.parts, { element, at, turn, mirror }] };
+}
+
+/** Which wires run through a point (for picking). */
+export const wiresAt = (d: Drawing, p: Point) => d.wires.map((w, i) => [w, i] as const).filter(([[a, b]]) => samePoint(a, p) || samePoint(b, p) || insideSegment(p, a, b)).map(([, i]) => i);

@@ -1,0 +1,14 @@
+// The client's door into the engine's frequency and design-solve modules (pure, shared with the server).
+export {
+  dependsOnFrequency,
+  frequencyLimit,
+  frequencyResponse,
+  frequencySpan,
+  logFrequencies,
+  numericCoefficientsInS,
+  polesAndZeros,
+  type FrequencyLimitValue,
+  type PolesZeros,
+  type SRoot,
+} from "../../../../shared/engine/circuit/frequency";
+export { designSolve, type DesignSolveAnswer } from "../../../../shared/engine/circuit/design-solve";
