@@ -10,13 +10,15 @@ import { readFileSync } from "node:fs";
 import { QUANTITIES, solveNetwork, toSolveOutput, type Quantity, type ResultName, type SolveOptions } from "../shared/engine";
 
 const USAGE = `usage: npm run -s solve -- FILE [--limit SYMBOL=inf|0] [--set NAME=VALUE,...] [--float]
-       [--solve-for SYMBOL:RESULT=VALUE] [--quantity SYMBOL=QUANTITY] [--no-steps] [--compact]
+       [--solve-for SYMBOL:RESULT=VALUE] [--quantity SYMBOL=QUANTITY] [--assume "PRODUCT>>1"]
+       [--no-steps] [--compact]
   FILE       a network as JSON or as a Portfold netlist (.pfn)
   --limit    take every result to the limit SYMBOL -> inf or SYMBOL -> 0 (repeatable)
   --set      give symbols values, exact, SI prefixes allowed: --set R0=4.7k,mu=1e5
   --float    also print floating-point values for --set
   --solve-for  solve RESULT (vth, isc, rth) = VALUE for SYMBOL: --solve-for RL:rth=50
   --quantity declare a symbol's quantity (${QUANTITIES.join(", ")})
+  --assume   also give each result with its dominant terms only: --assume "gm*ro>>1" (repeatable)
   --no-steps leave the derivation steps out
   --compact  print the JSON on one line`;
 
@@ -24,7 +26,7 @@ class UsageError extends Error {}
 
 function parseArgs(argv: string[]): { file: string; options: SolveOptions; compact: boolean } {
   let file: string | null = null;
-  const options: SolveOptions = { limits: [], values: {}, solveFor: [], quantities: {} };
+  const options: SolveOptions = { limits: [], values: {}, solveFor: [], quantities: {}, assume: [] };
   let compact = false;
   const take = (i: number, flag: string): string => {
     const v = argv[i + 1];
@@ -66,6 +68,9 @@ function parseArgs(argv: string[]): { file: string; options: SolveOptions; compa
         options.quantities![m[1].trim()] = m[2] as Quantity;
         break;
       }
+      case "--assume":
+        options.assume!.push(value());
+        break;
       case "--float":
         options.float = true;
         break;

@@ -1,9 +1,24 @@
 // The one door from the server into the engine: reading circuits and netlists, solving.
-import { NETLIST_EXTENSION, parseNetwork, solveNetwork, type Diagnostic, type Network, type SolveOptions, type SolveResult } from "../../shared/engine/index.js";
+import { NETLIST_EXTENSION, parseNetwork as engineParse, solveNetwork, type Diagnostic, type Network, type ParseResult, type SolveOptions, type SolveResult } from "../../shared/engine/index.js";
 import { HttpError } from "../lib/errors.js";
 
-export { NETLIST_EXTENSION, parseNetwork, solveNetwork };
+export { NETLIST_EXTENSION, solveNetwork };
 export type { Diagnostic, Network, SolveOptions, SolveResult };
+
+/**
+ * The engine's reader, held to its contract: whatever the input, an answer with diagnostics. Should
+ * the reader itself fail on some input, that is reported as a diagnostic of the input (a 400), not
+ * as a server fault.
+ */
+export function parseNetwork(input: unknown): ParseResult {
+  try {
+    return engineParse(input);
+  } catch {
+    const format = typeof input === "string" && !input.trimStart().startsWith("{") ? "text" : "json";
+    const message = "Portfold could not read this network: its reader stopped at an unexpected construct. Check each line against the netlist form.";
+    return { network: null, format, diagnostics: [{ code: "parse-error", severity: "error", message, elements: [], nodes: [] }] };
+  }
+}
 
 // A stored circuit must have the engine's shape; whether it is solvable is the solve's business.
 export function readCircuit(input: Record<string, unknown>, field = "circuit"): Network {

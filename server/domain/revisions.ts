@@ -89,14 +89,35 @@ export async function currentVerdicts(db: Database, revisionIds: string[]): Prom
 
 export const openVerdict: VerdictView = { verdict: "open", by: null, at: null };
 
-export async function revisionView(db: Database, network: Pick<NetworkRow, "id" | "slug" | "title">, revision: RevisionRow) {
-  const steps = await db
-    .select()
-    .from(revisionSteps)
-    .where(eq(revisionSteps.revisionId, revision.id))
-    .orderBy(asc(revisionSteps.ordinal));
-  const [author] = revision.createdBy ? await db.select({ name: users.name }).from(users).where(eq(users.id, revision.createdBy)) : [];
-  const verdict = (await currentVerdicts(db, [revision.id])).get(revision.id) ?? openVerdict;
+// Steps and author of a revision never change, so each process keeps the last few hundred it read:
+// a shared revision under load costs the share check and the verdict, not the whole ledger again.
+const immutableParts = new Map<string, Promise<{ steps: (typeof revisionSteps.$inferSelect)[]; authorName: string | null }>>();
+const immutablePartsKept = 200;
+
+function stepsAndAuthor(db: Database, revision: RevisionRow) {
+  const known = immutableParts.get(revision.id);
+  if (known) {
+    // Map order is insertion order: re-inserting keeps the recently read at the end.
+    immutableParts.delete(revision.id);
+    immutableParts.set(revision.id, known);
+    return known;
+  }
+  const loading = Promise.all([
+    db.select().from(revisionSteps).where(eq(revisionSteps.revisionId, revision.id)).orderBy(asc(revisionSteps.ordinal)),
+    revision.createdBy ? db.select({ name: users.name }).from(users).where(eq(users.id, revision.createdBy)) : Promise.resolve([]),
+  ]).then(([steps, [author]]) => ({ steps, authorName: author?.name ?? null }));
+  immutableParts.set(revision.id, loading);
+  loading.catch(() => immutableParts.delete(revision.id));
+  while (immutableParts.size > immutablePartsKept) immutableParts.delete(immutableParts.keys().next().value!);
+  return loading;
+}
+
+// `knownVerdict`: the caller read the current verdict already (in the same query as its access check).
+export async function revisionView(db: Database, network: Pick<NetworkRow, "id" | "slug" | "title">, revision: RevisionRow, knownVerdict?: VerdictView) {
+  const [{ steps, authorName }, verdict] = await Promise.all([
+    stepsAndAuthor(db, revision),
+    knownVerdict ?? currentVerdicts(db, [revision.id]).then((verdicts) => verdicts.get(revision.id) ?? openVerdict),
+  ]);
   return {
     id: revision.id,
     networkId: network.id,
@@ -116,7 +137,7 @@ export async function revisionView(db: Database, network: Pick<NetworkRow, "id" 
       data: step.data,
     })),
     verdict,
-    createdBy: revision.createdBy && author ? { id: revision.createdBy, name: author.name } : null,
+    createdBy: revision.createdBy && authorName !== null ? { id: revision.createdBy, name: authorName } : null,
     createdAt: revision.createdAt.toISOString(),
   };
 }

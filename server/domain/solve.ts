@@ -24,8 +24,12 @@ const solverBusy = () =>
     headers: { "Retry-After": "5" },
   });
 
+const engineFailed = () =>
+  new HttpError(422, "engine_failed", "Portfold's engine could not solve this network: it failed on something in it. The failure is in the server's log; try changing the network.");
+
 export function derivationOf(outcome: SolveOutcome): Derivation {
   if (outcome.kind === "ill_posed") throw illPosed(outcome.diagnostics);
+  if (outcome.kind === "engine_failed") throw engineFailed();
   if (outcome.kind === "capped") throw capExceeded(outcome.breach);
   return outcome.derivation;
 }
@@ -53,6 +57,7 @@ export async function solve(services: Services, networkId: string, userId: strin
     const outcome = await solver.solve(circuit, options, key, { onStart: () => recorder.started() }).catch((error: unknown) => {
       throw error instanceof SolverBusyError ? solverBusy() : error;
     });
+    if (outcome.kind === "engine_failed") services.log.error({ networkId: network.id, engineError: outcome.message }, "the engine failed on a network");
     const derivation = derivationOf(outcome);
     await storeDerivation(db, key, derivation);
     return derivation;

@@ -22,10 +22,17 @@ export interface Derivation {
 export type SolveOutcome =
   | { kind: "solved"; derivation: Derivation }
   | { kind: "ill_posed"; diagnostics: Diagnostic[] }
-  | { kind: "capped"; breach: CapBreach };
+  | { kind: "capped"; breach: CapBreach }
+  // The engine threw instead of answering: its bug, reported to the client as unsolvable and logged.
+  | { kind: "engine_failed"; message: string };
 
 export function deriveOutcome(circuit: Network, options: SolveOptions, maxResultTerms: number): SolveOutcome {
-  const outcome = solveNetwork(circuit, options);
+  let outcome: ReturnType<typeof solveNetwork>;
+  try {
+    outcome = solveNetwork(circuit, options);
+  } catch (error) {
+    return { kind: "engine_failed", message: error instanceof Error ? `${error.name}: ${error.message}` : String(error) };
+  }
   if (!outcome.ok || !outcome.network) return { kind: "ill_posed", diagnostics: outcome.diagnostics };
   const { steps, diagnostics, network: solved, ...results } = outcome;
   const tooLarge = resultBreach(results, maxResultTerms);

@@ -77,6 +77,18 @@ const TRIGGERS: Record<keyof typeof DIAGNOSTIC_CODES, Trigger> = {
     expect: { elements: ["R1", "E1"] },
   },
   "dimension-mismatch": { input: "port a 0\nquantity V current\nVs vsource a 0 = V\n", ok: true },
+  "cell-unknown": {
+    input: "port c 0\nRL resistor c 0 = RL\nQ1 cell bjt-hybrid c=c b=0 e=0\n",
+    expect: { elements: ["Q1"], line: 3, path: ["cells", 0, "cell"] },
+  },
+  "cell-terminals": {
+    input: "port c 0\nRL resistor c 0 = RL\nQ1 cell bjt-hybrid-pi c=c b=0\n",
+    expect: { elements: ["Q1"], line: 3, path: ["cells", 0, "terminals"] },
+  },
+  "cell-symbols": {
+    input: "port c 0\nRL resistor c 0 = RL\nQ1 cell bjt-hybrid-pi c=c b=0 e=0 rename beta:beta1\n",
+    expect: { elements: ["Q1"], line: 3, path: ["cells", 0, "symbols"] },
+  },
 };
 
 describe("diagnostics", () => {

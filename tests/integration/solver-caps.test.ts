@@ -8,7 +8,10 @@ import { signedInPerson, type Person } from "../support/fixtures.js";
 import { completeMesh, resistorChain, sensorSource, type CircuitJson } from "../support/networks.js";
 import { startTestServer, type TestServer } from "../support/server.js";
 
-const caps = { timeLimitMs: 1_500, maxElements: 16, maxSymbols: 16, maxResultTerms: 2, queueMax: 1 };
+// A ten-node mesh (45 legs and its source) fits the size caps; its exact Rth has millions of terms
+// (Cayley's formula: 10^8 spanning trees of the complete graph), far beyond any time cap.
+const meshNodes = 10;
+const caps = { timeLimitMs: 1_500, maxElements: 46, maxSymbols: 46, maxResultTerms: 2, queueMax: 1 };
 
 describe("solver caps", () => {
   let server: TestServer;
@@ -31,18 +34,18 @@ describe("solver caps", () => {
   const storedRevisions = async (networkId: string) => server.db.select().from(revisions).where(eq(revisions.networkId, networkId));
 
   it("refuses a network over the element or symbol cap with a 422 naming the cap, before any thread runs", async () => {
-    // 17 elements: the source and 16 links.
-    const wide = await newNetwork("Long divider chain", resistorChain(16, (i) => `Rlink${i}`));
-    // 10 elements with 2 symbols each but the source's: 1 + 9·2 = 19 symbols.
-    const symbolic = await newNetwork("Trimmed chain", resistorChain(9, (i) => `Rfix${i} + Rtrim${i}`));
+    // 47 elements: the source and 46 links.
+    const wide = await newNetwork("Long divider chain", resistorChain(46, (i) => `Rlink${i}`));
+    // 24 elements, two symbols in each link: 1 + 23·2 = 47 symbols.
+    const symbolic = await newNetwork("Trimmed chain", resistorChain(23, (i) => `Rfix${i} + Rtrim${i}`));
     const before = server.solver.stats().started;
     const tooWide = await editor.client.post(`/api/networks/${wide}/solve`);
     expect(tooWide.status).toBe(422);
-    expect(tooWide.body.error).toMatchObject({ code: "solve_cap_exceeded", cap: { cap: "elements", limit: 16, actual: 17, setting: "SOLVE_MAX_ELEMENTS" } });
+    expect(tooWide.body.error).toMatchObject({ code: "solve_cap_exceeded", cap: { cap: "elements", limit: 46, actual: 47, setting: "SOLVE_MAX_ELEMENTS" } });
     expect(tooWide.body.error.message).toContain("SOLVE_MAX_ELEMENTS");
     const tooSymbolic = await editor.client.post(`/api/networks/${symbolic}/solve`);
     expect(tooSymbolic.status).toBe(422);
-    expect(tooSymbolic.body.error).toMatchObject({ code: "solve_cap_exceeded", cap: { cap: "symbols", limit: 16, actual: 19, setting: "SOLVE_MAX_SYMBOLS" } });
+    expect(tooSymbolic.body.error).toMatchObject({ code: "solve_cap_exceeded", cap: { cap: "symbols", limit: 46, actual: 47, setting: "SOLVE_MAX_SYMBOLS" } });
     expect(server.solver.stats().started).toBe(before);
     expect([...(await storedRevisions(wide)), ...(await storedRevisions(symbolic))]).toEqual([]);
   });
@@ -66,7 +69,7 @@ describe("solver caps", () => {
   });
 
   it("stops a solve at the time cap by terminating its thread, answers health meanwhile, and solves on a fresh thread after", async () => {
-    const mesh = await newNetwork("Six-node mesh", completeMesh(6));
+    const mesh = await newNetwork("Ten-node mesh", completeMesh(meshNodes));
     const terminatedBefore = server.solver.stats().terminated;
     let solveAnswered = false;
     const solving = editor.client.post(`/api/networks/${mesh}/solve`).finally(() => {
@@ -96,8 +99,8 @@ describe("solver caps", () => {
   });
 
   it("hands out jobs that go queued → solving → failed or done, and answers 503 when the queue is full", async () => {
-    const first = await newNetwork("Mesh, first", completeMesh(6, "ga"));
-    const second = await newNetwork("Mesh, second", completeMesh(6, "gb"));
+    const first = await newNetwork("Mesh, first", completeMesh(meshNodes, "ga"));
+    const second = await newNetwork("Mesh, second", completeMesh(meshNodes, "gb"));
     const third = await newNetwork("Mesh, third", completeMesh(4, "gc"));
     const a = await editor.client.post(`/api/networks/${first}/solve?wait=0`);
     const b = await editor.client.post(`/api/networks/${second}/solve?wait=0`);
@@ -139,6 +142,25 @@ describe("solver caps", () => {
     const rows = await server.db.select().from(solveJobs).where(inArray(solveJobs.networkId, [first, second, third, sensor]));
     // The refused third solve left no job behind.
     expect(rows.map((row) => row.status).sort()).toEqual(["done", "failed", "failed"]);
+  });
+
+  it("stops a solve at the memory cap the same way: its thread is terminated and a fresh one serves", async () => {
+    const small = await startTestServer({ solve: { memoryMb: 32, timeLimitMs: 60_000, maxElements: 46, maxSymbols: 46 } });
+    try {
+      const person = await signedInPerson(small, "memory");
+      const team = (await person.client.post("/api/teams", { name: "Memory lab" })).body.id;
+      const create = async (title: string, circuit: CircuitJson) => (await person.client.post(`/api/teams/${team}/networks`, { title, circuit })).body.id as string;
+      const capped = await person.client.post(`/api/networks/${await create("Ten-node mesh, small heap", completeMesh(meshNodes, "gm"))}/solve`);
+      expect(capped.status).toBe(422);
+      expect(capped.body.error).toMatchObject({ code: "solve_cap_exceeded", cap: { cap: "memory", limit: 32, setting: "SOLVE_MEMORY_MB" } });
+      expect(small.solver.stats().terminated).toBe(1);
+      const after = await person.client.post(`/api/networks/${await create("Sensor after the heap ran out", { ...sensorSource, port: { plus: "emf", minus: "0" } })}/solve`);
+      expect(after.status).toBe(201);
+      // Read across the ideal source itself: Vth = Vs (common practice).
+      expect(evaluateInfix(after.body.results.vth.infix, { Vs: 3.3, Rs: 10 })).toBeCloseTo(3.3, 12);
+    } finally {
+      await small.close();
+    }
   });
 
   it("shows a job only to members of the network's team", async () => {

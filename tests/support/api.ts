@@ -38,6 +38,19 @@ export class ApiClient {
     return { status: response.status, body: parsed as T, headers: response.headers };
   }
 
+  // A body sent exactly as given (broken JSON, NUL bytes), with this client's cookie and origin.
+  async raw<T = any>(method: string, path: string, text: string, contentType = "application/json"): Promise<ApiResponse<T>> {
+    const response = await fetch(`${this.baseUrl}${path}`, {
+      method,
+      headers: { ...(this.origin ? { Origin: this.origin } : {}), ...(this.cookie ? { Cookie: this.cookie } : {}), "Content-Type": contentType },
+      body: text,
+      redirect: "manual",
+    });
+    const body = await response.text();
+    const json = (response.headers.get("content-type") ?? "").includes("application/json") && body;
+    return { status: response.status, body: (json ? JSON.parse(body) : body) as T, headers: response.headers };
+  }
+
   get<T = any>(path: string) {
     return this.request<T>("GET", path);
   }

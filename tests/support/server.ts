@@ -63,6 +63,8 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
   };
   const mailer = createSmtpMailer({ host: capture.host, port: capture.port }, "Portfold tests <tests@portfold.local>");
   const solver = createSolver(settings.solve!);
+  // As server/index.ts does: the thread loads the engine now, not during the first solve.
+  solver.warm();
   server.on("request", createApp({ pool, db, mailer, settings, solver, clientDir: options.clientDir, logger: options.logger }));
   return {
     url,

@@ -14,9 +14,9 @@ const LIMIT_LABEL = { dc: "DC (s → 0)", hf: "high frequency (s → ∞)" } as 
 
 function rootText(r: SRoot): string {
   if (r.re === 0 && r.im === 0) return "s = 0";
-  const re = r.re === 0 ? "" : `${formatSI(r.re)}`;
-  const im = r.im === 0 ? "" : `${r.im < 0 ? " − " : re ? " + " : ""}j${formatSI(Math.abs(r.im))}`;
-  return `s = ${re}${im} rad/s (${formatSI(r.hz, "Hz")})`;
+  const re = r.re === 0 ? "" : formatSI(r.re, "rad/s");
+  const im = r.im === 0 ? "" : `${r.im < 0 ? " − " : re ? " + " : ""}j${formatSI(Math.abs(r.im), "rad/s")}`;
+  return `s = ${re}${im} (${formatSI(r.hz, "Hz")})`;
 }
 
 function RootList({ label, roots }: { label: string; roots: SRoot[] }) {

@@ -1,0 +1,107 @@
+// The Frequency panel and design solve in chromium: a sensor's RC output network gets its Bode
+// plot of |Zth| and phase with the DC and high-frequency limits, its pole and zero, and a design
+// solve for the shunt resistor, including a target no value meets.
+import { mkdirSync } from "node:fs";
+import type { Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { ApiClient } from "../support/api.js";
+import { launchBrowser, screenshotDir, type TestBrowser } from "../support/browser.js";
+import { startTestServer, type TestServer } from "../support/server.js";
+import { watchPage } from "./page-watch.js";
+
+// Zth = Rs + R/(1 + sRC): DC limit Rs + R, high-frequency limit Rs (common practice),
+// pole at s = −1/(RC), zero at s = −(Rs + R)/(Rs·R·C).
+const SENSOR_RC = `# sensor output: series resistor, then a shunt RC
+ground 0
+port out 0
+Rser resistor out n = Rs
+Rsh resistor n 0 = R
+Csh capacitor n 0 = C
+`;
+
+const run = Date.now().toString(36);
+const user = { name: "Fran Freq", email: `fran-${run}@example.com`, password: "first password 1" };
+
+async function shot(page: Page, name: string) {
+  await page.screenshot({ path: `${screenshotDir}/${name}.png`, fullPage: true });
+}
+
+describe("frequency panel and design solve in chromium", () => {
+  let server: TestServer;
+  let browser: TestBrowser;
+  let page: Page;
+  const pageErrors: string[] = [];
+
+  beforeAll(async () => {
+    mkdirSync(screenshotDir, { recursive: true });
+    server = await startTestServer();
+    const api = new ApiClient(server.url);
+    expect((await api.post("/api/auth/signup", user)).status).toBe(201);
+    browser = await launchBrowser();
+    page = await browser.context.newPage();
+    watchPage(page, pageErrors);
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await server?.close();
+  });
+
+  it("solves the RC network and draws the Bode plot with its limits, pole and zero", async () => {
+    await page.goto(`${server.url}/sign-in`);
+    await page.getByLabel("E-mail").fill(user.email);
+    await page.getByLabel("Password").fill(user.password);
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL(/\/teams\//);
+    await page.getByRole("button", { name: "Import from file" }).click();
+    await page.getByLabel("File", { exact: true }).setInputFiles({ name: "sensor-rc.pfn", mimeType: "text/plain", buffer: Buffer.from(SENSOR_RC) });
+    await page.getByLabel(/^Title/).fill("Sensor RC");
+    await page.getByRole("button", { name: "Import", exact: true }).click();
+    await page.waitForURL(/\/networks\/[0-9a-f-]{36}$/);
+    await page.getByRole("button", { name: "Solve" }).click();
+    await page.waitForURL(/\/r\/1$/, { timeout: 30_000 });
+
+    const frequency = page.getByRole("region", { name: "Frequency" });
+    await frequency.waitFor();
+    const limits = frequency.locator('dl[aria-label="Frequency limits of Zth"]');
+    await expect(limits.textContent()).resolves.toContain("DC (s → 0)");
+    await expect(frequency.getByRole("status").textContent()).resolves.toMatch(/Give C, R, Rs a value/);
+
+    const values = page.getByRole("region", { name: "Values" });
+    await values.getByLabel("Rs", { exact: true }).fill("100");
+    await values.getByLabel("R", { exact: true }).fill("1k");
+    await values.getByLabel("C", { exact: true }).fill("1u");
+    const figure = frequency.getByRole("figure", { name: "Bode plot of Zth" });
+    await figure.locator("canvas").nth(1).waitFor();
+    expect(await figure.locator("canvas").count()).toBe(2);
+    // Limits marked: 1.1 kΩ at DC and 100 Ω at high frequency.
+    await expect(figure.textContent()).resolves.toContain("DC limit (1.1 kΩ)");
+    await expect(figure.textContent()).resolves.toContain("high-frequency limit (100 Ω)");
+    // Pole −1/(RC) = −1000 rad/s (159.2 Hz); zero −(Rs + R)/(Rs R C) = −11000 rad/s (1.751 kHz).
+    const poles = await frequency.getByRole("list", { name: "Poles" }).textContent();
+    const zeros = await frequency.getByRole("list", { name: "Zeros" }).textContent();
+    expect(poles).toBe("s = -1 krad/s (159.2 Hz)");
+    expect(zeros).toBe("s = -11 krad/s (1.751 kHz)");
+    await frequency.scrollIntoViewIfNeeded();
+    await shot(page, "frequency-bode-rc");
+  });
+
+  it("solves for R at DC, and states when no value meets the target", async () => {
+    const values = page.getByRole("region", { name: "Values" });
+    // s = 0 reads the network at DC, where Rth = Rs + R.
+    await values.getByLabel("s", { exact: true }).fill("0");
+    const form = page.getByRole("form", { name: "Design solve" });
+    await form.getByLabel("Result").selectOption("rth");
+    await form.getByLabel("Solve for").selectOption("R");
+    await form.getByLabel("Target").fill("1.5k");
+    await form.getByRole("button", { name: "Solve for R" }).click();
+    await expect.poll(() => page.getByTestId("design-solve-number").textContent()).toBe("1.4 kΩ");
+    await shot(page, "design-solve-value");
+    // Below Rs no positive R helps.
+    await form.getByLabel("Target").fill("50 Ω");
+    await form.getByRole("button", { name: "Solve for R" }).click();
+    const answer = form.getByRole("status", { name: "Design solve answer" });
+    await expect.poll(() => answer.textContent()).toMatch(/^No value meets it: no positive resistance meets it: the equation gives R = -50\.00/);
+    await shot(page, "design-solve-none");
+    expect(pageErrors).toEqual([]);
+  });
+});

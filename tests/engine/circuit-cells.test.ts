@@ -1,0 +1,169 @@
+// Device cells: instances expand into elements with their own (renamable) symbols. Checked against
+// named small-signal results; each names its source and "from memory" where the formula was recalled.
+
+import { describe, expect, it } from "vitest";
+import { parseValue } from "../../shared/engine/algebra";
+import { parseNetwork, printNetlistText, solveNetwork, toSolveOutput, type SolveResult } from "../../shared/engine";
+
+function solve(input: string | object, options: Parameters<typeof solveNetwork>[1] = {}): SolveResult {
+  const r = solveNetwork(input as string, { steps: false, sensitivities: false, ...options });
+  expect(r.diagnostics.filter((d) => d.severity === "error")).toEqual([]);
+  return r;
+}
+
+function expectSame(actual: string | undefined | null, expected: string): void {
+  expect(actual, `expected ${expected}`).toBeTypeOf("string");
+  expect(parseValue(actual!).sub(parseValue(expected)).isZero(), `${actual} vs ${expected}`).toBe(true);
+}
+
+describe("bipolar stages (hybrid-π cell)", () => {
+  it("common emitter: Rout = RC ∥ ro looking into the collector", () => {
+    // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 7 (CE amplifier, Ro = RC ∥ ro); from memory.
+    const r = solve(`
+      port c 0
+      Sig vsource in 0 = Vs
+      Rsig resistor in b = Rs
+      Load resistor c 0 = RC
+      Q1 cell bjt-hybrid-pi b=b c=c e=0`);
+    expectSame(r.rth?.infix, "RC*ro/(RC + ro)");
+    // Gain into an open port: Vth = −gm (RC ∥ ro) · Vs·r_pi/(Rs + r_pi) (same source).
+    expectSame(r.vth?.infix, "-gm*(RC*ro/(RC + ro))*Vs*r_pi/(Rs + r_pi)");
+  });
+
+  it("common base: Rout = ro + (1 + gm·ro)(Re ∥ r_pi) looking into the collector", () => {
+    // Sedra & Smith, 7th ed., ch. 7 (CB amplifier output resistance, also the degenerated CE); from memory.
+    const r = solve(`
+      port c 0
+      Sig vsource in 0 = Vs
+      Rsig resistor in e = Re
+      Q1 cell bjt-hybrid-pi b=0 c=c e=e`);
+    expectSame(r.rth?.infix, "ro + (1 + gm*ro)*(Re*r_pi/(Re + r_pi))");
+  });
+
+  it("common collector (emitter follower): Rout = RE ∥ ro ∥ (r_pi + Rs)/(1 + β), β = gm·r_pi", () => {
+    // Sedra & Smith, 7th ed., ch. 7 (emitter follower output resistance); from memory.
+    const r = solve(`
+      port e 0
+      Sig vsource in 0 = Vs
+      Rsig resistor in b = Rs
+      Rbias resistor e 0 = RE
+      Q1 cell bjt-hybrid-pi b=b c=0 e=e`);
+    expectSame(r.rth?.infix, "1/(1/RE + 1/ro + (1 + gm*r_pi)/(r_pi + Rs))");
+  });
+});
+
+describe("MOSFET stages", () => {
+  const CASCODE = `
+    # the output branch of a sensor amplifier: M1 common source, M2 cascode on top
+    port out 0
+    M1 cell mosfet g=0 d=x s=0 b=0 rename gm:gm1 gmb:gmb1 ro:ro1
+    M2 cell mosfet g=0 d=out s=x b=0 rename gm:gm2 gmb:gmb2 ro:ro2`;
+
+  it("cascode: Rout = ro1 + ro2 + (gm2 + gmb2)·ro1·ro2", () => {
+    // Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3 (cascode stage); from memory.
+    const r = solve(CASCODE);
+    expectSame(r.rth?.infix, "ro1 + ro2 + (gm2 + gmb2)*ro1*ro2");
+    expect(r.rth?.symbols).toEqual(["gm2", "gmb2", "ro1", "ro2"]);
+  });
+
+  it("source follower with body effect: Rout = 1/(gm + gmb) ∥ ro", () => {
+    // Razavi, 2nd ed., ch. 3 (source follower output resistance with body effect); from memory.
+    const r = solve(`
+      port out 0
+      Bias isource out 0 = Ib
+      M1 cell mosfet g=0 d=0 s=out b=0`);
+    expectSame(r.rth?.infix, "1/(gm + gmb + 1/ro)");
+  });
+
+  it("source-degenerated common source: Rout = ro + Rs + (gm + gmb)·ro·Rs", () => {
+    // Razavi, 2nd ed., ch. 3 (CS stage with source degeneration, output resistance); from memory.
+    const r = solve(`
+      port out 0
+      Degen resistor src 0 = Rs
+      M1 cell mosfet g=0 d=out s=src b=0`);
+    expectSame(r.rth?.infix, "ro + Rs + (gm + gmb)*ro*Rs");
+  });
+
+  it("optional Cgs and Cgd: a common-source stage's input admittance s(Cgs + Cgd(1 + gm·RD))", () => {
+    // Miller effect with an ideal gate drive at the port, RD load, ro left out (ro -> inf):
+    // Sedra & Smith, 7th ed., ch. 10 (Miller's theorem, Cin = Cgs + Cgd(1 + gm RD)); from memory.
+    const r = solve(`
+      port g 0
+      Load resistor d 0 = RD
+      M1 cell mosfet g=g d=d s=0 b=0 include Cgs Cgd`);
+    expect(r.frequency).toBeDefined();
+    const exact = parseValue(r.rth!.infix).limit("ro", "inf");
+    expect(exact.kind).toBe("finite");
+    if (exact.kind !== "finite") return;
+    // The exact input admittance is s·Cgs + s·Cgd(1 + gm·RD)/(1 + s·Cgd·RD); at low frequency the Miller form.
+    const y = exact.value.inverse();
+    expectSame(y.toInfix(), "s*Cgs + s*Cgd*(1 + gm*RD)/(1 + s*Cgd*RD)");
+    const miller = y.div(parseValue("s")).limit("s", "zero");
+    expect(miller.kind).toBe("finite");
+    if (miller.kind === "finite") expectSame(miller.value.toInfix(), "Cgs + Cgd*(1 + gm*RD)");
+  });
+});
+
+describe("finite-gain amplifier cell", () => {
+  it("voltage follower: Rout → Ro/(1 + A) as Rin → ∞", () => {
+    // Sedra & Smith, 7th ed., ch. 2 (follower with finite gain and output resistance); from memory.
+    const r = solve(`
+      port out 0
+      Sig vsource in 0 = Vs
+      U1 cell amplifier p=in n=out o=out`);
+    const lim = parseValue(r.rth!.infix).limit("Rin", "inf");
+    expect(lim.kind).toBe("finite");
+    if (lim.kind === "finite") expectSame(lim.value.toInfix(), "Ro/(1 + A)");
+    // With an ideal source at p, Rin is in parallel with nothing that matters: Vth = A·Vs/(1 + A) exactly, as Rin → ∞.
+    const v = parseValue(r.vth!.infix).limit("Rin", "inf");
+    if (v.kind === "finite") expectSame(v.value.toInfix(), "A*Vs/(1 + A)");
+  });
+});
+
+describe("cell instances: formats and diagnostics", () => {
+  const JSON_CASCODE = {
+    port: { plus: "out", minus: "0" },
+    elements: [],
+    cells: [
+      { name: "M1", cell: "mosfet", terminals: { g: "0", d: "x", s: "0", b: "0" }, symbols: { gm: "gm1", gmb: "gmb1", ro: "ro1" } },
+      { name: "M2", cell: "mosfet", terminals: { g: "0", d: "out", s: "x", b: "x" }, symbols: { gm: "gm2", gmb: "gmb2", ro: "ro2" } },
+    ],
+  };
+
+  it("JSON and text give the same network and the text round-trips", () => {
+    const parsed = parseNetwork(JSON_CASCODE);
+    expect(parsed.diagnostics).toEqual([]);
+    const text = printNetlistText(parsed.network!);
+    expect(text).toContain("M2 cell mosfet g=0 d=out s=x b=x rename gm:gm2 gmb:gmb2 ro:ro2");
+    const back = parseNetwork(text);
+    expect(back.network!.cells).toEqual(JSON_CASCODE.cells);
+    // Body tied to source: no body effect, Rout = ro1 + ro2 + gm2·ro1·ro2 (Razavi, 2nd ed., ch. 3; from memory).
+    expectSame(solve(JSON_CASCODE).rth?.infix, "ro1 + ro2 + gm2*ro1*ro2");
+    expect(solve(text).rth?.infix).toBe(solve(JSON_CASCODE).rth?.infix);
+  });
+
+  it("the result keeps the instance; the ledger shows the expanded elements", () => {
+    const r = solveNetwork(JSON_CASCODE, { sensitivities: false });
+    expect(r.network?.cells?.map((c) => c.name)).toEqual(["M1", "M2"]);
+    const network = r.steps.find((s) => s.id === "vth.kcl.x");
+    expect(JSON.stringify(network?.data)).toContain("M2_ro");
+    expect(toSolveOutput(r).rth).toBe(r.rth?.infix);
+  });
+
+  it("a renamed symbol may be an expression (a matched pair at twice the current)", () => {
+    const r = solve("port c 0\nQ1 cell bjt-hybrid-pi b=0 c=c e=0 rename ro:ro/2\n");
+    expectSame(r.rth?.infix, "ro/2");
+  });
+
+  it("a diagnostic from inside a cell names the instance and its line", () => {
+    // Without Cgs and Cgd nothing touches the gate node: the control across (g, src) names a node no element touches.
+    const r = solveNetwork("port d 0\nLoad resistor d 0 = RD\nM1 cell mosfet g=g d=d s=src b=0\n", { steps: false });
+    const d = r.diagnostics.find((x) => x.code === "control-unknown-node");
+    expect(d, JSON.stringify(r.diagnostics)).toBeDefined();
+    expect(d!.elements[0]).toBe("M1");
+    expect(d!.line).toBe(3);
+    expect(d!.message).toContain('inside cell "M1"');
+    const json = solveNetwork({ port: { plus: "d", minus: "0" }, elements: [{ name: "Load", kind: "resistor", nodes: ["d", "0"], value: "RD" }], cells: [{ name: "M1", cell: "mosfet", terminals: { g: "g", d: "d", s: "src", b: "0" } }] });
+    expect(json.diagnostics.find((x) => x.code === "control-unknown-node")?.path).toEqual(["cells", 0]);
+  });
+});
