@@ -46,7 +46,7 @@ async function setPart(page: Page, name: string, fields: Record<string, string>)
 
 // A TeX result as KaTeX keeps it, read as plain infix (fractions, Greek letters, subscripts).
 function texToInfix(tex: string): string {
-  let s = tex.replace(/\\mathit\{([^}]*)\}/g, "$1").replace(/\\mu/g, "mu").replace(/_\{([^}]*)\}/g, "$1").replace(/\\cdot/g, "*").replace(/\\left|\\right/g, "");
+  let s = tex.replace(/\\mathit\{([^}]*)\}/g, "$1").replace(/\\mu/g, "mu").replace(/_\{([^}]*)\}/g, "$1").replace(/\\cdot/g, "*").replace(/\\,/g, " ").replace(/\\left|\\right/g, "");
   for (let i = 0; i < 5; i += 1) s = s.replace(/\\frac\{([^{}]*)\}\{([^{}]*)\}/g, "($1)/($2)");
   return s.replace(/\s+/g, " ").replace(/(\w)\s+(\w)/g, "$1*$2");
 }

@@ -134,7 +134,7 @@ describe("Poly: structure and printing", () => {
   });
 
   it("TeX: Greek names and subscripts", () => {
-    expect(R0.mul(mu).add(R0).toTex()).toBe("R_{0} \\mu + R_{0}");
+    expect(R0.mul(mu).add(R0).toTex()).toBe("R_{0}\\,\\mu + R_{0}");
     expect(Poly.variable("beta_1").toTex()).toBe("\\beta_{1}");
     expect(Poly.variable("r_pi").pow(2).toTex()).toBe("r_{\\pi}^{2}");
   });

@@ -229,7 +229,7 @@ describe("printing", () => {
     expect(F("2*R0*mu + 2*R0").compactInfix()).toBe("2*R0*(mu + 1)");
     expect(F("mu + 1").compactInfix()).toBe("mu + 1");
     expect(F("-(mu + 1)").compactInfix()).toBe("-(mu + 1)");
-    expect(F("R0*(1 + mu)/mu^2").toTex()).toBe("\\frac{R_{0} \\mu + R_{0}}{\\mu^{2}}");
-    expect(F("R0*(1 + mu)/mu^2").compactTex()).toBe("\\frac{R_{0} \\left(\\mu + 1\\right)}{\\mu^{2}}");
+    expect(F("R0*(1 + mu)/mu^2").toTex()).toBe("\\frac{R_{0}\\,\\mu + R_{0}}{\\mu^{2}}");
+    expect(F("R0*(1 + mu)/mu^2").compactTex()).toBe("\\frac{R_{0}\\,\\left(\\mu + 1\\right)}{\\mu^{2}}");
   });
 });

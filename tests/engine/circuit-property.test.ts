@@ -170,5 +170,5 @@ describe("exact results against a floating-point tableau solve", () => {
       { numRuns: 150, seed: 20240611 },
     );
     expect(compared).toBeGreaterThan(200);
-  });
+  }, 60_000); // a bounded run count, not a speed target: generous so a loaded CI machine does not fail it
 });

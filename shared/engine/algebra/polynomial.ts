@@ -558,9 +558,9 @@ export class Poly {
     return (this.infixCache ??= this.print(this.vars, "*", (name, k) => `${name}^${k}`, (n, d) => `${n}/${d}`, false));
   }
 
-  /** TeX, e.g. "R_{0} \\mu + R_{0}". */
+  /** TeX, e.g. "R_{0}\\,\\mu + R_{0}"; a thin space keeps multi-letter symbols apart (Rs\\,s, not Rss). */
   toTex(): string {
-    return (this.texCache ??= this.print(this.vars.map(texName), " ", (name, k) => `${name}^{${k}}`, (n, d) => `\\frac{${n}}{${d}}`, true));
+    return (this.texCache ??= this.print(this.vars.map(texName), "\\,", (name, k) => `${name}^{${k}}`, (n, d) => `\\frac{${n}}{${d}}`, true));
   }
 
   /**
@@ -606,7 +606,7 @@ export class Poly {
         continue;
       }
       if (tex && den !== 1n) {
-        pieces.push(fraction(absNum.toString(), den.toString()), " ");
+        pieces.push(fraction(absNum.toString(), den.toString()), "\\,");
       } else if (absNum !== 1n) {
         pieces.push(absNum.toString(), times);
       }

@@ -275,7 +275,7 @@ export class RationalFunction {
 
   compactTex(): string {
     const { sign, top, bottom } = this.compactParts();
-    const tex = (fs: CompactFactor[]) => (fs.length === 0 ? "1" : fs.map((f) => f.tex).join(" "));
+    const tex = (fs: CompactFactor[]) => (fs.length === 0 ? "1" : fs.map((f) => f.tex).join("\\,"));
     const signStr = sign < 0 ? "-" : "";
     if (bottom.length === 0) return signStr + (top.length === 1 && top[0].exponent === 1 ? top[0].bareTex : tex(top));
     return `${signStr}\\frac{${tex(top)}}{${tex(bottom)}}`;
