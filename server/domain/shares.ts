@@ -97,7 +97,8 @@ function verdictView(latest: { verdict: Verdict; userId: string | null; userName
 
 async function liveShare(db: Database, token: string) {
   const [row] = await db
-    .select({ share: shareLinks, revision: revisions, network: networks, verdict: latestVerdict })
+    // The network's own circuit is not needed here: the revision carries its snapshot.
+    .select({ share: shareLinks, revision: revisions, network: { id: networks.id, slug: networks.slug, title: networks.title, description: networks.description }, verdict: latestVerdict })
     .from(shareLinks)
     .innerJoin(revisions, eq(revisions.id, shareLinks.revisionId))
     .innerJoin(networks, eq(networks.id, revisions.networkId))

@@ -41,14 +41,13 @@ const workerFile = new URL("./worker.mjs", import.meta.url);
 
 // Identical solves asked for at the same time share one run (the cache only helps the next request).
 interface Flight {
-  outcome: Promise<SolveOutcome>;
   started: boolean;
   listeners: (() => void)[];
 }
 
 export function createSolver(settings: SolveSettings): Solver {
   let pool: Piscina<SolveTask, SolveOutcome> | null = null;
-  const flights = new Map<string, Flight>();
+  const flights = new Map<string, { flight: Flight; outcome: Promise<SolveOutcome> }>();
   const counts = { started: 0, finished: 0, terminated: 0, running: 0 };
 
   const threads = () => {
@@ -106,19 +105,18 @@ export function createSolver(settings: SolveSettings): Solver {
 
   return {
     solve(circuit, options, key, hooks = {}) {
-      let flight = flights.get(key);
-      if (!flight) {
+      let entry = flights.get(key);
+      if (!entry) {
         if (flights.size >= settings.threads + settings.queueMax) return Promise.reject(new SolverBusyError());
-        const fresh: Flight = { outcome: Promise.resolve(null as unknown as SolveOutcome), started: false, listeners: [] };
-        fresh.outcome = runOnThread(circuit, options, fresh).finally(() => flights.delete(key));
-        flights.set(key, fresh);
-        flight = fresh;
+        const flight: Flight = { started: false, listeners: [] };
+        entry = { flight, outcome: runOnThread(circuit, options, flight).finally(() => flights.delete(key)) };
+        flights.set(key, entry);
       }
       if (hooks.onStart) {
-        if (flight.started) hooks.onStart();
-        else flight.listeners.push(hooks.onStart);
+        if (entry.flight.started) hooks.onStart();
+        else entry.flight.listeners.push(hooks.onStart);
       }
-      return flight.outcome;
+      return entry.outcome;
     },
     stats: () => ({ ...counts, queued: flights.size - counts.running, threads: pool?.threads.length ?? 0 }),
     warm: () => void threads(),

@@ -12,7 +12,7 @@ import { startTestServer, type TestServer } from "../support/server.js";
 
 // Every request must be answered within this; a hang fails the run.
 const answerWithinMs = 20_000;
-const budget = <T>(runs: number, examples: T[] = []) => ({ numRuns: runs, interruptAfterTimeLimit: 25_000, markInterruptAsFailure: false, examples });
+const budget = <T>(runs: number, examples: T[] = []) => ({ numRuns: runs, interruptAfterTimeLimit: 15_000, markInterruptAsFailure: false, examples });
 
 interface World {
   server: TestServer;
@@ -293,6 +293,23 @@ describe("fuzzing", () => {
         if (created.status === 201 && solveIt) await judge(`solve of ${JSON.stringify(circuit).slice(0, 200)}`, () => world.team.clients.editor.post(`/api/networks/${created.body.id}/solve`));
       }),
       budget(80),
+    );
+  });
+
+  it("takes random files as attachments and as network imports: stored, or refused with a 4xx", async () => {
+    const png = Buffer.from("iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNkYPhfDwAChwGA60e6kgAAAABJRU5ErkJggg==", "base64");
+    const content = fc.oneof(
+      fc.uint8Array({ maxLength: 2_048 }).map((bytes) => Buffer.from(bytes)),
+      fc.tuple(fc.constantFrom(png, Buffer.from("%PDF-1.4\n"), Buffer.from([0xff, 0xd8, 0xff, 0xe0])), fc.uint8Array({ maxLength: 64 })).map(([head, tail]) => Buffer.concat([head, Buffer.from(tail)])),
+    );
+    const name = fc.oneof(fc.constantFrom("scope.png", "datasheet.pdf", "photo.jpg", "net.pfn", "net.json", "noext", ".png", "a\u0000b.pdf"), fc.string({ maxLength: 12 }));
+    const type = fc.constantFrom("image/png", "application/pdf", "image/jpeg", "text/plain", "application/json", "application/octet-stream", "");
+    await fc.assert(
+      fc.asyncProperty(content, name, type, fc.boolean(), async (bytes, filename, mime, asImport) => {
+        const path = asImport ? `/api/teams/${world.team.teamId}/networks/import` : `/api/networks/${world.networkId}/attachments`;
+        await judge(`upload of ${filename} (${mime}, ${bytes.length} bytes) to ${path}`, () => world.team.clients.owner.upload(path, { name: filename, type: mime, content: bytes }));
+      }),
+      budget(60),
     );
   });
 
