@@ -285,3 +285,23 @@ export const solveJobs = pgTable(
   },
   (table) => [index("solve_jobs_network_idx").on(table.networkId), index("solve_jobs_finished_idx").on(table.finishedAt)],
 );
+
+// ---- cells ----
+
+// A team's own cells: reusable blocks its networks place by id beside the built-in ones.
+export const teamCells = pgTable(
+  "cells",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    teamId: uuid("team_id").notNull().references(() => teams.id, { onDelete: "cascade" }),
+    // The cell id networks use in their instances (e.g. "gain-stage"); one per team.
+    slug: text("slug").notNull(),
+    title: text("title").notNull(),
+    // The engine's cell definition (id, title, terminals, symbols, elements, optional).
+    definition: jsonb("definition").notNull(),
+    authorId: text("author_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [unique("cells_team_slug_unique").on(table.teamId, table.slug)],
+);

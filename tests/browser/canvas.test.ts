@@ -163,7 +163,7 @@ describe("schematic canvas in chromium", () => {
   });
 
   it("solves the drawing and reads Rth = R0/(1 + mu) from the ledger, 47 Ω at R0 = 4.7k, mu = 99", async () => {
-    await page.getByRole("button", { name: "Solve" }).click();
+    await page.getByRole("button", { name: "Solve", exact: true }).click();
     await page.waitForURL(/\/r\/1$/, { timeout: 60_000 });
     const equivalents = page.locator('section[aria-labelledby="equivalents-heading"]');
     await equivalents.locator(".katex").first().waitFor();

@@ -57,7 +57,7 @@ describe("frequency panel and design solve in chromium", () => {
     await page.getByLabel(/^Title/).fill("Sensor RC");
     await page.getByRole("button", { name: "Import", exact: true }).click();
     await page.waitForURL(/\/networks\/[0-9a-f-]{36}$/);
-    await page.getByRole("button", { name: "Solve" }).click();
+    await page.getByRole("button", { name: "Solve", exact: true }).click();
     await page.waitForURL(/\/r\/1$/, { timeout: 30_000 });
 
     const frequency = page.getByRole("region", { name: "Frequency" });

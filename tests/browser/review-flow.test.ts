@@ -85,7 +85,7 @@ describe("review flow in chromium", () => {
     // The schematic preview draws the three elements and the port.
     await expect(page.locator('svg[role="img"][aria-label^="Schematic preview"]').getAttribute("aria-label")).resolves.toContain("3 elements, port out to 0");
 
-    await page.getByRole("button", { name: "Solve" }).click();
+    await page.getByRole("button", { name: "Solve", exact: true }).click();
     // A solve runs the exact engine on the server: allow for a busy machine.
     await page.waitForURL(/\/r\/1$/, { timeout: 30_000 });
     const steps = page.locator('ol[aria-label="Ledger"] > li');

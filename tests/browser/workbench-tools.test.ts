@@ -87,7 +87,7 @@ describe("workbench tools in chromium", () => {
     expect(text.split("\n")[6]).toBe("Gauge resistor b 0 = Rd");
     await expect(diagnostics.textContent()).resolves.toMatch(/^Line 7, column 7: /);
     await expect(page.getByText("(last version that read without errors)")).toBeTruthy();
-    expect(await page.getByRole("button", { name: "Solve" }).isDisabled()).toBe(true);
+    expect(await page.getByRole("button", { name: "Solve", exact: true }).isDisabled()).toBe(true);
     await shot(page, "workbench-diagnostic");
     await editor.fill(text);
     await diagnostics.waitFor({ state: "detached" });
@@ -115,7 +115,7 @@ describe("workbench tools in chromium", () => {
   });
 
   it("solves the bridge and reads the balanced-bridge values", async () => {
-    await page.getByRole("button", { name: "Solve" }).click();
+    await page.getByRole("button", { name: "Solve", exact: true }).click();
     await page.waitForURL(/\/r\/1$/, { timeout: 30_000 });
     const values = page.getByRole("region", { name: "Values" });
     for (const arm of ["Ra", "Rb", "Rc", "Rd"]) await values.getByLabel(arm, { exact: true }).fill("1k");
@@ -128,7 +128,7 @@ describe("workbench tools in chromium", () => {
   it("solves a changed bridge and compares the two revisions", async () => {
     const editor = page.getByLabel("Portfold netlist");
     await editor.fill(BRIDGE.replace("Gauge resistor b 0 = Rd", "Gauge resistor b 0 = Rd + dR"));
-    await page.getByRole("button", { name: "Solve" }).click();
+    await page.getByRole("button", { name: "Solve", exact: true }).click();
     await page.waitForURL(/\/r\/2$/, { timeout: 30_000 });
     await page.getByRole("link", { name: "History" }).click();
     await page.getByLabel("Compare revision 1").check();
@@ -165,7 +165,7 @@ describe("workbench tools in chromium", () => {
   it("prints a clean review document", async () => {
     await page.emulateMedia({ media: "print" });
     expect(await page.getByRole("region", { name: "Values" }).isVisible()).toBe(false);
-    expect(await page.getByRole("button", { name: "Solve" }).isVisible()).toBe(false);
+    expect(await page.getByRole("button", { name: "Solve", exact: true }).isVisible()).toBe(false);
     expect(await page.locator('ol[aria-label="Ledger"]').isVisible()).toBe(true);
     await shot(page, "print-view");
     await page.emulateMedia({ media: "screen" });

@@ -78,6 +78,7 @@ Rz resistor z out = Rz
     ["second port", "port a 0\nport b 0\nR1 resistor a b = R", 2, 1, /one port/],
     ["no port", "R1 resistor a 0 = R\n", 2, 1, /names no port/],
     ["unknown quantity", "port a 0\nquantity mu gain", 2, 13, /unknown quantity/],
+    ["a line of only a value", "port a 0\n= R", 2, 1, /starts with its name/],
   ])("%s: a parse-error with its line and column", (_what, text, line, column, message) => {
     const r = parseNetwork(text);
     expect(r.network).toBeNull();

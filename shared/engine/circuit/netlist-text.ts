@@ -69,6 +69,7 @@ export function parseNetlistText(text: string): ParseResult {
       const head = eq >= 0 ? content.slice(0, eq) : content;
       const tokens = tokenize(head);
       const first = tokens[0];
+      if (!first) throw new NetlistSyntaxError('a line starts with its name, e.g. "Rload resistor out 0 = RL"', eq + 1);
       // A cell instance: "<name> cell <cell> <terminal>=<node> ..." (see cells.ts).
       if (tokens[1]?.text === "cell" && !DIRECTIVES.has(first.text)) {
         const instance = readCellLine(tokenize(content));
