@@ -15,6 +15,7 @@ import { securityHeaders } from "./lib/security.js";
 import { createSmtpMailer, smtpTarget, type Mailer } from "./mail/mailer.js";
 import { attachmentsRouter } from "./routes/attachments.js";
 import { authRouter } from "./routes/auth.js";
+import { cellsRouter } from "./routes/cells.js";
 import { devMailRouter } from "./routes/dev-mail.js";
 import { healthRouter } from "./routes/health.js";
 import { networksRouter } from "./routes/networks.js";
@@ -66,6 +67,7 @@ export function createApp(context: AppContext): Express {
     "/api",
     authRouter(services, createRateLimits(settings.limits)),
     teamsRouter(services),
+    cellsRouter(services),
     networksRouter(services),
     revisionsRouter(services),
     reviewsRouter(services),

@@ -6,6 +6,7 @@ import { cachedDerivation, noteCacheHit, solveKey, storeDerivation } from "../so
 import { deriveOutcome, type Derivation, type SolveOutcome } from "../solver/derive.js";
 import { SolverBusyError } from "../solver/pool.js";
 import { requireNetworkRole } from "./access.js";
+import { withTeamCells } from "./cells.js";
 import { parseNetwork, type Network, type SolveOptions } from "./engine.js";
 import { revisionView, storeRevision, type RevisionView } from "./revisions.js";
 import type { Services } from "./services.js";
@@ -46,7 +47,8 @@ export async function solve(services: Services, networkId: string, userId: strin
   const { network } = await requireNetworkRole(db, networkId, userId, "editor");
   const parsed = parseNetwork(network.circuit);
   if (!parsed.network) throw illPosed(parsed.diagnostics);
-  const circuit = parsed.network;
+  // The team's cells go into the circuit itself, so the cache key and the revision carry their definitions.
+  const circuit = await withTeamCells(db, network.teamId, parsed.network);
   const tooLarge = sizeBreach(circuit, settings.solve);
   if (tooLarge) throw capExceeded(tooLarge);
 

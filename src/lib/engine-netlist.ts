@@ -4,3 +4,5 @@ export { parseNetlistText, printElementLine, printNetlistText, NETLIST_EXTENSION
 export { validateNetworkJson } from "../../shared/engine/circuit/schema";
 export { ELEMENT_KINDS, QUANTITIES } from "../../shared/engine/types";
 export type { Element, ElementKind, Network as EngineNetwork, ParseResult, Quantity } from "../../shared/engine/types";
+export { BUILT_IN_CELLS } from "../../shared/engine/circuit/cells";
+export type { CellDefinition, CellInstance } from "../../shared/engine/types";

@@ -94,6 +94,9 @@ async function share(world: World): Promise<{ id: string; token: string }> {
   return { id: created.body.id, token: created.body.token };
 }
 
+// A resistive divider as a two-terminal cell: enough for the access checks.
+const matrixCell = (id: string) => ({ id, title: "Divider", terminals: ["a", "b"], symbols: ["R"], elements: [{ name: "R", kind: "resistor", nodes: ["a", "b"], value: "R" }] });
+
 const net = (w: World) => `/api/networks/${w.networkId}`;
 const rev = (w: World) => `${net(w)}/revisions/1`;
 
@@ -121,6 +124,17 @@ const cases: Case[] = [
   { method: "GET", route: "/api/invitations/:token", expect: everyone(200), path: (w) => `/api/invitations/${w.inviteToken}` },
   // Members are members already (409); the outsider joins (200) — a scratch team, so the outsider stays outside the fixture team.
   { method: "POST", route: "/api/invitations/:token/accept", expect: statuses(401, 200, 409, 409, 409, 409), prepare: async (w) => await invite(w, await freshTeam(w)), path: (_w, p) => `/api/invitations/${p.token}/accept` },
+  // ---- team cells ----
+  { method: "GET", route: "/api/teams/:teamId/cells", expect: members(200), path: (w) => `/api/teams/${w.team.teamId}/cells` },
+  // Every actor saves a cell of its own id, so the editor's and the owner's are both 201 (not 409).
+  { method: "POST", route: "/api/teams/:teamId/cells", expect: editorsUp(201), path: (w) => `/api/teams/${w.team.teamId}/cells`, body: () => ({ definition: matrixCell(`matrix-${randomUUID().slice(0, 8)}`) }) },
+  {
+    method: "DELETE",
+    route: "/api/teams/:teamId/cells/:cellId",
+    expect: editorsUp(204),
+    prepare: async (w) => ({ id: (await w.team.clients.owner.post(`/api/teams/${w.team.teamId}/cells`, { definition: matrixCell(`doomed-${randomUUID().slice(0, 8)}`) })).body.id }),
+    path: (w, p) => `/api/teams/${w.team.teamId}/cells/${p.id}`,
+  },
   // ---- networks ----
   { method: "GET", route: "/api/teams/:teamId/networks", expect: members(200), path: (w) => `/api/teams/${w.team.teamId}/networks` },
   { method: "POST", route: "/api/teams/:teamId/networks", expect: editorsUp(201), path: (w) => `/api/teams/${w.team.teamId}/networks`, body: () => ({ title: "Matrix network", circuit: followerCircuit }) },

@@ -135,6 +135,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
             layout={layout}
             onLayoutChange={setLayout}
             onTabChange={setTab}
+            teamId={network.teamId}
           />
         </section>
         <section aria-labelledby="ledger-heading" className="min-w-0">

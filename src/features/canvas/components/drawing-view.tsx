@@ -1,5 +1,6 @@
 import { useMemo } from "react";
-import { printNetlistText, type EngineNetwork } from "@/lib/engine-netlist";
+import { printNetlistText, type CellDefinition, type EngineNetwork } from "@/lib/engine-netlist";
+import { cellLibrary } from "../model/cell-part";
 import { extractConnectivity, networkOfDrawing } from "../model/connectivity";
 import { toLayout, type Drawing, type Layout } from "../model/drawing";
 import { drawingFor } from "../model/sync";
@@ -17,20 +18,23 @@ export interface DrawingViewProps {
   height?: number;
   /** Whether to show the note that the text form does not keep the drawing. */
   note?: boolean;
+  /** The team's own cells, offered in the palette beside the built-in ones. */
+  teamCells?: readonly CellDefinition[];
 }
 
 // The drawing and the netlist as one model: the drawing is made from the netlist and its layout,
 // and an edit to the drawing is read back into netlist text.
-export function DrawingView({ network, layout, readOnly = false, faults, onEdit, height, note = true }: DrawingViewProps) {
-  const drawing = useMemo(() => drawingFor(network, layout), [network, layout]);
-  const extraction = useMemo(() => extractConnectivity(drawing, network.ground, network), [drawing, network]);
+export function DrawingView({ network, layout, readOnly = false, faults, onEdit, height, note = true, teamCells }: DrawingViewProps) {
+  const library = useMemo(() => cellLibrary(teamCells), [teamCells]);
+  const drawing = useMemo(() => drawingFor(network, layout, library), [network, layout, library]);
+  const extraction = useMemo(() => extractConnectivity(drawing, network.ground, network, library), [drawing, network, library]);
   const change = (next: Drawing) => {
-    const read = networkOfDrawing(next, network);
+    const read = networkOfDrawing(next, network, library);
     onEdit?.(printNetlistText(read.network), toLayout(next));
   };
   return (
     <div>
-      <SchematicCanvas drawing={drawing} network={network} extraction={extraction} onChange={readOnly ? undefined : change} readOnly={readOnly} faults={faults} height={height} />
+      <SchematicCanvas drawing={drawing} network={network} extraction={extraction} cells={[...library.values()]} onChange={readOnly ? undefined : change} readOnly={readOnly} faults={faults} height={height} />
       {extraction.diagnostics.length > 0 && !readOnly && (
         <ul aria-label="Drawing notes" className="mt-1 space-y-0.5 text-xs">
           {extraction.diagnostics.map((d, i) => (

@@ -1,6 +1,7 @@
 import { useEffect, useId, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent as ReactKeyboardEvent, type PointerEvent as ReactPointerEvent } from "react";
 import { Dialog } from "@/components/ui/dialog";
-import { ELEMENT_KINDS, type Element, type ElementKind, type EngineNetwork } from "@/lib/engine-netlist";
+import { ELEMENT_KINDS, type CellDefinition, type Element, type ElementKind, type EngineNetwork } from "@/lib/engine-netlist";
+import { cellHalfHeight, cellLibrary, isCellPart, newCellPart } from "../model/cell-part";
 import type { Extraction } from "../model/connectivity";
 import { partPins, type Drawing, type Part } from "../model/drawing";
 import {
@@ -28,7 +29,7 @@ import { PartInspector } from "./part-inspector";
 import { PartSymbol } from "./part-symbol";
 import { SHORTCUTS } from "./shortcuts";
 
-type Tool = { kind: "select" } | { kind: "connect"; from: Point | null } | { kind: "name" } | { kind: "zero" } | { kind: "terminals"; plus: Point | null } | { kind: "place"; element: ElementKind; turn: Turn; mirror: boolean };
+type Tool = { kind: "select" } | { kind: "connect"; from: Point | null } | { kind: "name" } | { kind: "zero" } | { kind: "terminals"; plus: Point | null } | { kind: "place"; element: ElementKind; turn: Turn; mirror: boolean } | { kind: "place-cell"; cell: CellDefinition; turn: Turn; mirror: boolean };
 
 const PALETTE: { kind: ElementKind; label: string }[] = ELEMENT_KINDS.map((kind) => ({ kind, label: kind === "opamp" ? "op-amp" : kind }));
 const DEFAULT_TURN = (kind: ElementKind): Turn => (kind === "vsource" || kind === "isource" || kind === "vcvs" || kind === "vccs" || kind === "ccvs" || kind === "cccs" ? 1 : 0);
@@ -54,6 +55,8 @@ function partAt(d: Drawing, p: [number, number]): Part | undefined {
     const dy = p[1] - part.at[1];
     const horizontal = part.turn % 2 === 0;
     const [u, v] = horizontal ? [dx, dy] : [dy, dx];
+    // A cell's box: 3 steps either way across its pin columns, its half height along them.
+    if (isCellPart(part.element)) return Math.abs(u) <= 3.2 && Math.abs(v) <= cellHalfHeight(part.element.pins.length) + 0.2;
     return Math.abs(u) <= 2.6 && Math.abs(v) <= 2.2;
   });
 }
@@ -67,10 +70,14 @@ export interface SchematicCanvasProps {
   /** Parts the engine's diagnostics name, with what they say. */
   faults?: Map<string, string>;
   height?: number;
+  /** The cells the palette offers: the built-in ones, then the team's. */
+  cells?: readonly CellDefinition[];
 }
 
+const BUILT_IN_LIST = [...cellLibrary().values()];
+
 // The schematic canvas: standard symbols on a faint dotted grid, edited with the pointer and our own keys.
-export function SchematicCanvas({ drawing, network, extraction, onChange, readOnly = false, faults = new Map(), height = 440 }: SchematicCanvasProps) {
+export function SchematicCanvas({ drawing, network, extraction, onChange, readOnly = false, faults = new Map(), height = 440, cells = BUILT_IN_LIST }: SchematicCanvasProps) {
   const gridId = useId().replace(/:/g, "");
   const box = useRef<HTMLDivElement>(null);
   const svg = useRef<SVGSVGElement>(null);
@@ -179,6 +186,13 @@ export function SchematicCanvas({ drawing, network, extraction, onChange, readOn
         commit(setPort(drawing, tool.plus, p));
         setTool({ kind: "select" });
         return;
+      case "place-cell": {
+        const name = freshName(drawing, tool.cell.id);
+        commit(addPart(drawing, newCellPart(tool.cell, name, network.ground), [Math.round(w[0]), Math.round(w[1])], tool.turn, tool.mirror));
+        setSelection({ ...NOTHING, parts: [name] });
+        if (!event.shiftKey) setTool({ kind: "select" });
+        return;
+      }
       case "place": {
         const name = freshName(drawing, tool.element);
         const element = newElement(tool.element, name, network, drawing);
@@ -192,7 +206,7 @@ export function SchematicCanvas({ drawing, network, extraction, onChange, readOn
 
   const onPointerMove = (event: ReactPointerEvent<SVGSVGElement>) => {
     const w = world(event);
-    setPointer(tool.kind === "place" ? [Math.round(w[0]), Math.round(w[1])] : snapped(w));
+    setPointer(tool.kind === "place" || tool.kind === "place-cell" ? [Math.round(w[0]), Math.round(w[1])] : snapped(w));
     if (!drag) return;
     if (drag.kind === "pan") setView({ ...drag.view, x: drag.view.x + event.clientX - drag.from[0], y: drag.view.y + event.clientY - drag.from[1] });
     else if (drag.kind === "box") setDrag({ ...drag, to: w });
@@ -274,7 +288,7 @@ export function SchematicCanvas({ drawing, network, extraction, onChange, readOn
     if (lower === "t") return handled(), setTool({ kind: "terminals", plus: null });
     if (lower === "q" || lower === "x") {
       handled();
-      if (tool.kind === "place") return setTool(lower === "x" ? { ...tool, mirror: !tool.mirror } : { ...tool, turn: ((tool.turn + (event.shiftKey ? 3 : 1)) % 4) as Turn });
+      if (tool.kind === "place" || tool.kind === "place-cell") return setTool(lower === "x" ? { ...tool, mirror: !tool.mirror } : { ...tool, turn: ((tool.turn + (event.shiftKey ? 3 : 1)) % 4) as Turn });
       return commit(lower === "x" ? mirrorSelection(drawing, selection) : turnSelection(drawing, selection, event.shiftKey ? 3 : 1));
     }
     if (key === "Delete" || key === "Backspace") {
@@ -292,8 +306,13 @@ export function SchematicCanvas({ drawing, network, extraction, onChange, readOn
       {label} <kbd className="font-mono text-[10px] text-ink/50">{shortcut}</kbd>
     </button>
   );
-  const ghost = tool.kind === "place" && pointer ? ({ element: newElement(tool.element, freshName(drawing, tool.element), network, drawing), at: pointer, turn: tool.turn, mirror: tool.mirror } satisfies Part) : null;
-  const nodeOfPointer = pointer && tool.kind !== "place" ? extraction.nodeAt(pointer) : null;
+  const ghost =
+    tool.kind === "place" && pointer
+      ? ({ element: newElement(tool.element, freshName(drawing, tool.element), network, drawing), at: pointer, turn: tool.turn, mirror: tool.mirror } satisfies Part)
+      : tool.kind === "place-cell" && pointer
+        ? ({ element: newCellPart(tool.cell, freshName(drawing, tool.cell.id), network.ground), at: pointer, turn: tool.turn, mirror: tool.mirror } satisfies Part)
+        : null;
+  const nodeOfPointer = pointer && tool.kind !== "place" && tool.kind !== "place-cell" ? extraction.nodeAt(pointer) : null;
   const s = (p: Point) => [p[0] * GRID, p[1] * GRID] as const;
 
   return (
@@ -312,7 +331,19 @@ export function SchematicCanvas({ drawing, network, extraction, onChange, readOn
                 {label}
               </button>
             ))}
-            <span className="self-center text-[11px] text-ink/40" title="Device cells will be listed here">cells: none yet</span>
+            <span className="mx-1 self-center text-[11px] text-ink/50">cells:</span>
+            {cells.map((cell) => (
+              <button
+                key={cell.id}
+                type="button"
+                title={`${cell.title} (terminals ${cell.terminals.join(", ")})`}
+                aria-pressed={tool.kind === "place-cell" && tool.cell.id === cell.id}
+                onClick={() => setTool({ kind: "place-cell", cell, turn: 0, mirror: false })}
+                className={`rounded border px-1.5 py-0.5 font-mono text-[11px] ${tool.kind === "place-cell" && tool.cell.id === cell.id ? "border-copper bg-copper/10" : "border-dashed border-rule bg-white/60 hover:border-ink/40"}`}
+              >
+                {cell.id}
+              </button>
+            ))}
           </div>
           <div role="toolbar" aria-label="Drawing tools" className="flex flex-wrap items-center gap-1">
             {toolButton("Select", "Esc", tool.kind === "select", () => setTool({ kind: "select" }))}
@@ -449,7 +480,7 @@ export function SchematicCanvas({ drawing, network, extraction, onChange, readOn
           )}
         </div>
       </div>
-      {!readOnly && selectedPart && (
+      {!readOnly && selectedPart && !isCellPart(selectedPart.element) && (
         <PartInspector
           key={selectedPart.element.name}
           element={selectedPart.element}

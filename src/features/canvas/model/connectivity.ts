@@ -1,7 +1,8 @@
 // Electrical connectivity from the drawing: wires merge the points they join, labels name
 // nodes (one name joins its points), ground symbols are the ground node; the result is the
 // engine's network (elements with node names, the port).
-import type { Element, EngineNetwork } from "@/lib/engine-netlist";
+import type { CellDefinition, CellInstance, Element, EngineNetwork } from "@/lib/engine-netlist";
+import { instanceOf, isCellPart, partElementsOf, type PartElement } from "./cell-part";
 import { elementNodes, partPins, withNodes, type Drawing } from "./drawing";
 import { insideSegment, pointKey, type Point } from "./geometry";
 
@@ -21,6 +22,8 @@ export interface Net {
 
 export interface Extraction {
   elements: Element[];
+  /** The cell instances, terminals joined to the nodes their pins touch. */
+  cells: CellInstance[];
   /** Node name of every pin, by part then pin. */
   pinNodes: string[][];
   nets: Net[];
@@ -56,7 +59,7 @@ class UnionFind {
  * The network the drawing stands for. `previous` (the netlist as it was) keeps the names of
  * unlabelled nodes stable across edits; a node that never had a name gets the first free nK.
  */
-export function extractConnectivity(drawing: Drawing, ground: string, previous?: EngineNetwork | null): Extraction {
+export function extractConnectivity(drawing: Drawing, ground: string, previous?: EngineNetwork | null, library?: ReadonlyMap<string, CellDefinition>): Extraction {
   const uf = new UnionFind();
   const pins = drawing.parts.map(partPins);
   const special: Point[] = [...pins.flat(), ...drawing.labels.map((l) => l.at), ...drawing.grounds];
@@ -111,7 +114,7 @@ export function extractConnectivity(drawing: Drawing, ground: string, previous?:
     used.add(name);
   }
   // Unlabelled nodes, in the order of their first pin: keep the name the netlist gave most of their pins.
-  const previousNodes = new Map((previous?.elements ?? []).map((e) => [e.name, elementNodes(e)]));
+  const previousNodes = new Map((previous ? partElementsOf(previous, library) : []).map((e) => [e.name, pinNodesByOrder(e, drawing)]));
   const unnamed = [...roots.entries()].filter(([root, r]) => !names.has(root) && r.pins.length > 0);
   unnamed.sort(([, a], [, b]) => a.pins[0][0] - b.pins[0][0] || a.pins[0][1] - b.pins[0][1]);
   const reserved = new Set([ground, ...drawing.labels.map((l) => l.node)]);
@@ -139,9 +142,11 @@ export function extractConnectivity(drawing: Drawing, ground: string, previous?:
   };
 
   const pinNodes = pins.map((list) => list.map((p) => nameOfKey(pointKey(p))!));
-  const elements = drawing.parts.map((part, i) => withNodes(part.element, pinNodes[i]));
+  const placed: PartElement[] = drawing.parts.map((part, i) => withNodes(part.element, pinNodes[i]));
+  const elements = placed.filter((e): e is Element => !isCellPart(e));
+  const cells = placed.filter(isCellPart).map(instanceOf);
   const seenNames = new Set<string>();
-  for (const e of elements) {
+  for (const e of placed) {
     if (seenNames.has(e.name)) diagnostics.push({ code: "duplicate-name", message: `Two parts are named ${e.name}.`, parts: [e.name] });
     seenNames.add(e.name);
   }
@@ -159,16 +164,24 @@ export function extractConnectivity(drawing: Drawing, ground: string, previous?:
   const nets: Net[] = [...roots.entries()]
     .filter(([root]) => names.has(root))
     .map(([root, r]) => ({ name: names.get(root)!, pins: r.pins, labelled: r.labels.length > 0, grounded: r.grounded }));
-  return { elements, pinNodes, nets, port, diagnostics, nodeAt };
+  return { elements, cells, pinNodes, nets, port, diagnostics, nodeAt };
+}
+
+// A previous instance's nodes in the pin order of the part now drawn for it.
+function pinNodesByOrder(e: PartElement, drawing: Drawing): string[] {
+  if (!isCellPart(e)) return elementNodes(e);
+  const drawn = drawing.parts.find((p) => p.element.name === e.name)?.element;
+  return drawn && isCellPart(drawn) ? drawn.pins.map((t) => e.terminals[t]) : elementNodes(e);
 }
 
 function allPrevious(previous?: EngineNetwork | null): Set<string> {
-  return new Set((previous?.elements ?? []).flatMap(elementNodes));
+  return new Set([...(previous?.elements ?? []).flatMap(elementNodes), ...(previous?.cells ?? []).flatMap((c) => Object.values(c.terminals))]);
 }
 
 /** The drawing as the engine's network; where the drawing has no port yet, the netlist's port stays. */
-export function networkOfDrawing(drawing: Drawing, base: EngineNetwork): { network: EngineNetwork; extraction: Extraction } {
-  const extraction = extractConnectivity(drawing, base.ground, base);
-  const network: EngineNetwork = { ...base, elements: extraction.elements, port: extraction.port ?? base.port };
+export function networkOfDrawing(drawing: Drawing, base: EngineNetwork, library?: ReadonlyMap<string, CellDefinition>): { network: EngineNetwork; extraction: Extraction } {
+  const extraction = extractConnectivity(drawing, base.ground, base, library);
+  const { cells: _cells, ...rest } = base;
+  const network: EngineNetwork = { ...rest, elements: extraction.elements, port: extraction.port ?? base.port, ...(extraction.cells.length > 0 ? { cells: extraction.cells } : {}) };
   return { network, extraction };
 }

@@ -1,11 +1,11 @@
 // The drawing of a network and its stored form, the circuit's optional `layout` member.
 import { z } from "zod";
-import type { Element } from "@/lib/engine-netlist";
+import { cellLocalPins, isCellPart, type PartElement } from "./cell-part";
 import { localPins, place, type Point, type Turn } from "./geometry";
 
 export interface Part {
-  /** The element as the netlist has it; its node fields are recomputed from the wires. */
-  element: Element;
+  /** The element (or cell instance) as the netlist has it; its nodes are recomputed from the wires. */
+  element: PartElement;
   at: Point;
   turn: Turn;
   mirror: boolean;
@@ -35,7 +35,7 @@ export const LAYOUT_VERSION = 1;
 
 const point = z.tuple([z.number().int(), z.number().int()]);
 
-/** The stored layout: geometry only, parts keyed by element name; the elements stay in `elements`. */
+/** The stored layout: geometry only, parts keyed by element or cell instance name; those stay in `elements` and `cells`. */
 export const layoutSchema = z.object({
   version: z.literal(LAYOUT_VERSION),
   parts: z.array(z.object({ element: z.string(), at: point, turn: z.union([z.literal(0), z.literal(1), z.literal(2), z.literal(3)]), mirror: z.boolean() })),
@@ -61,7 +61,7 @@ export function toLayout(drawing: Drawing): Layout {
 }
 
 /** The stored layout read back against the elements; null when there is none or it is not ours. */
-export function readLayout(layout: unknown, elements: readonly Element[]): Drawing | null {
+export function readLayout(layout: unknown, elements: readonly PartElement[]): Drawing | null {
   const parsed = layoutSchema.safeParse(layout);
   if (!parsed.success) return null;
   const byName = new Map(elements.map((e) => [e.name, e]));
@@ -74,15 +74,19 @@ export function readLayout(layout: unknown, elements: readonly Element[]): Drawi
 }
 
 export function partPins(part: Part): Point[] {
-  return localPins(part.element.kind).map((p) => place(p, part.at, part.turn, part.mirror));
+  const local = isCellPart(part.element) ? cellLocalPins(part.element.pins.length) : localPins(part.element.kind);
+  return local.map((p) => place(p, part.at, part.turn, part.mirror));
 }
 
-/** The element's nodes in pin order. */
-export function elementNodes(e: Element): string[] {
+/** The element's nodes in pin order (a cell instance: its terminals' nodes). */
+export function elementNodes(e: PartElement): string[] {
+  if (isCellPart(e)) return e.pins.map((t) => e.terminals[t]);
   return e.kind === "opamp" ? [e.inputs[0], e.inputs[1], e.output] : [e.nodes[0], e.nodes[1]];
 }
 
-export function withNodes(e: Element, nodes: readonly string[]): Element {
+export function withNodes<E extends PartElement>(e: E, nodes: readonly string[]): E;
+export function withNodes(e: PartElement, nodes: readonly string[]): PartElement {
+  if (isCellPart(e)) return { ...e, terminals: Object.fromEntries(e.pins.map((t, j) => [t, nodes[j]])) };
   if (e.kind === "opamp") return { ...e, inputs: [nodes[0], nodes[1]], output: nodes[2] };
   return { ...e, nodes: [nodes[0], nodes[1]] };
 }

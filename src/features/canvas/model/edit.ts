@@ -1,6 +1,7 @@
 // Editing the drawing: pure functions from one drawing to the next. Wires, labels, ground
 // symbols and port terminals that sit on a pin travel with it when the part moves or turns.
 import type { Element, ElementKind, EngineNetwork } from "@/lib/engine-netlist";
+import type { PartElement } from "./cell-part";
 import { partPins, type Drawing, type Part } from "./drawing";
 import { insideSegment, pointKey, samePoint, type Point, type Turn } from "./geometry";
 
@@ -96,10 +97,11 @@ export function replaceElement(d: Drawing, name: string, element: Element): Draw
   return { ...d, parts: d.parts.map((p) => (p.element.name === name ? { ...p, element } : p)) };
 }
 
-/** Names are ours: the kind's word and a number, never a letter prefix. */
-export function freshName(d: Drawing, kind: ElementKind): string {
+/** Names are ours: the kind's word (or the cell's id) and a number, never a letter prefix. */
+export function freshName(d: Drawing, kind: ElementKind | string): string {
+  const word = kind.replace(/[^\p{L}\p{N}_]/gu, "_");
   const names = new Set(d.parts.map((p) => p.element.name));
-  for (let k = 1; ; k += 1) if (!names.has(`${kind}${k}`)) return `${kind}${k}`;
+  for (let k = 1; ; k += 1) if (!names.has(`${word}${k}`)) return `${word}${k}`;
 }
 
 const DEFAULT_VALUE: Record<Exclude<ElementKind, "opamp">, string> = {
@@ -125,7 +127,7 @@ export function newElement(kind: ElementKind, name: string, network: EngineNetwo
   return { name, kind, nodes: [g, g], value };
 }
 
-export function addPart(d: Drawing, element: Element, at: Point, turn: Turn, mirror = false): Drawing {
+export function addPart(d: Drawing, element: PartElement, at: Point, turn: Turn, mirror = false): Drawing {
   return { ...d, parts: [...d.parts, { element, at, turn, mirror }] };
 }
 

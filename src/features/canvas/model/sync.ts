@@ -1,43 +1,59 @@
 // The netlist into the drawing: parts follow the elements (new ones placed automatically with
 // node labels on their pins), and where a pin's node differs from the netlist the drawing is
 // corrected with a label, so that reading the drawing back gives the netlist again.
-import type { Element, EngineNetwork } from "@/lib/engine-netlist";
+import { BUILT_IN_CELLS, type CellDefinition, type EngineNetwork } from "@/lib/engine-netlist";
 import { layoutSchematic } from "@/features/network-editor/lib/schematic-layout";
+import { isCellPart, partElementsOf, type PartElement } from "./cell-part";
 import { extractConnectivity } from "./connectivity";
 import { EMPTY_DRAWING, elementNodes, partPins, readLayout, toLayout, type Drawing, type Layout, type NodeLabel, type Part } from "./drawing";
 import { GRID, insideSegment, samePoint, type Point, type Turn } from "./geometry";
 
 const ROW_GAP = 8; // grid steps between automatically placed parts
 
-function matchParts(drawing: Drawing, elements: readonly Element[]): { parts: Part[]; fresh: Set<Element> } {
+// Parts that can stand in for each other when the text renames one: cells of the same pin count, two-terminal parts, op-amps.
+function sameShape(a: PartElement, b: PartElement): boolean {
+  if (isCellPart(a) || isCellPart(b)) return isCellPart(a) && isCellPart(b) && a.pins.length === b.pins.length;
+  return a.kind === b.kind || (a.kind !== "opamp" && b.kind !== "opamp");
+}
+
+function matchParts(drawing: Drawing, elements: readonly PartElement[]): { parts: Part[]; fresh: Set<PartElement> } {
   const byName = new Map(drawing.parts.map((p) => [p.element.name, p]));
   const names = new Set(elements.map((e) => e.name));
   // A part whose element disappeared while one of its kind appeared was renamed in the text.
   const orphans = drawing.parts.filter((p) => !names.has(p.element.name));
-  const placed: Part[] = [];
-  const fresh: Element[] = [];
+  const placed = new Map<PartElement, Part>();
+  const fresh: PartElement[] = [];
   for (const e of elements) {
     const existing = byName.get(e.name);
-    if (existing) {
-      placed.push({ ...existing, element: e });
+    if (existing && sameShape(existing.element, e)) {
+      placed.set(e, { ...existing, element: keepPinOrder(existing.element, e) });
       continue;
     }
-    const renamed = orphans.findIndex((p) => p.element.kind === e.kind || (p.element.kind !== "opamp" && e.kind !== "opamp"));
+    const renamed = orphans.findIndex((p) => sameShape(p.element, e));
     if (renamed >= 0) {
-      placed.push({ ...orphans[renamed], element: e });
+      placed.set(e, { ...orphans[renamed], element: keepPinOrder(orphans[renamed].element, e) });
       orphans.splice(renamed, 1);
     } else fresh.push(e);
   }
-  const box = bounds(drawing, placed);
+  const box = bounds(drawing, [...placed.values()]);
+  const freshParts = new Set<PartElement>();
   fresh.forEach((e, k) => {
     const at: Point = [box.minX + 4 + k * ROW_GAP, box.maxY + 6];
-    placed.push({ element: e, at, turn: e.kind === "opamp" ? 0 : 1, mirror: false });
+    placed.set(e, { element: e, at, turn: e.kind === "opamp" || isCellPart(e) ? 0 : 1, mirror: false });
+    freshParts.add(e);
   });
-  return { parts: elements.map((e) => placed.find((p) => p.element === e)!), fresh: new Set(fresh) };
+  return { parts: elements.map((e) => placed.get(e)!), fresh: freshParts };
+}
+
+// A cell part keeps the pin order it is drawn with while the instance has the same terminals.
+function keepPinOrder(drawn: PartElement, next: PartElement): PartElement {
+  if (!isCellPart(drawn) || !isCellPart(next)) return next;
+  const same = drawn.pins.length === next.pins.length && drawn.pins.every((t) => next.pins.includes(t));
+  return same ? { ...next, pins: drawn.pins } : next;
 }
 
 // A part placed from the text says its nodes by a label (or a ground symbol) on each pin.
-function nameFreshPins(drawing: Drawing, fresh: Set<Element>, ground: string): Drawing {
+function nameFreshPins(drawing: Drawing, fresh: Set<PartElement>, ground: string): Drawing {
   let out = drawing;
   for (const part of drawing.parts) {
     if (!fresh.has(part.element)) continue;
@@ -74,14 +90,14 @@ function detach(drawing: Drawing, at: Point): Drawing {
 }
 
 /** The drawing brought in step with the netlist; a fixed point once it is (sync twice = sync once). */
-export function syncDrawing(start: Drawing, network: EngineNetwork): Drawing {
+export function syncDrawing(start: Drawing, network: EngineNetwork, library: ReadonlyMap<string, CellDefinition> = BUILT_IN_CELLS): Drawing {
   const g = network.ground;
-  const matched = matchParts(start, network.elements);
+  const matched = matchParts(start, partElementsOf(network, library));
   let drawing = nameFreshPins({ ...start, parts: matched.parts }, matched.fresh, g);
-  const wanted = network.elements.map(elementNodes);
+  const wanted = drawing.parts.map((p) => elementNodes(p.element));
   const rounds = 8 + 2 * wanted.flat().length;
   for (let round = 0; round < rounds; round += 1) {
-    const x = extractConnectivity(drawing, g, network);
+    const x = extractConnectivity(drawing, g, network, library);
     let changed = false;
     for (const net of x.nets) {
       const demands = net.pins.map(([i, j]) => wanted[i][j]);
@@ -111,11 +127,11 @@ export function syncDrawing(start: Drawing, network: EngineNetwork): Drawing {
     }
     if (!changed) break;
   }
-  return withPort(drawing, network);
+  return withPort(drawing, network, library);
 }
 
-function withPort(drawing: Drawing, network: EngineNetwork): Drawing {
-  const x = extractConnectivity(drawing, network.ground, network);
+function withPort(drawing: Drawing, network: EngineNetwork, library: ReadonlyMap<string, CellDefinition>): Drawing {
+  const x = extractConnectivity(drawing, network.ground, network, library);
   if (x.port && x.port.plus === network.port.plus && x.port.minus === network.port.minus) return drawing;
   const pinOf = (node: string): Point | null => {
     for (const [i, p] of drawing.parts.entries()) {
@@ -131,8 +147,8 @@ function withPort(drawing: Drawing, network: EngineNetwork): Drawing {
 }
 
 // The preview's ladder layout, rounded onto the grid, as the first drawing of a network without one.
-export function autoDrawing(network: EngineNetwork): Drawing {
-  if (network.elements.length === 0) return EMPTY_DRAWING;
+export function autoDrawing(network: EngineNetwork, library: ReadonlyMap<string, CellDefinition> = BUILT_IN_CELLS): Drawing {
+  if (network.elements.length === 0 && !network.cells?.length) return EMPTY_DRAWING;
   const ladder = layoutSchematic(network);
   const r = (v: number) => Math.round(v / GRID);
   const pt = (x: number, y: number): Point => [r(x), r(y)];
@@ -156,7 +172,7 @@ export function autoDrawing(network: EngineNetwork): Drawing {
   if (ladder.groundRail) wires.push([pt(ladder.groundRail[0], ladder.groundRail[1]), pt(ladder.groundRail[2], ladder.groundRail[3])]);
   const grounds: Point[] = ladder.groundSymbol ? [pt(ladder.groundSymbol.x, ladder.groundSymbol.y)] : [];
   const labels: NodeLabel[] = ladder.nodeLabels.map((n) => ({ node: n.name, at: pt(n.x, n.y) }));
-  const order = new Map(network.elements.map((e, i) => [e, i]));
+  const order = new Map<PartElement, number>(network.elements.map((e, i) => [e, i]));
   parts.sort((p, q) => order.get(p.element)! - order.get(q.element)!);
   const drawing: Drawing = {
     parts,
@@ -165,18 +181,20 @@ export function autoDrawing(network: EngineNetwork): Drawing {
     grounds,
     port: ladder.port ? portOfLadder(ladder.port, pt) : null,
   };
-  return syncDrawing(drawing, network);
+  // Cell instances are not in the preview's ladder: the sync places them below it, named by labels.
+  return syncDrawing(drawing, network, library);
 }
 
 /** The drawing for a netlist and its stored layout (or an automatic one when there is none). */
-export function drawingFor(network: EngineNetwork, layout: unknown): Drawing {
-  const stored = readLayout(layout, network.elements);
-  return stored && (stored.parts.length > 0 || network.elements.length === 0) ? syncDrawing(stored, network) : autoDrawing(network);
+export function drawingFor(network: EngineNetwork, layout: unknown, library: ReadonlyMap<string, CellDefinition> = BUILT_IN_CELLS): Drawing {
+  const all = partElementsOf(network, library);
+  const stored = readLayout(layout, all);
+  return stored && (stored.parts.length > 0 || all.length === 0) ? syncDrawing(stored, network, library) : autoDrawing(network, library);
 }
 
 /** What Save stores in the circuit's `layout` member. */
-export function layoutFor(network: EngineNetwork, layout: unknown): Layout {
-  return toLayout(drawingFor(network, layout));
+export function layoutFor(network: EngineNetwork, layout: unknown, library: ReadonlyMap<string, CellDefinition> = BUILT_IN_CELLS): Layout {
+  return toLayout(drawingFor(network, layout, library));
 }
 
 function portOfLadder(port: NonNullable<ReturnType<typeof layoutSchematic>["port"]>, pt: (x: number, y: number) => Point) {

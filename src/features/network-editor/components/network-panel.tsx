@@ -11,6 +11,7 @@ import { NetlistEditor, editorDiagnostics } from "./netlist-editor";
 import { PortPicker } from "./port-picker";
 import { Schematic } from "./schematic";
 import { DrawingView } from "@/features/canvas/components/drawing-view";
+import { useTeamCells } from "@/features/cells/api/get-team-cells";
 import type { Layout } from "@/features/canvas/model/drawing";
 
 export type NetworkTab = "text" | "table" | "drawing";
@@ -52,9 +53,12 @@ export interface NetworkPanelProps {
   layout?: unknown;
   onLayoutChange?: (layout: Layout) => void;
   onTabChange?: (tab: NetworkTab) => void;
+  /** The network's team, whose own cells the drawing's palette offers beside the built-in ones. */
+  teamId?: string;
 }
 
-export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSolve, saving, solving, saveError, solveError, printText, solveProgress = "sending", layout, onLayoutChange, onTabChange }: NetworkPanelProps) {
+export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSolve, saving, solving, saveError, solveError, printText, solveProgress = "sending", layout, onLayoutChange, onTabChange, teamId }: NetworkPanelProps) {
+  const teamCells = useTeamCells(teamId);
   const [tab, setTabState] = useState<Tab>("text");
   const setTab = (next: Tab) => {
     setTabState(next);
@@ -112,6 +116,7 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
                 <DrawingView
                   network={network}
                   layout={layout}
+                  teamCells={teamCells.data?.map((cell) => cell.definition)}
                   readOnly={!canEdit}
                   faults={faultsOf([...read.diagnostics, ...serverDiagnostics])}
                   onEdit={(nextText, nextLayout) => {

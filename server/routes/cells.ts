@@ -1,0 +1,41 @@
+import { Router } from "express";
+import { z } from "zod";
+import { signedInUser } from "../auth/session.js";
+import { createCell, deleteCell, listCells } from "../domain/cells.js";
+import type { Services } from "../domain/services.js";
+import { notFound } from "../lib/errors.js";
+import { idParam, parseBody } from "../lib/validate.js";
+
+// The definition's shape is the engine's to judge (readCellDefinition); here it only has to be an object.
+const createBody = z.object({ definition: z.record(z.string(), z.unknown(), { error: "The definition is a JSON object in Portfold's cell format." }) });
+
+// A cell id as the engine spells it: letters, digits, underscore and hyphen.
+function cellIdParam(value: unknown): string {
+  if (typeof value !== "string" || !/^[\p{L}\p{N}_-]{1,100}$/u.test(value)) throw notFound("That cell");
+  return value;
+}
+
+export function cellsRouter(services: Services): Router {
+  const router = Router();
+  const { db } = services;
+
+  router.get("/teams/:teamId/cells", async (req, res) => {
+    const user = signedInUser(res);
+    res.json(await listCells(db, idParam(req.params.teamId, "That team"), user.id));
+  });
+
+  router.post("/teams/:teamId/cells", async (req, res) => {
+    const user = signedInUser(res);
+    const teamId = idParam(req.params.teamId, "That team");
+    const body = parseBody(createBody, req.body);
+    res.status(201).json(await createCell(db, teamId, user.id, body.definition));
+  });
+
+  router.delete("/teams/:teamId/cells/:cellId", async (req, res) => {
+    const user = signedInUser(res);
+    await deleteCell(db, idParam(req.params.teamId, "That team"), user.id, cellIdParam(req.params.cellId));
+    res.status(204).end();
+  });
+
+  return router;
+}
