@@ -4,6 +4,7 @@
 import { describe, expect, it } from "vitest";
 import { parseValue } from "../../shared/engine/algebra";
 import { parseNetwork, printNetlistText, solveNetwork, toSolveOutput, type SolveResult } from "../../shared/engine";
+import { checkCellDefinition } from "../../shared/engine/circuit/cells";
 
 function solve(input: string | object, options: Parameters<typeof solveNetwork>[1] = {}): SolveResult {
   const r = solveNetwork(input as string, { steps: false, sensitivities: false, ...options });
@@ -165,5 +166,12 @@ describe("cell instances: formats and diagnostics", () => {
     expect(d!.message).toContain('inside cell "M1"');
     const json = solveNetwork({ port: { plus: "d", minus: "0" }, elements: [{ name: "Load", kind: "resistor", nodes: ["d", "0"], value: "RD" }], cells: [{ name: "M1", cell: "mosfet", terminals: { g: "g", d: "d", s: "src", b: "0" } }] });
     expect(json.diagnostics.find((x) => x.code === "control-unknown-node")?.path).toEqual(["cells", 0]);
+  });
+
+  it("a user cell's terminal may only sense a voltage, as a transistor gate does", () => {
+    // Common practice: in the small-signal model the gate draws no current; it only sets v_gs.
+    const gateOnly = { id: "gm-stage", title: "Transconductor", terminals: ["g", "d"], symbols: ["gm"], elements: [{ name: "Gm", kind: "vccs" as const, nodes: ["d", "0"] as [string, string], control: { nodes: ["g", "0"] as [string, string] }, value: "gm" }] };
+    expect(checkCellDefinition(gateOnly)).toEqual([]);
+    expect(checkCellDefinition({ ...gateOnly, terminals: ["g", "d", "x"] })).toEqual([expect.stringContaining('terminal "x"')]);
   });
 });

@@ -200,8 +200,10 @@ export function checkCellDefinition(definition: CellDefinition): string[] {
     names.add(e.name);
   }
   if (definition.elements.length === 0) out.push("a cell has at least one element");
-  const touched = new Set(definition.elements.flatMap((e) => elementNodes(e)));
-  for (const t of definition.terminals) if (!touched.has(t)) out.push(`terminal "${t}" is not a node of any element`);
+  // A terminal may only sense a voltage (a transistor's gate drives nothing in the small-signal model).
+  const sensed = definition.elements.flatMap((e) => ("control" in e && e.control && "nodes" in e.control ? e.control.nodes : []));
+  const touched = new Set([...definition.elements.flatMap((e) => elementNodes(e)), ...sensed]);
+  for (const t of definition.terminals) if (!touched.has(t)) out.push(`terminal "${t}" is neither a node of an element nor a controlling node`);
   for (const o of definition.optional ?? []) if (!names.has(o)) out.push(`optional part "${o}" is not an element of the cell`);
   return out;
 }
