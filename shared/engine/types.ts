@@ -81,6 +81,8 @@ export interface NetworkInput {
   cells?: CellInstance[];
   /** Cells defined with the network (an extension), beside the built-in ones. */
   cellDefinitions?: CellDefinition[];
+  /** Design assumptions such as "gm*ro >> 1" (an extension): each result is also given with its dominant terms. */
+  assumptions?: string[];
 }
 
 /** A network after validation: ground filled in. */
@@ -92,6 +94,7 @@ export interface Network {
   layout?: Record<string, unknown>;
   cells?: CellInstance[];
   cellDefinitions?: CellDefinition[];
+  assumptions?: string[];
 }
 
 /** One placed cell: a part with named terminals, standing for the cell's elements. */

@@ -3,7 +3,7 @@
 
 import { describe, expect, it } from "vitest";
 import { parseValue } from "../../shared/engine/algebra";
-import { approximate, parseAssumption, solveNetwork, toSolveOutput } from "../../shared/engine";
+import { approximate, parseAssumption, parseNetwork, printNetlistText, solveNetwork, toSolveOutput } from "../../shared/engine";
 
 function expectSame(actual: string | undefined | null, expected: string): void {
   expect(actual, `expected ${expected}`).toBeTypeOf("string");
@@ -63,5 +63,22 @@ describe("approximations", () => {
     const r = solveNetwork("port a 0\nR1 resistor a 0 = R\n", { assume: ["gm much bigger than ro"], steps: false });
     expect(r.diagnostics.map((d) => d.code)).toEqual(["option-invalid"]);
     expect(r.approximations).toBeUndefined();
+  });
+
+  it("an assumption written in the netlist applies as if asked for, and survives text and JSON", () => {
+    // Same source as above: Razavi, 2nd ed., ch. 3, cascode Rout ≈ gm2 ro2 ro1; from memory.
+    const text = `${CASCODE}assume gm*ro >> 1\n`;
+    const read = parseNetwork(text);
+    expect(read.network?.assumptions).toEqual(["gm*ro >> 1"]);
+    expect(parseNetwork(printNetlistText(read.network!)).network).toEqual(read.network);
+    expect(parseNetwork(JSON.stringify(read.network)).network?.assumptions).toEqual(["gm*ro >> 1"]);
+    const r = solveNetwork(text, { sensitivities: false });
+    expectSame(r.approximations?.results.rth?.approximate, "gm2*ro2*ro1");
+    expect(r.steps.find((s) => s.id === "approx.rth")?.kind).toBe("approximation");
+  });
+
+  it("an assume line with nothing assumed is a parse error at its line", () => {
+    const r = parseNetwork("port a 0\nRa resistor a 0 = R\nassume\n");
+    expect(r.diagnostics[0]).toMatchObject({ code: "parse-error", line: 3, column: 1 });
   });
 });

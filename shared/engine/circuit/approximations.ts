@@ -119,10 +119,11 @@ export function approximationsOf(
 ): { report: ApproximationReport; steps: Step[] } {
   const report: ApproximationReport = { assumptions: assumptions.map((a) => a.text), results: {} };
   const steps: Step[] = [];
-  const stated = assumptions.map((a) => a.stems.map(texStem).join(" ") + " \\gg 1").join(",\\; ");
+  const stated = assumptions.map((a) => a.stems.map(texStem).join("\\,") + " \\gg 1").join(",\\; ");
   for (const r of ["vth", "rth", "isc"] as const) {
     const f = results[r];
-    if (!f) continue;
+    // A zero result has nothing to drop; a step saying 0 ≈ 0 would only add noise to the ledger.
+    if (!f || f.isZero()) continue;
     const a = approximate(f, assumptions);
     const dropped = a.dropped.numerator + a.dropped.denominator;
     report.results[r] = {

@@ -9,6 +9,7 @@
 //   A1 vcvs x 0 = mu * across(in, out)
 //   B1 cccs a b = beta * through(Ro)
 //   U1 opamp p n -> o          (non-inverting input, inverting input, -> output)
+//   assume gm*ro >> 1          (a design assumption: each result also with its dominant terms)
 //
 // The kind is always the word in the second column; element names are free.
 
@@ -57,6 +58,7 @@ export function parseNetlistText(text: string): ParseResult {
   const quantities: Record<string, Quantity> = {};
   let ground: string | null = null;
   let port: { plus: string; minus: string } | null = null;
+  const assumptions: string[] = [];
 
   const lines = text.split(/\r\n|\n|\r/);
   lines.forEach((rawLine, index) => {
@@ -64,6 +66,15 @@ export function parseNetlistText(text: string): ParseResult {
     const hash = rawLine.indexOf("#");
     const content = hash >= 0 ? rawLine.slice(0, hash) : rawLine;
     if (content.trim() === "") return;
+    // "assume gm*ro >> 1": the rest of the line is a design assumption, read by the approximations.
+    const assumption = /^\s*assume(\s+|$)(.*)$/.exec(content);
+    if (assumption) {
+      const what = assumption[2].trim();
+      const column = content.indexOf("assume") + 1;
+      if (what === "") diagnostics.push(diagnostic("parse-error", `line ${line}, column ${column}: "assume" needs what is assumed, e.g. "assume gm*ro >> 1"`, { line, column }));
+      else assumptions.push(what);
+      return;
+    }
     try {
       const eq = content.indexOf("=");
       const head = eq >= 0 ? content.slice(0, eq) : content;
@@ -121,6 +132,7 @@ export function parseNetlistText(text: string): ParseResult {
   const network: Network = { ground: ground ?? "0", port, elements };
   if (Object.keys(quantities).length > 0) network.quantities = quantities;
   if (cells.length > 0) network.cells = cells;
+  if (assumptions.length > 0) network.assumptions = assumptions;
   return { network, diagnostics, format: "text", positions };
 }
 
@@ -342,6 +354,7 @@ export function printNetlistText(network: Network, title?: string): string {
   for (const [symbol, q] of Object.entries(network.quantities ?? {})) lines.push(`quantity ${symbol} ${q}`);
   for (const e of network.elements) lines.push(printElementLine(e));
   for (const c of network.cells ?? []) lines.push(printCellLine(c));
+  for (const a of network.assumptions ?? []) lines.push(`assume ${a}`);
   return lines.join("\n") + "\n";
 }
 

@@ -67,6 +67,7 @@ export const networkSchema = z.strictObject({
   layout: z.record(z.string(), z.unknown()).optional(),
   cells: z.array(cellInstance).optional(),
   cellDefinitions: z.array(cellDefinition).optional(),
+  assumptions: z.array(z.string().trim().min(1).max(200)).max(20).optional(),
 });
 
 /** Check a parsed JSON value against the interchange format. */
@@ -103,6 +104,7 @@ export function normalizeNetwork(input: NetworkInput): Network {
   if (input.layout !== undefined) network.layout = input.layout;
   if (input.cells && input.cells.length > 0) network.cells = input.cells.map((c) => ({ ...c }));
   if (input.cellDefinitions && input.cellDefinitions.length > 0) network.cellDefinitions = input.cellDefinitions;
+  if (input.assumptions && input.assumptions.length > 0) network.assumptions = [...input.assumptions];
   return network;
 }
 

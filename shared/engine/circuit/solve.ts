@@ -157,8 +157,10 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   const { [LAPLACE]: _s, ...given } = options.values ? parseAssignments(options.values).exact : {};
   const frequency = frequencyReport(results, given);
   if (frequency) result.frequency = frequency;
-  if (options.assume && options.assume.length > 0) {
-    const a = assumptionsOf(options.assume);
+  // Assumptions written with the network and those asked for by the caller apply alike.
+  const assume = [...(network.assumptions ?? []), ...(options.assume ?? [])];
+  if (assume.length > 0) {
+    const a = assumptionsOf(assume);
     diagnostics.push(...a.diagnostics);
     if (a.assumptions.length > 0) {
       const approximated = approximationsOf(results, a.assumptions);
