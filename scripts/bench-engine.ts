@@ -14,7 +14,7 @@
 import { spawnSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
 import { solveNetwork, solveNetworkExact, type Element, type NetworkInput } from "../shared/engine";
-import { parseValue } from "../shared/engine/algebra";
+import { readExpression } from "../shared/engine/algebra";
 
 const HERE = fileURLToPath(import.meta.url);
 const SYMPY_SCRIPT = fileURLToPath(new URL("../tests/engine/sympy/bench_port.py", import.meta.url));
@@ -98,7 +98,7 @@ function runSympy(net: NetworkInput, capSeconds: number, ours: OneRun["results"]
   if (r.status !== 0) return { seconds: null, wall, status: "error", matches: null };
   const out = JSON.parse(r.stdout) as { seconds: number; vth: string | null; rth: string | null; isc: string | null };
   // The two must be the same functions: read sympy's strings back (** as ^) and compare exactly.
-  const same = (a: string | null, b: string | null) => (a === null || b === null ? a === b : parseValue(a.replace(/\*\*/g, "^")).sub(parseValue(b)).isZero());
+  const same = (a: string | null, b: string | null) => (a === null || b === null ? a === b : readExpression(a.replace(/\*\*/g, "^")).sub(readExpression(b)).isZero());
   const matches = same(out.vth, ours.vth) && same(out.rth, ours.rth) && same(out.isc, ours.isc);
   return { seconds: out.seconds, wall, status: "ok", matches };
 }

@@ -1,4 +1,4 @@
 // The client's door into the shared engine's exact algebra, for Values, Limits and Sweep.
 // Imported only by lazily loaded screens (it carries the expression parser).
-export { Rational, RationalFunction, ValueSyntaxError, formatSI, parseSI, parseValue } from "../../shared/engine/algebra/index";
+export { Rational, RationalFunction, ValueSyntaxError, formatSI, parseSI, readExpression } from "../../shared/engine/algebra/index";
 export type { Limit } from "../../shared/engine/algebra/index";

@@ -1,7 +1,7 @@
-import { describe, expect, it } from "vitest";
+import { afterEach, describe, expect, it, vi } from "vitest";
 import fc from "fast-check";
 import nerdamer from "nerdamer";
-import { Rational, ValueSyntaxError, formatSI, parseSI, parseValue } from "../../shared/engine/algebra/index";
+import { Poly, Rational, RationalFunction, ValueSyntaxError, formatSI, parseSI, parseValue, readExpression } from "../../shared/engine/algebra/index";
 import { askSympy } from "./algebra-sympy";
 
 describe("parseValue: SI prefixes (SI Brochure, BIPM, 9th edition, 2019)", () => {
@@ -39,7 +39,10 @@ describe("parseValue: SI prefixes (SI Brochure, BIPM, 9th edition, 2019)", () =>
   });
 });
 
-describe("parseValue: errors name the column", () => {
+describe.each([
+  ["parseValue", parseValue],
+  ["readExpression", readExpression],
+] as const)("%s: errors name the column", (_, read) => {
   const cases: Array<[string, number]> = [
     ["", 1],
     ["2x", 2],
@@ -58,7 +61,7 @@ describe("parseValue: errors name the column", () => {
   it.each(cases)("%j fails at column %d", (text, column) => {
     let error: unknown;
     try {
-      parseValue(text);
+      read(text);
     } catch (e) {
       error = e;
     }
@@ -179,5 +182,153 @@ describe("parseValue results read back by sympy", () => {
     });
     expect(questions.length).toBeGreaterThan(15);
     expect(askSympy(questions)).toEqual(questions.map(() => true));
+  });
+});
+
+// ---- parseValue goes through nerdamer's parser; readExpression is our own ---------------
+
+const treeOf = () => vi.spyOn(nerdamer as unknown as { tree(text: string): unknown }, "tree");
+
+describe("parseValue reads element values with nerdamer's parser", () => {
+  afterEach(() => vi.restoreAllMocks());
+
+  it("hands nerdamer the text with SI numbers as exact rational literals; readExpression does not use nerdamer", () => {
+    const tree = treeOf();
+    parseValue("4.7u*R0 + 10k");
+    expect(tree).toHaveBeenCalledTimes(1);
+    expect(tree.mock.calls[0][0]).toBe("(47/10000000)*R0+10000");
+    readExpression("4.7u*R0 + 10k");
+    expect(tree).toHaveBeenCalledTimes(1);
+  });
+
+  it("checks the grammar before nerdamer sees the text, so faults keep our columns", () => {
+    const tree = treeOf();
+    expect(() => parseValue("R0 + * 3")).toThrow(ValueSyntaxError);
+    expect(tree).not.toHaveBeenCalled();
+  });
+
+  // SI Brochure (BIPM, 9th edition, 2019), table 7: the prefix multiplies by a power of ten, exactly.
+  const mantissas = ["1", "4.7", "0.33", "15", "2.2", "1.5e3", "680"];
+  const prefixes: Array<[string, number]> = [["T", 12], ["G", 9], ["M", 6], ["k", 3], ["m", -3], ["u", -6], ["\u00b5", -6], ["n", -9], ["p", -12], ["f", -15]];
+  it.each(mantissas.flatMap((m) => prefixes.map(([p, e]) => [m, p, e] as const)))("%s%s = %s × 10^%d exactly, times a symbol", (mantissa, prefix, exp) => {
+    // Expected value from the digits alone: 4.7 = 47 × 10^-1, 1.5e3 = 15 × 10^2.
+    const [body, e10 = "0"] = mantissa.split("e");
+    const [whole, frac = ""] = body.split(".");
+    const power = exp + Number(e10) - frac.length;
+    const digits = BigInt(whole + frac);
+    const expected = power >= 0 ? Rational.of(digits * 10n ** BigInt(power)) : Rational.of(digits, 10n ** BigInt(-power));
+    const value = parseValue(`${mantissa}${prefix} * Rs`);
+    expect(value.equals(RationalFunction.fromPoly(Poly.variable("Rs").scale(expected)))).toBe(true);
+  });
+
+  it("keeps numbers exact where floats would not: 0.1 + 0.2 = 3/10 (binary floating point gives 0.30000000000000004, common practice)", () => {
+    expect(0.1 + 0.2).not.toBe(0.3);
+    expect(parseValue("0.1 + 0.2").constantValue()!.equals(Rational.of(3, 10))).toBe(true);
+  });
+
+  it("keeps literals beyond 2^53 and tiny exponents exact", () => {
+    const big = 123456789012345678901234567890n;
+    expect(parseValue(`${big}*x + 1e-30`).equals(readExpression(`${big}*x + 1e-30`))).toBe(true);
+    expect(parseValue(`${big}*x + 1e-30`).toInfix()).toBe(`${big}*x + 1/${10n ** 30n}`);
+    expect(parseValue("(2^70 + 1)/3").constantValue()!.equals(Rational.of(2n ** 70n + 1n, 3n))).toBe(true);
+  });
+
+  it("reads R1*R2/(R1+R2) as the parallel combination, exactly (product over sum, common practice)", () => {
+    const parallel = parseValue("R1*R2/(R1+R2)");
+    expect(parallel.num.equals(Poly.variable("R1").mul(Poly.variable("R2")))).toBe(true);
+    expect(parallel.den.equals(Poly.variable("R1").add(Poly.variable("R2")))).toBe(true);
+    expect(parallel.equals(parseValue("1/(1/R1 + 1/R2)"))).toBe(true);
+    const at = (r1: string, r2: string) => parallel.substitute({ R1: parseSI(r1), R2: parseSI(r2) }).constantValue()!.toString();
+    expect(at("10k", "10k")).toBe("5000"); // equal resistors: half
+    expect(at("1k", "4k")).toBe("800");
+    expect(at("1k", "2k")).toBe("2000/3");
+  });
+
+  it("negative and integer powers, unary minus and nested parentheses", () => {
+    const y = RationalFunction.fromPoly(Poly.variable("y"));
+    const x = RationalFunction.fromPoly(Poly.variable("x"));
+    expect(parseValue("x^-2*y").equals(y.div(x.mul(x)))).toBe(true);
+    expect(parseValue("2^-2*x").equals(x.scale(Rational.of(1, 4)))).toBe(true);
+    expect(parseValue("-(-(-(R0)))").toInfix()).toBe("-R0");
+    expect(parseValue("((R0 + (mu*(R0))))^2").equals(readExpression("(R0 + mu*R0)^2"))).toBe(true);
+    expect(parseValue("(gm*ro)^(-1)").toInfix()).toBe("1/(gm*ro)");
+  });
+
+  // Each is read by sympy (parse_expr with ^ as **) as well; nerdamer alone gives a prefix sign
+  // another reach (x^-y*z is x^(-(y*z)) there), which parseValue must not inherit.
+  it("sign and precedence cases mean what sympy reads", () => {
+    const texts = ["x^-2*y", "a/-b/c", "a*-b^2", "2^-2*x", "-a^2", "a - -b*c", "-(a+b)^-1", "2^3^2", "a/b*c", "a-b+c", "-a/b/c", "+a*-b", "x^-2^2*y", "((R0))*(-(-mu))"];
+    const questions = texts.map((t) => ({ kind: "equal" as const, a: parseValue(t).toInfix(), b: t }));
+    expect(askSympy(questions)).toEqual(texts.map(() => true));
+    for (const t of texts) expect(parseValue(t).equals(readExpression(t)), t).toBe(true);
+  });
+});
+
+// Expressions written without forced brackets, so precedence, associativity and signs matter.
+const SPACES = fc.constantFrom("", "", " ", "  ");
+const NAMES_AGREE = ["R0", "mu", "gm", "beta_1", "r_pi", "e", "pi", "s", "toString"];
+const atomArb: fc.Arbitrary<string> = fc.oneof(
+  fc.constantFrom(...NAMES_AGREE),
+  fc.tuple(fc.integer({ min: 0, max: 9999 }), fc.constantFrom("", ".5", ".25", "e3", "e-2"), fc.constantFrom("", "", "k", "m", "u", "\u00b5", "M", "n", "p", "f", "T", "G")).map(([d, tail, p]) => `${d}${tail}${p}`),
+);
+const looseArb: fc.Arbitrary<string> = fc.letrec<{ e: string }>((tie) => ({
+  e: fc.oneof(
+    { depthSize: "small", withCrossShrink: true },
+    atomArb,
+    fc.tuple(tie("e"), SPACES, fc.constantFrom("+", "-", "*", "/"), SPACES, tie("e")).map((p) => p.join("")),
+    fc.tuple(tie("e"), fc.constantFrom("^", " ^ "), fc.constantFrom("2", "-1", "-2", "3", "(1+1)", "-(2)", "0", "2^-1")).map((p) => p.join("")),
+    fc.tuple(fc.constantFrom("-", "+", "- "), tie("e")).map((p) => p.join("")),
+    tie("e").map((a) => `(${a})`),
+  ),
+})).e;
+
+type Outcome = { ok: RationalFunction } | { error: ValueSyntaxError };
+const outcome = (read: (t: string) => RationalFunction, text: string): Outcome => {
+  try {
+    return { ok: read(text) };
+  } catch (e) {
+    if (!(e instanceof ValueSyntaxError)) throw e;
+    return { error: e };
+  }
+};
+const SEMANTIC = /division by zero|exponent/;
+
+/** The two readers accept the same texts with the same value; refusals name the same fault, except that readExpression may meet a semantic fault (1/0) before a later syntax fault. */
+function expectAgreement(text: string): void {
+  const ours = outcome(readExpression, text);
+  const viaNerdamer = outcome(parseValue, text);
+  if ("ok" in ours && "ok" in viaNerdamer) {
+    expect(viaNerdamer.ok.equals(ours.ok), text).toBe(true);
+    expect(viaNerdamer.ok.toInfix(), text).toBe(ours.ok.toInfix());
+    return;
+  }
+  expect("error" in ours && "error" in viaNerdamer, `${text}: one reader accepted it`).toBe(true);
+  const [a, b] = [(ours as { error: ValueSyntaxError }).error, (viaNerdamer as { error: ValueSyntaxError }).error];
+  if (a.message === b.message) return;
+  expect(SEMANTIC.test(a.message) && !SEMANTIC.test(b.message) && a.column < b.column, `${text}: "${a.message}" vs "${b.message}"`).toBe(true);
+}
+
+describe("readExpression (our reader, for engine output) and parseValue (nerdamer's parser) agree", () => {
+  it("on random expressions without forced brackets", () => {
+    fc.assert(fc.property(looseArb, expectAgreement), { numRuns: 400, seed: 7 });
+  });
+
+  it("on random bracketed expressions (the generator of the nerdamer check above)", () => {
+    fc.assert(fc.property(exprArb, (g) => expectAgreement(g.ours)), { numRuns: 200, seed: 11 });
+  });
+
+  it("on random token soup, faults included", () => {
+    const piece = fc.constantFrom("R0", "mu", "2", "4.7k", "0", "+", "-", "*", "/", "^", "(", ")", " ", "x(", "1K", "$", "2x", ".", "1e", "^-");
+    fc.assert(fc.property(fc.array(piece, { minLength: 0, maxLength: 12 }).map((a) => a.join("")), expectAgreement), { numRuns: 1500, seed: 3 });
+  });
+
+  it("on engine output read back: toInfix of a parsed value reads the same both ways", () => {
+    fc.assert(
+      fc.property(looseArb, (text) => {
+        const r = outcome(readExpression, text);
+        if ("ok" in r) expectAgreement(r.ok.toInfix());
+      }),
+      { numRuns: 200, seed: 5 },
+    );
   });
 });

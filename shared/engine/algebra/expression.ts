@@ -1,7 +1,8 @@
-// Element value expressions: identifiers, exact decimal numbers with an optional SI prefix
-// written right after the digits, + - * / ^ (integer exponents), parentheses, unary minus.
-// Parsed by our own recursive-descent parser so every error carries its column; the value
-// is built exactly with Poly / RationalFunction.
+// Value expressions: identifiers, exact decimal numbers with an optional SI prefix written
+// right after the digits, + - * / ^ (integer exponents), parentheses, unary minus.
+// One recursive-descent grammar, so every syntax error carries its column; what it builds is
+// a Reading: exact Poly / RationalFunction values here (readExpression, for the engine's own
+// printed results), or text for nerdamer's parser (parseValue in element-value.ts).
 
 import { Rational } from "./rational";
 import { Poly } from "./polynomial";
@@ -107,9 +108,50 @@ function tokenize(text: string): Token[] {
   return tokens;
 }
 
-class Parser {
+export type BinaryOp = "+" | "-" | "*" | "/";
+export type SignOp = "+" | "-";
+
+/** What the grammar builds at each production; columns are 1-based, for the error messages. */
+export interface Reading<T> {
+  number(value: Rational, column: number): T;
+  name(name: string, column: number): T;
+  group(inner: T): T;
+  binary(op: BinaryOp, left: T, right: T, column: number): T;
+  sign(op: SignOp, operand: T, column: number): T;
+  power(base: T, exponent: T, caretColumn: number, exponentColumn: number): T;
+}
+
+/** The exact meaning of each production; the nerdamer path applies the same one, so both readers agree. */
+export function exactReading(text: string): Reading<RationalFunction> {
+  const fail = (message: string, column: number): never => {
+    throw new ValueSyntaxError(message, column, text);
+  };
+  return {
+    number: (value) => RationalFunction.constant(value),
+    name: (name) => RationalFunction.fromPoly(Poly.variable(name)),
+    group: (inner) => inner,
+    binary(op, left, right, column) {
+      if (op === "+") return left.add(right);
+      if (op === "-") return left.sub(right);
+      if (op === "*") return left.mul(right);
+      if (right.isZero()) fail("division by zero", column);
+      return left.div(right);
+    },
+    sign: (op, operand) => (op === "-" ? operand.neg() : operand),
+    power(base, exponent, caretColumn, exponentColumn) {
+      const e = exponent.constantValue();
+      if (e === null || !e.isInteger()) fail("an exponent must be an integer constant", exponentColumn);
+      const n = Number(e!.num);
+      if (Math.abs(n) > MAX_EXPONENT_MAGNITUDE) fail(`exponent beyond ±${MAX_EXPONENT_MAGNITUDE}`, exponentColumn);
+      if (n < 0 && base.isZero()) fail("division by zero", caretColumn);
+      return base.pow(n);
+    },
+  };
+}
+
+class Parser<T> {
   private pos = 0;
-  constructor(private readonly tokens: Token[], private readonly text: string) {}
+  constructor(private readonly tokens: Token[], private readonly text: string, private readonly reading: Reading<T>) {}
 
   private peek(): Token {
     return this.tokens[this.pos];
@@ -124,7 +166,7 @@ class Parser {
     throw new ValueSyntaxError(message, column, this.text);
   }
 
-  parse(): RationalFunction {
+  parse(): T {
     if (this.peek().kind === "end") this.fail("empty value", 1);
     const value = this.expression();
     const t = this.peek();
@@ -134,81 +176,75 @@ class Parser {
     return value;
   }
 
-  private expression(): RationalFunction {
+  private expression(): T {
     let value = this.term();
     while (this.isOp("+") || this.isOp("-")) {
-      const op = (this.tokens[this.pos++] as { op: string }).op;
-      const rhs = this.term();
-      value = op === "+" ? value.add(rhs) : value.sub(rhs);
+      const t = this.tokens[this.pos++] as { op: BinaryOp; column: number };
+      value = this.reading.binary(t.op, value, this.term(), t.column);
     }
     return value;
   }
 
-  private term(): RationalFunction {
+  private term(): T {
     let value = this.unary();
     while (this.isOp("*") || this.isOp("/")) {
-      const t = this.tokens[this.pos++] as { op: string; column: number };
-      const rhs = this.unary();
-      if (t.op === "*") value = value.mul(rhs);
-      else {
-        if (rhs.isZero()) this.fail("division by zero", t.column);
-        value = value.div(rhs);
-      }
+      const t = this.tokens[this.pos++] as { op: BinaryOp; column: number };
+      value = this.reading.binary(t.op, value, this.unary(), t.column);
     }
     return value;
   }
 
-  private unary(): RationalFunction {
-    if (this.isOp("-")) {
-      this.pos++;
-      return this.unary().neg();
-    }
-    if (this.isOp("+")) {
-      this.pos++;
-      return this.unary();
+  private unary(): T {
+    if (this.isOp("-") || this.isOp("+")) {
+      const t = this.tokens[this.pos++] as { op: SignOp; column: number };
+      return this.reading.sign(t.op, this.unary(), t.column);
     }
     return this.power();
   }
 
-  private power(): RationalFunction {
+  private power(): T {
     const base = this.primary();
     if (!this.isOp("^")) return base;
     const caret = this.tokens[this.pos++];
-    const expColumn = this.peek().column;
-    const exponent = this.unary().constantValue();
-    if (exponent === null || !exponent.isInteger()) this.fail("an exponent must be an integer constant", expColumn);
-    const n = Number(exponent.num);
-    if (Math.abs(n) > MAX_EXPONENT_MAGNITUDE) this.fail(`exponent beyond ±${MAX_EXPONENT_MAGNITUDE}`, expColumn);
-    if (n < 0 && base.isZero()) this.fail("division by zero", caret.column);
-    return base.pow(n);
+    const exponentColumn = this.peek().column;
+    return this.reading.power(base, this.unary(), caret.column, exponentColumn);
   }
 
-  private primary(): RationalFunction {
+  private primary(): T {
     const t = this.peek();
     if (t.kind === "number") {
       this.pos++;
-      return RationalFunction.constant(t.value);
+      return this.reading.number(t.value, t.column);
     }
     if (t.kind === "ident") {
       this.pos++;
       if (this.isOp("(")) this.fail(`"${t.name}(" is not a value: functions are not part of value expressions`, this.peek().column);
-      return RationalFunction.fromPoly(Poly.variable(t.name));
+      return this.reading.name(t.name, t.column);
     }
     if (t.kind === "op" && t.op === "(") {
       this.pos++;
       const inner = this.expression();
       if (!this.isOp(")")) this.fail("expected )", this.peek().column);
       this.pos++;
-      return inner;
+      return this.reading.group(inner);
     }
     if (t.kind === "end") this.fail("unexpected end of the value", t.column);
     this.fail(`unexpected "${(t as { op: string }).op}"`, t.column);
   }
 }
 
-/** Parse an element value such as "R0", "10k", "4.7u", "gm*R0/(1 + gm*Rs)", "2^-3", exactly. */
-export function parseValue(text: string): RationalFunction {
-  return new Parser(tokenize(text), text).parse();
+/** Check text against the value grammar (columns in every error) and build it with reading. */
+export function readWith<T>(text: string, reading: Reading<T>): T {
+  return new Parser(tokenize(text), text, reading).parse();
+}
+
+/**
+ * Our own reader, for text the engine printed itself (toInfix of results, up to tens of
+ * thousands of terms), where nerdamer would be slow. Same grammar and the same exact value as
+ * parseValue on every input both accept; user-typed element values go through parseValue.
+ */
+export function readExpression(text: string): RationalFunction {
+  return readWith(text, exactReading(text));
 }
 
 /** A plain number with optional SI prefix (a space before the prefix is allowed): "4.7k" -> 4700 exactly. */

@@ -1,4 +1,4 @@
-import { Rational, RationalFunction, parseSI, parseValue } from "@/lib/engine";
+import { Rational, RationalFunction, parseSI, readExpression } from "@/lib/engine";
 import type { ResultName, Results } from "@/types/api";
 import { RESULT_NAMES } from "./quantities";
 
@@ -11,7 +11,7 @@ export function readExactResults(results: Results): ExactResults {
     const form = results[name];
     if (!form) continue;
     try {
-      exact[name] = parseValue(form.infix);
+      exact[name] = readExpression(form.infix);
     } catch {
       // A result the client cannot read stays out of Values/Limits/Sweep; the ledger still shows it.
     }

@@ -1,7 +1,7 @@
 import { useId, useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { MathTex } from "@/components/ui/math";
-import { formatSI, parseSI, parseValue } from "@/lib/engine";
+import { formatSI, parseSI, readExpression } from "@/lib/engine";
 import { readTypedValues, type ExactResults } from "@/features/analysis/lib/exact-results";
 import { RESULT_LABEL, RESULT_NAMES, RESULT_UNIT, symbolUnit } from "@/features/analysis/lib/quantities";
 import type { TypedValues } from "@/features/analysis/components/values-panel";
@@ -43,7 +43,7 @@ export function DesignSolve({ exact, symbols, quantities, values }: { exact: Exa
     const t = readTarget(target, unit);
     if ("error" in t) return setAnswer({ error: `Target: ${t.error}` });
     const quantity = (quantities[symbol] ?? null) as Quantity | null;
-    const a = designSolve({ result: rf, label: RESULT_LABEL[result], symbol, target: parseValue(t.value.toString()), values: given, quantity });
+    const a = designSolve({ result: rf, label: RESULT_LABEL[result], symbol, target: readExpression(t.value.toString()), values: given, quantity });
     setAnswer({ answer: a, symbol, unit: symbolUnit(symbol, quantity) });
   };
   return (
@@ -108,7 +108,7 @@ function AnswerView({ answer, symbol, unit }: { answer: DesignSolveAnswer; symbo
   return (
     <div>
       <div className="overflow-x-auto">
-        <MathTex tex={`${parseValue(symbol).toTex()} = ${answer.value.compactTex()}`} />
+        <MathTex tex={`${readExpression(symbol).toTex()} = ${answer.value.compactTex()}`} />
       </div>
       {answer.number !== null && (
         <p className="font-mono text-base font-medium" data-testid="design-solve-number">

@@ -1,7 +1,7 @@
 import { lazy, Suspense, useMemo } from "react";
 import { MathTex } from "@/components/ui/math";
 import { Progress } from "@/components/ui/states";
-import { formatSI, parseValue, type RationalFunction } from "@/lib/engine";
+import { formatSI, readExpression, type RationalFunction } from "@/lib/engine";
 import type { ChartSeries } from "@/features/analysis/components/sweep-chart";
 import { readTypedValues, type ExactResults } from "@/features/analysis/lib/exact-results";
 import type { TypedValues } from "@/features/analysis/components/values-panel";
@@ -67,8 +67,8 @@ export function FrequencyPanel({ exact, values }: { exact: ExactResults; values:
       const c = limit?.substitute(given).constantValue();
       return c ? Math.abs(c.toNumber()) : null;
     };
-    const dc = limits?.dc.kind === "finite" ? at(parseValue(limits.dc.value!)) : null;
-    const hf = limits?.hf.kind === "finite" ? at(parseValue(limits.hf.value!)) : null;
+    const dc = limits?.dc.kind === "finite" ? at(readExpression(limits.dc.value!)) : null;
+    const hf = limits?.hf.kind === "finite" ? at(readExpression(limits.hf.value!)) : null;
     const mag: ChartSeries[] = [{ label: "|Zth|", values: magnitude.map((m) => (Number.isFinite(m) && m > 0 ? m : null)), color: "#B5562B" }];
     if (dc !== null && dc > 0) mag.push({ label: "DC limit", values: f.map(() => dc), color: "#2F7D6D", dash: [5, 4] });
     if (hf !== null && hf > 0) mag.push({ label: "high-frequency limit", values: f.map(() => hf), color: "#1E2430", dash: [2, 3] });
