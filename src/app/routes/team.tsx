@@ -3,6 +3,8 @@ import { useParams } from "react-router-dom";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/states";
 import { RequireAccount } from "@/features/auth/components/require-account";
+import { AddCellForm } from "@/features/cells/components/add-cell-form";
+import { TeamCells } from "@/features/cells/components/team-cells";
 import { CreateNetworkDialog } from "@/features/networks/components/create-network-dialog";
 import { ImportNetworkDialog } from "@/features/networks/components/import-network-dialog";
 import { NetworksTable } from "@/features/networks/components/networks-table";
@@ -54,6 +56,22 @@ export function TeamRoute() {
               {team.role === "owner" && (
                 <div className="mt-3">
                   <InviteMemberForm teamId={team.id} />
+                </div>
+              )}
+            </section>
+            <section className="mt-10 border-t border-rule pt-4" aria-labelledby="cells-heading">
+              <h2 id="cells-heading" className="text-sm font-semibold">
+                Cells
+              </h2>
+              <p className="mt-0.5 max-w-3xl text-xs text-ink/70">
+                Reusable blocks of elements the team's networks place by id, as <code className="font-mono">{"<name> cell <id> <terminal>=<node> …"}</code>
+              </p>
+              <div className="mt-2">
+                <TeamCells teamId={team.id} canEdit={canEdit} />
+              </div>
+              {canEdit && (
+                <div className="mt-5">
+                  <AddCellForm teamId={team.id} />
                 </div>
               )}
             </section>
