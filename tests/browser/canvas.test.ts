@@ -11,13 +11,10 @@ import { launchBrowser, screenshotDir, type TestBrowser } from "../support/brows
 import { linkIn, waitForMail } from "../support/mail.js";
 import { startTestServer, type TestServer } from "../support/server.js";
 import { watchPage } from "./page-watch.js";
+import { shot, signUpThroughForm } from "./page-steps.js";
 
 const run = Date.now().toString(36);
 const designer = { name: "Dana Drafter", email: `dana-${run}@example.com`, password: "copper verdigris paper" };
-
-async function shot(page: Page, name: string) {
-  await page.screenshot({ path: `${screenshotDir}/canvas-${name}.png`, fullPage: true });
-}
 
 // Grid point → page pixels, from the canvas's own transform.
 async function at(page: Page, gx: number, gy: number): Promise<[number, number]> {
@@ -71,10 +68,7 @@ describe("schematic canvas in chromium", () => {
 
   it("signs up and creates an empty network", async () => {
     await page.goto(`${server.url}/sign-up`);
-    await page.getByLabel("Name").fill(designer.name);
-    await page.getByLabel("E-mail").fill(designer.email);
-    await page.getByLabel("Password").fill(designer.password);
-    await page.getByRole("button", { name: "Create account" }).click();
+    await signUpThroughForm(page, designer);
     await page.waitForURL(/\/teams\/[0-9a-f-]{36}$/);
     const mail = await waitForMail(server.db, designer.email, { subject: /confirm/i });
     const teamUrl = page.url();
@@ -135,11 +129,11 @@ describe("schematic canvas in chromium", () => {
     await click(page, 10, 3);
 
     const canvas = page.getByTestId("schematic-canvas");
-    await shot(page, "drawn");
+    await shot(page, "canvas-drawn");
     await expect(canvas.getAttribute("aria-label")).resolves.toBe("Drawing: 3 parts, port out to 0");
     await expect(page.locator('[data-part="Amp"]').getAttribute("aria-label")).resolves.toBe("Amp: vcvs, mu·across(in, out)");
     expect(await page.locator("[data-junction]").count()).toBe(0);
-    await shot(page, "drawn");
+    await shot(page, "canvas-drawn");
 
     // The netlist says what the drawing says.
     await page.getByRole("tab", { name: "Netlist text" }).click();
@@ -181,7 +175,7 @@ describe("schematic canvas in chromium", () => {
     await page.getByRole("tab", { name: "Drawing" }).click();
     await expect(page.getByTestId("schematic-canvas").getAttribute("aria-label")).resolves.toBe("Drawing: 3 parts, port out to 0");
     await expect(page.locator('[data-label="out"]').count()).resolves.toBe(1);
-    await shot(page, "solved");
+    await shot(page, "canvas-solved");
   });
 
   it("places a part added in the text on the canvas", async () => {
@@ -192,7 +186,7 @@ describe("schematic canvas in chromium", () => {
     await page.locator('[data-part="Load"]').waitFor();
     await expect(page.getByTestId("schematic-canvas").getAttribute("aria-label")).resolves.toBe("Drawing: 4 parts, port out to 0");
     // Undo of a drawing edit: remove Load by selecting it and pressing Delete, then undo.
-    await shot(page, "text-added");
+    await shot(page, "canvas-text-added");
     expect(problems).toEqual([]);
   });
 

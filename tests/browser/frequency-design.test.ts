@@ -8,6 +8,7 @@ import { ApiClient } from "../support/api.js";
 import { launchBrowser, screenshotDir, type TestBrowser } from "../support/browser.js";
 import { startTestServer, type TestServer } from "../support/server.js";
 import { watchPage } from "./page-watch.js";
+import { importNetlist, shot, signInThroughForm } from "./page-steps.js";
 
 // Zth = Rs + R/(1 + sRC): DC limit Rs + R, high-frequency limit Rs (common practice),
 // pole at s = −1/(RC), zero at s = −(Rs + R)/(Rs·R·C).
@@ -21,10 +22,6 @@ Csh capacitor n 0 = C
 
 const run = Date.now().toString(36);
 const user = { name: "Fran Freq", email: `fran-${run}@example.com`, password: "first password 1" };
-
-async function shot(page: Page, name: string) {
-  await page.screenshot({ path: `${screenshotDir}/${name}.png`, fullPage: true });
-}
 
 describe("frequency panel and design solve in chromium", () => {
   let server: TestServer;
@@ -47,16 +44,8 @@ describe("frequency panel and design solve in chromium", () => {
   });
 
   it("solves the RC network and draws the Bode plot with its limits, pole and zero", async () => {
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel("E-mail").fill(user.email);
-    await page.getByLabel("Password").fill(user.password);
-    await page.getByRole("button", { name: "Sign in" }).click();
-    await page.waitForURL(/\/teams\//);
-    await page.getByRole("button", { name: "Import from file" }).click();
-    await page.getByLabel("File", { exact: true }).setInputFiles({ name: "sensor-rc.pfn", mimeType: "text/plain", buffer: Buffer.from(SENSOR_RC) });
-    await page.getByLabel(/^Title/).fill("Sensor RC");
-    await page.getByRole("button", { name: "Import", exact: true }).click();
-    await page.waitForURL(/\/networks\/[0-9a-f-]{36}$/);
+    await signInThroughForm(page, server.url, user);
+    await importNetlist(page, { name: "sensor-rc.pfn", text: SENSOR_RC, title: "Sensor RC" });
     await page.getByRole("button", { name: "Solve", exact: true }).click();
     await page.waitForURL(/\/r\/1$/, { timeout: 30_000 });
 

@@ -8,6 +8,7 @@ import { launchBrowser, screenshotDir, type TestBrowser } from "../support/brows
 import { linkIn, waitForMail } from "../support/mail.js";
 import { startTestServer, type TestServer } from "../support/server.js";
 import { watchPage } from "./page-watch.js";
+import { shot, signUpThroughForm } from "./page-steps.js";
 
 // A sensor buffer: a finite-gain amplifier (gain mu, output resistance R0) wired as a voltage follower.
 // Textbook fact (finite-gain voltage follower; e.g. Sedra & Smith, Microelectronic Circuits, from memory):
@@ -23,17 +24,6 @@ OutputRes resistor x out = R0
 const run = Date.now().toString(36);
 const author = { name: "Ada Author", email: `ada-${run}@example.com`, password: "correct horse battery" };
 const reviewer = { name: "Rui Reviewer", email: `rui-${run}@example.com`, password: "staple gun tangerine" };
-
-async function shot(page: Page, name: string) {
-  await page.screenshot({ path: `${screenshotDir}/${name}.png`, fullPage: true });
-}
-
-async function signUp(page: Page, who: typeof author) {
-  await page.getByLabel("Name").fill(who.name);
-  await page.getByLabel("E-mail").fill(who.email);
-  await page.getByLabel("Password").fill(who.password);
-  await page.getByRole("button", { name: "Create account" }).click();
-}
 
 describe("review flow in chromium", () => {
   let server: TestServer;
@@ -61,7 +51,7 @@ describe("review flow in chromium", () => {
   it("signs up, confirms the address and lands on the personal team", async () => {
     await page.goto(`${server.url}/sign-up`);
     await shot(page, "sign-up");
-    await signUp(page, author);
+    await signUpThroughForm(page, author);
     await page.waitForURL(/\/teams\/[0-9a-f-]{36}$/);
     teamUrl = page.url();
     await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toBe(`${author.name}'s networks`);
@@ -180,7 +170,7 @@ describe("review flow in chromium", () => {
 
     await guest.getByRole("link", { name: "Sign in to comment" }).first().click();
     await guest.getByRole("link", { name: "Create an account" }).click();
-    await signUp(guest, reviewer);
+    await signUpThroughForm(guest, reviewer);
     await guest.waitForURL(shareUrl);
 
     const invitation = await waitForMail(server.db, reviewer.email, { subject: /invit/i });

@@ -8,6 +8,7 @@ import { parseValue } from "../../shared/engine/algebra/index.js";
 import { launchBrowser, screenshotDir, type TestBrowser } from "../support/browser.js";
 import { startTestServer, type TestServer } from "../support/server.js";
 import { watchPage } from "./page-watch.js";
+import { shot, signUpThroughForm } from "./page-steps.js";
 
 // The cell: a bias divider, upper leg from terminal t to m, lower leg from m to the ground (node 0 inside a cell).
 const DIVIDER_LINES = `# bias divider for a sensor input
@@ -25,10 +26,6 @@ Bias cell div2 t=ref m=out
 
 const run = Date.now().toString(36);
 const editor = { name: "Cela Cellwright", email: `cela-${run}@example.com`, password: "copper verdigris ledger" };
-
-async function shot(page: Page, name: string) {
-  await page.screenshot({ path: `${screenshotDir}/${name}.png`, fullPage: true });
-}
 
 describe("team cells in chromium", () => {
   let server: TestServer;
@@ -55,10 +52,7 @@ describe("team cells in chromium", () => {
 
   it("signs up and finds no team cells yet", async () => {
     await page.goto(`${server.url}/sign-up`);
-    await page.getByLabel("Name").fill(editor.name);
-    await page.getByLabel("E-mail").fill(editor.email);
-    await page.getByLabel("Password").fill(editor.password);
-    await page.getByRole("button", { name: "Create account" }).click();
+    await signUpThroughForm(page, editor);
     await page.waitForURL(/\/teams\/[0-9a-f-]{36}$/);
     teamUrl = page.url();
     await cells().getByText("No cells in this team yet.").waitFor();

@@ -10,6 +10,7 @@ import { launchBrowser, screenshotDir, type TestBrowser } from "../support/brows
 import { linkIn, waitForMail } from "../support/mail.js";
 import { startTestServer, type TestServer } from "../support/server.js";
 import { watchPage } from "./page-watch.js";
+import { importNetlist, shot, signInThroughForm } from "./page-steps.js";
 
 // A strain-gauge bridge read differentially between its two mid-points.
 // Common practice (Wheatstone bridge): Vth = Vs*(Rb/(Ra+Rb) - Rd/(Rc+Rd)), zero when balanced,
@@ -26,10 +27,6 @@ Gauge resistor b 0 = Rd
 
 const run = Date.now().toString(36);
 const user = { name: "Tess Tools", email: `tess-${run}@example.com`, password: "first password 1" };
-
-async function shot(page: Page, name: string) {
-  await page.screenshot({ path: `${screenshotDir}/${name}.png`, fullPage: true });
-}
 
 async function downloaded(page: Page, menuItem: string): Promise<{ name: string; text: string }> {
   await page.getByRole("button", { name: "Export" }).click();
@@ -63,16 +60,8 @@ describe("workbench tools in chromium", () => {
   });
 
   it("signs in and imports a netlist file", async () => {
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel("E-mail").fill(user.email);
-    await page.getByLabel("Password").fill(user.password);
-    await page.getByRole("button", { name: "Sign in" }).click();
-    await page.waitForURL(/\/teams\//);
-    await page.getByRole("button", { name: "Import from file" }).click();
-    await page.getByLabel("File", { exact: true }).setInputFiles({ name: "strain-bridge.pfn", mimeType: "text/plain", buffer: Buffer.from(BRIDGE) });
-    await page.getByLabel(/^Title/).fill("Strain bridge");
-    await page.getByRole("button", { name: "Import", exact: true }).click();
-    await page.waitForURL(/\/networks\/[0-9a-f-]{36}$/);
+    await signInThroughForm(page, server.url, user);
+    await importNetlist(page, { name: "strain-bridge.pfn", text: BRIDGE, title: "Strain bridge" });
     networkUrl = page.url();
     await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toBe("Strain bridge");
   });
