@@ -8,8 +8,6 @@ export function watchPage(page: Page, problems: string[]): Page {
   page.on("console", (message) => {
     if (message.type() !== "error") return;
     if (message.text().startsWith("Failed to load resource")) return;
-    // Only the client's own screens are judged here; the server-rendered development mailbox is not one.
-    if (new URL(page.url()).pathname.startsWith("/dev/")) return;
     problems.push(`console at ${page.url()}: ${message.text()}`);
   });
   return page;

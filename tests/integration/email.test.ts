@@ -122,5 +122,9 @@ describe("e-mail through the SMTP capture server", () => {
     expect(html).toContain("&lt;img src=x onerror=&quot;alert(1)&quot;&gt;");
     expect(html).not.toContain("<img src=x");
     expect(html).toMatch(/<a href="http:\/\/127\.0\.0\.1:\d+\/verify-email\?token=[A-Za-z0-9_-]{43}">/);
+    // Styled by a stylesheet of our own origin, which the Content-Security-Policy allows, not inline.
+    expect(html).not.toContain("<style");
+    const css = await fetch(`${server.url}/dev/mailbox.css`);
+    expect(css.headers.get("content-type")).toContain("text/css");
   });
 });
