@@ -156,6 +156,24 @@ describe("schematic canvas in chromium", () => {
     await page.keyboard.press("Escape");
   });
 
+  it("turns a part a quarter with Q, and Ctrl+Z puts it back, Ctrl+Shift+Z turns it again", async () => {
+    const body = page.locator('[data-part="R0"] > g[transform]').first();
+    const lying = await body.getAttribute("transform");
+    expect(lying).toMatch(/rotate\(0\)/);
+    await click(page, 16, -6); // selects R0
+    const keys = page.getByLabel("Schematic canvas: press ? for the keys");
+    await keys.focus();
+    await page.keyboard.press("q");
+    await expect.poll(() => body.getAttribute("transform")).toMatch(/rotate\(90\)/);
+    await page.keyboard.press("Control+z");
+    await expect.poll(() => body.getAttribute("transform")).toBe(lying);
+    await page.keyboard.press("Control+Shift+z");
+    await expect.poll(() => body.getAttribute("transform")).toMatch(/rotate\(90\)/);
+    await page.keyboard.press("Control+z");
+    await expect.poll(() => body.getAttribute("transform")).toBe(lying);
+    await expect(page.getByTestId("schematic-canvas").getAttribute("aria-label")).resolves.toBe("Drawing: 3 parts, port out to 0");
+  });
+
   it("solves the drawing and reads Rth = R0/(1 + mu) from the ledger, 47 Ω at R0 = 4.7k, mu = 99", async () => {
     await page.getByRole("button", { name: "Solve", exact: true }).click();
     await page.waitForURL(/\/r\/1$/, { timeout: 60_000 });

@@ -31,12 +31,14 @@ function follow(d: Drawing, moves: Map<string, Point>, parts: Part[], selected: 
   const labels = new Set(selected.labels);
   const grounds = new Set(selected.grounds);
   const delta = moves.get("delta");
+  // A port terminal may sit inside a wire, not on a moved point; it rides along when that wire is moved whole.
+  const portTo = (p: Point) => to(p, d.wires.some(([a, b], i) => wires.has(i) && insideSegment(p, a, b)), delta);
   return {
     parts,
     wires: d.wires.map(([a, b], i) => [to(a, wires.has(i), delta), to(b, wires.has(i), delta)] as const),
     labels: d.labels.map((l, i) => ({ ...l, at: to(l.at, labels.has(i), delta) })),
     grounds: d.grounds.map((g, i) => to(g, grounds.has(i), delta)),
-    port: d.port && { plus: to(d.port.plus, false), minus: to(d.port.minus, false) },
+    port: d.port && { plus: portTo(d.port.plus), minus: portTo(d.port.minus) },
   };
 }
 
