@@ -147,19 +147,28 @@ describe("a mirror", () => {
     ]);
   });
 
-  it("exchanges a standing source's pin places and its wire and ground go with them, so the circuit is unchanged", () => {
+  it("turns a standing source round in place: its wire and ground stay, so its polarity is reversed", () => {
     const d = frontEnd();
     const flipped = mirrorSelection(d, only("Vs"));
     expect(pinsOf(flipped, "Vs")).toEqual([
       [0, 3],
       [0, -3],
     ]);
-    expect(flipped.wires[0]).toEqual([
-      [0, 3],
-      [3, -3],
-    ]);
-    expect(flipped.grounds[0]).toEqual([0, -3]);
-    expect(read(flipped)).toEqual(read(d));
+    expect(flipped.wires).toEqual(d.wires);
+    expect(flipped.grounds).toEqual(d.grounds);
+    expect(read(flipped).nodes.Vs).toEqual([...read(d).nodes.Vs].reverse());
+    expect(read(flipped).nodes.Rs).toEqual(read(d).nodes.Rs);
+  });
+
+  it("mirrors a resistor lying in a straight run of wire without shorting it", () => {
+    const r: Element = { name: "Rser", kind: "resistor", nodes: ["a", "b"], value: "R" };
+    let d = addPart(EMPTY_DRAWING, r, [6, 0], 0);
+    const [p, q] = pinsOf(d, "Rser");
+    d = addWire(addWire(d, [p[0] - 3, p[1]], p), q, [q[0] + 3, q[1]]);
+    d = addLabel(addLabel(d, [p[0] - 3, p[1]], "left"), [q[0] + 3, q[1]], "right");
+    const flipped = mirrorSelection(d, only("Rser"));
+    expect(read(flipped).nodes.Rser).toEqual(["right", "left"]);
+    expect(read(d).nodes.Rser).toEqual(["left", "right"]);
   });
 });
 

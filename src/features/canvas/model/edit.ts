@@ -64,6 +64,10 @@ function reorient(d: Drawing, s: Selection, change: (p: Part) => Part): Drawing 
     const next = change(p);
     const before = partPins(p);
     const after = partPins(next);
+    // Pins that only trade places (a two-terminal part mirrored along its axis) keep their wires where
+    // they are, so the part turns round in place; moving the wires with them would lay them across it.
+    const samePlaces = new Set(before.map(pointKey));
+    if (after.length === before.length && after.every((q) => samePlaces.has(pointKey(q)))) return next;
     before.forEach((q, j) => moves.set(pointKey(q), after[j]));
     return next;
   });
