@@ -4,11 +4,7 @@
 import { describe, expect, it } from "vitest";
 import { parseValue } from "../../shared/engine/algebra";
 import { approximate, parseAssumption, parseNetwork, printNetlistText, solveNetwork, toSolveOutput } from "../../shared/engine";
-
-function expectSame(actual: string | undefined | null, expected: string): void {
-  expect(actual, `expected ${expected}`).toBeTypeOf("string");
-  expect(parseValue(actual!).sub(parseValue(expected)).isZero(), `${actual} vs ${expected}`).toBe(true);
-}
+import { expectSameExpression } from "../support/expressions";
 
 const CASCODE = `
 port out 0
@@ -20,8 +16,8 @@ describe("approximations", () => {
   it("cascode: Rout ≈ gm2·ro2·ro1 for gm·ro ≫ 1, as its own ledger step", () => {
     // Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3 (cascode Rout ≈ gm2 ro2 ro1); from memory.
     const r = solveNetwork(CASCODE, { assume: ["gm*ro >> 1"], sensitivities: false });
-    expectSame(r.rth?.infix, "ro1 + ro2 + gm2*ro1*ro2");
-    expectSame(r.approximations?.results.rth?.approximate, "gm2*ro2*ro1");
+    expectSameExpression(r.rth?.infix, "ro1 + ro2 + gm2*ro1*ro2");
+    expectSameExpression(r.approximations?.results.rth?.approximate, "gm2*ro2*ro1");
     expect(r.approximations?.assumptions).toEqual(["gm*ro >> 1"]);
     const step = r.steps.find((s) => s.id === "approx.rth");
     expect(step?.kind).toBe("approximation");
@@ -33,21 +29,21 @@ describe("approximations", () => {
   it("cascode with body effect: Rout ≈ (gm2 + gmb2)·ro2·ro1", () => {
     // Razavi, 2nd ed., ch. 3 (cascode with body effect); from memory.
     const r = solveNetwork(CASCODE.replace("b=x", "b=0"), { assume: ["gm*ro >> 1"], steps: false });
-    expectSame(r.approximations?.results.rth?.approximate, "(gm2 + gmb2)*ro2*ro1");
+    expectSameExpression(r.approximations?.results.rth?.approximate, "(gm2 + gmb2)*ro2*ro1");
   });
 
   it("degenerated common source: Rout ≈ ro(1 + gm·Rs) for gm·ro ≫ 1 (Rs alone is dropped, ro is kept)", () => {
     // Razavi, 2nd ed., ch. 3 (CS with degeneration, Rout ≈ (1 + gm Rs) ro when gm ro ≫ 1); from memory.
     const r = solveNetwork("port out 0\nDegen resistor src 0 = Rs\nM1 cell mosfet g=0 d=out s=src b=src\n", { assume: ["gm*ro >> 1"], steps: false });
-    expectSame(r.rth?.infix, "ro + Rs + gm*ro*Rs");
-    expectSame(r.approximations?.results.rth?.approximate, "ro*(1 + gm*Rs)");
+    expectSameExpression(r.rth?.infix, "ro + Rs + gm*ro*Rs");
+    expectSameExpression(r.approximations?.results.rth?.approximate, "ro*(1 + gm*Rs)");
   });
 
   it("finite-gain follower: Rout ≈ Ro/A and Vth ≈ Vs for A ≫ 1", () => {
     // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 2 (follower: Ro/(1 + A) ≈ Ro/A, gain ≈ 1); from memory.
     const r = solveNetwork("port out 0\nSig vsource in 0 = Vs\nAmp vcvs x 0 = A * across(in, out)\nRout resistor x out = Ro\n", { assume: ["A >> 1"], steps: false });
-    expectSame(r.approximations?.results.rth?.approximate, "Ro/A");
-    expectSame(r.approximations?.results.vth?.approximate, "Vs");
+    expectSameExpression(r.approximations?.results.rth?.approximate, "Ro/A");
+    expectSameExpression(r.approximations?.results.vth?.approximate, "Vs");
   });
 
   it("a stem covers its numbered kin only (gm covers gm1, gm_2, not gmb)", () => {
@@ -73,7 +69,7 @@ describe("approximations", () => {
     expect(parseNetwork(printNetlistText(read.network!)).network).toEqual(read.network);
     expect(parseNetwork(JSON.stringify(read.network)).network?.assumptions).toEqual(["gm*ro >> 1"]);
     const r = solveNetwork(text, { sensitivities: false });
-    expectSame(r.approximations?.results.rth?.approximate, "gm2*ro2*ro1");
+    expectSameExpression(r.approximations?.results.rth?.approximate, "gm2*ro2*ro1");
     expect(r.steps.find((s) => s.id === "approx.rth")?.kind).toBe("approximation");
   });
 

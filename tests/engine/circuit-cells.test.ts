@@ -5,16 +5,12 @@ import { describe, expect, it } from "vitest";
 import { parseValue } from "../../shared/engine/algebra";
 import { parseNetwork, printNetlistText, solveNetwork, toSolveOutput, type SolveResult } from "../../shared/engine";
 import { checkCellDefinition } from "../../shared/engine/circuit/cells";
+import { expectSameExpression } from "../support/expressions";
 
 function solve(input: string | object, options: Parameters<typeof solveNetwork>[1] = {}): SolveResult {
   const r = solveNetwork(input as string, { steps: false, sensitivities: false, ...options });
   expect(r.diagnostics.filter((d) => d.severity === "error")).toEqual([]);
   return r;
-}
-
-function expectSame(actual: string | undefined | null, expected: string): void {
-  expect(actual, `expected ${expected}`).toBeTypeOf("string");
-  expect(parseValue(actual!).sub(parseValue(expected)).isZero(), `${actual} vs ${expected}`).toBe(true);
 }
 
 describe("bipolar stages (hybrid-π cell)", () => {
@@ -26,9 +22,9 @@ describe("bipolar stages (hybrid-π cell)", () => {
       Rsig resistor in b = Rs
       Load resistor c 0 = RC
       Q1 cell bjt-hybrid-pi b=b c=c e=0`);
-    expectSame(r.rth?.infix, "RC*ro/(RC + ro)");
+    expectSameExpression(r.rth?.infix, "RC*ro/(RC + ro)");
     // Gain into an open port: Vth = −gm (RC ∥ ro) · Vs·r_pi/(Rs + r_pi) (same source).
-    expectSame(r.vth?.infix, "-gm*(RC*ro/(RC + ro))*Vs*r_pi/(Rs + r_pi)");
+    expectSameExpression(r.vth?.infix, "-gm*(RC*ro/(RC + ro))*Vs*r_pi/(Rs + r_pi)");
   });
 
   it("common base: Rout = ro + (1 + gm·ro)(Re ∥ r_pi) looking into the collector", () => {
@@ -38,7 +34,7 @@ describe("bipolar stages (hybrid-π cell)", () => {
       Sig vsource in 0 = Vs
       Rsig resistor in e = Re
       Q1 cell bjt-hybrid-pi b=0 c=c e=e`);
-    expectSame(r.rth?.infix, "ro + (1 + gm*ro)*(Re*r_pi/(Re + r_pi))");
+    expectSameExpression(r.rth?.infix, "ro + (1 + gm*ro)*(Re*r_pi/(Re + r_pi))");
   });
 
   it("common collector (emitter follower): Rout = RE ∥ ro ∥ (r_pi + Rs)/(1 + β), β = gm·r_pi", () => {
@@ -49,7 +45,7 @@ describe("bipolar stages (hybrid-π cell)", () => {
       Rsig resistor in b = Rs
       Rbias resistor e 0 = RE
       Q1 cell bjt-hybrid-pi b=b c=0 e=e`);
-    expectSame(r.rth?.infix, "1/(1/RE + 1/ro + (1 + gm*r_pi)/(r_pi + Rs))");
+    expectSameExpression(r.rth?.infix, "1/(1/RE + 1/ro + (1 + gm*r_pi)/(r_pi + Rs))");
   });
 });
 
@@ -63,7 +59,7 @@ describe("MOSFET stages", () => {
   it("cascode: Rout = ro1 + ro2 + (gm2 + gmb2)·ro1·ro2", () => {
     // Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3 (cascode stage); from memory.
     const r = solve(CASCODE);
-    expectSame(r.rth?.infix, "ro1 + ro2 + (gm2 + gmb2)*ro1*ro2");
+    expectSameExpression(r.rth?.infix, "ro1 + ro2 + (gm2 + gmb2)*ro1*ro2");
     expect(r.rth?.symbols).toEqual(["gm2", "gmb2", "ro1", "ro2"]);
   });
 
@@ -73,7 +69,7 @@ describe("MOSFET stages", () => {
       port out 0
       Bias isource out 0 = Ib
       M1 cell mosfet g=0 d=0 s=out b=0`);
-    expectSame(r.rth?.infix, "1/(gm + gmb + 1/ro)");
+    expectSameExpression(r.rth?.infix, "1/(gm + gmb + 1/ro)");
   });
 
   it("source-degenerated common source: Rout = ro + Rs + (gm + gmb)·ro·Rs", () => {
@@ -82,7 +78,7 @@ describe("MOSFET stages", () => {
       port out 0
       Degen resistor src 0 = Rs
       M1 cell mosfet g=0 d=out s=src b=0`);
-    expectSame(r.rth?.infix, "ro + Rs + (gm + gmb)*ro*Rs");
+    expectSameExpression(r.rth?.infix, "ro + Rs + (gm + gmb)*ro*Rs");
   });
 
   it("optional Cgs and Cgd: a common-source stage's input admittance s(Cgs + Cgd(1 + gm·RD))", () => {
@@ -98,10 +94,10 @@ describe("MOSFET stages", () => {
     if (exact.kind !== "finite") return;
     // The exact input admittance is s·Cgs + s·Cgd(1 + gm·RD)/(1 + s·Cgd·RD); at low frequency the Miller form.
     const y = exact.value.inverse();
-    expectSame(y.toInfix(), "s*Cgs + s*Cgd*(1 + gm*RD)/(1 + s*Cgd*RD)");
+    expectSameExpression(y.toInfix(), "s*Cgs + s*Cgd*(1 + gm*RD)/(1 + s*Cgd*RD)");
     const miller = y.div(parseValue("s")).limit("s", "zero");
     expect(miller.kind).toBe("finite");
-    if (miller.kind === "finite") expectSame(miller.value.toInfix(), "Cgs + Cgd*(1 + gm*RD)");
+    if (miller.kind === "finite") expectSameExpression(miller.value.toInfix(), "Cgs + Cgd*(1 + gm*RD)");
   });
 });
 
@@ -114,10 +110,10 @@ describe("finite-gain amplifier cell", () => {
       U1 cell amplifier p=in n=out o=out`);
     const lim = parseValue(r.rth!.infix).limit("Rin", "inf");
     expect(lim.kind).toBe("finite");
-    if (lim.kind === "finite") expectSame(lim.value.toInfix(), "Ro/(1 + A)");
+    if (lim.kind === "finite") expectSameExpression(lim.value.toInfix(), "Ro/(1 + A)");
     // With an ideal source at p, Rin is in parallel with nothing that matters: Vth = A·Vs/(1 + A) exactly, as Rin → ∞.
     const v = parseValue(r.vth!.infix).limit("Rin", "inf");
-    if (v.kind === "finite") expectSame(v.value.toInfix(), "A*Vs/(1 + A)");
+    if (v.kind === "finite") expectSameExpression(v.value.toInfix(), "A*Vs/(1 + A)");
   });
 });
 
@@ -139,7 +135,7 @@ describe("cell instances: formats and diagnostics", () => {
     const back = parseNetwork(text);
     expect(back.network!.cells).toEqual(JSON_CASCODE.cells);
     // Body tied to source: no body effect, Rout = ro1 + ro2 + gm2·ro1·ro2 (Razavi, 2nd ed., ch. 3; from memory).
-    expectSame(solve(JSON_CASCODE).rth?.infix, "ro1 + ro2 + gm2*ro1*ro2");
+    expectSameExpression(solve(JSON_CASCODE).rth?.infix, "ro1 + ro2 + gm2*ro1*ro2");
     expect(solve(text).rth?.infix).toBe(solve(JSON_CASCODE).rth?.infix);
   });
 
@@ -153,7 +149,7 @@ describe("cell instances: formats and diagnostics", () => {
 
   it("a renamed symbol may be an expression (a matched pair at twice the current)", () => {
     const r = solve("port c 0\nQ1 cell bjt-hybrid-pi b=0 c=c e=0 rename ro:ro/2\n");
-    expectSame(r.rth?.infix, "ro/2");
+    expectSameExpression(r.rth?.infix, "ro/2");
   });
 
   it("a diagnostic from inside a cell names the instance and its line", () => {
