@@ -12,7 +12,7 @@ import { createSolver } from "./solver/pool.js";
 const log = createLogger(config.logLevel);
 const pool = createPool(config.databaseUrl, config.dbPoolSize);
 const db = createDatabase(pool);
-const ownUrl = `http://${config.host === "0.0.0.0" ? "localhost" : config.host}:${config.port}`;
+const ownUrl = config.servedUrl;
 
 // Without SMTP_HOST, mail goes over real SMTP to a capture server on loopback that keeps it in PostgreSQL.
 let capture: CaptureServer | null = null;

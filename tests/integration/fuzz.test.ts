@@ -199,6 +199,9 @@ const routesFor = (world: World): Route[] => [
   { method: "GET", path: "/api/networks/:networkId/attachments" },
   { method: "GET", path: "/api/networks/:networkId/attachments/:attachmentId" },
   { method: "DELETE", path: "/api/networks/:networkId/attachments/:attachmentId", destructive: true },
+  { method: "GET", path: "/api/networks/:networkId/value-sets" },
+  { method: "POST", path: "/api/networks/:networkId/value-sets", body: shaped({ name: text, values: fc.oneof(fc.dictionary(text, text), fc.constant({ Rs: "4.7k" }), text) }) },
+  { method: "DELETE", path: "/api/networks/:networkId/value-sets/:setId", destructive: true },
   { method: "GET", path: "/api/dev/mail?limit=:page", anonymous: true },
   { method: "GET", path: "/api/health", anonymous: true },
 ];
@@ -326,6 +329,7 @@ describe("fuzzing", () => {
         shareId: world.commentId,
         commentId: world.commentId,
         attachmentId: world.attachmentId,
+        setId: world.commentId,
         jobId: world.jobId,
         q: "Fuzz",
         sort: "title",

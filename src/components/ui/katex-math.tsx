@@ -15,5 +15,5 @@ const settings = {
 export default function KatexMath({ tex, block = false }: { tex: string; block?: boolean }) {
   const html = useMemo(() => katex.renderToString(tex, { ...settings, displayMode: block }), [tex, block]);
   // KaTeX's own escaped output, never user text.
-  return <span className={block ? "block overflow-x-auto py-1" : ""} dangerouslySetInnerHTML={{ __html: html }} />;
+  return <span className={block ? "block py-1" : ""} dangerouslySetInnerHTML={{ __html: html }} />;
 }

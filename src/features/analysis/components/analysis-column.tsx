@@ -39,7 +39,7 @@ export function AnalysisColumn({ results }: { results: Results }) {
         </Panel>
       )}
       <Panel title="Limits">
-        <LimitsPanel exact={exact} symbols={symbols} initialSymbol={gain} />
+        <LimitsPanel exact={exact} symbols={symbols} initialSymbol={gain} quantities={results.quantities} />
       </Panel>
       <Panel title="Sweep">
         <SweepPanel exact={exact} symbols={symbols} quantities={results.quantities} values={values} initialSymbol={gain} />

@@ -1,4 +1,5 @@
-import type { Results } from "@/types/api";
+import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultsInS } from "@/features/analysis/lib/quantities";
+import type { ResultName, Results } from "@/types/api";
 
 function Mark({ label, state, detail }: { label: string; state: boolean | null; detail: string }) {
   const tone = state === true ? "border-verdigris/50 text-verdigris" : state === false ? "border-signal/50 text-signal" : "border-rule text-ink/50";
@@ -25,13 +26,18 @@ export function CheckBadge({ results }: { results: Results }) {
 }
 
 export function DimensionCheck({ results }: { results: Results }) {
-  const entries = Object.entries(results.dimensionChecks);
+  // Only results the port has: no "Isc in A" for a port without a Norton form.
+  const entries = (Object.entries(results.dimensionChecks) as [ResultName, Results["dimensionChecks"][ResultName]][]).filter(([name]) => results[name] !== null);
   if (entries.length === 0) return null;
   const allOk = entries.every(([, c]) => c?.status === "ok");
+  const inS = resultsInS(results);
+  const summary = RESULT_NAMES.filter((name) => entries.some(([n]) => n === name))
+    .map((name) => `${resultLabel(name, inS)} in ${RESULT_UNIT[name]}`)
+    .join(", ");
   return (
-    <div className="text-xs">
+    <div className="text-xs" data-dimension-check="">
       <p className={allOk ? "text-verdigris" : "text-copper"}>
-        {allOk ? "✓ Dimension check: Vth in V, Rth in Ω, Isc in A." : "Dimension check:"}
+        {allOk ? `✓ Dimension check: ${summary}.` : "Dimension check:"}
       </p>
       {!allOk && (
         <ul className="mt-0.5 list-disc pl-4 text-ink/80">
