@@ -45,6 +45,7 @@ function mailboxPage(messages: Awaited<ReturnType<typeof capturedMail>>): string
 <link rel="stylesheet" href="/dev/mailbox.css">
 </head>
 <body>
+<p><a href="/">← Back to Portfold</a></p>
 <h1>Mailbox</h1>
 <p>Every message Portfold sent while running without <code>SMTP_HOST</code>, newest first. This page does not exist in production.</p>
 ${items || "<p>No mail yet.</p>"}

@@ -70,10 +70,16 @@ describe("breaking long results into lines", () => {
     expect(lines.join(" ").replace(/\s+/g, " ")).toBe(terms.join(" + "));
   });
 
-  it("leaves a short result, and a sum inside parentheses, as they are", () => {
+  it("leaves a short result as it is, and breaks a product's long parenthesised sum inside sized parentheses", () => {
     expect(breakExpression("\\frac{R_o}{A + 1}", 40)).toBe("\\frac{R_o}{A + 1}");
-    const grouped = `\\left(${terms.join(" + ")}\\right) x`;
-    expect(breakExpression(grouped, 20)).toBe(grouped);
+    const grouped = `R_{4} \\left(${terms.join(" + ")}\\right)`;
+    const broken = breakExpression(`\\frac{${grouped}}{R_{1} + R_{2}}`, 30);
+    expect(broken).toContain("R_{4} \\Bigl(");
+    expect(broken).toContain("\\Bigr)");
+    expect(() => katex.renderToString(broken, { throwOnError: true, displayMode: true })).not.toThrow();
+    // Two groups side by side are left whole: which one to break is not ours to guess.
+    const two = `\\left(${terms.join(" + ")}\\right) \\left(a + b\\right)`;
+    expect(breakExpression(two, 20)).toBe(two);
   });
 });
 

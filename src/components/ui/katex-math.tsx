@@ -8,7 +8,8 @@ const settings = {
   throwOnError: false,
   strict: "ignore" as const,
   maxSize: 10,
-  maxExpand: 200,
+  // Results of hundreds of terms expand \, and \mathrm thousands of times; the TeX is the engine's own, never user macros.
+  maxExpand: 100_000,
   output: "htmlAndMathml" as const,
 };
 

@@ -72,6 +72,24 @@ function wholeFraction(tex: string): { numerator: string; denominator: string } 
   return i === t.length ? { numerator: groups[0], denominator: groups[1] } : null;
 }
 
+// Parentheses around a whole numerator or denominator say nothing under a fraction bar; they also cannot span lines.
+function unwrapped(tex: string): string {
+  const t = tex.trim();
+  if (!t.startsWith("\\left(") || !t.endsWith("\\right)")) return t;
+  const inner = t.slice("\\left(".length, -"\\right)".length);
+  // Only when the outer pair is one pair: the inner text's own \left and \right balance.
+  return balanced(inner) ? inner.trim() : t;
+}
+
+function balanced(tex: string): boolean {
+  let depth = 0;
+  for (const match of tex.matchAll(/\\left|\\right/g)) {
+    depth += match[0] === "\\left" ? 1 : -1;
+    if (depth < 0) return false;
+  }
+  return depth === 0;
+}
+
 // Groups terms into lines of at most `budget` characters (a single long term keeps a line to itself).
 function sumLines(tex: string, budget: number): string[] | null {
   const { parts, signs } = splitTopLevel(tex, ["+", "-"]);
@@ -99,13 +117,38 @@ export function breakExpression(tex: string, budget: number): string {
   if (equations.length > 1) return `\\begin{gathered}${equations.map((e) => breakExpression(e, budget)).join(" \\\\ ")}\\end{gathered}`;
   const fraction = wholeFraction(tex);
   if (fraction) {
-    const top = breakExpression(fraction.numerator, budget);
-    const bottom = breakExpression(fraction.denominator, budget);
+    const top = breakExpression(unwrapped(fraction.numerator), budget);
+    const bottom = breakExpression(unwrapped(fraction.denominator), budget);
     const stack = (part: string) => (part.includes("\\\\") ? `\\begin{gathered}${part}\\end{gathered}` : part);
     return `\\frac{${stack(top)}}{${stack(bottom)}}`;
   }
   const lines = sumLines(tex, budget);
-  return lines ? lines.map((l) => l.replace(/\\\\/g, "")).join(" \\\\ ") : tex;
+  if (lines) return lines.join(" \\\\ ");
+  return breakParenthesised(tex, budget) ?? tex;
+}
+
+// A product with one long parenthesised sum, e.g. R_4 (a + b + …): the sum is broken inside sized
+// parentheses, which, unlike \left…\right, may open on one line and close on another.
+function breakParenthesised(tex: string, budget: number): string | null {
+  const open = tex.indexOf("\\left(");
+  if (open < 0) return null;
+  let depth = 0;
+  let close = -1;
+  for (const match of tex.slice(open).matchAll(/\\left|\\right/g)) {
+    depth += match[0] === "\\left" ? 1 : -1;
+    if (depth === 0) {
+      close = open + match.index!;
+      break;
+    }
+  }
+  if (close < 0 || !tex.startsWith("\\right)", close)) return null;
+  const inner = tex.slice(open + "\\left(".length, close);
+  const before = tex.slice(0, open).trim();
+  const after = tex.slice(close + "\\right)".length).trim();
+  const lines = sumLines(inner, budget - typesetLength(before) - 2);
+  if (!lines || /\\left|\\right/.test(before + after)) return null;
+  const last = lines.length - 1;
+  return lines.map((line, i) => `${i === 0 ? `${before} \\Bigl(` : ""}${line}${i === last ? `\\Bigr) ${after}` : ""}`).join(" \\\\ ");
 }
 
 /** `lhs = rhs` with a long rhs: the rhs broken, continuation lines set under the first term. */

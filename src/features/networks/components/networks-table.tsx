@@ -118,6 +118,7 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
           </EmptyState>
         ) : (
           <>
+            <div className="overflow-x-auto">
             <table className="w-full border-collapse text-sm">
               <caption className="sr-only">Networks of the team, sorted by {sort}</caption>
               <thead>
@@ -158,6 +159,7 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
                 ))}
               </tbody>
             </table>
+            </div>
             <nav aria-label="Pages" className="mt-3 flex items-center justify-between text-sm">
               <span className="text-ink/70">
                 {from}–{to} of {data.total}
