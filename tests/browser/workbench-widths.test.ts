@@ -129,6 +129,8 @@ describe("the workbench at every width", () => {
       expect(title!.width).toBeGreaterThan(200);
       expect(await page.evaluate(() => (window as unknown as { rawTexSeen?: boolean }).rawTexSeen ?? false)).toBe(false);
       await page.screenshot({ path: `${screenshotDir}/network-page-${width}.png`, fullPage: true });
+      // The first screenful too: what a designer sees on opening the network.
+      await page.screenshot({ path: `${screenshotDir}/network-page-${width}-first-screen.png` });
     });
 
     it(`review margin at ${width} px: the note sits beside its step or folds under it`, async () => {
