@@ -1,5 +1,6 @@
 // The netlist as typed is kept beside its circuit, and value sets are kept on the network and
 // shown behind its share links.
+import { execFileSync } from "node:child_process";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { followerCircuit, signedInPerson, type Person } from "../support/fixtures.js";
 import { startTestServer, type TestServer } from "../support/server.js";
@@ -78,5 +79,29 @@ describe("network text and value sets", () => {
     expect((await editor.client.delete(`${path}/${nominal.body.id}`)).status).toBe(204);
     expect((await editor.client.delete(`${path}/${nominal.body.id}`)).status).toBe(404);
     expect((await editor.client.get(path)).body.valueSets).toHaveLength(1);
+  });
+});
+
+describe("links back to the app", () => {
+  // Run apart, so the settings are read from this environment alone.
+  const publicUrlWith = (env: Record<string, string>) => {
+    const { PUBLIC_URL: _unset, ...rest } = process.env;
+    return execFileSync("node_modules/.bin/tsx", ["-e", 'import("./server/config.ts").then((m) => console.log(m.config.publicUrl))'], { env: { ...rest, ...env }, encoding: "utf8" }).trim();
+  };
+
+  it("defaults PUBLIC_URL to the address the server serves on, so a mailed link keeps the session", () => {
+    expect(publicUrlWith({ HOST: "127.0.0.1", PORT: "4999" })).toBe("http://127.0.0.1:4999");
+    expect(publicUrlWith({ HOST: "0.0.0.0", PORT: "4999" })).toBe("http://localhost:4999");
+    expect(publicUrlWith({ HOST: "127.0.0.1", PORT: "4999", PUBLIC_URL: "https://portfold.example/" })).toBe("https://portfold.example");
+  }, 60_000);
+
+  it("the development mailbox links back to the app", async () => {
+    const server = await startTestServer();
+    try {
+      const page = await (await fetch(`${server.url}/dev/mailbox`)).text();
+      expect(page).toContain('<a href="/">← Back to Portfold</a>');
+    } finally {
+      await server.close();
+    }
   });
 });
