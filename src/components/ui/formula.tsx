@@ -17,7 +17,8 @@ export interface FormulaProps {
 // what still does not fit scrolls inside its own box, with a visible cue at the edge.
 export function Formula({ tex, lhs, className = "", label }: FormulaProps) {
   const box = useRef<HTMLDivElement>(null);
-  const [budget, setBudget] = useState(Infinity);
+  // Null until the box is measured (before the first paint), so each formula is typeset once, already broken.
+  const [budget, setBudget] = useState<number | null>(null);
   const [scrolls, setScrolls] = useState(false);
   const [atEnd, setAtEnd] = useState(false);
 
@@ -43,7 +44,7 @@ export function Formula({ tex, lhs, className = "", label }: FormulaProps) {
     };
   }, []);
 
-  const typeset = lhs === undefined ? breakExpression(tex, budget) : breakEquation(lhs, tex, budget);
+  const typeset = budget === null ? null : lhs === undefined ? breakExpression(tex, budget) : breakEquation(lhs, tex, budget);
   return (
     <div className={`relative min-w-0 ${className}`} data-formula="">
       <div
@@ -57,7 +58,7 @@ export function Formula({ tex, lhs, className = "", label }: FormulaProps) {
           setAtEnd(el.scrollLeft + el.clientWidth >= el.scrollWidth - 2);
         }}
       >
-        <MathTex tex={typeset} block />
+        {typeset !== null && <MathTex tex={typeset} block />}
       </div>
       {scrolls && !atEnd && (
         <div aria-hidden="true" className="pointer-events-none absolute inset-y-0 right-0 flex w-10 items-center justify-end bg-gradient-to-l from-paper to-transparent pr-0.5 text-xs text-copper">
