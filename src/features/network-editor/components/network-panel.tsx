@@ -71,7 +71,8 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
   if (read.network && read.network !== lastGood) setLastGood(read.network);
   const network = read.network ?? lastGood;
   // Everything a Solve would refuse, checked as the designer types (the engine runs in the browser too).
-  const live = useLiveCheck(text, read.network !== null);
+  const cellDefinitions = useMemo(() => teamCells.data?.map((cell) => cell.definition), [teamCells.data]);
+  const live = useLiveCheck(text, read.network !== null, cellDefinitions);
   const local = mergeDiagnostics(read.diagnostics, placeDiagnostics(live?.diagnostics ?? [], text));
   const errors = local.filter((d) => d.severity === "error");
   const serverDiagnostics = [solveError, saveError].flatMap((e) => (e instanceof ApiError && e.diagnostics ? e.diagnostics : []));
