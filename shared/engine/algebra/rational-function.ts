@@ -277,7 +277,9 @@ export class RationalFunction {
     const { sign, top, bottom } = this.compactParts();
     const tex = (fs: CompactFactor[]) => (fs.length === 0 ? "1" : fs.map((f) => f.tex).join("\\,"));
     const signStr = sign < 0 ? "-" : "";
-    if (bottom.length === 0) return signStr + (top.length === 1 && top[0].exponent === 1 ? top[0].bareTex : tex(top));
+    // A lone sum keeps its brackets under a minus sign: -(R1 + R2), never -R1 + R2.
+    const bare = top.length === 1 && top[0].exponent === 1 && !(sign < 0 && top[0].multiTerm);
+    if (bottom.length === 0) return signStr + (bare ? top[0].bareTex : tex(top));
     return `${signStr}\\frac{${tex(top)}}{${tex(bottom)}}`;
   }
 
