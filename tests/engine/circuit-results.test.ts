@@ -125,10 +125,12 @@ describe("results", () => {
     expect(r.statements.map((x) => x.code)).toContain("forms-skipped");
   });
 
-  it("agrees with its own floating-point solve at a seeded point (the numeric check)", () => {
+  it("agrees with a floating-point solve of a separate formulation at seeded points (the numeric check)", () => {
     const r = solveNetwork(follower, { steps: false });
     expect(r.numericCheck!.agree).toBe(true);
     expect(r.numericCheck!.relativeError!).toBeLessThan(1e-12);
-    expect(r.checks).toEqual({ testSource: true, vocIsc: true, numeric: true });
+    const { testSource, vocIsc, numeric, exactPoint } = r.checks;
+    expect({ testSource, vocIsc, numeric, exactPoint }).toEqual({ testSource: true, vocIsc: true, numeric: true, exactPoint: true });
+    expect(r.checks.details.numeric.points).toBe(3);
   });
 });

@@ -2,13 +2,14 @@
 // the cross-checks, and everything derived from the exact results.
 
 import type { RationalFunction } from "../algebra";
-import type { Diagnostic, Network, NumericCheck, ParseResult, PortStatement, SolveOptions, SolveResult } from "../types";
+import type { Diagnostic, Network, ParseResult, PortStatement, SolveOptions, SolveResult } from "../types";
 import { approximationsOf, AssumptionSyntaxError, parseAssumption, type Assumption } from "./approximations";
 import { attributeToCells, expandCells } from "./cells";
 import { checkDimensions } from "./dimensions";
 import { diagnostic, hasErrors } from "./diagnostics";
 import { assembleNodalSystem, type NodalSystem } from "./mna";
-import { floatPortValues, hashString, seededRandom } from "./numeric";
+import { checkResults, uncheckedMarks, vocIscAgreement } from "./checks";
+import { hashString } from "./numeric";
 import { solveOpenPort, solveShortedPort, type OpenPortSolution, type ShortPortSolution } from "./port-solution";
 import { frequencyReport } from "./frequency";
 import { exactExpression, limitsOf, parseAssignments, sensitivitiesOf, solveForTargets, valuesOf, type Results } from "./results";
@@ -27,7 +28,7 @@ export function emptyResult(network: Network | null, diagnostics: Diagnostic[]):
     rthFromVocIsc: null,
     agree: null,
     numericCheck: null,
-    checks: { testSource: null, vocIsc: null, numeric: null },
+    checks: uncheckedMarks(),
     thevenin: null,
     norton: null,
     statements: [],
@@ -114,13 +115,11 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   result.norton = isc && rth && !rth.isZero() ? { isc: isc.toInfix(), rth: rth.toInfix() } : null;
 
   const seed = hashString(JSON.stringify(network));
-  if (!(open.singular && short.singular)) result.numericCheck = numericCheck(sys, network, results, seed);
-
-  result.checks = {
-    testSource: rth !== null ? true : null,
-    vocIsc: agree,
-    numeric: result.numericCheck?.agree ?? null,
-  };
+  if (!(open.singular && short.singular)) {
+    const checked = checkResults({ network, values, vth, isc, rth, seed });
+    result.checks = checked.checks;
+    result.numericCheck = checked.numericCheck;
+  }
 
   if (options.limits && options.limits.length > 0) {
     const l = limitsOf(results, options.limits);
@@ -174,32 +173,6 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   return result;
 }
 
-/** Evaluate the exact results at a seeded point and compare with a floating-point solve. */
-function numericCheck(sys: NodalSystem, network: Network, results: Results, seed: number): NumericCheck {
-  const random = seededRandom(seed ^ 0x5eed);
-  const symbols = new Set<string>();
-  for (const s of sys.internals) for (const v of s.value.variables()) symbols.add(v);
-  for (const row of sys.a) for (const p of row) for (const v of p.variables()) if (!v.startsWith("$")) symbols.add(v);
-  for (const p of sys.b) for (const v of p.variables()) if (!v.startsWith("$")) symbols.add(v);
-  symbols.add(LAPLACE);
-  const point: Record<string, number> = {};
-  for (const s of [...symbols].sort()) point[s] = Number((0.5 + 1.5 * random()).toFixed(6));
-  const float = floatPortValues(sys, network.port, point);
-  let worst = 0;
-  let compared = 0;
-  for (const r of ["vth", "rth", "isc"] as const) {
-    const f = results[r];
-    const x = float[r];
-    if (!f || x === null) continue;
-    const exact = f.evaluate(point);
-    if (!Number.isFinite(exact)) continue;
-    const err = Math.abs(exact - x) / Math.max(1e-12, Math.abs(exact), Math.abs(x));
-    worst = Math.max(worst, err);
-    compared++;
-  }
-  return { agree: compared === 0 ? null : worst < 1e-6, relativeError: compared === 0 ? null : worst, point };
-}
-
 export interface ExactPort {
   system: NodalSystem;
   open: OpenPortSolution;
@@ -223,8 +196,7 @@ export function solvePortExact(network: Network, values: ReadonlyMap<string, Rat
   const vth = open.vth;
   const rth = open.rth;
   const isc = short.isc;
-  let rthFromVocIsc: RationalFunction | null = null;
-  let agree: boolean | null = null;
+  const { rthFromVocIsc, agree } = vocIscAgreement(vth, isc, rth);
   if (!open.singular && short.singular) {
     statements.push({ code: "rth-zero", message: "Rth = 0: the port is an ideal voltage source Vth; it has no Norton form (Isc is unbounded)." });
   }
@@ -233,15 +205,8 @@ export function solvePortExact(network: Network, values: ReadonlyMap<string, Rat
   }
   if (vth && vth.isZero()) statements.push({ code: "vth-zero", message: "Vth = 0: the network holds no source the port can see; it is Rth alone." });
   if (isc && isc.isZero()) statements.push({ code: "isc-zero", message: "Isc = 0: no current flows through a short across the port." });
-  if (vth && isc) {
-    if (isc.isZero()) {
-      if (vth.isZero()) statements.push({ code: "voc-isc-undefined", message: "Vth and Isc are both 0, so Voc/Isc is undefined; Rth comes from the test source alone." });
-      else agree = false;
-    } else {
-      rthFromVocIsc = vth.div(isc);
-      // Mathematical equality (the difference cancels), not just equal printed forms.
-      if (rth) agree = rthFromVocIsc.equals(rth) || rthFromVocIsc.sub(rth).isZero();
-    }
+  if (vth && isc && isc.isZero() && vth.isZero()) {
+    statements.push({ code: "voc-isc-undefined", message: "Vth and Isc are both 0, so Voc/Isc is undefined; Rth comes from the test source alone." });
   }
   if (agree === true) statements.push({ code: "rth-agree", message: "Rth from the test source equals Voc/Isc exactly." });
   if (agree === false) statements.push({ code: "rth-disagree", message: "Rth from the test source differs from Voc/Isc; the derivation is inconsistent." });
