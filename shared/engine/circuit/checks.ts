@@ -103,7 +103,7 @@ function rationalField(numerators: Readonly<Record<string, bigint>>, q: bigint):
 type Row<T> = Map<number, T>;
 
 /** Gauss–Jordan on sparse rows; the solution, or a null vector (A z = 0, z ≠ 0) when A is singular. */
-function eliminate<T>(a: Row<T>[], b: T[], n: number, F: Field<T>): { x: T[] } | { nullVector: T[] } {
+function eliminate<T>(a: Row<T>[], b: T[], n: number, F: Field<T>): { x: T[] } | { nullVectors: T[][] } {
   const rows = a.map((r, i) => {
     const row = new Map(r);
     if (!F.isZero(b[i], 0)) row.set(n, b[i]);
@@ -162,14 +162,18 @@ function eliminate<T>(a: Row<T>[], b: T[], n: number, F: Field<T>): { x: T[] } |
       row.delete(c);
     }
   }
-  const free = pivotRowOf.indexOf(-1);
-  if (free >= 0) {
-    const z = new Array<T>(n).fill(F.zero);
-    z[free] = F.one;
-    pivotRowOf.forEach((r, c) => {
-      if (r >= 0) z[c] = F.neg(rows[r].get(free) ?? F.zero);
+  // One null vector per free column: together they span every way the unknowns can move freely.
+  const free = pivotRowOf.flatMap((r, c) => (r < 0 ? [c] : []));
+  if (free.length > 0) {
+    const nullVectors = free.map((f) => {
+      const z = new Array<T>(n).fill(F.zero);
+      z[f] = F.one;
+      pivotRowOf.forEach((r, c) => {
+        if (r >= 0) z[c] = F.neg(rows[r].get(f) ?? F.zero);
+      });
+      return scaleBy ? z.map((v, c) => scaleBy(v, columnScale[c])) : z;
     });
-    return { nullVector: scaleBy ? z.map((v, c) => scaleBy(v, columnScale[c])) : z };
+    return { nullVectors };
   }
   const y = pivotRowOf.map((r) => rows[r].get(n) ?? F.zero);
   return { x: scaleBy ? y.map((v, c) => scaleBy(v, columnScale[c])) : y };
@@ -291,13 +295,13 @@ function portValue<T>(t: Tableau<T>, x: T[], network: Network, mode: TableauMode
   return F.sub(v(network.port.plus), v(network.port.minus));
 }
 
-type Solved<T> = { kind: "value"; value: T; scale: number } | { kind: "singular"; nullVector: T[] } | { kind: "pole" };
+type Solved<T> = { kind: "value"; value: T; scale: number } | { kind: "singular" } | { kind: "pole" };
 
-export function tableauPortValue<T>(network: Network, values: ReadonlyMap<string, RationalFunction>, mode: TableauMode, F: Field<T>, s: T): Solved<T> {
+function tableauPortValue<T>(network: Network, values: ReadonlyMap<string, RationalFunction>, mode: TableauMode, F: Field<T>, s: T): Solved<T> {
   const t = buildTableau(network, values, mode, F, s);
   if (t === null) return { kind: "pole" };
   const solved = eliminate(t.a, t.b, t.n, F);
-  if ("nullVector" in solved) return { kind: "singular", nullVector: solved.nullVector };
+  if ("nullVectors" in solved) return { kind: "singular" };
   // The largest unknown sets the size of a rounding error, so that an exact 0 can be compared.
   const scale = solved.x.reduce((m, v) => Math.max(m, F.magnitude(v)), 0);
   return { kind: "value", value: portValue(t, solved.x, network, mode, F), scale };
@@ -517,4 +521,29 @@ export function checkResults(input: CheckInput): { checks: SolveChecks; numericC
     },
     numericCheck,
   };
+}
+
+/**
+ * Where a singular open-port system leaves freedom: the nodes whose voltage and the elements whose
+ * current can move without any source driving them (the null space of the tableau at a random
+ * rational point). null when the tableau is not singular there.
+ */
+export function undeterminedParts(network: Network, values: ReadonlyMap<string, RationalFunction>, seed: number): { nodes: string[]; elements: string[] } | null {
+  const random = seededRandom(seed ^ 0x0d15);
+  const symbols = symbolsOf(values);
+  for (let attempt = 0; attempt < TRIES; attempt++) {
+    const q = [3, 5, 7, 11][Math.floor(random() * 4)];
+    const numerators = Object.fromEntries(symbols.map((s) => [s, BigInt(1 + Math.floor(random() * 97))]));
+    const F = rationalField(numerators, BigInt(q));
+    const t = buildTableau(network, values, "open", F, Rational.of(numerators[LAPLACE], q));
+    if (t === null) continue;
+    const solved = eliminate(t.a, t.b, t.n, F);
+    if (!("nullVectors" in solved)) return null;
+    const moves = (c: number) => solved.nullVectors.some((z) => !z[c].isZero());
+    return {
+      nodes: t.nodes.filter((node) => moves(t.voltage(node))),
+      elements: network.elements.filter((e) => moves(t.current.get(e.name)!)).map((e) => e.name),
+    };
+  }
+  return null;
 }

@@ -8,7 +8,8 @@ import { attributeToCells, expandCells } from "./cells";
 import { checkDimensions } from "./dimensions";
 import { diagnostic, hasErrors } from "./diagnostics";
 import { assembleNodalSystem, type NodalSystem } from "./mna";
-import { checkResults, uncheckedMarks, vocIscAgreement } from "./checks";
+import { checkResults, uncheckedMarks, undeterminedParts, vocIscAgreement } from "./checks";
+import { isControlled } from "./elements";
 import { hashString } from "./numeric";
 import { solveOpenPort, solveShortedPort, type OpenPortSolution, type ShortPortSolution } from "./port-solution";
 import { frequencyReport } from "./frequency";
@@ -83,17 +84,8 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   const port = solvePortExact(network, values);
   const { system: sys, open, short, vth, rth, isc, rthFromVocIsc, agree } = port;
   const statements = [...port.statements];
-  if (open.singular && short.singular) {
-    const suspects = suspectStructures(network);
-    const why = suspects.length > 0 ? ` Look at: ${suspects.map((s) => s.note).join("; ")}.` : "";
-    diagnostics.push(
-      diagnostic(
-        "singular-system",
-        `the nodal equations have no unique solution, with the port open or shorted (det A = 0 for any values of the symbols).${why}`,
-        { elements: [...new Set(suspects.flatMap((s) => s.elements))] },
-      ),
-    );
-  }
+  const seed = hashString(JSON.stringify(network));
+  if (open.singular && short.singular) diagnostics.push(singularSystem(network, values, seed));
 
   const results: Results = { vth, isc, rth, rthFromVocIsc };
   const result = emptyResult(network, diagnostics);
@@ -114,7 +106,6 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   result.thevenin = vth && rth ? { vth: vth.toInfix(), rth: rth.toInfix() } : null;
   result.norton = isc && rth && !rth.isZero() ? { isc: isc.toInfix(), rth: rth.toInfix() } : null;
 
-  const seed = hashString(JSON.stringify(network));
   if (!(open.singular && short.singular)) {
     const checked = checkResults({ network, values, vth, isc, rth, seed });
     result.checks = checked.checks;
@@ -212,6 +203,35 @@ export function solvePortExact(network: Network, values: ReadonlyMap<string, Rat
   if (agree === false) statements.push({ code: "rth-disagree", message: "Rth from the test source differs from Voc/Isc; the derivation is inconsistent." });
 
   return { system: sys, open, short, vth, rth, isc, rthFromVocIsc, agree, statements };
+}
+
+/** Why det A = 0: the structures topology knows, and the elements and nodes left free (often a controlled-source loop of unity gain). */
+function singularSystem(network: Network, values: ReadonlyMap<string, RationalFunction>, seed: number): Diagnostic {
+  const suspects = suspectStructures(network);
+  const free = undeterminedParts(network, values, seed);
+  const notes = suspects.map((s) => s.note);
+  if (free && free.elements.length + free.nodes.length > 0) {
+    const parts = [
+      free.elements.length > 0 ? `the currents of ${quoteList(free.elements)}` : "",
+      free.nodes.length > 0 ? `the voltage${free.nodes.length > 1 ? "s" : ""} of node${free.nodes.length > 1 ? "s" : ""} ${quoteList(free.nodes)}` : "",
+    ].filter((p) => p !== "");
+    const controlled = network.elements.filter((e) => free.elements.includes(e.name) && isControlled(e)).map((e) => `"${e.name}" (value ${values.get(e.name)?.toInfix() ?? "?"})`);
+    const loop =
+      controlled.length > 0
+        ? ` Controlled source${controlled.length > 1 ? "s" : ""} ${controlled.join(", ")} ${controlled.length > 1 ? "are" : "is"} among them: a loop whose gain exactly cancels what it controls leaves it undetermined; check the gain and the direction of the loop.`
+        : "";
+    const sentence = parts.join(" and ");
+    notes.unshift(`${sentence.charAt(0).toUpperCase()}${sentence.slice(1)} can take any value together, driven by nothing.${loop}`);
+  }
+  const why = notes.length > 0 ? ` ${notes.join(" Also: ")}` : "";
+  return diagnostic("singular-system", `the nodal equations have no unique solution, with the port open or shorted (det A = 0 for any values of the symbols).${why}`, {
+    elements: network.elements.map((e) => e.name).filter((n) => free?.elements.includes(n) || suspects.some((s) => s.elements.includes(n))),
+    nodes: free?.nodes ?? [],
+  });
+}
+
+function quoteList(names: string[]): string {
+  return names.map((n) => `"${n}"`).join(", ");
 }
 
 function assumptionsOf(texts: readonly string[]): { assumptions: Assumption[]; diagnostics: Diagnostic[] } {
