@@ -14,7 +14,7 @@ function solve(...args: string[]) {
 }
 
 describe("solve CLI", () => {
-  it("prints one JSON object with the issue's keys and exits 0 when solved", () => {
+  it("prints one JSON object with the documented keys and exits 0 when solved", () => {
     const r = solve("fixtures/sensor-buffer.pfn", "--limit", "A=inf", "--set", "Ro=4.7k,A=1e5,Vs=1", "--float");
     expect(r.code).toBe(0);
     const o = JSON.parse(r.out);

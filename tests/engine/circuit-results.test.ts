@@ -3,12 +3,12 @@
 
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { parseValue } from "../../shared/engine/algebra";
 import { solveNetwork } from "../../shared/engine";
+import { expectSameExpression } from "../support/expressions";
 
 const FIXTURES = new URL("../../fixtures/", import.meta.url).pathname;
 const follower = readFileSync(FIXTURES + "sensor-buffer.pfn", "utf8"); // Vth = A Vs/(1+A), Rth = Ro/(1+A)
-const same = (a: string | null | undefined, b: string) => expect(a != null && parseValue(a).sub(parseValue(b)).isZero(), `${a} vs ${b}`).toBe(true);
+const same = expectSameExpression;
 
 describe("results", () => {
   it("prints expanded and compact forms, infix and TeX", () => {
