@@ -38,10 +38,10 @@ vi.mock("../../shared/engine/circuit/port-solution", async (importOriginal) => {
 // Emitter follower with its current gain: every element kind of a transistor stage's small-signal model.
 const FOLLOWER = `
 port e 0
-Sig vsource s 0 = Vs
+Sig voltage s 0 = Vs
 Rsrc resistor s b = Rs
 Rpi resistor b e = r_pi
-Fb cccs 0 e = beta * through(Rpi)
+Fb current 0 e = beta * through(Rpi)
 Remit resistor e 0 = RE
 `;
 

@@ -20,7 +20,7 @@ function exactAt(f: RationalFunction, point: Record<string, number>): number | n
 describe("a negated sum keeps its brackets in every printed form", () => {
   it("current source into -R1 in series with -R2: Rth = -R1 - R2 in compact TeX and in the ledger", () => {
     // Common practice: series resistances add, whatever their sign.
-    const r = solveNetwork("port a 0\nIs isource 0 a = Is\nRa resistor a b = -R1\nRb resistor b 0 = -R2\n");
+    const r = solveNetwork("port a 0\nIs current 0 a = Is\nTop resistor a b = -R1\nBottom resistor b 0 = -R2\n");
     const point = { Is: 1.5, R1: 0.75, R2: 2 };
     const expected = -(0.75 + 2);
     for (const form of [r.rth!.infix, r.rth!.compact!]) expect(evaluatePrintedInfix(form, point), form).toBe(expected);
@@ -74,13 +74,18 @@ function comparisons(r: SolveResult, exact: Record<ResultKey, RationalFunction |
   for (const step of r.steps) {
     const data = step.data as Record<string, unknown>;
     if (typeof data.equation === "string") {
-      // Equations of the nodal system: the TeX against the plain form, both read here.
-      const [lt, rt] = sides(step.tex);
-      const [li, ri] = sides(data.equation);
-      out.push({
-        what: `${step.id}: ${step.tex}`,
-        printed: (p) => evaluatePrintedTex(lt, p) - evaluatePrintedTex(rt, p),
-        exact: (p) => evaluatePrintedInfix(li, p) - evaluatePrintedInfix(ri, p),
+      // Equations of the nodal system (several for a source with several controls): the TeX against the plain form, both read here.
+      const plain = Array.isArray(data.equations) ? (data.equations as string[]) : [data.equation];
+      const typeset = step.tex.split(/,\\quad\s*/);
+      expect(typeset.length, `${step.id}: one TeX equation per plain one`).toBe(plain.length);
+      plain.forEach((equation, k) => {
+        const [lt, rt] = sides(typeset[k]);
+        const [li, ri] = sides(equation);
+        out.push({
+          what: `${step.id}: ${typeset[k]}`,
+          printed: (p) => evaluatePrintedTex(lt, p) - evaluatePrintedTex(rt, p),
+          exact: (p) => evaluatePrintedInfix(li, p) - evaluatePrintedInfix(ri, p),
+        });
       });
     }
     if (step.kind === "matrix") {
@@ -149,7 +154,7 @@ function corpus(): { id: string; network: string | NetworkInput }[] {
     ...fixtureNetworks().map((f) => ({ id: f.file, network: f.text })),
     ...generatedCorpus(66).map((network, i) => ({ id: `generated ${i}`, network })),
     ...Array.from({ length: 30 }, (_, i) => ({ id: `op-amp ${i}`, network: randomNetwork(rand, { force: "opamp", reactive: i % 2 === 0, numbers: true }) })),
-    { id: "negative series resistors", network: "port a 0\nIs isource 0 a = Is\nRa resistor a b = -R1\nRb resistor b 0 = -R2\n" },
+    { id: "negative series resistors", network: "port a 0\nIs current 0 a = Is\nTop resistor a b = -R1\nBottom resistor b 0 = -R2\n" },
   ];
 }
 

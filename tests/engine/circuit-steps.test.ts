@@ -62,14 +62,14 @@ describe("derivation steps", () => {
     const kclOut = buffer.steps.find((s) => s.id === "vth.kcl.out")!;
     expect(kclOut.data.contributions).toEqual([{ element: "Rout", current: "(V_out - V_x)/Ro" }]);
     const zero = buffer.steps.find((s) => s.id === "rth.zeroing")!;
-    expect(zero.data).toEqual({ shorted: ["Vsens"], opened: [] });
+    expect(zero.data).toEqual({ shorted: ["Vsens"], opened: [], partly: [] });
     const check = buffer.steps.find((s) => s.id === "check.voc-isc")!;
     expect(check.data.agree).toBe(true);
   });
 
   it("when neither the open nor the shorted port solves, the equivalents claim no Rth at all", () => {
     // A unity-gain current loop leaves node "sense" free with the port open and shorted alike (common practice).
-    const r = solveNetwork("port out 0\nSig vsource in 0 = Vs\nRo resistor in out = R2\nRsense resistor sense 0 = Rs\nMirror cccs 0 sense = 1 * through(Rsense)\n");
+    const r = solveNetwork("port out 0\nSig voltage in 0 = Vs\nRo resistor in out = R2\nRsense resistor sense 0 = Rs\nMirror current 0 sense = 1 * through(Rsense)\n");
     for (const id of ["result.thevenin", "result.norton"]) {
       const step = r.steps.find((s) => s.id === id)!;
       expect(step.tex, id).toBe("\\text{no unique solution}");

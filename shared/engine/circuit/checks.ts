@@ -6,9 +6,9 @@
 
 import { Rational, type Poly, type RationalFunction } from "../algebra";
 import type { CheckDetail, Element, Network, NumericCheck, SolveChecks } from "../types";
-import { elementNodes, isIndependentSource, isOpamp, networkNodes } from "./elements";
+import { elementNodes, isOpamp, networkNodes } from "./elements";
 import { seededRandom } from "./numeric";
-import { LAPLACE } from "./values";
+import { LAPLACE, type SourceTerms } from "./values";
 
 /** Arithmetic the elimination needs; `pivotScore` says which nonzero entry makes the better pivot. */
 interface Field<T> {
@@ -197,7 +197,14 @@ const PORT = "(port)";
  * The sparse tableau of the network in one port set-up: node voltages and element currents as
  * unknowns, KCL per node, one branch equation per element. null when a value has a pole at the point.
  */
-function buildTableau<T>(network: Network, values: ReadonlyMap<string, RationalFunction>, mode: TableauMode, F: Field<T>, s: T): Tableau<T> | null {
+function buildTableau<T>(
+  network: Network,
+  values: ReadonlyMap<string, RationalFunction>,
+  terms: SourceTerms,
+  mode: TableauMode,
+  F: Field<T>,
+  s: T,
+): Tableau<T> | null {
   const ground = network.ground;
   const nodes = networkNodes(network);
   const nodeIndex = new Map(nodes.map((n, i) => [n, i]));
@@ -251,7 +258,6 @@ function buildTableau<T>(network: Network, values: ReadonlyMap<string, RationalF
     if (!rf) return null;
     const v = F.of(rf);
     if (v === null) return null;
-    const zeroed = mode === "test" && isIndependentSource(e);
     switch (e.kind) {
       case "resistor": // V = R I
         across(row, p, q, F.one), put(row, i, F.neg(v));
@@ -265,22 +271,18 @@ function buildTableau<T>(network: Network, values: ReadonlyMap<string, RationalF
       case "capacitor": // I = sC V
         put(row, i, F.one), across(row, p, q, F.neg(F.mul(s, v)));
         break;
-      case "vsource":
-        across(row, p, q, F.one);
-        b[row] = zeroed ? F.zero : v;
-        break;
-      case "isource":
-        put(row, i, F.one);
-        b[row] = zeroed ? F.zero : v;
-        break;
-      case "vcvs":
-      case "vccs":
-      case "ccvs":
-      case "cccs": {
-        if (e.kind === "vcvs" || e.kind === "ccvs") across(row, p, q, F.one);
+      case "voltage": // V(p) − V(q) − Σ gain·control = independent part
+      case "current": {
+        if (e.kind === "voltage") across(row, p, q, F.one);
         else put(row, i, F.one);
-        if ("nodes" in e.control) across(row, e.control.nodes[0], e.control.nodes[1], F.neg(v));
-        else put(row, current.get(e.control.element)!, F.neg(v));
+        for (const term of terms.get(e.name) ?? []) {
+          const g = F.of(term.gain);
+          if (g === null) return null;
+          if ("nodes" in term.control) across(row, term.control.nodes[0], term.control.nodes[1], F.neg(g));
+          else put(row, current.get(term.control.element)!, F.neg(g));
+        }
+        // The test source sees the network with every independent part zeroed; controls stay.
+        b[row] = mode === "test" ? F.zero : v;
         break;
       }
     }
@@ -297,8 +299,8 @@ function portValue<T>(t: Tableau<T>, x: T[], network: Network, mode: TableauMode
 
 type Solved<T> = { kind: "value"; value: T; scale: number } | { kind: "singular" } | { kind: "pole" };
 
-function tableauPortValue<T>(network: Network, values: ReadonlyMap<string, RationalFunction>, mode: TableauMode, F: Field<T>, s: T): Solved<T> {
-  const t = buildTableau(network, values, mode, F, s);
+function tableauPortValue<T>(network: Network, values: ReadonlyMap<string, RationalFunction>, terms: SourceTerms, mode: TableauMode, F: Field<T>, s: T): Solved<T> {
+  const t = buildTableau(network, values, terms, mode, F, s);
   if (t === null) return { kind: "pole" };
   const solved = eliminate(t.a, t.b, t.n, F);
   if ("nullVectors" in solved) return { kind: "singular" };
@@ -309,7 +311,9 @@ function tableauPortValue<T>(network: Network, values: ReadonlyMap<string, Ratio
 
 export interface CheckInput {
   network: Network;
+  /** Independent parts of the element values, and the controlled parts of each controlled source. */
   values: ReadonlyMap<string, RationalFunction>;
+  terms: SourceTerms;
   vth: RationalFunction | null;
   isc: RationalFunction | null;
   rth: RationalFunction | null;
@@ -320,10 +324,11 @@ const MODE_OF = { vth: "open", rth: "test", isc: "short" } as const;
 const LABEL = { vth: "Vth", rth: "Rth", isc: "Isc" } as const;
 type Checked = keyof typeof MODE_OF;
 
-/** Symbols of the element values, plus s. */
-function symbolsOf(values: ReadonlyMap<string, RationalFunction>): string[] {
+/** Symbols of the element values and gains, plus s. */
+function symbolsOf(values: ReadonlyMap<string, RationalFunction>, terms: SourceTerms): string[] {
   const out = new Set<string>([LAPLACE]);
   for (const v of values.values()) for (const name of v.variables()) out.add(name);
+  for (const list of terms.values()) for (const t of list) for (const name of t.gain.variables()) out.add(name);
   return [...out].sort();
 }
 
@@ -342,7 +347,7 @@ interface Tally {
 
 /** Float tableau solves at random points against the exact results evaluated there. */
 function floatCompare(input: CheckInput, which: Checked[], random: () => number): Tally {
-  const symbols = symbolsOf(input.values);
+  const symbols = symbolsOf(input.values, input.terms);
   const tally: Tally = { points: 0, compared: 0, worst: 0, disagree: [], firstPoint: null };
   for (let k = 0; k < FLOAT_POINTS; k++) {
     for (let attempt = 0; attempt < TRIES; attempt++) {
@@ -356,7 +361,7 @@ function floatCompare(input: CheckInput, which: Checked[], random: () => number)
       const verdicts: { name: Checked; error: number | null; existence: string | null }[] = [];
       for (const name of which) {
         const f = input[name];
-        const solved = tableauPortValue(input.network, input.values, MODE_OF[name], F, point[LAPLACE]);
+        const solved = tableauPortValue(input.network, input.values, input.terms, MODE_OF[name], F, point[LAPLACE]);
         if (solved.kind === "pole") {
           usable = false;
           break;
@@ -393,7 +398,7 @@ function floatCompare(input: CheckInput, which: Checked[], random: () => number)
 
 /** Exact rational tableau solves at random rational points against the exact results substituted there. */
 function exactCompare(input: CheckInput, random: () => number): { compared: number; points: number; disagree: string[] } {
-  const symbols = symbolsOf(input.values);
+  const symbols = symbolsOf(input.values, input.terms);
   const out = { compared: 0, points: 0, disagree: [] as string[] };
   for (let k = 0; k < EXACT_POINTS; k++) {
     for (let attempt = 0; attempt < TRIES; attempt++) {
@@ -406,7 +411,7 @@ function exactCompare(input: CheckInput, random: () => number): { compared: numb
       let compared = 0;
       for (const name of ["vth", "rth", "isc"] as const) {
         const f = input[name];
-        const solved = tableauPortValue(input.network, input.values, MODE_OF[name], F, Rational.of(numerators[LAPLACE], q));
+        const solved = tableauPortValue(input.network, input.values, input.terms, MODE_OF[name], F, Rational.of(numerators[LAPLACE], q));
         if (solved.kind === "pole") {
           usable = false;
           break;
@@ -528,14 +533,14 @@ export function checkResults(input: CheckInput): { checks: SolveChecks; numericC
  * current can move without any source driving them (the null space of the tableau at a random
  * rational point). null when the tableau is not singular there.
  */
-export function undeterminedParts(network: Network, values: ReadonlyMap<string, RationalFunction>, seed: number): { nodes: string[]; elements: string[] } | null {
+export function undeterminedParts(network: Network, values: ReadonlyMap<string, RationalFunction>, terms: SourceTerms, seed: number): { nodes: string[]; elements: string[] } | null {
   const random = seededRandom(seed ^ 0x0d15);
-  const symbols = symbolsOf(values);
+  const symbols = symbolsOf(values, terms);
   for (let attempt = 0; attempt < TRIES; attempt++) {
     const q = [3, 5, 7, 11][Math.floor(random() * 4)];
     const numerators = Object.fromEntries(symbols.map((s) => [s, BigInt(1 + Math.floor(random() * 97))]));
     const F = rationalField(numerators, BigInt(q));
-    const t = buildTableau(network, values, "open", F, Rational.of(numerators[LAPLACE], q));
+    const t = buildTableau(network, values, terms, "open", F, Rational.of(numerators[LAPLACE], q));
     if (t === null) continue;
     const solved = eliminate(t.a, t.b, t.n, F);
     if (!("nullVectors" in solved)) return null;

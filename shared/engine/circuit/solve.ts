@@ -17,7 +17,7 @@ import { exactExpression, limitsOf, parseAssignments, sensitivitiesOf, solveForT
 import { buildLedger } from "./steps";
 import { checkTopology, suspectStructures } from "./topology";
 import { checkStructure } from "./validate";
-import { LAPLACE, parseElementValues } from "./values";
+import { LAPLACE, parseElementValues, type SourceTerms } from "./values";
 
 export function emptyResult(network: Network | null, diagnostics: Diagnostic[]): SolveResult {
   return {
@@ -57,14 +57,14 @@ function placeDiagnostics(diagnostics: Diagnostic[], positions: ParseResult["pos
 export function checkNetwork(
   network: Network,
   positions?: ParseResult["positions"],
-): { values: Map<string, RationalFunction> | null; diagnostics: Diagnostic[] } {
+): { values: Map<string, RationalFunction> | null; terms: SourceTerms; diagnostics: Diagnostic[] } {
   const structural = checkStructure(network);
-  if (hasErrors(structural)) return { values: null, diagnostics: placeDiagnostics(structural, positions) };
+  if (hasErrors(structural)) return { values: null, terms: new Map(), diagnostics: placeDiagnostics(structural, positions) };
   const parsed = parseElementValues(network, positions);
   const diagnostics = [...structural, ...parsed.diagnostics];
-  if (hasErrors(parsed.diagnostics)) return { values: null, diagnostics: placeDiagnostics(diagnostics, positions) };
+  if (hasErrors(parsed.diagnostics)) return { values: null, terms: parsed.terms, diagnostics: placeDiagnostics(diagnostics, positions) };
   diagnostics.push(...checkTopology(network));
-  return { values: hasErrors(diagnostics) ? null : parsed.values, diagnostics: placeDiagnostics(diagnostics, positions) };
+  return { values: hasErrors(diagnostics) ? null : parsed.values, terms: parsed.terms, diagnostics: placeDiagnostics(diagnostics, positions) };
 }
 
 export function solveParsedNetwork(input: Network, options: SolveOptions = {}, inputPositions?: ParseResult["positions"]): SolveResult {
@@ -80,12 +80,13 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   const diagnostics: Diagnostic[] = checked.diagnostics;
   if (checked.values === null) return emptyResult(network, diagnostics);
   const values = checked.values;
+  const terms = checked.terms;
 
-  const port = solvePortExact(network, values);
+  const port = solvePortExact(network, values, terms);
   const { system: sys, open, short, vth, rth, isc, rthFromVocIsc, agree } = port;
   const statements = [...port.statements];
   const seed = hashString(JSON.stringify(network));
-  if (open.singular && short.singular) diagnostics.push(singularSystem(network, values, seed));
+  if (open.singular && short.singular) diagnostics.push(singularSystem(network, values, terms, seed));
 
   const results: Results = { vth, isc, rth, rthFromVocIsc };
   const result = emptyResult(network, diagnostics);
@@ -107,7 +108,7 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   result.norton = isc && rth && !rth.isZero() ? { isc: isc.toInfix(), rth: rth.toInfix() } : null;
 
   if (!(open.singular && short.singular)) {
-    const checked = checkResults({ network, values, vth, isc, rth, seed });
+    const checked = checkResults({ network, values, terms, vth, isc, rth, seed });
     result.checks = checked.checks;
     result.numericCheck = checked.numericCheck;
   }
@@ -137,12 +138,12 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   }
   if (options.dimensions ?? true) {
     const declared = { ...(network.quantities ?? {}), ...(options.quantities ?? {}) };
-    const d = checkDimensions(network, values, { vth, isc, rth, rthFromVocIsc }, declared, seed);
+    const d = checkDimensions(network, values, terms, { vth, isc, rth, rthFromVocIsc }, declared, seed);
     result.dimensions = d.report;
     diagnostics.push(...d.diagnostics);
   }
   if (options.steps ?? true) {
-    result.steps = buildLedger({ network, system: sys, values, open, short, vth, rth, isc, rthFromVocIsc, agree });
+    result.steps = buildLedger({ network, system: sys, values, terms, open, short, vth, rth, isc, rthFromVocIsc, agree });
   }
   const { [LAPLACE]: _s, ...given } = options.values ? parseAssignments(options.values).exact : {};
   const frequency = frequencyReport(results, given);
@@ -177,8 +178,8 @@ export interface ExactPort {
 }
 
 /** The exact port results of a checked network (no printing): open port, test source, short, Voc/Isc. */
-export function solvePortExact(network: Network, values: ReadonlyMap<string, RationalFunction>): ExactPort {
-  const sys = assembleNodalSystem(network, values);
+export function solvePortExact(network: Network, values: ReadonlyMap<string, RationalFunction>, terms: SourceTerms = new Map()): ExactPort {
+  const sys = assembleNodalSystem(network, values, terms);
   const open = solveOpenPort(sys, network.port);
   const short = solveShortedPort(sys, network.port);
 
@@ -206,16 +207,16 @@ export function solvePortExact(network: Network, values: ReadonlyMap<string, Rat
 }
 
 /** Why det A = 0: the structures topology knows, and the elements and nodes left free (often a controlled-source loop of unity gain). */
-function singularSystem(network: Network, values: ReadonlyMap<string, RationalFunction>, seed: number): Diagnostic {
+function singularSystem(network: Network, values: ReadonlyMap<string, RationalFunction>, terms: SourceTerms, seed: number): Diagnostic {
   const suspects = suspectStructures(network);
-  const free = undeterminedParts(network, values, seed);
+  const free = undeterminedParts(network, values, terms, seed);
   const notes = suspects.map((s) => s.note);
   if (free && free.elements.length + free.nodes.length > 0) {
     const parts = [
       free.elements.length > 0 ? `the currents of ${quoteList(free.elements)}` : "",
       free.nodes.length > 0 ? `the voltage${free.nodes.length > 1 ? "s" : ""} of node${free.nodes.length > 1 ? "s" : ""} ${quoteList(free.nodes)}` : "",
     ].filter((p) => p !== "");
-    const controlled = network.elements.filter((e) => free.elements.includes(e.name) && isControlled(e)).map((e) => `"${e.name}" (value ${values.get(e.name)?.toInfix() ?? "?"})`);
+    const controlled = network.elements.filter((e) => free.elements.includes(e.name) && isControlled(e)).map((e) => `"${e.name}" = ${"value" in e ? e.value : ""}`);
     const loop =
       controlled.length > 0
         ? ` Controlled source${controlled.length > 1 ? "s" : ""} ${controlled.join(", ")} ${controlled.length > 1 ? "are" : "is"} among them: a loop whose gain exactly cancels what it controls leaves it undetermined; check the gain and the direction of the loop.`
