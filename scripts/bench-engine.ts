@@ -2,7 +2,7 @@
 // small dense or non-planar graphs (scripts/bench-networks.ts). A script, not a test: it prints
 // figures and whether each target is met, it asserts nothing.
 //
-//   npm run bench:engine -- [--max N] [--max-vccs N] [--sympy-budget SECONDS] [--sympy-cap SECONDS] [--no-sympy] [--only NAME]
+//   npm run bench:engine -- [--max N] [--max-vccs N] [--sympy-budget SECONDS] [--sympy-cap SECONDS] [--no-sympy] [--only NAME] [--parse-only]
 //
 // Each network is solved in a fresh child process, so "peak MB" is that process's peak RSS; times
 // are the best of up to three runs after a warm-up on a small ladder. The machine may be shared, so
@@ -17,7 +17,7 @@
 import { spawnSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
 import { solveNetwork, solveNetworkExact, type NetworkInput } from "../shared/engine";
-import { readExpression } from "../shared/engine/algebra";
+import { parseValue, readExpression } from "../shared/engine/algebra";
 import { familyNetworks, ladderNetwork } from "./bench-networks";
 
 const HERE = fileURLToPath(import.meta.url);
@@ -152,10 +152,56 @@ function pad(s: string, n: number): string {
 const ms = (t: Timed) => `${t.wallMs.toFixed(0)}/${t.cpuMs.toFixed(0)}`;
 const verdict = (ok: boolean) => (ok ? "met" : "NOT met");
 
+/** A value of n terms over 21 symbols, each term a small integer times about ten of them (the shape of a printed result). */
+function longValue(n: number): string {
+  let seed = 7;
+  const random = () => (seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648;
+  const names = Array.from({ length: 21 }, (_, i) => (i % 2 ? `Ra_${i}` : `Rb_${i}`));
+  return Array.from({ length: n }, (_, i) => `${(i % 7) + 1}*${names.filter(() => random() < 0.5).join("*")}`).join(" + ");
+}
+
+const SYMPY_PARSE = String.raw`
+import sys, time
+from sympy.parsing.sympy_parser import parse_expr
+text = sys.stdin.read()
+start = time.perf_counter()
+parse_expr(text)
+print(time.perf_counter() - start)
+`;
+
+/** Parsing: parseValue (user values, through nerdamer) and readExpression (our reader) beside sympy's parse_expr. */
+function parseRows(sympy: boolean): void {
+  console.log("");
+  console.log("parsing a value of n terms (wall/cpu ms, best of three); reference: sympy parse_expr on the same text");
+  console.log(["terms", "chars", "parseValue", "readExpression", "sympy s"].map((h, i) => pad(h, [7, 9, 12, 15, 9][i])).join(" "));
+  let worst = 0;
+  for (const n of [100, 1000, 10000]) {
+    const text = longValue(n);
+    let pv: Timed = { wallMs: Infinity, cpuMs: Infinity };
+    let re: Timed = { wallMs: Infinity, cpuMs: Infinity };
+    for (let run = 0; run < 3; run++) {
+      pv = best(pv, timed(() => parseValue(text))[1]);
+      re = best(re, timed(() => readExpression(text))[1]);
+    }
+    let sym = "-";
+    if (sympy) {
+      const r = spawnSync(PYTHON, ["-c", SYMPY_PARSE], { input: text, encoding: "utf8", timeout: 60_000 });
+      sym = r.status === 0 ? Number(r.stdout).toFixed(2) : ">cap";
+    }
+    if (n === 10000) worst = pv.wallMs;
+    console.log([String(n), String(text.length), ms(pv), ms(re), sym].map((c, i) => pad(c, [7, 9, 12, 15, 9][i])).join(" "));
+  }
+  console.log(`target a value of 10,000 terms parses in <= 0.2 s: ${verdict(worst <= 200)} (parseValue ${worst.toFixed(0)} ms wall)`);
+}
+
 function main(): void {
   const one = process.argv.indexOf("--one");
   if (one >= 0) {
     process.stdout.write(JSON.stringify(runOne(process.argv[one + 1])));
+    return;
+  }
+  if (process.argv.includes("--parse-only")) {
+    parseRows(!process.argv.includes("--no-sympy"));
     return;
   }
   const maxPlain = arg("--max", 12);
@@ -240,6 +286,7 @@ function main(): void {
     const x = s / r.ours.exact.wallMs;
     console.log(`target >= 1000x sympy on ${n}: ${verdict(x >= 1000)} (${x.toFixed(0)}x best, ${(s / r.ours.first.wallMs).toFixed(0)}x first run; sympy ${(s / 1000).toFixed(2)} s, exact ${r.ours.exact.wallMs.toFixed(1)} ms)`);
   }
+  if (!only) parseRows(sympy);
 }
 
 main();
