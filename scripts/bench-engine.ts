@@ -2,7 +2,7 @@
 // small dense or non-planar graphs (scripts/bench-networks.ts). A script, not a test: it prints
 // figures and whether each target is met, it asserts nothing.
 //
-//   npm run bench:engine -- [--max N] [--max-vccs N] [--sympy-budget SECONDS] [--sympy-cap SECONDS] [--no-sympy] [--only NAME] [--parse-only]
+//   npm run bench:engine -- [--max N] [--max-gm N] [--sympy-budget SECONDS] [--sympy-cap SECONDS] [--no-sympy] [--only NAME] [--parse-only]
 //
 // Each network is solved in a fresh child process, so "peak MB" is that process's peak RSS; times
 // are the best of up to three runs after a warm-up on a small ladder. The machine may be shared, so
@@ -27,7 +27,7 @@ const PYTHON = "/usr/bin/python3";
 
 /** Every network the benchmark knows, by its printed name. */
 function networkNamed(name: string): NetworkInput {
-  const ladder = /^(vccs-)?ladder-(\d+)$/.exec(name);
+  const ladder = /^(gm-)?ladder-(\d+)$/.exec(name);
   if (ladder) return ladderNetwork(Number(ladder[2]), ladder[1] !== undefined);
   const family = familyNetworks().find((f) => f.name === name);
   if (!family) throw new Error(`no network called ${name}`);
@@ -205,7 +205,7 @@ function main(): void {
     return;
   }
   const maxPlain = arg("--max", 12);
-  const maxVccs = arg("--max-vccs", 10);
+  const maxGm = arg("--max-gm", 10);
   const budget = arg("--sympy-budget", 240);
   const cap = arg("--sympy-cap", 40);
   const sympy = !process.argv.includes("--no-sympy");
@@ -220,9 +220,9 @@ function main(): void {
   const rows: { name: string; ours: OneRun; sym: SympyRun | null }[] = [];
   // Smallest ladders first, the two ladder families interleaved, then ladder-14 and -16, then the graphs.
   const names: string[] = [];
-  for (let n = 3; n <= Math.max(maxPlain, maxVccs); n++) {
+  for (let n = 3; n <= Math.max(maxPlain, maxGm); n++) {
     if (n <= maxPlain) names.push(`ladder-${n}`);
-    if (n <= maxVccs) names.push(`vccs-ladder-${n}`);
+    if (n <= maxGm) names.push(`gm-ladder-${n}`);
   }
   names.push("ladder-14", "ladder-16", ...familyNetworks().map((f) => f.name));
   const print = (cells: string[]) => console.log(cells.map((c, i) => pad(c, widths[i])).join(" "));

@@ -4,28 +4,28 @@
 
 import type { Element, NetworkInput } from "../shared/engine";
 
-/** A voltage-controlled current source gm·V(cp, cn) from a to b; the one place the element vocabulary of controls is spelled. */
+/** A current source driving gm·V(cp, cn) from a to b (a transconductance). */
 export function transconductor(name: string, a: string, b: string, cp: string, cn: string, gm: string): Element {
-  return { name, kind: "vccs", nodes: [a, b], control: { nodes: [cp, cn] }, value: gm };
+  return { name, kind: "current", nodes: [a, b], value: `${gm} * across(${cp}, ${cn})` };
 }
 
-/** A current-controlled voltage source rm·I(sense) from a to b. */
+/** A voltage source holding rm·I(sense) across a, b (a transresistance). */
 export function transresistor(name: string, a: string, b: string, sense: string, rm: string): Element {
-  return { name, kind: "ccvs", nodes: [a, b], control: { element: sense }, value: rm };
+  return { name, kind: "voltage", nodes: [a, b], value: `${rm} * through(${sense})` };
 }
 
-/** An ideal voltage source V(a) − V(b) = value. */
+/** An independent voltage source V(a) − V(b) = value. */
 export function drive(name: string, a: string, b: string, value: string): Element {
-  return { name, kind: "vsource", nodes: [a, b], value };
+  return { name, kind: "voltage", nodes: [a, b], value };
 }
 
 /** n sections of series Ra_i and shunt Rb_i, driven by Vs; optionally a transconductance gm_i·V(n_{i-1}) in every section. */
-export function ladderNetwork(n: number, withVccs: boolean): NetworkInput {
+export function ladderNetwork(n: number, withGm: boolean): NetworkInput {
   const elements: Element[] = [drive("Vin", "n0", "0", "Vs")];
   for (let i = 1; i <= n; i++) {
     elements.push({ name: `Ra${i}`, kind: "resistor", nodes: [`n${i - 1}`, `n${i}`], value: `Ra_${i}` });
     elements.push({ name: `Rb${i}`, kind: "resistor", nodes: [`n${i}`, "0"], value: `Rb_${i}` });
-    if (withVccs) elements.push(transconductor(`Gm${i}`, `n${i}`, "0", `n${i - 1}`, "0", `gm_${i}`));
+    if (withGm) elements.push(transconductor(`Gm${i}`, `n${i}`, "0", `n${i - 1}`, "0", `gm_${i}`));
   }
   return { port: { plus: `n${n}`, minus: "0" }, elements };
 }

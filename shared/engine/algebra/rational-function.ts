@@ -342,7 +342,7 @@ interface CompactFactor {
 
 /** factorCheap of den = c * prod(parts), from the parts' own factorizations (equal factors merged into powers). */
 function factorProduct(den: Poly, parts: readonly Poly[]): CheapFactorization {
-  const each = parts.map(factorCheap);
+  const each = parts.map((q) => factorCheap(q));
   const monomial: Record<string, number> = {};
   const factors: Array<{ base: Poly; exponent: number }> = [];
   let lc = Rational.ONE;
