@@ -11,6 +11,18 @@ function numberFrom(name: string, fallback: number): number {
   return value;
 }
 
+// Express's "trust proxy": off (the socket's address is the client's), a hop count, or addresses/subnets
+// of the balancers whose X-Forwarded-For is believed (e.g. "loopback" or "10.0.0.0/8, 192.168.1.5").
+export type TrustProxy = boolean | number | string;
+
+export function trustProxyFrom(raw: string | undefined): TrustProxy {
+  const value = (raw ?? "").trim();
+  if (value === "" || value === "false" || value === "0") return false;
+  if (value === "true") return true;
+  if (/^[1-9][0-9]*$/.test(value)) return Number(value);
+  return value;
+}
+
 const port = numberFrom("PORT", 4317);
 const nodeEnv = env.NODE_ENV ?? "development";
 
@@ -22,6 +34,7 @@ export const config = {
   publicUrl: (env.PUBLIC_URL ?? `http://localhost:${port}`).replace(/\/+$/, ""),
   dbPoolSize: numberFrom("DB_POOL_SIZE", 10),
   logLevel: env.LOG_LEVEL ?? (nodeEnv === "test" ? "silent" : "info"),
+  trustProxy: trustProxyFrom(env.TRUST_PROXY),
   mail: {
     // Without SMTP_HOST the server starts the local capture server and sends to it.
     smtpHost: env.SMTP_HOST ?? "",
@@ -64,6 +77,7 @@ export interface AppSettings {
   publicUrl: string;
   mailFrom: string;
   logLevel: string;
+  trustProxy: TrustProxy;
   limits: typeof config.limits;
   jsonBodyBytes: number;
   solve: SolveSettings;
@@ -75,6 +89,7 @@ export function defaultSettings(): AppSettings {
     publicUrl: config.publicUrl,
     mailFrom: config.mail.from,
     logLevel: config.logLevel,
+    trustProxy: config.trustProxy,
     limits: { ...config.limits },
     jsonBodyBytes: config.jsonBodyBytes,
     solve: { ...config.solve },

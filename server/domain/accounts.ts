@@ -1,6 +1,7 @@
 // Accounts: sign-up with a verified address, sign-in, password reset by e-mail link.
 import { and, asc, eq, gt, isNull, sql } from "drizzle-orm";
 import { generateIdFromEntropySize } from "lucia";
+import { createSessionToken } from "../auth/lucia.js";
 import { hashPassword, verifyDecoy, verifyPassword } from "../auth/password.js";
 import type { Database } from "../db/client.js";
 import { emailTokens, teamMembers, teams, users, type EmailTokenPurpose, type Role } from "../db/schema.js";
@@ -85,9 +86,9 @@ export async function signIn(db: Database, email: string, password: string): Pro
   return publicUser(row);
 }
 
-export async function startSession(services: Services, userId: string): Promise<string> {
-  const session = await services.auth.createSession(userId, {});
-  return session.id;
+/** A new session for the user; returns the token for the cookie (the database keeps its hash). */
+export function startSession(services: Services, userId: string): Promise<string> {
+  return createSessionToken(services.auth, userId);
 }
 
 async function issueEmailToken(db: Database | Transaction, userId: string, purpose: EmailTokenPurpose): Promise<string> {

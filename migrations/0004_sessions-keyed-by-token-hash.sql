@@ -1,0 +1,2 @@
+-- Sessions are now keyed by the SHA-256 of the cookie's token; rows keyed by a raw cookie value can never match again.
+DELETE FROM "sessions";
