@@ -1,5 +1,5 @@
 // Every setting the server reads, with its default, in one place (documented in README.md).
-import { availableParallelism } from "node:os";
+import { availableParallelism, hostname } from "node:os";
 
 const env = process.env;
 
@@ -35,6 +35,8 @@ export const config = {
   dbPoolSize: numberFrom("DB_POOL_SIZE", 10),
   logLevel: env.LOG_LEVEL ?? (nodeEnv === "test" ? "silent" : "info"),
   trustProxy: trustProxyFrom(env.TRUST_PROXY),
+  // One name per server process that survives its restart: its unfinished solve jobs are failed at start-up.
+  instanceName: env.INSTANCE_NAME || `${hostname()}:${port}`,
   mail: {
     // Without SMTP_HOST the server starts the local capture server and sends to it.
     smtpHost: env.SMTP_HOST ?? "",
@@ -78,6 +80,7 @@ export interface AppSettings {
   mailFrom: string;
   logLevel: string;
   trustProxy: TrustProxy;
+  instanceName: string;
   limits: typeof config.limits;
   jsonBodyBytes: number;
   solve: SolveSettings;
@@ -90,6 +93,7 @@ export function defaultSettings(): AppSettings {
     mailFrom: config.mail.from,
     logLevel: config.logLevel,
     trustProxy: config.trustProxy,
+    instanceName: config.instanceName,
     limits: { ...config.limits },
     jsonBodyBytes: config.jsonBodyBytes,
     solve: { ...config.solve },

@@ -127,13 +127,17 @@ export async function verifyEmail(db: Database, token: string): Promise<PublicUs
   });
 }
 
-// Answers the same whether or not the address has an account, so it cannot be used to probe;
-// the mail goes out after the answer, so neither can the time it takes.
-export async function requestPasswordReset(services: Services, email: string): Promise<void> {
+// Answers the same, in the same time, whether or not the address has an account: the request only
+// hands the address on; looking it up, issuing the token and mailing happen after the answer.
+export function requestPasswordReset(services: Services, email: string): void {
+  void sendPasswordReset(services, email).catch((error: unknown) => services.log.error({ err: error }, "a password-reset mail could not be prepared"));
+}
+
+async function sendPasswordReset(services: Services, email: string): Promise<void> {
   const [row] = await services.db.select().from(users).where(eq(users.email, email));
   if (!row) return;
   const token = await issueEmailToken(services.db, row.id, "reset_password");
-  void services.mailer.send(passwordResetMail(row.email, row.name, link(services, `/reset-password?token=${token}`)));
+  await services.mailer.send(passwordResetMail(row.email, row.name, link(services, `/reset-password?token=${token}`)));
 }
 
 export async function resetPassword(services: Services, token: string, password: string): Promise<PublicUser> {

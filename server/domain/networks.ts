@@ -3,6 +3,7 @@ import { randomBytes } from "node:crypto";
 import { and, asc, count, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { networks, teamMembers, users, type Role } from "../db/schema.js";
+import { withoutControls } from "../lib/validate.js";
 import { HttpError, notFound } from "../lib/errors.js";
 import { requireNetworkRole, requireTeamRole, type NetworkRow } from "./access.js";
 import { NETLIST_EXTENSION, readNetworkFile, type Network } from "./engine.js";
@@ -206,6 +207,8 @@ export async function duplicateNetwork(db: Database, networkId: string, userId: 
   });
 }
 
+export const networkTitleMax = 200;
+
 const importExtensions = [".json", NETLIST_EXTENSION];
 const importTypes = ["application/json", "text/plain"];
 
@@ -231,7 +234,7 @@ export async function importNetwork(
   }
   if (text.includes("\u0000")) throw new HttpError(415, "unsupported_type", "The file is not UTF-8 text.", { file: "binary content" });
   const { network, format } = readNetworkFile(text);
-  const base = dot > 0 ? filename.slice(0, dot) : filename;
-  const created = await createNetwork(db, teamId, userId, { title: title?.trim() || base.trim() || "Imported network", circuit: network });
+  const base = withoutControls(dot > 0 ? filename.slice(0, dot) : filename).slice(0, networkTitleMax).trim();
+  const created = await createNetwork(db, teamId, userId, { title: title || base || "Imported network", circuit: network });
   return { ...created, importedFrom: format };
 }

@@ -54,7 +54,7 @@ export async function solve(services: Services, networkId: string, userId: strin
 
   const options: SolveOptions = {};
   const key = solveKey(circuit, options);
-  const recorder = new SolveJobRecorder(db, network, userId);
+  const recorder = new SolveJobRecorder(db, network, userId, settings.instanceName);
   const fresh = async () => {
     const outcome = await solver.solve(circuit, options, key, { onStart: () => recorder.started() }).catch((error: unknown) => {
       throw error instanceof SolverBusyError ? solverBusy() : error;

@@ -12,14 +12,15 @@ import {
   listNetworks,
   networkIdForSlug,
   networkSorts,
+  networkTitleMax,
   updateNetwork,
 } from "../domain/networks.js";
 import type { Services } from "../domain/services.js";
 import { notFound } from "../lib/errors.js";
 import { readUpload } from "../lib/uploads.js";
-import { idParam, parseBody, parseQuery, plainText } from "../lib/validate.js";
+import { idParam, nameText, parseBody, parseQuery, plainText } from "../lib/validate.js";
 
-const title = z.string().trim().min(1, { error: "Give the network a title." }).max(200);
+const title = nameText(networkTitleMax, "Give the network a title.");
 const description = z.string().max(5_000);
 // The circuit's shape is the engine's to judge (readCircuit); here it only has to be an object.
 const circuit = z.record(z.string(), z.unknown(), { error: "The circuit is a JSON object in Portfold's network format." });
@@ -29,6 +30,7 @@ const patchBody = z
   .object({ title: title.optional(), description: description.optional(), circuit: circuit.optional(), expectedUpdatedAt: z.iso.datetime({ offset: true }).optional() })
   .refine((body) => body.title !== undefined || body.description !== undefined || body.circuit !== undefined, { error: "Change at least one of title, description, circuit." });
 const duplicateBody = z.object({ title: title.optional() });
+const importFields = z.object({ title: title.optional() });
 const listQuery = z.object({
   q: plainText(200).optional(),
   sort: z.enum(networkSorts).default("updatedAt"),
@@ -61,7 +63,8 @@ export function networksRouter(services: Services): Router {
     // Access first: a file is only read into memory for someone allowed to import it.
     await requireTeamRole(db, teamId, user.id, "editor");
     const { file, fields } = await readUpload(req, res, services.settings.limits.importBytes);
-    const given = plainText(200).safeParse(fields.title).data;
+    // A title given with the file obeys the same rule as any title; without one, the file name stands in.
+    const { title: given } = parseBody(importFields, { title: fields.title || undefined });
     res.status(201).json(await importNetwork(db, teamId, user.id, file, given));
   });
 
