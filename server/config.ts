@@ -1,5 +1,6 @@
 // Every setting the server reads, with its default, in one place (documented in README.md).
 import { availableParallelism, hostname } from "node:os";
+import { DEFAULT_EXPRESSION_BOUNDS, type ExpressionBounds } from "../shared/engine/algebra/expression-bounds.js";
 
 const env = process.env;
 
@@ -66,6 +67,13 @@ export const config = {
     waitMs: numberFrom("SOLVE_WAIT_MS", 2_000),
     queueMax: numberFrom("SOLVE_QUEUE_MAX", 32),
   },
+  // Size bounds on every typed expression, checked before it is parsed (422 expression_too_large).
+  expressions: {
+    maxChars: numberFrom("EXPRESSION_MAX_CHARS", DEFAULT_EXPRESSION_BOUNDS.maxChars),
+    maxTerms: numberFrom("EXPRESSION_MAX_TERMS", DEFAULT_EXPRESSION_BOUNDS.maxTerms),
+    maxDepth: numberFrom("EXPRESSION_MAX_DEPTH", DEFAULT_EXPRESSION_BOUNDS.maxDepth),
+    maxExponent: numberFrom("EXPRESSION_MAX_EXPONENT", DEFAULT_EXPRESSION_BOUNDS.maxExponent),
+  },
   demoPassword: env.DEMO_PASSWORD ?? "sensor-lab-demo",
 };
 
@@ -84,6 +92,7 @@ export interface AppSettings {
   limits: typeof config.limits;
   jsonBodyBytes: number;
   solve: SolveSettings;
+  expressions: ExpressionBounds;
 }
 
 export function defaultSettings(): AppSettings {
@@ -97,5 +106,6 @@ export function defaultSettings(): AppSettings {
     limits: { ...config.limits },
     jsonBodyBytes: config.jsonBodyBytes,
     solve: { ...config.solve },
+    expressions: { ...config.expressions },
   };
 }

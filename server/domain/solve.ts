@@ -7,7 +7,8 @@ import { deriveOutcome, type Derivation, type SolveOutcome } from "../solver/der
 import { SolverBusyError } from "../solver/pool.js";
 import { requireNetworkRole } from "./access.js";
 import { withTeamCells } from "./cells.js";
-import { parseNetwork, type Network, type SolveOptions } from "./engine.js";
+import type { Network, SolveOptions } from "./engine.js";
+import { readNetwork } from "./reading.js";
 import { revisionView, storeRevision, type RevisionView } from "./revisions.js";
 import type { Services } from "./services.js";
 import { SolveJobRecorder, type SolveJobView } from "./solve-jobs.js";
@@ -45,7 +46,7 @@ export type SolveAnswer = { kind: "revision"; revision: RevisionView; cacheHit: 
 export async function solve(services: Services, networkId: string, userId: string, waitMs: number): Promise<SolveAnswer> {
   const { db, solver, settings } = services;
   const { network } = await requireNetworkRole(db, networkId, userId, "editor");
-  const parsed = parseNetwork(network.circuit);
+  const parsed = await readNetwork(services, network.circuit);
   if (!parsed.network) throw illPosed(parsed.diagnostics);
   // The team's cells go into the circuit itself, so the cache key and the revision carry their definitions.
   const circuit = await withTeamCells(db, network.teamId, parsed.network);

@@ -2,7 +2,6 @@ import { Router } from "express";
 import { z } from "zod";
 import { signedInUser } from "../auth/session.js";
 import { requireTeamRole } from "../domain/access.js";
-import { readCircuit } from "../domain/engine.js";
 import {
   createNetwork,
   deleteNetwork,
@@ -15,6 +14,7 @@ import {
   networkTitleMax,
   updateNetwork,
 } from "../domain/networks.js";
+import { readCircuit } from "../domain/reading.js";
 import type { Services } from "../domain/services.js";
 import { notFound } from "../lib/errors.js";
 import { readUpload } from "../lib/uploads.js";
@@ -54,7 +54,7 @@ export function networksRouter(services: Services): Router {
     const user = signedInUser(res);
     const teamId = idParam(req.params.teamId, "That team");
     const body = parseBody(createBody, req.body);
-    res.status(201).json(await createNetwork(db, teamId, user.id, { ...body, circuit: readCircuit(body.circuit) }));
+    res.status(201).json(await createNetwork(db, teamId, user.id, { ...body, circuit: await readCircuit(services, body.circuit) }));
   });
 
   router.post("/teams/:teamId/networks/import", async (req, res) => {
@@ -65,7 +65,7 @@ export function networksRouter(services: Services): Router {
     const { file, fields } = await readUpload(req, res, services.settings.limits.importBytes);
     // A title given with the file obeys the same rule as any title; without one, the file name stands in.
     const { title: given } = parseBody(importFields, { title: fields.title || undefined });
-    res.status(201).json(await importNetwork(db, teamId, user.id, file, given));
+    res.status(201).json(await importNetwork(services, teamId, user.id, file, given));
   });
 
   router.get("/networks/by-slug/:slug", async (req, res) => {
@@ -84,7 +84,7 @@ export function networksRouter(services: Services): Router {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
     const body = parseBody(patchBody, req.body);
-    const patch = { ...body, circuit: body.circuit === undefined ? undefined : readCircuit(body.circuit) };
+    const patch = { ...body, circuit: body.circuit === undefined ? undefined : await readCircuit(services, body.circuit) };
     res.json(await updateNetwork(db, networkId, user.id, patch));
   });
 

@@ -4,7 +4,8 @@ import { MessageChannel } from "node:worker_threads";
 import { Piscina } from "piscina";
 import type { SolveSettings } from "../config.js";
 import type { Network, SolveOptions } from "../domain/engine.js";
-import { breach } from "./caps.js";
+import { breach, type CapBreach } from "./caps.js";
+import type { ReadOutcome, ReadTask } from "./read-task.js";
 import type { SolveOutcome } from "./derive.js";
 import { startedMessage, type SolveTask } from "./solve-task.js";
 
@@ -26,6 +27,8 @@ export interface SolveHooks {
 
 export interface Solver {
   solve(circuit: Network, options: SolveOptions, key: string, hooks?: SolveHooks): Promise<SolveOutcome>;
+  /** The engine's reader on a thread of its own, under the same time and memory caps; null when capped. */
+  read(kind: ReadTask["kind"], input: unknown): Promise<ReadOutcome | { kind: "capped"; breach: CapBreach }>;
   stats(): SolverStats;
   warm(): void;
   close(): Promise<void>;
@@ -45,57 +48,89 @@ interface Flight {
   listeners: (() => void)[];
 }
 
+type Threads = Piscina<unknown, unknown>;
+
+function threadPool(settings: SolveSettings, threads: number): Threads {
+  return new Piscina({
+    filename: workerFile.href,
+    minThreads: threads,
+    maxThreads: threads,
+    idleTimeout: Infinity,
+    // The queue is bounded below, in solve(): piscina does not count tasks that carry an abort signal.
+    // The thread loads tsx itself (worker.mjs); whatever loader the parent runs under stays out.
+    execArgv: [],
+    resourceLimits: { maxOldGenerationSizeMb: settings.memoryMb },
+  });
+}
+
+/**
+ * Runs one task on a thread of `pool` under the time cap (counted from the thread's "started"
+ * message, so queue time is free) and the memory cap; past either, the thread is terminated.
+ */
+async function runCapped<T>(
+  settings: SolveSettings,
+  pool: Threads,
+  task: Record<string, unknown>,
+  name: string,
+  onStarted: () => void,
+  onTerminated: () => void,
+): Promise<T | { kind: "capped"; breach: CapBreach }> {
+  const channel = new MessageChannel();
+  const abort = new AbortController();
+  let timer: NodeJS.Timeout | undefined;
+  let timedOut = false;
+  let started = false;
+  channel.port1.on("message", (message) => {
+    if (message !== startedMessage || started) return;
+    started = true;
+    timer = setTimeout(() => {
+      timedOut = true;
+      abort.abort();
+    }, settings.timeLimitMs);
+    onStarted();
+  });
+  try {
+    return (await pool.run({ ...task, progress: channel.port2 }, { name, transferList: [channel.port2], signal: abort.signal })) as T;
+  } catch (error) {
+    if (timedOut) {
+      onTerminated();
+      return { kind: "capped", breach: breach("time", settings.timeLimitMs, null) };
+    }
+    if ((error as { code?: unknown })?.code === "ERR_WORKER_OUT_OF_MEMORY") {
+      onTerminated();
+      return { kind: "capped", breach: breach("memory", settings.memoryMb, null) };
+    }
+    throw error;
+  } finally {
+    clearTimeout(timer);
+    channel.port1.close();
+  }
+}
+
 export function createSolver(settings: SolveSettings): Solver {
-  let pool: Piscina<SolveTask, SolveOutcome> | null = null;
+  let pool: Threads | null = null;
+  // Reading networks has a thread of its own, so an edit never waits behind long solves.
+  let reader: Threads | null = null;
   const flights = new Map<string, { flight: Flight; outcome: Promise<SolveOutcome> }>();
   const counts = { started: 0, finished: 0, terminated: 0, running: 0 };
 
-  const threads = () => {
-    pool ??= new Piscina<SolveTask, SolveOutcome>({
-      filename: workerFile.href,
-      minThreads: settings.threads,
-      maxThreads: settings.threads,
-      idleTimeout: Infinity,
-      // The queue is bounded below, in solve(): piscina does not count tasks that carry an abort signal.
-      // The thread loads tsx itself (worker.mjs); whatever loader the parent runs under stays out.
-      execArgv: [],
-      resourceLimits: { maxOldGenerationSizeMb: settings.memoryMb },
-    });
-    return pool;
+  const threads = () => (pool ??= threadPool(settings, settings.threads));
+  const readerThread = () => (reader ??= threadPool(settings, 1));
+  const terminated = () => {
+    counts.terminated += 1;
   };
 
   async function runOnThread(circuit: Network, options: SolveOptions, flight: Flight): Promise<SolveOutcome> {
-    const channel = new MessageChannel();
-    const abort = new AbortController();
-    let timer: NodeJS.Timeout | undefined;
-    let timedOut = false;
-    channel.port1.on("message", (message) => {
-      if (message !== startedMessage || flight.started) return;
+    const task = { circuit, options, maxResultTerms: settings.maxResultTerms } satisfies Omit<SolveTask, "progress">;
+    const started = () => {
       flight.started = true;
       counts.started += 1;
       counts.running += 1;
-      timer = setTimeout(() => {
-        timedOut = true;
-        abort.abort();
-      }, settings.timeLimitMs);
       for (const listener of flight.listeners) listener();
-    });
+    };
     try {
-      const task: SolveTask = { circuit, options, maxResultTerms: settings.maxResultTerms, progress: channel.port2 };
-      return await threads().run(task, { transferList: [channel.port2], signal: abort.signal });
-    } catch (error) {
-      if (timedOut) {
-        counts.terminated += 1;
-        return { kind: "capped", breach: breach("time", settings.timeLimitMs, null) };
-      }
-      if ((error as { code?: unknown })?.code === "ERR_WORKER_OUT_OF_MEMORY") {
-        counts.terminated += 1;
-        return { kind: "capped", breach: breach("memory", settings.memoryMb, null) };
-      }
-      throw error;
+      return await runCapped<SolveOutcome>(settings, threads(), task, "default", started, terminated);
     } finally {
-      clearTimeout(timer);
-      channel.port1.close();
       if (flight.started) {
         counts.running -= 1;
         counts.finished += 1;
@@ -118,11 +153,14 @@ export function createSolver(settings: SolveSettings): Solver {
       }
       return entry.outcome;
     },
+    read: (kind, input) => runCapped<ReadOutcome>(settings, readerThread(), { kind, input }, "runReadTask", () => undefined, terminated),
     stats: () => ({ ...counts, queued: flights.size - counts.running, threads: pool?.threads.length ?? 0 }),
+    // The reader thread starts on first use: most networks read inline.
     warm: () => void threads(),
     close: async () => {
-      await pool?.destroy();
+      await Promise.all([pool?.destroy(), reader?.destroy()]);
       pool = null;
+      reader = null;
     },
   };
 }
