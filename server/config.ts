@@ -66,6 +66,9 @@ export const config = {
     maxResultTerms: numberFrom("SOLVE_MAX_RESULT_TERMS", 20_000),
     waitMs: numberFrom("SOLVE_WAIT_MS", 2_000),
     queueMax: numberFrom("SOLVE_QUEUE_MAX", 32),
+    // Solves queued or running at once for one person and for one team (per process); beyond, 429.
+    maxPerUser: numberFrom("SOLVE_MAX_PER_USER", 4),
+    maxPerTeam: numberFrom("SOLVE_MAX_PER_TEAM", 8),
   },
   // Size bounds on every typed expression, checked before it is parsed (422 expression_too_large).
   expressions: {

@@ -25,8 +25,19 @@ export interface SolveHooks {
   onStart?: () => void;
 }
 
+/** Who asked for a solve: the per-person and per-team limits count queued and running solves by it. */
+export interface SolveOwner {
+  userId: string;
+  teamId: string;
+}
+
 export interface Solver {
-  solve(circuit: Network, options: SolveOptions, key: string, hooks?: SolveHooks): Promise<SolveOutcome>;
+  solve(circuit: Network, options: SolveOptions, key: string, owner: SolveOwner, hooks?: SolveHooks): Promise<SolveOutcome>;
+  /**
+   * Counts one solve against its person's and team's limits until the returned release is called;
+   * throws SolveLimitError when either is reached. Taken before a request's first await on the solve.
+   */
+  reserve(owner: SolveOwner): () => void;
   /** The engine's reader on a thread of its own, under the same time and memory caps; null when capped. */
   read(kind: ReadTask["kind"], input: unknown): Promise<ReadOutcome | { kind: "capped"; breach: CapBreach }>;
   stats(): SolverStats;
@@ -37,6 +48,17 @@ export interface Solver {
 export class SolverBusyError extends Error {
   constructor() {
     super("solver queue is full");
+  }
+}
+
+/** One person or one team already has as many solves queued or running as it may. */
+export class SolveLimitError extends Error {
+  constructor(
+    readonly scope: "user" | "team",
+    readonly count: number,
+    readonly limit: number,
+  ) {
+    super(`${scope} solve limit reached`);
   }
 }
 
@@ -113,6 +135,41 @@ export function createSolver(settings: SolveSettings): Solver {
   let reader: Threads | null = null;
   const flights = new Map<string, { flight: Flight; outcome: Promise<SolveOutcome> }>();
   const counts = { started: 0, finished: 0, terminated: 0, running: 0 };
+  const perUser = new Map<string, number>();
+  const perTeam = new Map<string, number>();
+  const bump = (map: Map<string, number>, key: string, by: number) => {
+    const next = (map.get(key) ?? 0) + by;
+    if (next > 0) map.set(key, next);
+    else map.delete(key);
+  };
+  // Fair order: solves wait per team, and a free thread takes the next solve of the team served
+  // longest ago (a Map iterates in insertion order; a served team moves to the back).
+  const waiting = new Map<string, (() => void)[]>();
+  let handedOut = 0;
+  const pump = () => {
+    while (handedOut < settings.threads && waiting.size > 0) {
+      const [team, queue] = waiting.entries().next().value!;
+      const start = queue.shift()!;
+      waiting.delete(team);
+      if (queue.length > 0) waiting.set(team, queue);
+      handedOut += 1;
+      start();
+    }
+  };
+  const inTurn = <T>(teamId: string, run: () => Promise<T>): Promise<T> =>
+    new Promise<T>((resolve, reject) => {
+      const queue = waiting.get(teamId) ?? [];
+      queue.push(() =>
+        run()
+          .then(resolve, reject)
+          .finally(() => {
+            handedOut -= 1;
+            pump();
+          }),
+      );
+      waiting.set(teamId, queue);
+      pump();
+    });
 
   const threads = () => (pool ??= threadPool(settings, settings.threads));
   const readerThread = () => (reader ??= threadPool(settings, 1));
@@ -139,12 +196,13 @@ export function createSolver(settings: SolveSettings): Solver {
   }
 
   return {
-    solve(circuit, options, key, hooks = {}) {
+    solve(circuit, options, key, owner, hooks = {}) {
       let entry = flights.get(key);
       if (!entry) {
         if (flights.size >= settings.threads + settings.queueMax) return Promise.reject(new SolverBusyError());
         const flight: Flight = { started: false, listeners: [] };
-        entry = { flight, outcome: runOnThread(circuit, options, flight).finally(() => flights.delete(key)) };
+        const outcome = inTurn(owner.teamId, () => runOnThread(circuit, options, flight)).finally(() => flights.delete(key));
+        entry = { flight, outcome };
         flights.set(key, entry);
       }
       if (hooks.onStart) {
@@ -152,6 +210,21 @@ export function createSolver(settings: SolveSettings): Solver {
         else entry.flight.listeners.push(hooks.onStart);
       }
       return entry.outcome;
+    },
+    reserve(owner) {
+      const mine = perUser.get(owner.userId) ?? 0;
+      if (mine >= settings.maxPerUser) throw new SolveLimitError("user", mine, settings.maxPerUser);
+      const ours = perTeam.get(owner.teamId) ?? 0;
+      if (ours >= settings.maxPerTeam) throw new SolveLimitError("team", ours, settings.maxPerTeam);
+      bump(perUser, owner.userId, 1);
+      bump(perTeam, owner.teamId, 1);
+      let released = false;
+      return () => {
+        if (released) return;
+        released = true;
+        bump(perUser, owner.userId, -1);
+        bump(perTeam, owner.teamId, -1);
+      };
     },
     read: (kind, input) => runCapped<ReadOutcome>(settings, readerThread(), { kind, input }, "runReadTask", () => undefined, terminated),
     stats: () => ({ ...counts, queued: flights.size - counts.running, threads: pool?.threads.length ?? 0 }),
