@@ -64,6 +64,10 @@ export const config = {
     maxElements: numberFrom("SOLVE_MAX_ELEMENTS", 60),
     maxSymbols: numberFrom("SOLVE_MAX_SYMBOLS", 40),
     maxResultTerms: numberFrom("SOLVE_MAX_RESULT_TERMS", 20_000),
+    // Stored size of one revision (results and steps, as JSON); larger optional parts are left out.
+    maxRevisionBytes: numberFrom("REVISION_MAX_BYTES", 4 * 1024 * 1024),
+    // Bytes of steps each process keeps in memory for repeated reads of the same revisions.
+    stepCacheBytes: numberFrom("STEP_CACHE_MB", 64) * 1024 * 1024,
     waitMs: numberFrom("SOLVE_WAIT_MS", 2_000),
     queueMax: numberFrom("SOLVE_QUEUE_MAX", 32),
     // Solves queued or running at once for one person and for one team (per process); beyond, 429.

@@ -178,7 +178,7 @@ export function createSolver(settings: SolveSettings): Solver {
   };
 
   async function runOnThread(circuit: Network, options: SolveOptions, flight: Flight): Promise<SolveOutcome> {
-    const task = { circuit, options, maxResultTerms: settings.maxResultTerms } satisfies Omit<SolveTask, "progress">;
+    const task = { circuit, options, maxResultTerms: settings.maxResultTerms, maxRevisionBytes: settings.maxRevisionBytes } satisfies Omit<SolveTask, "progress">;
     const started = () => {
       flight.started = true;
       counts.started += 1;
