@@ -86,22 +86,22 @@ describe("schematic canvas in chromium", () => {
   it("draws the finite-gain follower by mouse and the netlist follows", async () => {
     await page.getByRole("tab", { name: "Drawing" }).click();
     const palette = page.getByRole("toolbar", { name: "Palette" });
-    for (const kind of ["resistor", "conductance", "capacitor", "inductor", "vsource", "isource", "vcvs", "vccs", "ccvs", "cccs", "op-amp"]) {
+    for (const kind of ["resistor", "conductance", "capacitor", "inductor", "voltage", "current", "voltage by across", "current by across", "voltage by through", "current by through", "op-amp"]) {
       await palette.getByRole("button", { name: kind, exact: true }).waitFor();
     }
     // The source, standing: + at (0, -3), − at (0, 3).
-    await palette.getByRole("button", { name: "vsource", exact: true }).click();
+    await palette.getByRole("button", { name: "voltage", exact: true }).click();
     await click(page, 0, 0);
-    await setPart(page, "vsource1", { Name: "Vs", Value: "Vs" });
-    // The amplifier, standing at x = 10.
-    await palette.getByRole("button", { name: "vcvs", exact: true }).click();
+    await setPart(page, "voltage1", { Name: "Vs", Value: "Vs" });
+    // The amplifier, standing at x = 10: a voltage source whose value names its control.
+    await palette.getByRole("button", { name: "voltage by across", exact: true }).click();
     await click(page, 10, 0);
-    await setPart(page, "vcvs1", { Name: "Amp" });
-    await setPart(page, "Amp", { Gain: "mu", "Controlling node (first)": "in", "Controlling node (second)": "out" });
+    await setPart(page, "voltage1", { Name: "Amp" });
+    await setPart(page, "Amp", { Value: "mu * across(in, out)" });
     // The output resistance, lying from (13, -6) to (19, -6).
     await palette.getByRole("button", { name: "resistor", exact: true }).click();
     await click(page, 16, -6);
-    await setPart(page, "resistor1", { Name: "R0", Value: "R0" });
+    await setPart(page, "resistor1", { Name: "Rout", Value: "R0" });
 
     const tools = page.getByRole("toolbar", { name: "Drawing tools" });
     await tools.getByRole("button", { name: /^Ground/ }).click();
@@ -131,7 +131,7 @@ describe("schematic canvas in chromium", () => {
     const canvas = page.getByTestId("schematic-canvas");
     await shot(page, "canvas-drawn");
     await expect(canvas.getAttribute("aria-label")).resolves.toBe("Drawing: 3 parts, port out to 0");
-    await expect(page.locator('[data-part="Amp"]').getAttribute("aria-label")).resolves.toBe("Amp: vcvs, mu·across(in, out)");
+    await expect(page.locator('[data-part="Amp"]').getAttribute("aria-label")).resolves.toBe("Amp: voltage, mu * across(in, out)");
     expect(await page.locator("[data-junction]").count()).toBe(0);
     await shot(page, "canvas-drawn");
 
@@ -139,10 +139,10 @@ describe("schematic canvas in chromium", () => {
     await page.getByRole("tab", { name: "Netlist text" }).click();
     const text = await page.getByLabel("Portfold netlist").inputValue();
     expect(text).toMatch(/^port out 0$/m);
-    expect(text).toMatch(/^Vs vsource in 0 = Vs$/m);
-    const amp = /^Amp vcvs (\w+) 0 = mu \* across\(in, out\)$/m.exec(text);
+    expect(text).toMatch(/^Vs voltage in 0 = Vs$/m);
+    const amp = /^Amp voltage (\w+) 0 = mu \* across\(in, out\)$/m.exec(text);
     expect(amp).not.toBeNull();
-    expect(text).toMatch(new RegExp(`^R0 resistor ${amp![1]} out = R0$`, "m"));
+    expect(text).toMatch(new RegExp(`^Rout resistor ${amp![1]} out = R0$`, "m"));
   });
 
   it("keeps the help sheet of our own keys", async () => {
@@ -157,7 +157,7 @@ describe("schematic canvas in chromium", () => {
   });
 
   it("turns a part a quarter with Q, and Ctrl+Z puts it back, Ctrl+Shift+Z turns it again", async () => {
-    const body = page.locator('[data-part="R0"] > g[transform]').first();
+    const body = page.locator('[data-part="Rout"] > g[transform]').first();
     const lying = await body.getAttribute("transform");
     expect(lying).toMatch(/rotate\(0\)/);
     await click(page, 16, -6); // selects R0

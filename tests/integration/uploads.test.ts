@@ -10,8 +10,8 @@ const pdf = Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer 
 
 const followerNetlist = `# strain-gauge buffer, our own scenario
 port out 0
-Vbridge vsource in 0 = Vs
-Amp vcvs x 0 = A * across(in, out)
+Vbridge voltage in 0 = Vs
+Amp voltage x 0 = A * across(in, out)
 Rout resistor x out = Ro
 `;
 
@@ -43,7 +43,7 @@ describe("uploads: importing networks and attaching files", () => {
   });
 
   it("refuses a netlist with errors, with the engine's diagnostics by line and column", async () => {
-    const broken = followerNetlist.replace("Amp vcvs x 0", "Amp amplifier x 0");
+    const broken = followerNetlist.replace("Amp voltage x 0", "Amp amplifier x 0");
     const response = await editor.client.upload(importPath(), { name: "broken.pfn", type: "text/plain", content: broken });
     expect(response.status).toBe(400);
     expect(response.body.error.code).toBe("invalid_network_file");
@@ -52,6 +52,19 @@ describe("uploads: importing networks and attaching files", () => {
     const badJson = await editor.client.upload(importPath(), { name: "broken.json", type: "application/json", content: '{ "port": ' });
     expect(badJson.status).toBe(400);
     expect(badJson.body.error.diagnostics[0].code).toBe("invalid-json");
+  });
+
+  it("refuses a file and a circuit in the earlier format with 400, naming the new word for the old one", async () => {
+    const earlier = followerNetlist.replace("Amp voltage x 0", "Amp vcvs x 0");
+    const file = await editor.client.upload(importPath(), { name: "earlier.pfn", type: "text/plain", content: earlier });
+    expect(file.status).toBe(400);
+    expect(file.body.error.diagnostics[0]).toMatchObject({ code: "parse-error", line: 4, column: 5 });
+    expect(file.body.error.diagnostics[0].message).toContain("`vcvs` is now `voltage` with a value such as `A * across(in, out)`");
+    const circuit = { port: { plus: "out", minus: "0" }, elements: [{ name: "Drive", kind: "vsource", nodes: ["out", "0"], value: "Vs" }] };
+    const created = await editor.client.post(`/api/teams/${teamId}/networks`, { title: "Earlier shape", circuit });
+    expect(created.status).toBe(400);
+    expect(created.body.error.diagnostics[0]).toMatchObject({ code: "format-renamed", path: ["elements", 0, "kind"] });
+    expect(created.body.error.diagnostics[0].message).toContain("`vsource` is now `voltage`");
   });
 
   it("refuses files over the size limit (413) and of the wrong type (415)", async () => {
