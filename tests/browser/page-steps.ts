@@ -21,13 +21,13 @@ export async function signUpThroughForm(page: Page, who: Person): Promise<void> 
   await page.getByRole("button", { name: "Create account" }).click();
 }
 
-/** Signs in through the form and waits for the team home. */
+/** Signs in through the form and waits for the team home (or the list of teams, for someone in several). */
 export async function signInThroughForm(page: Page, baseUrl: string, who: Pick<Person, "email" | "password">): Promise<void> {
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel("E-mail").fill(who.email);
   await page.getByLabel("Password").fill(who.password);
   await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL(/\/teams\//);
+  await page.waitForURL(/\/teams(\/|$)/);
 }
 
 /** From the team home: imports a Portfold netlist as a file and waits for its workbench. */

@@ -70,7 +70,7 @@ describe("design review and share links", () => {
     const verdict = await reviewer.client.put(`${revisionPath()}/verdict`, { verdict: "needs_changes", note: "State the reference node." });
     expect(verdict.status).toBe(200);
     expect(verdict.body).toMatchObject({ verdict: "needs_changes", by: { id: reviewer.user.id } });
-    const mail = await waitForMail(server.db, author.user.email, { since, subject: /changes requested/ });
+    const mail = await waitForMail(server.db, author.user.email, { since, subject: /needs changes/ });
     expect(mail.subject).toContain("Revision 1");
     expect(mail.text).toContain("State the reference node.");
     expect((await author.client.get(revisionPath())).body.verdict.verdict).toBe("needs_changes");

@@ -53,7 +53,7 @@ describe("review sign-off", () => {
     const asked = await team.clients.reviewer.post(`${rev()}/verdicts`, { verdict: "needs_changes", note: "Name the reference node." });
     expect(asked.status).toBe(201);
     expect(asked.body.state).toMatchObject({ verdict: "needs_changes", by: { id: team.people.reviewer.user.id } });
-    const mail = await waitForMail(server.db, author.user.email, { since, subject: /changes requested/ });
+    const mail = await waitForMail(server.db, author.user.email, { since, subject: /needs changes/ });
     expect(mail.text).toContain("Name the reference node.");
 
     const approved = await second.client.post(`${rev()}/verdicts`, { verdict: "approved", note: "Fine by me." });
