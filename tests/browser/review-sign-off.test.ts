@@ -22,6 +22,7 @@ describe("review sign-off in chromium", () => {
   let author: Person;
   let reviewer: Person;
   let networkId = "";
+  let teamId = "";
   const title = "Bridge sense buffer";
   const pageErrors: string[] = [];
 
@@ -29,7 +30,7 @@ describe("review sign-off in chromium", () => {
     mkdirSync(screenshotDir, { recursive: true });
     server = await startTestServer();
     [author, reviewer] = await Promise.all([signedInPerson(server, "author"), signedInPerson(server, "reviewer")]);
-    const teamId = (await author.client.post("/api/teams", { name: "Sensor front-end review" })).body.id;
+    teamId = (await author.client.post("/api/teams", { name: "Sensor front-end review" })).body.id;
     await server.db.insert(teamMembers).values({ teamId, userId: reviewer.user.id, role: "reviewer" });
     networkId = (await author.client.post(`/api/teams/${teamId}/networks`, { title, circuit: followerCircuit })).body.id;
     [authorBrowser, reviewerBrowser] = await Promise.all([launchBrowser(), launchBrowser()]);
@@ -44,13 +45,15 @@ describe("review sign-off in chromium", () => {
     await server?.close();
   });
 
+  // A loaded machine: a request with its mails and the refetch after it may take seconds.
+  const soon = { timeout: 15_000 };
   const status = (page: Page) => page.getByRole("status", { name: "Review state" });
 
   it("the author solves revision 1: open, not yet reviewed, and no Approve button for the author", async () => {
     await authorPage.goto(`${server.url}/networks/${networkId}`);
     await authorPage.getByRole("button", { name: "Solve", exact: true }).click();
     await authorPage.waitForURL(/\/r\/1$/, { timeout: 30_000 });
-    await expect.poll(() => status(authorPage).textContent()).toContain("not yet reviewed");
+    await expect.poll(() => status(authorPage).textContent(), soon).toContain("not yet reviewed");
     await authorPage.getByRole("button", { name: "Request changes" }).waitFor();
     expect(await authorPage.getByRole("button", { name: "Approve", exact: true }).count()).toBe(0);
     await shot(authorPage, "sign-off-1-author-solved");
@@ -66,7 +69,7 @@ describe("review sign-off in chromium", () => {
     await reviewerPage.getByRole("button", { name: /^Add a note on step 1,/ }).click();
     await reviewerPage.getByLabel(/^Note on step 1,/).fill("Which node is the reference for the KCL rows?");
     await reviewerPage.getByRole("button", { name: "Add note" }).click();
-    await expect.poll(() => status(reviewerPage).textContent()).toContain("1 open note");
+    await expect.poll(() => status(reviewerPage).textContent(), soon).toContain("1 open note");
 
     await reviewerPage.getByRole("button", { name: "Request changes" }).click();
     const dialog = reviewerPage.getByRole("dialog", { name: "Request changes on revision 1" });
@@ -75,7 +78,7 @@ describe("review sign-off in chromium", () => {
     await dialog.getByLabel("What has to change (required)").fill("Name the reference node, and give Ro its trace resistance.");
     await shot(reviewerPage, "sign-off-3-request-changes-dialog");
     await dialog.getByRole("button", { name: "Record change request" }).click();
-    await expect.poll(() => status(reviewerPage).textContent()).toContain(`changes requested by ${reviewer.user.name}`);
+    await expect.poll(() => status(reviewerPage).textContent(), soon).toContain(`changes requested by ${reviewer.user.name}`);
     await shot(reviewerPage, "sign-off-4-changes-requested");
   });
 
@@ -85,12 +88,12 @@ describe("review sign-off in chromium", () => {
     await waitForMail(server.db, author.user.email, { subject: /New comment/ });
 
     await authorPage.reload();
-    await expect.poll(() => status(authorPage).textContent()).toContain("needs changes");
+    await expect.poll(() => status(authorPage).textContent(), soon).toContain("needs changes");
     await authorPage.getByText("Verdict history (1)").click();
     await authorPage.getByRole("list", { name: "Verdict history" }).getByText("Name the reference node", { exact: false }).waitFor();
     await authorPage.getByRole("complementary", { name: /^Review notes on step 1,/ }).getByRole("button", { name: "Resolve" }).click();
     await authorPage.getByText(`Resolved by ${author.user.name}`).waitFor();
-    await expect.poll(() => status(authorPage).textContent()).toContain("0 open notes");
+    await expect.poll(() => status(authorPage).textContent(), soon).toContain("0 open notes");
     await shot(authorPage, "sign-off-5-author-reads-history");
   });
 
@@ -100,7 +103,7 @@ describe("review sign-off in chromium", () => {
     await authorPage.goto(`${server.url}/networks/${networkId}`);
     await authorPage.getByRole("button", { name: "Solve", exact: true }).click();
     await authorPage.waitForURL(/\/r\/2$/, { timeout: 30_000 });
-    await expect.poll(() => status(authorPage).textContent()).toContain("Revision 2: open");
+    await expect.poll(() => status(authorPage).textContent(), soon).toContain("Revision 2: open");
   });
 
   it("the reviewer approves revision 2, told of the open note first", async () => {
@@ -111,7 +114,7 @@ describe("review sign-off in chromium", () => {
     await reviewerPage.getByRole("button", { name: /^Add a note on step 2,/ }).click();
     await reviewerPage.getByLabel(/^Note on step 2,/).fill("Rtrace could be listed in the assumptions.");
     await reviewerPage.getByRole("button", { name: "Add note" }).click();
-    await expect.poll(() => status(reviewerPage).textContent()).toContain("1 open note");
+    await expect.poll(() => status(reviewerPage).textContent(), soon).toContain("1 open note");
 
     await reviewerPage.getByRole("button", { name: "Approve", exact: true }).click();
     const dialog = reviewerPage.getByRole("dialog", { name: "Approve revision 2" });
@@ -119,7 +122,7 @@ describe("review sign-off in chromium", () => {
     await dialog.getByLabel("Note (optional)").fill("Good to go to layout.");
     await shot(reviewerPage, "sign-off-6-approve-with-open-note");
     await dialog.getByRole("button", { name: "Approve with open notes" }).click();
-    await expect.poll(() => status(reviewerPage).textContent()).toContain(`approved by ${reviewer.user.name}`);
+    await expect.poll(() => status(reviewerPage).textContent(), soon).toContain(`approved by ${reviewer.user.name}`);
     await shot(reviewerPage, "sign-off-7-approved");
   });
 
@@ -133,7 +136,7 @@ describe("review sign-off in chromium", () => {
     await authorPage.goto(`${server.url}/networks/${networkId}`);
     await authorPage.getByRole("button", { name: "Solve", exact: true }).click();
     await authorPage.waitForURL(/\/r\/3$/, { timeout: 30_000 });
-    await expect.poll(() => status(authorPage).textContent()).toContain("revision 2 approved; this one not yet reviewed");
+    await expect.poll(() => status(authorPage).textContent(), soon).toContain("revision 2 approved; this one not yet reviewed");
     await shot(authorPage, "sign-off-9-newer-revision-open");
     await authorPage.getByRole("link", { name: "compare with revision 2" }).click();
     await authorPage.getByRole("region", { name: "Revision 2 compared with 3" }).waitFor();
@@ -149,9 +152,26 @@ describe("review sign-off in chromium", () => {
     const guest = await guestBrowser.context.newPage();
     watchPage(guest, pageErrors);
     await guest.goto(`${server.url}/s/${token}`);
-    await expect.poll(() => status(guest).textContent()).toContain(`Revision 2: approved by ${reviewer.user.name}`);
+    await expect.poll(() => status(guest).textContent(), soon).toContain(`Revision 2: approved by ${reviewer.user.name}`);
     await shot(guest, "sign-off-11-shared-approved");
     await guestBrowser.close();
+  });
+
+  it("the author turns review mail off in the account settings; the team page sets required approvals and warns of owner invitations", async () => {
+    await authorPage.goto(`${server.url}/account`);
+    const toggle = authorPage.getByLabel(/^Send me review mail/);
+    expect(await toggle.isChecked()).toBe(true);
+    await toggle.click();
+    await expect.poll(async () => (await author.client.get("/api/me")).body.settings.reviewMail, soon).toBe(false);
+    await shot(authorPage, "sign-off-12-account-settings");
+
+    await authorPage.goto(`${server.url}/teams/${teamId}`);
+    await authorPage.getByLabel("Approvals a revision needs").fill("2");
+    await authorPage.getByRole("button", { name: "Save", exact: true }).click();
+    await expect.poll(async () => (await author.client.get(`/api/teams/${teamId}`)).body.requiredApprovals, soon).toBe(2);
+    await authorPage.getByLabel("Role", { exact: true }).selectOption("owner");
+    await authorPage.getByText("An owner can change every member's role").waitFor();
+    await shot(authorPage, "sign-off-13-team-review-settings");
   });
 
   it("raised no uncaught error and no console error on the way", () => {
