@@ -35,7 +35,7 @@ export interface RevisionState {
   requiredApprovals: number;
 }
 
-export const verdictLabel: Record<Verdict, string> = { open: "open", approved: "approved", needs_changes: "changes requested" };
+export const verdictLabel: Record<Verdict, string> = { open: "open", approved: "approved", needs_changes: "needs changes" };
 
 interface HistoryRow {
   id: string;

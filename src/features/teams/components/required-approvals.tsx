@@ -30,7 +30,7 @@ export function RequiredApprovals({ teamId, isOwner }: { teamId: string; isOwner
         update.mutate({ teamId, requiredApprovals: Number(value) });
       }}
     >
-      <TextField label="Approvals a revision needs" type="number" min={1} max={10} required value={value} onChange={(e) => setValue(e.target.value)} className="w-24" />
+      <TextField label="Approvals a revision needs" type="number" min={1} max={10} required value={value} onChange={(e) => setValue(e.target.value)} className="w-52" />
       <Button type="submit" disabled={update.isPending || Number(value) === required}>
         {update.isPending ? "Saving…" : "Save"}
       </Button>
