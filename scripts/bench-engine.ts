@@ -22,7 +22,7 @@ const PYTHON = "/usr/bin/python3";
 
 /** n sections of series Ra_i and shunt Rb_i, driven by Vs; optionally a VCCS gm_i·V(n_{i-1}) in every section. */
 export function ladderNetwork(n: number, withVccs: boolean): NetworkInput {
-  const elements: Element[] = [{ name: "Vin", kind: "vsource", nodes: ["n0", "0"], value: "Vs" }];
+  const elements: Element[] = [{ name: "Vin", kind: "voltage", nodes: ["n0", "0"], value: "Vs" }];
   for (let i = 1; i <= n; i++) {
     elements.push({ name: `Ra${i}`, kind: "resistor", nodes: [`n${i - 1}`, `n${i}`], value: `Ra_${i}` });
     elements.push({ name: `Rb${i}`, kind: "resistor", nodes: [`n${i}`, "0"], value: `Rb_${i}` });

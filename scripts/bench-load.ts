@@ -79,7 +79,7 @@ const line = (label: string, figures: Figures, target?: string) =>
 // cache from answering it.
 function heavyCircuit(tag: string) {
   const nodes = ["0", "k1", "k2", "k3", "k4", "k5", "k6", "k7"];
-  const elements: Record<string, unknown>[] = [{ name: "Drive", kind: "vsource", nodes: ["k1", "0"], value: "Vd" }];
+  const elements: Record<string, unknown>[] = [{ name: "Drive", kind: "voltage", nodes: ["k1", "0"], value: "Vd" }];
   let count = 0;
   for (let i = 0; i < nodes.length; i++) {
     for (let j = i + 1; j < nodes.length; j++) elements.push({ name: `leg_${i}_${j}`, kind: "resistor", nodes: [nodes[i], nodes[j]], value: `g${++count}_${tag}` });

@@ -63,7 +63,7 @@ export function solveNetworkExact(input: string | NetworkInput | Network): { net
   const network = expanded.network;
   const checked = checkNetwork(network, expanded.positions);
   if (checked.values === null) return { network, diagnostics: attributeToCells(checked.diagnostics, expanded.origin, parsed.network.cells), port: null };
-  return { network, diagnostics: attributeToCells(checked.diagnostics, expanded.origin, parsed.network.cells), port: solvePortExact(network, checked.values) };
+  return { network, diagnostics: attributeToCells(checked.diagnostics, expanded.origin, parsed.network.cells), port: solvePortExact(network, checked.values, checked.terms) };
 }
 
 export type { ExactPort };

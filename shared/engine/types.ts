@@ -7,49 +7,31 @@ export type { ApproximationEntry, ApproximationReport } from "./circuit/approxim
 export type { FrequencyEquivalent, FrequencyLimitValue, FrequencyReport, PolesZeros, SRoot } from "./circuit/frequency";
 
 /** Every element kind Portfold knows, spelled as the word used in both the JSON and the text netlist. */
-export const ELEMENT_KINDS = [
-  "resistor",
-  "conductance",
-  "capacitor",
-  "inductor",
-  "vsource",
-  "isource",
-  "vcvs",
-  "vccs",
-  "ccvs",
-  "cccs",
-  "opamp",
-] as const;
+export const ELEMENT_KINDS = ["resistor", "conductance", "capacitor", "inductor", "voltage", "current", "opamp"] as const;
 export type ElementKind = (typeof ELEMENT_KINDS)[number];
 
 export type PassiveKind = "resistor" | "conductance" | "capacitor" | "inductor";
-export type IndependentSourceKind = "vsource" | "isource";
-export type ControlledSourceKind = "vcvs" | "vccs" | "ccvs" | "cccs";
+/** A source: "voltage" holds V(first) − V(second) at its value, "current" drives its value from first to second. */
+export type SourceKind = "voltage" | "current";
 
-/** Control by the voltage V(c1) − V(c2). */
+/** Control by the voltage V(c1) − V(c2): across(c1, c2) in a source value. */
 export interface NodePairControl {
   nodes: [string, string];
 }
-/** Control by the reference current of a named element. */
+/** Control by the reference current of a named element: through(element) in a source value. */
 export interface ElementControl {
   element: string;
 }
 export type Control = NodePairControl | ElementControl;
 
-/** Passive or independent source: nodes [first, second]; reference current flows first -> second. */
+/**
+ * Passive or source: nodes [first, second]; reference current flows first -> second. A source whose
+ * value names across(...) or through(...) (linearly) is a controlled source.
+ */
 export interface TwoTerminalElement {
   name: string;
-  kind: PassiveKind | IndependentSourceKind;
+  kind: PassiveKind | SourceKind;
   nodes: [string, string];
-  value: string;
-}
-
-/** Dependent source: output between nodes, gain in value, controlling quantity in control. */
-export interface ControlledSourceElement {
-  name: string;
-  kind: ControlledSourceKind;
-  nodes: [string, string];
-  control: Control;
   value: string;
 }
 
@@ -61,7 +43,7 @@ export interface OpampElement {
   output: string;
 }
 
-export type Element = TwoTerminalElement | ControlledSourceElement | OpampElement;
+export type Element = TwoTerminalElement | OpampElement;
 
 export interface Port {
   plus: string;
@@ -106,8 +88,8 @@ export interface CellInstance {
   terminals: Record<string, string>;
   /** Per-instance names (or expressions) of the cell's symbols, e.g. { "gm": "gm1" }. */
   symbols?: Record<string, string>;
-  /** Optional parts of the cell to include, e.g. ["Cgs", "Cgd"]. */
-  include?: string[];
+  /** Optional parts of the cell to place with it, e.g. ["Cgs", "Cgd"] (netlist: "with Cgs Cgd"). */
+  with?: string[];
 }
 
 /** A reusable block: elements whose nodes are its terminals, "0" (ground) or its own internal nodes. */
@@ -118,7 +100,7 @@ export interface CellDefinition {
   /** The symbols its values use, which an instance may rename. */
   symbols: string[];
   elements: Element[];
-  /** Elements left out unless an instance includes them by name. */
+  /** Elements left out unless an instance names them in its "with" list. */
   optional?: string[];
 }
 

@@ -26,7 +26,7 @@ const gallery: GalleryNetwork[] = [
     // Ideal op-amp, non-inverting: gain 1 + R2/R1 and an output of zero resistance (common practice).
     netlist: `ground 0
 port out 0
-Sensor vsource in 0 = Vs
+Sensor voltage in 0 = Vs
 GainBlock opamp in fb -> out
 Feedback resistor out fb = R2
 LowerLeg resistor fb 0 = R1
@@ -42,10 +42,10 @@ LowerLeg resistor fb 0 = R1
     // (e.g. Sedra & Smith, Microelectronic Circuits, emitter follower; from memory).
     netlist: `ground 0
 port e 0
-Signal vsource sig 0 = Vs
+Signal voltage sig 0 = Vs
 SourceRes resistor sig b = Rs
 BaseEmitter resistor b e = r_pi
-Transcond vccs 0 e = gm * across(b, e)
+Transcond current 0 e = gm * across(b, e)
 Output resistor e 0 = r_o
 EmitterLoad resistor e 0 = RE
 `,
@@ -60,7 +60,7 @@ EmitterLoad resistor e 0 = RE
     // First-order RC low-pass seen from its output: Zth(s) = R/(1 + sRC), so Zth(0) = R (common practice).
     netlist: `ground 0
 port out 0
-Driver vsource in 0 = Vs
+Driver voltage in 0 = Vs
 Series resistor in out = R
 Hold capacitor out 0 = C
 `,
@@ -74,10 +74,10 @@ Hold capacitor out 0 = C
     // A CCVS reading the shunt current, and an inductor in series: at s = 0 only the resistances remain.
     netlist: `ground 0
 port o 0
-Feed isource 0 n = Is
+Feed current 0 n = Is
 Shunt resistor n 0 = Rsh
 Trace inductor n m = L
-Readout ccvs o 0 = rm * through(Shunt)
+Readout voltage o 0 = rm * through(Shunt)
 Sense resistor m 0 = Rm
 `,
     values: { Is: "1", Rsh: "1", L: "5n", rm: "100", Rm: "3", s: "0" },

@@ -16,8 +16,8 @@ import { shot, signUpThroughForm } from "./page-steps.js";
 const NETLIST = `# sensor buffer behind a strain bridge
 ground 0
 port out 0
-Sensor vsource in 0 = Vs
-Amp vcvs x 0 = mu * across(in, out)
+Sensor voltage in 0 = Vs
+Amp voltage x 0 = mu * across(in, out)
 OutputRes resistor x out = R0
 `;
 

@@ -20,7 +20,7 @@ lower resistor m 0 = Rb`;
 const BIASED_INPUT = `# sensor input biased from the reference through the team's divider
 ground 0
 port out 0
-Reference vsource ref 0 = Vs
+Reference voltage ref 0 = Vs
 Bias cell div2 t=ref m=out
 `;
 

@@ -18,7 +18,7 @@ import { importNetlist, shot, signInThroughForm } from "./page-steps.js";
 const BRIDGE = `# strain-gauge bridge, read across its mid-points
 ground 0
 port a b
-Excite vsource top 0 = Vs
+Excite voltage top 0 = Vs
 ArmA resistor top a = Ra
 ArmB resistor a 0 = Rb
 ArmC resistor top b = Rc

@@ -41,7 +41,7 @@ describe("approximations", () => {
 
   it("finite-gain follower: Rout ≈ Ro/A and Vth ≈ Vs for A ≫ 1", () => {
     // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 2 (follower: Ro/(1 + A) ≈ Ro/A, gain ≈ 1); from memory.
-    const r = solveNetwork("port out 0\nSig vsource in 0 = Vs\nAmp vcvs x 0 = A * across(in, out)\nRout resistor x out = Ro\n", { assume: ["A >> 1"], steps: false });
+    const r = solveNetwork("port out 0\nSig voltage in 0 = Vs\nAmp voltage x 0 = A * across(in, out)\nRout resistor x out = Ro\n", { assume: ["A >> 1"], steps: false });
     expectSameExpression(r.approximations?.results.rth?.approximate, "Ro/A");
     expectSameExpression(r.approximations?.results.vth?.approximate, "Vs");
   });

@@ -18,10 +18,10 @@ describe("bipolar stages (hybrid-π cell)", () => {
     // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 7 (CE amplifier, Ro = RC ∥ ro); from memory.
     const r = solve(`
       port c 0
-      Sig vsource in 0 = Vs
+      Sig voltage in 0 = Vs
       Rsig resistor in b = Rs
       Load resistor c 0 = RC
-      Q1 cell bjt-hybrid-pi b=b c=c e=0`);
+      Stage cell bjt-hybrid-pi b=b c=c e=0`);
     expectSameExpression(r.rth?.infix, "RC*ro/(RC + ro)");
     // Gain into an open port: Vth = −gm (RC ∥ ro) · Vs·r_pi/(Rs + r_pi) (same source).
     expectSameExpression(r.vth?.infix, "-gm*(RC*ro/(RC + ro))*Vs*r_pi/(Rs + r_pi)");
@@ -31,9 +31,9 @@ describe("bipolar stages (hybrid-π cell)", () => {
     // Sedra & Smith, 7th ed., ch. 7 (CB amplifier output resistance, also the degenerated CE); from memory.
     const r = solve(`
       port c 0
-      Sig vsource in 0 = Vs
+      Sig voltage in 0 = Vs
       Rsig resistor in e = Re
-      Q1 cell bjt-hybrid-pi b=0 c=c e=e`);
+      Stage cell bjt-hybrid-pi b=0 c=c e=e`);
     expectSameExpression(r.rth?.infix, "ro + (1 + gm*ro)*(Re*r_pi/(Re + r_pi))");
   });
 
@@ -41,20 +41,20 @@ describe("bipolar stages (hybrid-π cell)", () => {
     // Sedra & Smith, 7th ed., ch. 7 (emitter follower output resistance); from memory.
     const r = solve(`
       port e 0
-      Sig vsource in 0 = Vs
+      Sig voltage in 0 = Vs
       Rsig resistor in b = Rs
       Rbias resistor e 0 = RE
-      Q1 cell bjt-hybrid-pi b=b c=0 e=e`);
+      Stage cell bjt-hybrid-pi b=b c=0 e=e`);
     expectSameExpression(r.rth?.infix, "1/(1/RE + 1/ro + (1 + gm*r_pi)/(r_pi + Rs))");
   });
 });
 
 describe("MOSFET stages", () => {
   const CASCODE = `
-    # the output branch of a sensor amplifier: M1 common source, M2 cascode on top
+    # the output branch of a sensor amplifier: Lower common source, Upper cascode on top
     port out 0
-    M1 cell mosfet g=0 d=x s=0 b=0 rename gm:gm1 gmb:gmb1 ro:ro1
-    M2 cell mosfet g=0 d=out s=x b=0 rename gm:gm2 gmb:gmb2 ro:ro2`;
+    Lower cell mosfet g=0 d=x s=0 b=0 rename gm:gm1 gmb:gmb1 ro:ro1
+    Upper cell mosfet g=0 d=out s=x b=0 rename gm:gm2 gmb:gmb2 ro:ro2`;
 
   it("cascode: Rout = ro1 + ro2 + (gm2 + gmb2)·ro1·ro2", () => {
     // Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3 (cascode stage); from memory.
@@ -67,8 +67,8 @@ describe("MOSFET stages", () => {
     // Razavi, 2nd ed., ch. 3 (source follower output resistance with body effect); from memory.
     const r = solve(`
       port out 0
-      Bias isource out 0 = Ib
-      M1 cell mosfet g=0 d=0 s=out b=0`);
+      Bias current out 0 = Ib
+      Lower cell mosfet g=0 d=0 s=out b=0`);
     expectSameExpression(r.rth?.infix, "1/(gm + gmb + 1/ro)");
   });
 
@@ -77,7 +77,7 @@ describe("MOSFET stages", () => {
     const r = solve(`
       port out 0
       Degen resistor src 0 = Rs
-      M1 cell mosfet g=0 d=out s=src b=0`);
+      Lower cell mosfet g=0 d=out s=src b=0`);
     expectSameExpression(r.rth?.infix, "ro + Rs + (gm + gmb)*ro*Rs");
   });
 
@@ -87,7 +87,7 @@ describe("MOSFET stages", () => {
     const r = solve(`
       port g 0
       Load resistor d 0 = RD
-      M1 cell mosfet g=g d=d s=0 b=0 include Cgs Cgd`);
+      Lower cell mosfet g=g d=d s=0 b=0 with Cgs Cgd`);
     expect(r.frequency).toBeDefined();
     const exact = parseValue(r.rth!.infix).limit("ro", "inf");
     expect(exact.kind).toBe("finite");
@@ -106,7 +106,7 @@ describe("finite-gain amplifier cell", () => {
     // Sedra & Smith, 7th ed., ch. 2 (follower with finite gain and output resistance); from memory.
     const r = solve(`
       port out 0
-      Sig vsource in 0 = Vs
+      Sig voltage in 0 = Vs
       U1 cell amplifier p=in n=out o=out`);
     const lim = parseValue(r.rth!.infix).limit("Rin", "inf");
     expect(lim.kind).toBe("finite");
@@ -122,8 +122,8 @@ describe("cell instances: formats and diagnostics", () => {
     port: { plus: "out", minus: "0" },
     elements: [],
     cells: [
-      { name: "M1", cell: "mosfet", terminals: { g: "0", d: "x", s: "0", b: "0" }, symbols: { gm: "gm1", gmb: "gmb1", ro: "ro1" } },
-      { name: "M2", cell: "mosfet", terminals: { g: "0", d: "out", s: "x", b: "x" }, symbols: { gm: "gm2", gmb: "gmb2", ro: "ro2" } },
+      { name: "Lower", cell: "mosfet", terminals: { g: "0", d: "x", s: "0", b: "0" }, symbols: { gm: "gm1", gmb: "gmb1", ro: "ro1" } },
+      { name: "Upper", cell: "mosfet", terminals: { g: "0", d: "out", s: "x", b: "x" }, symbols: { gm: "gm2", gmb: "gmb2", ro: "ro2" } },
     ],
   };
 
@@ -131,7 +131,7 @@ describe("cell instances: formats and diagnostics", () => {
     const parsed = parseNetwork(JSON_CASCODE);
     expect(parsed.diagnostics).toEqual([]);
     const text = printNetlistText(parsed.network!);
-    expect(text).toContain("M2 cell mosfet g=0 d=out s=x b=x rename gm:gm2 gmb:gmb2 ro:ro2");
+    expect(text).toContain("Upper cell mosfet g=0 d=out s=x b=x rename gm:gm2 gmb:gmb2 ro:ro2");
     const back = parseNetwork(text);
     expect(back.network!.cells).toEqual(JSON_CASCODE.cells);
     // Body tied to source: no body effect, Rout = ro1 + ro2 + gm2·ro1·ro2 (Razavi, 2nd ed., ch. 3; from memory).
@@ -141,32 +141,32 @@ describe("cell instances: formats and diagnostics", () => {
 
   it("the result keeps the instance; the ledger shows the expanded elements", () => {
     const r = solveNetwork(JSON_CASCODE, { sensitivities: false });
-    expect(r.network?.cells?.map((c) => c.name)).toEqual(["M1", "M2"]);
+    expect(r.network?.cells?.map((c) => c.name)).toEqual(["Lower", "Upper"]);
     const network = r.steps.find((s) => s.id === "vth.kcl.x");
-    expect(JSON.stringify(network?.data)).toContain("M2_ro");
+    expect(JSON.stringify(network?.data)).toContain("Upper_ro");
     expect(toSolveOutput(r).rth).toBe(r.rth?.infix);
   });
 
   it("a renamed symbol may be an expression (a matched pair at twice the current)", () => {
-    const r = solve("port c 0\nQ1 cell bjt-hybrid-pi b=0 c=c e=0 rename ro:ro/2\n");
+    const r = solve("port c 0\nStage cell bjt-hybrid-pi b=0 c=c e=0 rename ro:ro/2\n");
     expectSameExpression(r.rth?.infix, "ro/2");
   });
 
   it("a diagnostic from inside a cell names the instance and its line", () => {
     // Without Cgs and Cgd nothing touches the gate node: the control across (g, src) names a node no element touches.
-    const r = solveNetwork("port d 0\nLoad resistor d 0 = RD\nM1 cell mosfet g=g d=d s=src b=0\n", { steps: false });
+    const r = solveNetwork("port d 0\nLoad resistor d 0 = RD\nLower cell mosfet g=g d=d s=src b=0\n", { steps: false });
     const d = r.diagnostics.find((x) => x.code === "control-unknown-node");
     expect(d, JSON.stringify(r.diagnostics)).toBeDefined();
-    expect(d!.elements[0]).toBe("M1");
+    expect(d!.elements[0]).toBe("Lower");
     expect(d!.line).toBe(3);
-    expect(d!.message).toContain('inside cell "M1"');
-    const json = solveNetwork({ port: { plus: "d", minus: "0" }, elements: [{ name: "Load", kind: "resistor", nodes: ["d", "0"], value: "RD" }], cells: [{ name: "M1", cell: "mosfet", terminals: { g: "g", d: "d", s: "src", b: "0" } }] });
+    expect(d!.message).toContain('inside cell "Lower"');
+    const json = solveNetwork({ port: { plus: "d", minus: "0" }, elements: [{ name: "Load", kind: "resistor", nodes: ["d", "0"], value: "RD" }], cells: [{ name: "Lower", cell: "mosfet", terminals: { g: "g", d: "d", s: "src", b: "0" } }] });
     expect(json.diagnostics.find((x) => x.code === "control-unknown-node")?.path).toEqual(["cells", 0]);
   });
 
   it("a user cell's terminal may only sense a voltage, as a transistor gate does", () => {
     // Common practice: in the small-signal model the gate draws no current; it only sets v_gs.
-    const gateOnly = { id: "gm-stage", title: "Transconductor", terminals: ["g", "d"], symbols: ["gm"], elements: [{ name: "Gm", kind: "vccs" as const, nodes: ["d", "0"] as [string, string], control: { nodes: ["g", "0"] as [string, string] }, value: "gm" }] };
+    const gateOnly = { id: "gm-stage", title: "Transconductor", terminals: ["g", "d"], symbols: ["gm"], elements: [{ name: "Gm", kind: "current" as const, nodes: ["d", "0"] as [string, string], value: "gm * across(g, 0)" }] };
     expect(checkCellDefinition(gateOnly)).toEqual([]);
     expect(checkCellDefinition({ ...gateOnly, terminals: ["g", "d", "x"] })).toEqual([expect.stringContaining('terminal "x"')]);
   });

@@ -41,7 +41,7 @@ describe("solve CLI", () => {
   it("exits 2 for invalid input and prints the diagnostics", () => {
     const dir = mkdtempSync(join(tmpdir(), "portfold-cli-"));
     const file = join(dir, "bad.pfn");
-    writeFileSync(file, "port a 0\nR1 resistor a 0 = R\nV1 vsource a 0 = Va\nV2 vsource a 0 = Vb\n");
+    writeFileSync(file, "port a 0\nR1 resistor a 0 = R\nV1 voltage a 0 = Va\nV2 voltage a 0 = Vb\n");
     const r = solve(file);
     expect(r.code).toBe(2);
     const o = JSON.parse(r.out);

@@ -5,7 +5,7 @@ import { Rational, parseValue } from "../../shared/engine/algebra";
 import { designSolve, solveNetwork } from "../../shared/engine";
 
 // A sensor's output resistance R1 loaded by RL, seen at the port.
-const LOADED = "port out 0\nSensor vsource a 0 = Vs\nRsen resistor a out = R1\nLoad resistor out 0 = RL\n";
+const LOADED = "port out 0\nSensor voltage a 0 = Vs\nRsen resistor a out = R1\nLoad resistor out 0 = RL\n";
 const rth = parseValue(solveNetwork(LOADED, { steps: false }).rth!.infix);
 
 describe("design solve", () => {

@@ -36,18 +36,25 @@ const TRIGGERS: Record<keyof typeof DIAGNOSTIC_CODES, Trigger> = {
   "port-unknown-node": { input: "port out 0\nR1 resistor a 0 = R\n", expect: { nodes: ["out"] } },
   "port-same-node": { input: "port a a\nR1 resistor a 0 = R\n", expect: { nodes: ["a"] } },
   "control-missing-element": {
-    input: "port a 0\nR1 resistor a 0 = R\nF1 cccs 0 a = beta * through(Rx)\n",
-    expect: { elements: ["F1"], line: 3 },
+    input: "port a 0\nRload resistor a 0 = R\nMirror current 0 a = beta * through(Rx)\n",
+    expect: { elements: ["Mirror"], line: 3, path: ["elements", 1, "value"] },
   },
-  "control-self": { input: "port a 0\nR1 resistor a 0 = R\nF1 cccs 0 a = beta * through(F1)\n", expect: { elements: ["F1"] } },
+  "control-self": { input: "port a 0\nRload resistor a 0 = R\nMirror current 0 a = beta * through(Mirror)\n", expect: { elements: ["Mirror"] } },
   "control-unknown-node": {
-    input: "port a 0\nR1 resistor a 0 = R\nG1 vccs 0 a = gm * across(b, 0)\n",
-    expect: { elements: ["G1"], nodes: ["b"] },
+    input: "port a 0\nRload resistor a 0 = R\nGm current 0 a = gm * across(b, 0)\n",
+    expect: { elements: ["Gm"], nodes: ["b"] },
   },
-  "control-kind-mismatch": { input: "port a 0\nR1 resistor a 0 = R\nE1 vcvs b 0 = mu * through(R1)\nR2 resistor b a = R\n", expect: { elements: ["E1"] } },
+  "control-nonlinear": {
+    input: "port a 0\nRload resistor a 0 = R\nGm current 0 a = k * across(a, 0)^2\n",
+    expect: { elements: ["Gm"], line: 3, column: 22, path: ["elements", 1, "value"] },
+  },
+  "format-renamed": {
+    input: { port: { plus: "a", minus: "0" }, elements: [{ name: "Gm", kind: "vccs", nodes: ["a", "0"], control: { nodes: ["a", "0"] }, value: "gm" }] },
+    expect: { elements: ["Gm"], path: ["elements", 0, "kind"] },
+  },
   "control-unsupported": {
-    input: "port o 0\nVs vsource p 0 = V\nR1 resistor n 0 = R1\nR2 resistor n o = R2\nU1 opamp p n -> o\nF1 cccs 0 o = beta * through(U1)\n",
-    expect: { elements: ["F1", "U1"] },
+    input: "port o 0\nVs voltage p 0 = V\nRgnd resistor n 0 = R1\nRfb resistor n o = R2\nBuf opamp p n -> o\nMirror current 0 o = beta * through(Buf)\n",
+    expect: { elements: ["Mirror", "Buf"] },
   },
   "value-zero": { input: "port a 0\nR1 resistor a 0 = 0\n", expect: { elements: ["R1"], line: 2, column: 19 } },
   "floating-node": {
@@ -55,28 +62,28 @@ const TRIGGERS: Record<keyof typeof DIAGNOSTIC_CODES, Trigger> = {
     expect: { nodes: ["b", "c"], elements: ["R2"] },
   },
   "no-dc-path": {
-    input: "port a 0\nVs vsource in 0 = V\nR1 resistor in a = R1\nC1 capacitor a b = C1\nR2 resistor b c = R2\nC2 capacitor c 0 = C2\n",
+    input: "port a 0\nVs voltage in 0 = V\nR1 resistor in a = R1\nC1 capacitor a b = C1\nR2 resistor b c = R2\nC2 capacitor c 0 = C2\n",
     ok: true,
     expect: { nodes: ["b", "c"], elements: ["C1", "C2"] },
   },
   "voltage-source-loop": {
-    input: "port a 0\nV1 vsource a 0 = Va\nV2 vsource a 0 = Vb\n",
+    input: "port a 0\nV1 voltage a 0 = Va\nV2 voltage a 0 = Vb\n",
     expect: { elements: ["V1", "V2"] },
   },
   "current-source-cutset": {
-    input: "port a 0\nR1 resistor a 0 = R\nI1 isource 0 b = Ib\nR2 resistor b c = R2\n",
+    input: "port a 0\nR1 resistor a 0 = R\nI1 current 0 b = Ib\nR2 resistor b c = R2\n",
     expect: { elements: ["I1"], nodes: ["b", "c"] },
   },
   "singular-system": {
-    input: "port o 0\nVs vsource p 0 = V\nR1 resistor n 0 = R1\nU1 opamp p n -> o\nRL resistor o 0 = RL\n",
+    input: "port o 0\nVs voltage p 0 = V\nR1 resistor n 0 = R1\nU1 opamp p n -> o\nRL resistor o 0 = RL\n",
   },
   "option-invalid": { input: "port a 0\nR1 resistor a 0 = R\n", options: { values: { R: "4.7 kilo" } }, ok: false },
   "quantity-conflict": {
-    input: "port b 0\nVs vsource a 0 = V\nR1 resistor a 0 = R\nE1 vcvs b 0 = R * across(a, 0)\n",
+    input: "port b 0\nVs voltage a 0 = V\nR1 resistor a 0 = R\nE1 voltage b 0 = R * across(a, 0)\n",
     ok: true,
     expect: { elements: ["R1", "E1"] },
   },
-  "dimension-mismatch": { input: "port a 0\nquantity V current\nVs vsource a 0 = V\n", ok: true },
+  "dimension-mismatch": { input: "port a 0\nquantity V current\nVs voltage a 0 = V\n", ok: true },
   "cell-unknown": {
     input: "port c 0\nRL resistor c 0 = RL\nQ1 cell bjt-hybrid c=c b=0 e=0\n",
     expect: { elements: ["Q1"], line: 3, path: ["cells", 0, "cell"] },
@@ -106,19 +113,19 @@ describe("diagnostics", () => {
   });
 
   it("a well-posed network raises no diagnostic at all", () => {
-    const r = solveNetwork("port a 0\nVs vsource in 0 = V\nR1 resistor in a = R1\nR2 resistor a 0 = R2\n");
+    const r = solveNetwork("port a 0\nVs voltage in 0 = V\nR1 resistor in a = R1\nR2 resistor a 0 = R2\n");
     expect(r.diagnostics).toEqual([]);
     expect(r.ok).toBe(true);
   });
 
   it("a voltage source across the port is a degenerate port, not a loop error", () => {
-    const r = solveNetwork("port a 0\nV1 vsource a 0 = Va\nR1 resistor a 0 = R\n");
+    const r = solveNetwork("port a 0\nV1 voltage a 0 = Va\nR1 resistor a 0 = R\n");
     expect(r.ok).toBe(true);
     expect(r.statements.map((s) => s.code)).toContain("rth-zero");
   });
 
   it("a current source alone at the port is a degenerate port, not a cutset error", () => {
-    const r = solveNetwork("port a 0\nI1 isource 0 a = I\n");
+    const r = solveNetwork("port a 0\nI1 current 0 a = I\n");
     expect(r.ok).toBe(true);
     expect(r.statements.map((s) => s.code)).toContain("rth-infinite");
   });

@@ -16,7 +16,7 @@ function solve(text: string, values?: Record<string, string>): SolveResult {
 // A sensor front end: the sensor (Vs behind Rsrc), an anti-alias capacitor, then a series resistor.
 const RC = `
 port out 0
-Sensor vsource a 0 = Vs
+Sensor voltage a 0 = Vs
 Rsrc resistor a n = R1
 Cfilt capacitor n 0 = C
 Rser resistor n out = R2
@@ -25,7 +25,7 @@ Rser resistor n out = R2
 // An audio line driver's output: source resistance, a series choke, a shunt resistor at the port.
 const RL = `
 port out 0
-Drive vsource a 0 = Vs
+Drive voltage a 0 = Vs
 Rdrv resistor a m = Rs
 Choke inductor m out = L
 Rshunt resistor out 0 = R
@@ -34,7 +34,7 @@ Rshunt resistor out 0 = R
 // Two RC sections in a row: the classic two-pole ladder.
 const LADDER = `
 port out 0
-Sensor vsource in 0 = Vs
+Sensor voltage in 0 = Vs
 Ra resistor in n1 = R1
 Ca capacitor n1 0 = C1
 Rb resistor n1 out = R2
@@ -82,11 +82,11 @@ describe("Zth(s) against sympy", () => {
   });
 
   it("a coupling capacitor blocks DC; alone in series it makes the DC Rth unbounded", () => {
-    const r = solve("port out 0\nSig vsource a 0 = Vs\nCc capacitor a out = C\nRb resistor out 0 = R\n");
+    const r = solve("port out 0\nSig voltage a 0 = Vs\nCc capacitor a out = C\nRb resistor out 0 = R\n");
     // Common practice: a coupling capacitor blocks DC, so the port sees R alone at DC and Vth = 0.
     expect(r.frequency!.dc.rth).toMatchObject({ kind: "finite", value: "R" });
     expect(r.frequency!.dc.vth).toMatchObject({ kind: "finite", value: "0" });
-    const open = solve("port out 0\nSig vsource a 0 = Vs\nCc capacitor a out = C\n");
+    const open = solve("port out 0\nSig voltage a 0 = Vs\nCc capacitor a out = C\n");
     expect(open.frequency!.dc.rth.kind).toBe("infinite");
     expect(open.frequency!.hf.rth).toMatchObject({ kind: "finite", value: "0" });
   });
@@ -122,7 +122,7 @@ describe("poles and zeros", () => {
 
   it("series RLC: a complex pair at −R/(2L) ± j·sqrt(1/(LC) − (R/(2L))²)", () => {
     // Common practice (second-order low-pass): Vth = Vs/(s²LC + sRC + 1).
-    const r = solve("port out 0\nSig vsource a 0 = Vs\nRs resistor a m = R\nLs inductor m out = L\nCo capacitor out 0 = C\n", { R: "10", L: "1m", C: "1u", Vs: "1" });
+    const r = solve("port out 0\nSig voltage a 0 = Vs\nRs resistor a m = R\nLs inductor m out = L\nCo capacitor out 0 = C\n", { R: "10", L: "1m", C: "1u", Vs: "1" });
     const [R, L, C] = [10, 1e-3, 1e-6];
     const sigma = -R / (2 * L);
     const omega = Math.sqrt(1 / (L * C) - sigma * sigma);

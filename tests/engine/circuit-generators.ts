@@ -12,7 +12,15 @@ export function mulberry32(seed: number): () => number {
   };
 }
 
-const TWO_TERMINAL: ElementKind[] = ["resistor", "conductance", "capacitor", "inductor", "vsource", "isource", "vcvs", "vccs", "ccvs", "cccs"];
+/** What an extra element is: a passive, an independent source, or a source controlled by a voltage, a current, or several. */
+type Extra = "resistor" | "conductance" | "capacitor" | "inductor" | "v-independent" | "i-independent" | "v-by-voltage" | "i-by-voltage" | "v-by-current" | "i-by-current" | "i-by-several";
+const EXTRAS: Extra[] = ["resistor", "conductance", "capacitor", "inductor", "v-independent", "i-independent", "v-by-voltage", "i-by-voltage", "v-by-current", "i-by-current", "i-by-several"];
+
+/** The extras that produce an element of a kind, for GeneratorOptions.force. */
+const EXTRAS_OF_KIND: Partial<Record<ElementKind, Extra[]>> = {
+  voltage: ["v-independent", "v-by-voltage", "v-by-current"],
+  current: ["i-independent", "i-by-voltage", "i-by-current", "i-by-several"],
+};
 
 export interface GeneratorOptions {
   /** Allow plain numbers with SI prefixes and composite values. */
@@ -41,7 +49,8 @@ export function randomNetwork(rand: () => number, opts: GeneratorOptions = {}): 
     return true;
   };
   let k = 0;
-  const name = (prefix: string) => `${prefix}${++k}`;
+  // Names say what a part is (Res, Amp, Gm...), numbered to keep them apart.
+  const name = (word: string) => `${word}${++k}`;
   const passiveValue = (kind: ElementKind, id: string): string => {
     const letter = { resistor: "R", conductance: "G", capacitor: "C", inductor: "L" }[kind as "resistor"];
     const r = rand();
@@ -54,7 +63,7 @@ export function randomNetwork(rand: () => number, opts: GeneratorOptions = {}): 
     const kinds: ElementKind[] = opts.reactive ? ["resistor", "resistor", "resistor", "conductance", "capacitor", "inductor"] : ["resistor", "resistor", "conductance"];
     const kd = kind ?? pick(kinds);
     const id = String(k + 1);
-    const prefix = { resistor: "R", conductance: "G", capacitor: "C", inductor: "L" }[kd as "resistor"];
+    const prefix = { resistor: "Res", conductance: "Cond", capacitor: "Cap", inductor: "Ind" }[kd as "resistor"];
     elements.push({ name: name(prefix), kind: kd as "resistor", nodes: [a, b], value: passiveValue(kd, id) });
   };
 
@@ -62,13 +71,20 @@ export function randomNetwork(rand: () => number, opts: GeneratorOptions = {}): 
   nodes.forEach((n, i) => addPassive(n, pick(all.slice(0, i + 1))));
 
   const extras = 1 + Math.floor(rand() * 4);
-  const kinds: ElementKind[] = [];
-  if (opts.force && opts.force !== "opamp") kinds.push(opts.force);
+  const kinds: Extra[] = [];
+  if (opts.force && opts.force !== "opamp") kinds.push(EXTRAS_OF_KIND[opts.force] ? pick(EXTRAS_OF_KIND[opts.force]!) : (opts.force as Extra));
   while (kinds.length < extras) {
-    const kd = pick(TWO_TERMINAL);
+    const kd = pick(EXTRAS);
     if (!opts.reactive && (kd === "capacitor" || kd === "inductor")) continue;
     kinds.push(kd);
   }
+  const across = () => {
+    const c1 = pick(all);
+    let c2 = pick(all);
+    if (c1 === c2) c2 = c1 === "0" ? nodes[nodes.length - 1] : "0";
+    return `across(${c1}, ${c2})`;
+  };
+  const through = () => `through(${pick(elements.filter((e) => e.kind !== "opamp")).name})`;
   for (const kd of kinds) {
     const a = pick(all);
     let b = pick(all);
@@ -76,23 +92,30 @@ export function randomNetwork(rand: () => number, opts: GeneratorOptions = {}): 
     const id = String(k + 1);
     if (kd === "resistor" || kd === "conductance" || kd === "capacitor" || kd === "inductor") {
       addPassive(a, b, kd);
-    } else if (kd === "vsource" || kd === "isource") {
-      if (kd === "vsource" && !fixes(a, b)) continue;
-      const value = opts.numbers && rand() < 0.2 ? pick(["5", "1.5", "3.3"]) : `${kd === "vsource" ? "V" : "I"}${id}`;
-      elements.push({ name: name(kd === "vsource" ? "Vs" : "Is"), kind: kd, nodes: [a, b], value });
-    } else if (kd === "vcvs" || kd === "vccs") {
-      if (kd === "vcvs" && !fixes(a, b)) continue;
-      const c1 = pick(all);
-      let c2 = pick(all);
-      if (c1 === c2) c2 = c1 === "0" ? nodes[nodes.length - 1] : "0";
-      const gain = kd === "vcvs" ? (opts.reactive && rand() < 0.25 ? `A${id}/(1 + s*T${id})` : `mu${id}`) : `gm${id}`;
-      elements.push({ name: name(kd === "vcvs" ? "E" : "Gm"), kind: kd, nodes: [a, b], control: { nodes: [c1, c2] }, value: gain });
-    } else {
-      const candidates = elements.filter((e) => e.kind !== "opamp");
-      if (kd === "ccvs" && !fixes(a, b)) continue;
-      const ctrl = pick(candidates).name;
-      elements.push({ name: name(kd === "ccvs" ? "H" : "F"), kind: kd as "ccvs" | "cccs", nodes: [a, b], control: { element: ctrl }, value: kd === "ccvs" ? `rm${id}` : `beta${id}` });
+      continue;
     }
+    const voltage = kd.startsWith("v-");
+    if (voltage && !fixes(a, b)) continue;
+    const kind = voltage ? "voltage" : "current";
+    let value: string;
+    if (kd === "v-independent" || kd === "i-independent") {
+      value = opts.numbers && rand() < 0.2 ? pick(["5", "1.5", "3.3"]) : `${voltage ? "V" : "I"}${id}`;
+    } else if (kd === "v-by-voltage") {
+      const gain = opts.reactive && rand() < 0.25 ? `(A${id}/(1 + s*T${id}))` : `mu${id}`;
+      // Now and then an independent part beside the controlled one.
+      value = rand() < 0.2 ? `V${id} + ${gain} * ${across()}` : `${gain} * ${across()}`;
+    } else if (kd === "i-by-voltage") {
+      value = `gm${id} * ${across()}`;
+    } else if (kd === "v-by-current") {
+      value = `rm${id} * ${through()}`;
+    } else if (kd === "i-by-current") {
+      value = `beta${id} * ${through()}`;
+    } else {
+      // One source, two controls: a transconductance with body effect, or a voltage and a current control.
+      value = rand() < 0.5 ? `gm${id} * ${across()} + gmb${id} * ${across()}` : `gm${id} * ${across()} - beta${id} * ${through()}`;
+    }
+    const word = { "v-independent": "Src", "i-independent": "Feed", "v-by-voltage": "Amp", "i-by-voltage": "Gm", "v-by-current": "Sense", "i-by-current": "Mirror", "i-by-several": "Dev" }[kd];
+    elements.push({ name: name(word), kind, nodes: [a, b], value });
   }
 
   if (opts.force === "opamp") {
@@ -101,7 +124,7 @@ export function randomNetwork(rand: () => number, opts: GeneratorOptions = {}): 
     const inv = pick(nodes);
     const non = pick(["0", ...nodes.filter((n) => n !== inv)]);
     if (fixes(non, inv)) {
-      elements.push({ name: name("U"), kind: "opamp", inputs: [non, inv], output: o });
+      elements.push({ name: name("Buf"), kind: "opamp", inputs: [non, inv], output: o });
       addPassive(o, inv, "resistor");
       if (rand() < 0.5) addPassive(o, "0", "resistor");
       nodes.push(o);

@@ -18,6 +18,22 @@ function evaluate(text: string, point: Record<string, number>): number {
   return Number(nerdamer(expanded, subs).evaluate().text("decimals"));
 }
 
+const CONTROL = /(across|through)\s*\(([^)]*)\)/g;
+
+/**
+ * A source value split numerically by superposition (it is linear in its controls): the value with
+ * every control at 0 is the independent part; with one control at 1, the independent part plus its gain.
+ */
+function linearParts(text: string, point: Record<string, number>): { independent: number; controls: { control: { word: string; args: string[] }; gain: number }[] } {
+  const controls = [...text.matchAll(CONTROL)].map((m) => ({ word: m[1], args: m[2].split(",").map((x) => x.trim()) }));
+  const at = (one: number) => {
+    let j = 0;
+    return evaluate(text.replace(CONTROL, () => (j++ === one ? "(1)" : "(0)")), point);
+  };
+  const independent = at(-1);
+  return { independent, controls: controls.map((control, j) => ({ control, gain: at(j) - independent })) };
+}
+
 function gauss(a: number[][], b: number[]): number[] | null {
   const n = b.length;
   const m = a.map((r, i) => [...r, b[i]]);
@@ -45,7 +61,7 @@ function gauss(a: number[][], b: number[]): number[] | null {
 function tableauPort(net: NetworkInput, point: Record<string, number>, mode: "open" | "test" | "short"): number | null {
   const ground = net.ground ?? "0";
   const elements: Element[] = [...net.elements];
-  if (mode === "short") elements.push({ name: "__short", kind: "vsource", nodes: [net.port.plus, net.port.minus], value: "0" });
+  if (mode === "short") elements.push({ name: "__short", kind: "voltage", nodes: [net.port.plus, net.port.minus], value: "0" });
   const nodes = [...new Set(elements.flatMap((e) => (e.kind === "opamp" ? [...e.inputs, e.output] : e.nodes)))].filter((n) => n !== ground);
   const nv = nodes.length;
   const idx = new Map(elements.map((e, i) => [e.name, nv + i]));
@@ -72,7 +88,6 @@ function tableauPort(net: NetworkInput, point: Record<string, number>, mode: "op
     const [p, q] = e.nodes;
     if (vcol(p) >= 0) a[vcol(p)][ic] += 1;
     if (vcol(q) >= 0) a[vcol(q)][ic] -= 1;
-    const zeroed = mode === "test" && (e.kind === "vsource" || e.kind === "isource");
     switch (e.kind) {
       case "resistor": // V - R I = 0
         addV(row, p, 1), addV(row, q, -1), (a[row][ic] -= value(e));
@@ -86,30 +101,17 @@ function tableauPort(net: NetworkInput, point: Record<string, number>, mode: "op
         a[row][ic] += 1, addV(row, p, -y), addV(row, q, y);
         break;
       }
-      case "vsource":
-        addV(row, p, 1), addV(row, q, -1), (b[row] = zeroed ? 0 : value(e));
-        break;
-      case "isource":
-        a[row][ic] = 1;
-        b[row] = zeroed ? 0 : value(e);
-        break;
-      case "vcvs":
-      case "vccs": {
-        if (!("nodes" in e.control)) throw new Error("bad control");
-        const [c1, c2] = e.control.nodes;
-        const g = value(e);
-        if (e.kind === "vcvs") addV(row, p, 1), addV(row, q, -1);
+      case "voltage":
+      case "current": {
+        // V(p) − V(q) (or the element's current) − Σ gain·control = independent part, zeroed for the test source.
+        const source = linearParts(e.value, point);
+        if (e.kind === "voltage") addV(row, p, 1), addV(row, q, -1);
         else a[row][ic] += 1;
-        addV(row, c1, -g), addV(row, c2, g);
-        break;
-      }
-      case "ccvs":
-      case "cccs": {
-        if (!("element" in e.control)) throw new Error("bad control");
-        const g = value(e);
-        if (e.kind === "ccvs") addV(row, p, 1), addV(row, q, -1);
-        else a[row][ic] += 1;
-        a[row][idx.get(e.control.element)!] -= g;
+        for (const { control, gain } of source.controls) {
+          if (control.word === "across") addV(row, control.args[0], -gain), addV(row, control.args[1], gain);
+          else a[row][idx.get(control.args[0])!] -= gain;
+        }
+        b[row] = mode === "test" ? 0 : source.independent;
         break;
       }
     }
@@ -127,7 +129,7 @@ function tableauPort(net: NetworkInput, point: Record<string, number>, mode: "op
 
 function symbolsOf(net: NetworkInput): string[] {
   const out = new Set<string>(["s"]);
-  for (const e of net.elements) if ("value" in e) for (const m of e.value.matchAll(/(?<![\d.])[A-Za-z_][A-Za-z0-9_]*/g)) out.add(m[0]);
+  for (const e of net.elements) if ("value" in e) for (const m of e.value.replace(CONTROL, "").matchAll(/(?<![\d.])[A-Za-z_][A-Za-z0-9_]*/g)) out.add(m[0]);
   return [...out];
 }
 

@@ -62,7 +62,7 @@ describe("derivation steps", () => {
     const kclOut = buffer.steps.find((s) => s.id === "vth.kcl.out")!;
     expect(kclOut.data.contributions).toEqual([{ element: "Rout", current: "(V_out - V_x)/Ro" }]);
     const zero = buffer.steps.find((s) => s.id === "rth.zeroing")!;
-    expect(zero.data).toEqual({ shorted: ["Vsens"], opened: [] });
+    expect(zero.data).toEqual({ shorted: ["Vsens"], opened: [], partly: [] });
     const check = buffer.steps.find((s) => s.id === "check.voc-isc")!;
     expect(check.data.agree).toBe(true);
   });

@@ -17,8 +17,8 @@ describe("textbook results", () => {
     // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 2 (op-amp with finite gain and output resistance); from memory.
     const r = solve(`
       port out 0
-      Vsig vsource in 0 = Vs
-      Amp vcvs x 0 = A * across(in, out)
+      Vsig voltage in 0 = Vs
+      Amp voltage x 0 = A * across(in, out)
       Rout resistor x out = Ro`);
     expectSameExpression(r.rth?.infix, "Ro/(1 + A)");
     expectSameExpression(r.vth?.infix, "A*Vs/(1 + A)");
@@ -29,10 +29,10 @@ describe("textbook results", () => {
     // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 7 (emitter follower, ro neglected); from memory.
     const r = solve(`
       port e 0
-      Vsig vsource s 0 = Vs
+      Vsig voltage s 0 = Vs
       Rsrc resistor s b = Rs
       Rpi resistor b e = r_pi
-      Fb cccs 0 e = beta * through(Rpi)
+      Fb current 0 e = beta * through(Rpi)
       Remit resistor e 0 = RE`);
     const follower = "(Rs + r_pi)/(beta + 1)";
     expectSameExpression(r.rth?.infix, `RE*${follower}/(RE + ${follower})`);
@@ -44,20 +44,31 @@ describe("textbook results", () => {
     // Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3 (degenerated CS stage, no body effect); from memory.
     const r = solve(`
       port d 0
-      M1 vccs d src = gm * across(0, src)
+      Gm1 current d src = gm * across(0, src)
       Ro1 resistor d src = ro
       Rdeg resistor src 0 = Rs`);
     expectSameExpression(r.rth?.infix, "ro*(1 + gm*Rs) + Rs");
     expect(r.statements.map((s) => s.code)).toContain("vth-zero");
   });
 
+  it("common-gate stage with body effect: Rout = ro + (1 + (gm + gmb) ro) RS", () => {
+    // Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3 (common-gate stage, output
+    // impedance with body effect); from memory. One element carries both controls.
+    const r = solve(`
+      port d 0
+      Gm1 current d s = gm*across(0, s) + gmb*across(0, s)
+      Ro1 resistor d s = ro
+      Rdegen resistor s 0 = RS`);
+    expectSameExpression(r.rth?.infix, "ro + (1 + (gm + gmb)*ro)*RS");
+  });
+
   it("cascode output resistance: Rout = ro1 + ro2 + gm2 ro1 ro2", () => {
     // Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3 (cascode stage, exact small-signal result); from memory.
     const r = solve(`
       port d 0
-      M2 vccs d x = gm2 * across(0, x)
-      R2 resistor d x = ro2
-      R1 resistor x 0 = ro1`);
+      Gm2 current d x = gm2 * across(0, x)
+      Rhigh resistor d x = ro2
+      Rlow resistor x 0 = ro1`);
     expectSameExpression(r.rth?.infix, "ro1 + ro2 + gm2*ro1*ro2");
   });
 
@@ -65,7 +76,7 @@ describe("textbook results", () => {
     // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 7 (output resistance of a degenerated BJT); from memory.
     const r = solve(`
       port c 0
-      Q1 vccs c e = gm * across(0, e)
+      Gmq current c e = gm * across(0, e)
       Rce resistor c e = ro
       Rpi resistor 0 e = r_pi
       Remit resistor e 0 = RE`);
@@ -77,8 +88,8 @@ describe("textbook results", () => {
     // Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3 (source follower without body effect); from memory.
     const r = solve(`
       port out 0
-      Vg vsource g 0 = Vin
-      M1 vccs 0 out = gm * across(g, out)
+      Vg voltage g 0 = Vin
+      Gm1 current 0 out = gm * across(g, out)
       Ro1 resistor 0 out = ro`);
     expectSameExpression(r.rth?.infix, "ro/(1 + gm*ro)");
     expectSameExpression(r.vth?.infix, "gm*ro*Vin/(1 + gm*ro)");
@@ -88,7 +99,7 @@ describe("textbook results", () => {
     // Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed., ch. 5 (source transformation); from memory.
     const r = solve(`
       port a 0
-      Is isource 0 a = I
+      Is current 0 a = I
       Rp resistor a 0 = R`);
     expectSameExpression(r.vth?.infix, "I*R");
     expectSameExpression(r.rth?.infix, "R");
@@ -100,7 +111,7 @@ describe("textbook results", () => {
     // Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed., ch. 5 (maximum power transfer); from memory.
     const r = solve(`
       port out 0
-      Vs vsource in 0 = V
+      Vs voltage in 0 = V
       Ra resistor in out = R1
       Rb resistor out 0 = R2`);
     const vth = parseValue(r.vth!.infix);
@@ -118,7 +129,7 @@ describe("textbook results", () => {
     // Common practice.
     const r = solve(`
       port out 0
-      Vs vsource in 0 = V
+      Vs voltage in 0 = V
       Ra resistor in out = R1
       Rb resistor out 0 = R2`);
     expectSameExpression(r.vth?.infix, "V*R2/(R1 + R2)");
@@ -129,10 +140,10 @@ describe("textbook results", () => {
     // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 2 (inverting configuration); from memory.
     const r = solve(`
       port o 0
-      Vs vsource in 0 = V
-      R1 resistor in n = R1
-      R2 resistor n o = R2
-      U1 opamp 0 n -> o`);
+      Vs voltage in 0 = V
+      Rlow resistor in n = R1
+      Rhigh resistor n o = R2
+      Buf opamp 0 n -> o`);
     expectSameExpression(r.vth?.infix, "-R2*V/R1");
     expectSameExpression(r.rth?.infix, "0");
     expect(r.isc).toBeNull();
@@ -144,10 +155,10 @@ describe("textbook results", () => {
     // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 2 (non-inverting configuration); from memory.
     const r = solve(`
       port o 0
-      Vs vsource p 0 = V
-      R1 resistor n 0 = R1
-      R2 resistor n o = R2
-      U1 opamp p n -> o`);
+      Vs voltage p 0 = V
+      Rlow resistor n 0 = R1
+      Rhigh resistor n o = R2
+      Buf opamp p n -> o`);
     expectSameExpression(r.vth?.infix, "V*(1 + R2/R1)");
   });
 
@@ -155,13 +166,13 @@ describe("textbook results", () => {
     // Sedra & Smith, Microelectronic Circuits, 7th ed., ch. 2 (effect of finite open-loop gain); from memory.
     const r = solve(`
       port o 0
-      Vs vsource in 0 = V
-      R1 resistor in n = R1
-      R2 resistor n o = R2
-      Amp vcvs o 0 = A * across(0, n)`);
+      Vs voltage in 0 = V
+      Rlow resistor in n = R1
+      Rhigh resistor n o = R2
+      Amp voltage o 0 = A * across(0, n)`);
     expectSameExpression(r.vth?.infix, "-V*(R2/R1)/(1 + (1 + R2/R1)/A)");
     const lim = solveNetwork(
-      `port o 0\nVs vsource in 0 = V\nR1 resistor in n = R1\nR2 resistor n o = R2\nAmp vcvs o 0 = A * across(0, n)`,
+      `port o 0\nVs voltage in 0 = V\nRlow resistor in n = R1\nRhigh resistor n o = R2\nAmp voltage o 0 = A * across(0, n)`,
       { limits: [{ symbol: "A", to: "inf" }], steps: false },
     ).limits[0].results.vth;
     expectSameExpression(lim?.value, "-R2*V/R1");
@@ -171,7 +182,7 @@ describe("textbook results", () => {
     // Hayt, Kemmerly & Durbin, Engineering Circuit Analysis, 8th ed., ch. 5 (Thevenin equivalent of a bridge); from memory.
     const r = solve(`
       port a b
-      Vref vsource top 0 = Vr
+      Vref voltage top 0 = Vr
       Ra resistor top a = R1
       Rt resistor a 0 = RT
       Rb resistor top b = R3
@@ -184,7 +195,7 @@ describe("textbook results", () => {
     // Common practice.
     const r = solve(`
       port out 0
-      Vin vsource in 0 = Vs
+      Vin voltage in 0 = Vs
       Rf resistor in out = R
       Cf capacitor out 0 = C`);
     expectSameExpression(r.vth?.infix, "Vs/(1 + s*R*C)");
@@ -200,7 +211,7 @@ describe("textbook results", () => {
     expectSameExpression(rl.rth?.infix, "R + s*L");
     const cs = solve(`
       port a 0
-      Is isource 0 a = I`);
+      Is current 0 a = I`);
     expect(cs.rth).toBeNull();
     expect(cs.thevenin).toBeNull();
     expectSameExpression(cs.isc?.infix, "I");

@@ -97,8 +97,8 @@ describe("solving a network into derivation revisions", () => {
     const network = await newNetwork("Fighting sources", {
       port: { plus: "a", minus: "0" },
       elements: [
-        { name: "Supply", kind: "vsource", nodes: ["a", "0"], value: "V1" },
-        { name: "Reference", kind: "vsource", nodes: ["a", "0"], value: "V2" },
+        { name: "Supply", kind: "voltage", nodes: ["a", "0"], value: "V1" },
+        { name: "Reference", kind: "voltage", nodes: ["a", "0"], value: "V2" },
       ],
     });
     const response = await editor.client.post(`/api/networks/${network.id}/solve`);

@@ -20,7 +20,7 @@ const divider = {
   ground: "0",
   port: { plus: "mid", minus: "0" },
   elements: [
-    { name: "Sensor", kind: "vsource", nodes: ["top", "0"], value: "Vs" },
+    { name: "Sensor", kind: "voltage", nodes: ["top", "0"], value: "Vs" },
     { name: "Upper", kind: "resistor", nodes: ["top", "mid"], value: Rs },
     { name: "Lower", kind: "resistor", nodes: ["mid", "0"], value: Rl },
   ],

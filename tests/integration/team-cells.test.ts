@@ -14,7 +14,7 @@ const csStage = {
   symbols: ["RG", "gm", "ro", "RD"],
   elements: [
     { name: "RG", kind: "resistor", nodes: ["in", "0"], value: "RG" },
-    { name: "gm", kind: "vccs", nodes: ["out", "0"], control: { nodes: ["in", "0"] }, value: "gm" },
+    { name: "gm", kind: "current", nodes: ["out", "0"], value: "gm * across(in, 0)" },
     { name: "ro", kind: "resistor", nodes: ["out", "0"], value: "ro" },
     { name: "RD", kind: "resistor", nodes: ["out", "0"], value: "RD" },
   ],
@@ -24,7 +24,7 @@ const csStage = {
 const withCell = {
   ground: "0",
   port: { plus: "vo", minus: "0" },
-  elements: [{ name: "Vsense", kind: "vsource", nodes: ["vg", "0"], value: "Vs" }],
+  elements: [{ name: "Vsense", kind: "voltage", nodes: ["vg", "0"], value: "Vs" }],
   cells: [{ name: "Q1", cell: "cs-stage", terminals: { in: "vg", out: "vo" }, symbols: { gm: "gm1" } }],
 };
 
@@ -33,9 +33,9 @@ const expanded = {
   ground: "0",
   port: { plus: "vo", minus: "0" },
   elements: [
-    { name: "Vsense", kind: "vsource", nodes: ["vg", "0"], value: "Vs" },
+    { name: "Vsense", kind: "voltage", nodes: ["vg", "0"], value: "Vs" },
     { name: "Rbias", kind: "resistor", nodes: ["vg", "0"], value: "RG" },
-    { name: "M", kind: "vccs", nodes: ["vo", "0"], control: { nodes: ["vg", "0"] }, value: "gm1" },
+    { name: "M", kind: "current", nodes: ["vo", "0"], value: "gm1 * across(vg, 0)" },
     { name: "Rds", kind: "resistor", nodes: ["vo", "0"], value: "ro" },
     { name: "Rload", kind: "resistor", nodes: ["vo", "0"], value: "RD" },
   ],

@@ -10,8 +10,8 @@ const pdf = Buffer.from("%PDF-1.4\n1 0 obj << /Type /Catalog >> endobj\ntrailer 
 
 const followerNetlist = `# strain-gauge buffer, our own scenario
 port out 0
-Vbridge vsource in 0 = Vs
-Amp vcvs x 0 = A * across(in, out)
+Vbridge voltage in 0 = Vs
+Amp voltage x 0 = A * across(in, out)
 Rout resistor x out = Ro
 `;
 
@@ -43,7 +43,7 @@ describe("uploads: importing networks and attaching files", () => {
   });
 
   it("refuses a netlist with errors, with the engine's diagnostics by line and column", async () => {
-    const broken = followerNetlist.replace("Amp vcvs x 0", "Amp amplifier x 0");
+    const broken = followerNetlist.replace("Amp voltage x 0", "Amp amplifier x 0");
     const response = await editor.client.upload(importPath(), { name: "broken.pfn", type: "text/plain", content: broken });
     expect(response.status).toBe(400);
     expect(response.body.error.code).toBe("invalid_network_file");

@@ -64,8 +64,8 @@ export const followerCircuit = {
   ground: "0",
   port: { plus: "out", minus: "0" },
   elements: [
-    { name: "Vbridge", kind: "vsource", nodes: ["in", "0"], value: "Vs" },
-    { name: "Amp", kind: "vcvs", nodes: ["x", "0"], control: { nodes: ["in", "out"] }, value: "A" },
+    { name: "Vbridge", kind: "voltage", nodes: ["in", "0"], value: "Vs" },
+    { name: "Amp", kind: "voltage", nodes: ["x", "0"], value: "A * across(in, out)" },
     { name: "Rout", kind: "resistor", nodes: ["x", "out"], value: "Ro" },
   ],
 };

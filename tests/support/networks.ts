@@ -12,7 +12,7 @@ export interface CircuitJson {
  */
 export function completeMesh(n: number, tag = "g"): CircuitJson {
   const nodes = ["0", ...Array.from({ length: n - 1 }, (_, i) => `k${i + 1}`)];
-  const elements: Record<string, unknown>[] = [{ name: "Drive", kind: "vsource", nodes: ["k1", "0"], value: "Vd" }];
+  const elements: Record<string, unknown>[] = [{ name: "Drive", kind: "voltage", nodes: ["k1", "0"], value: "Vd" }];
   let count = 0;
   for (let i = 0; i < n; i++) {
     for (let j = i + 1; j < n; j++) {
@@ -25,7 +25,7 @@ export function completeMesh(n: number, tag = "g"): CircuitJson {
 
 /** A chain of `count` resistors to ground, each with the given value builder: wide but trivial to solve. */
 export function resistorChain(count: number, value: (index: number) => string): CircuitJson {
-  const elements: Record<string, unknown>[] = [{ name: "Source", kind: "vsource", nodes: ["t0", "0"], value: "Vs" }];
+  const elements: Record<string, unknown>[] = [{ name: "Source", kind: "voltage", nodes: ["t0", "0"], value: "Vs" }];
   for (let i = 1; i <= count; i++) elements.push({ name: `link${i}`, kind: "resistor", nodes: [`t${i - 1}`, `t${i}`], value: value(i) });
   return { ground: "0", port: { plus: `t${count}`, minus: "0" }, elements };
 }
@@ -38,7 +38,7 @@ export const sensorSource: CircuitJson = {
   ground: "0",
   port: { plus: "out", minus: "0" },
   elements: [
-    { name: "Sensor", kind: "vsource", nodes: ["emf", "0"], value: "Vs" },
+    { name: "Sensor", kind: "voltage", nodes: ["emf", "0"], value: "Vs" },
     { name: "Winding", kind: "resistor", nodes: ["emf", "out"], value: "Rs" },
   ],
 };

@@ -14,7 +14,7 @@ import { evaluateInfix } from "../support/expressions";
 // The terminals are listed out of the cell's own order on purpose.
 const CS_STAGE = `ground 0
 port out 0
-Vsense vsource in 0 = Vs
+Vsense voltage in 0 = Vs
 RD resistor out 0 = RD
 M1 cell mosfet d=out g=in s=0 b=0 rename gm:gm1
 `;
@@ -126,7 +126,7 @@ describe("a cell instance on the drawing", () => {
     };
     const library = cellLibrary([divider]);
     expect([...library.keys()]).toEqual(["bjt-hybrid-pi", "mosfet", "amplifier", "bias-divider"]);
-    const network = read(`ground 0\nport m 0\nVref vsource t 0 = Vr\nbias cell bias-divider bottom=0 top=t mid=m\n`);
+    const network = read(`ground 0\nport m 0\nVref voltage t 0 = Vr\nbias cell bias-divider bottom=0 top=t mid=m\n`);
     const drawing = drawingFor(network, undefined, library);
     const part = drawing.parts.find((p) => p.element.name === "bias")!.element;
     expect(isCellPart(part) && part.pins).toEqual(["top", "mid", "bottom"]);

@@ -96,8 +96,8 @@ describe("labels and ground name nodes", () => {
 describe("a drawn network solves to the textbook result", () => {
   // The finite-gain voltage follower: Rout = Ro/(1 + A) (Sedra & Smith, Microelectronic Circuits, from memory).
   it("gives Rth = R0/(1 + mu) for the follower drawn with wires, labels, ground and a port", () => {
-    const vs: Element = { name: "Vs", kind: "vsource", nodes: ["0", "0"], value: "Vs" };
-    const amp: Element = { name: "Amp", kind: "vcvs", nodes: ["0", "0"], value: "mu", control: { nodes: ["in", "out"] } };
+    const vs: Element = { name: "Vs", kind: "voltage", nodes: ["0", "0"], value: "Vs" };
+    const amp: Element = { name: "Amp", kind: "voltage", nodes: ["0", "0"], value: "mu * across(in, out)" };
     let d: Drawing = {
       ...EMPTY_DRAWING,
       // Vs vertical at x = 0 (+ at the top), Amp vertical at x = 10, R0 horizontal from (10, -3) to the right.

@@ -13,8 +13,8 @@ import { mulberry32, randomNetwork } from "../engine/circuit-generators";
 
 const FOLLOWER = `ground 0
 port out 0
-Vs vsource in 0 = Vs
-Amp vcvs x 0 = mu * across(in, out)
+Vs voltage in 0 = Vs
+Amp voltage x 0 = mu * across(in, out)
 R0 resistor x out = R0
 `;
 

@@ -6,7 +6,7 @@
 import nerdamer from "nerdamer";
 import { Rational } from "./rational";
 import { RationalFunction } from "./rational-function";
-import { exactReading, readWith, type BinaryOp, type Reading, type SignOp } from "./expression";
+import { exactReading, readWith, type BinaryOp, type ControlWord, type Reading, type SignOp } from "./expression";
 
 /** A node of nerdamer's parse tree (nerdamer.tree): operators carry left/right, leaves a literal or name. */
 interface NerdamerNode {
@@ -18,7 +18,7 @@ interface NerdamerNode {
 
 /** One token of the text handed to nerdamer, in order, with the column it came from. */
 type Item =
-  | { kind: "leaf"; text: string; value: Rational | null; column: number }
+  | { kind: "leaf"; text: string; value: Rational | null; column: number; control?: { word: ControlWord; args: string[] } }
   | { kind: "binary"; op: BinaryOp; column: number }
   | { kind: "sign"; op: SignOp; column: number }
   | { kind: "power"; caretColumn: number; exponentColumn: number };
@@ -38,6 +38,8 @@ const spelling: Reading<Spelled> = {
     return { text: `(${num.text}/${den.text})`, items: [num, { kind: "binary", op: "/", column }, den] };
   },
   name: (name, column) => ({ text: name, items: [{ kind: "leaf", text: name, value: null, column }] }),
+  // nerdamer sees a plain name in a control's place; the walk below puts the control back by position.
+  control: (word, args, column) => ({ text: "pfcontrol", items: [{ kind: "leaf", text: "pfcontrol", value: null, column, control: { word, args } }] }),
   group: (inner) => ({ text: `(${inner.text})`, items: inner.items }),
   binary: (op, left, right, column) => ({ text: `${left.text}${op}${right.text}`, items: [...left.items, { kind: "binary", op, column }, ...right.items] }),
   sign: (op, operand, column) => ({ text: `(${op}(${operand.text}))`, items: [{ kind: "sign", op, column }, ...operand.items] }),
@@ -74,6 +76,7 @@ function buildFromTree(root: NerdamerNode, spelled: Spelled, exact: Reading<Rati
     if ((node.type === "VARIABLE_OR_LITERAL" || node.type === "UNIT") && !node.left && !node.right) {
       const item = take(node);
       if (item.kind !== "leaf" || item.text !== node.value) throw new TreeMismatch(spelled.text, `"${node.value}" where our text has another token`);
+      if (item.control) return exact.control(item.control.word, item.control.args, item.column);
       return item.value ? exact.number(item.value, item.column) : exact.name(item.text, item.column);
     }
     if (node.type !== "OPERATOR") throw new TreeMismatch(spelled.text, `a ${node.type} node`);
@@ -94,7 +97,10 @@ function buildFromTree(root: NerdamerNode, spelled: Spelled, exact: Reading<Rati
   return value;
 }
 
-/** Parse an element value such as "R0", "10k", "4.7u", "gm*R0/(1 + gm*Rs)", "2^-3", exactly, through nerdamer's parser. */
+/**
+ * Parse an element value such as "R0", "10k", "4.7u", "gm*R0/(1 + gm*Rs)", "2^-3", exactly, through
+ * nerdamer's parser. A control (across(a, b), through(x)) becomes its control symbol (controlSymbol).
+ */
 export function parseValue(text: string): RationalFunction {
   const spelled = readWith(text, spelling);
   return buildFromTree(nerdamerTree(spelled.text), spelled, exactReading(text));

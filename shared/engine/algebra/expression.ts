@@ -1,5 +1,6 @@
 // Value expressions: identifiers, exact decimal numbers with an optional SI prefix written
-// right after the digits, + - * / ^ (integer exponents), parentheses, unary minus.
+// right after the digits, + - * / ^ (integer exponents), parentheses, unary minus, and the two
+// controls a source value may name: across(<node>, <node>) and through(<element>).
 // One recursive-descent grammar, so every syntax error carries its column; what it builds is
 // a Reading: exact Poly / RationalFunction values here (readExpression, for the engine's own
 // printed results), or text for nerdamer's parser (parseValue in element-value.ts).
@@ -27,8 +28,20 @@ export const SI_PREFIX_EXPONENT: Readonly<Record<string, number>> = {
 
 const MAX_EXPONENT_MAGNITUDE = 1000;
 
+/** A control named in a source value: the voltage across two nodes, or the current through an element. */
+export type ControlWord = "across" | "through";
+
+/** Node and element names inside a control: letters, digits and underscore (as everywhere in a network). */
+const CONTROL_ARGUMENT = /^[\p{L}\p{N}_]+$/u;
+
+const CONTROL_ARITY: Record<ControlWord, { count: number; usage: string }> = {
+  across: { count: 2, usage: "across(<node>, <node>)" },
+  through: { count: 1, usage: "through(<element>)" },
+};
+
 type Token =
   | { kind: "number"; value: Rational; column: number; text: string }
+  | { kind: "control"; word: ControlWord; args: string[]; column: number }
   | { kind: "ident"; name: string; column: number }
   | { kind: "op"; op: "+" | "-" | "*" | "/" | "^" | "(" | ")"; column: number }
   | { kind: "end"; column: number };
@@ -93,7 +106,16 @@ function tokenize(text: string): Token[] {
     if (isIdentStart(c)) {
       let j = i + 1;
       while (j < text.length && isIdentChar(text[j])) j++;
-      tokens.push({ kind: "ident", name: text.slice(i, j), column });
+      const name = text.slice(i, j);
+      let k = j;
+      while (text[k] === " " || text[k] === "\t") k++;
+      if ((name === "across" || name === "through") && text[k] === "(") {
+        const control = scanControl(text, name, column, k);
+        tokens.push(control.token);
+        i = control.end;
+        continue;
+      }
+      tokens.push({ kind: "ident", name, column });
       i = j;
       continue;
     }
@@ -108,6 +130,28 @@ function tokenize(text: string): Token[] {
   return tokens;
 }
 
+/** across(a, b) / through(x) starting at column, its "(" at open; names are checked here so every error has its column. */
+function scanControl(text: string, word: ControlWord, column: number, open: number): { token: Token; end: number } {
+  const close = text.indexOf(")", open);
+  if (close < 0) throw new ValueSyntaxError(`"${word}(" is not closed; write ${CONTROL_ARITY[word].usage}`, column, text);
+  const args: string[] = [];
+  let offset = open + 1;
+  for (const part of text.slice(open + 1, close).split(",")) {
+    const lead = part.length - part.trimStart().length;
+    const arg = part.trim();
+    const what = word === "across" ? "node" : "element";
+    if (!CONTROL_ARGUMENT.test(arg)) {
+      const shown = arg === "" ? `an empty ${what} name` : `"${arg}" is not a valid ${what} name (letters, digits and underscore)`;
+      throw new ValueSyntaxError(`${shown} in ${word}(...)`, offset + lead + 1, text);
+    }
+    args.push(arg);
+    offset += part.length + 1;
+  }
+  const { count, usage } = CONTROL_ARITY[word];
+  if (args.length !== count) throw new ValueSyntaxError(`${word}(...) takes ${count === 1 ? "one element" : "two nodes"}: ${usage}`, column, text);
+  return { token: { kind: "control", word, args, column }, end: close + 1 };
+}
+
 export type BinaryOp = "+" | "-" | "*" | "/";
 export type SignOp = "+" | "-";
 
@@ -115,6 +159,8 @@ export type SignOp = "+" | "-";
 export interface Reading<T> {
   number(value: Rational, column: number): T;
   name(name: string, column: number): T;
+  /** across(a, b) or through(x); the arguments are already checked names. */
+  control(word: ControlWord, args: string[], column: number): T;
   group(inner: T): T;
   binary(op: BinaryOp, left: T, right: T, column: number): T;
   sign(op: SignOp, operand: T, column: number): T;
@@ -129,6 +175,7 @@ export function exactReading(text: string): Reading<RationalFunction> {
   return {
     number: (value) => RationalFunction.constant(value),
     name: (name) => RationalFunction.fromPoly(Poly.variable(name)),
+    control: (word, args) => RationalFunction.variable(controlSymbol(word, args)),
     group: (inner) => inner,
     binary(op, left, right, column) {
       if (op === "+") return left.add(right);
@@ -147,6 +194,25 @@ export function exactReading(text: string): Reading<RationalFunction> {
       return base.pow(n);
     },
   };
+}
+
+/**
+ * The symbol a control stands for while a value is read: "$across(a,b)" or "$through(x)". It
+ * starts with "$", which no user symbol can contain, and the source stamp splits it out again.
+ */
+export function controlSymbol(word: ControlWord, args: readonly string[]): string {
+  return `$${word}(${args.join(",")})`;
+}
+
+/** The control a control symbol stands for, or null for any other symbol. */
+export function controlOfSymbol(symbol: string): { word: ControlWord; args: string[] } | null {
+  const m = /^\$(across|through)\((.*)\)$/.exec(symbol);
+  return m ? { word: m[1] as ControlWord, args: m[2].split(",") } : null;
+}
+
+/** A value read with its controls as symbols, printed back as value text: "$across(a,b)" becomes "across(a,b)". */
+export function printValue(f: RationalFunction): string {
+  return f.toInfix().replace(/\$(across|through)\(/g, "$1(");
 }
 
 class Parser<T> {
@@ -218,8 +284,12 @@ class Parser<T> {
     }
     if (t.kind === "ident") {
       this.pos++;
-      if (this.isOp("(")) this.fail(`"${t.name}(" is not a value: functions are not part of value expressions`, this.peek().column);
+      if (this.isOp("(")) this.fail(`"${t.name}(" is not a value: functions are not part of value expressions (a source may name across(<node>, <node>) or through(<element>))`, this.peek().column);
       return this.reading.name(t.name, t.column);
+    }
+    if (t.kind === "control") {
+      this.pos++;
+      return this.reading.control(t.word, t.args, t.column);
     }
     if (t.kind === "op" && t.op === "(") {
       this.pos++;
@@ -231,6 +301,11 @@ class Parser<T> {
     if (t.kind === "end") this.fail("unexpected end of the value", t.column);
     this.fail(`unexpected "${(t as { op: string }).op}"`, t.column);
   }
+}
+
+/** Every control a value names, in text order, without reading the rest of it (a structural look). */
+export function controlsIn(text: string): { word: ControlWord; args: string[]; column: number }[] {
+  return tokenize(text).flatMap((t) => (t.kind === "control" ? [{ word: t.word, args: t.args, column: t.column }] : []));
 }
 
 /** Check text against the value grammar (columns in every error) and build it with reading. */

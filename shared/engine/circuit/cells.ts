@@ -3,9 +3,11 @@
 // solving. Each instance may rename the cell's symbols (gm -> gm1), so two devices can differ.
 
 import { parseValue, RationalFunction } from "../algebra";
-import type { CellDefinition, CellInstance, Control, Diagnostic, Element, Network, ParseResult } from "../types";
+import { controlOfSymbol, controlSymbol, printValue } from "../algebra/expression";
+import type { CellDefinition, CellInstance, Diagnostic, Element, Network, ParseResult } from "../types";
 import { diagnostic } from "./diagnostics";
-import { elementNodes, isControlled, isOpamp } from "./elements";
+import { elementNodes, isOpamp, sourceControls } from "./elements";
+import { RENAMED_INCLUDE } from "./renamed";
 import { NAME_PATTERN } from "./schema";
 
 /** Node name inside a cell definition that stands for the network's ground. */
@@ -22,14 +24,14 @@ export const BJT_HYBRID_PI: CellDefinition = {
   symbols: ["gm", "r_pi", "ro"],
   elements: [
     { name: "rpi", kind: "resistor", nodes: ["b", "e"], value: "r_pi" },
-    { name: "gm", kind: "vccs", nodes: ["c", "e"], control: { nodes: ["b", "e"] }, value: "gm" },
+    { name: "gm", kind: "current", nodes: ["c", "e"], value: "gm * across(b, e)" },
     { name: "ro", kind: "resistor", nodes: ["c", "e"], value: "ro" },
   ],
 };
 
 /**
- * Small-signal MOSFET: gm·v_gs and gmb·v_bs from drain to source, ro from drain to source, and
- * on request the gate capacitances Cgs and Cgd.
+ * Small-signal MOSFET: one current source gm·v_gs + gmb·v_bs from drain to source, ro from drain to
+ * source, and on request the gate capacitances Cgs and Cgd.
  */
 export const MOSFET: CellDefinition = {
   id: "mosfet",
@@ -37,8 +39,7 @@ export const MOSFET: CellDefinition = {
   terminals: ["g", "d", "s", "b"],
   symbols: ["gm", "gmb", "ro", "Cgs", "Cgd"],
   elements: [
-    { name: "gm", kind: "vccs", nodes: ["d", "s"], control: { nodes: ["g", "s"] }, value: "gm" },
-    { name: "gmb", kind: "vccs", nodes: ["d", "s"], control: { nodes: ["b", "s"] }, value: "gmb" },
+    { name: "gm", kind: "current", nodes: ["d", "s"], value: "gm * across(g, s) + gmb * across(b, s)" },
     { name: "ro", kind: "resistor", nodes: ["d", "s"], value: "ro" },
     { name: "Cgs", kind: "capacitor", nodes: ["g", "s"], value: "Cgs" },
     { name: "Cgd", kind: "capacitor", nodes: ["g", "d"], value: "Cgd" },
@@ -54,7 +55,7 @@ export const AMPLIFIER: CellDefinition = {
   symbols: ["A", "Rin", "Ro"],
   elements: [
     { name: "Rin", kind: "resistor", nodes: ["p", "n"], value: "Rin" },
-    { name: "A", kind: "vcvs", nodes: ["x", CELL_GROUND], control: { nodes: ["p", "n"] }, value: "A" },
+    { name: "A", kind: "voltage", nodes: ["x", CELL_GROUND], value: "A * across(p, n)" },
     { name: "Ro", kind: "resistor", nodes: ["x", "o"], value: "Ro" },
   ],
 };
@@ -138,10 +139,10 @@ function instanceProblems(instance: CellInstance, definition: CellDefinition): {
       out.push({ code: "cell-symbols", key: "symbols", message: `the new name for "${symbol}", "${text}", is not a symbol or expression (${e instanceof Error ? e.message : String(e)})` });
     }
   }
-  for (const part of instance.include ?? []) {
+  for (const part of instance.with ?? []) {
     if (!(definition.optional ?? []).includes(part)) {
       const parts = definition.optional?.length ? `its optional parts are ${definition.optional.join(", ")}` : "it has no optional parts";
-      out.push({ code: "cell-symbols", key: "include", message: `cannot include "${part}": ${parts}` });
+      out.push({ code: "cell-symbols", key: "with", message: `cannot place "${part}" with it: ${parts}` });
     }
   }
   return out;
@@ -153,20 +154,26 @@ export function expandInstance(instance: CellInstance, definition: CellDefinitio
   const inner = new Set(definition.elements.map((e) => e.name));
   const renames: Record<string, RationalFunction> = {};
   for (const [symbol, text] of Object.entries(instance.symbols ?? {})) renames[symbol] = parseValue(text);
-  const rename = (value: string) => (Object.keys(renames).length === 0 ? value : parseValue(value).substituteExpressions(renames).toInfix());
-  const included = new Set(instance.include ?? []);
+  // Symbols take the instance's names; the controls a value names move to the instance's nodes and elements.
+  const rename = (value: string) => {
+    const f = parseValue(value);
+    const moved: Record<string, RationalFunction> = {};
+    for (const v of f.variables()) {
+      const c = controlOfSymbol(v);
+      if (!c) continue;
+      const args = c.word === "across" ? c.args.map(node) : c.args.map((x) => (inner.has(x) ? expandedName(instance.name, x) : x));
+      moved[v] = RationalFunction.variable(controlSymbol(c.word, args));
+    }
+    const all = { ...renames, ...moved };
+    return Object.keys(all).length === 0 ? value : printValue(f.substituteExpressions(all));
+  };
+  const included = new Set(instance.with ?? []);
   return definition.elements
     .filter((e) => !(definition.optional ?? []).includes(e.name) || included.has(e.name))
     .map((e): Element => {
       const name = expandedName(instance.name, e.name);
       if (isOpamp(e)) return { name, kind: "opamp", inputs: [node(e.inputs[0]), node(e.inputs[1])], output: node(e.output) };
       const nodes: [string, string] = [node(e.nodes[0]), node(e.nodes[1])];
-      if (isControlled(e)) {
-        const control: Control = "element" in e.control
-          ? { element: inner.has(e.control.element) ? expandedName(instance.name, e.control.element) : e.control.element }
-          : { nodes: [node(e.control.nodes[0]), node(e.control.nodes[1])] };
-        return { name, kind: e.kind, nodes, control, value: rename(e.value) };
-      }
       return { name, kind: e.kind, nodes, value: rename(e.value) };
     });
 }
@@ -201,7 +208,7 @@ export function checkCellDefinition(definition: CellDefinition): string[] {
   }
   if (definition.elements.length === 0) out.push("a cell has at least one element");
   // A terminal may only sense a voltage (a transistor's gate drives nothing in the small-signal model).
-  const sensed = definition.elements.flatMap((e) => ("control" in e && e.control && "nodes" in e.control ? e.control.nodes : []));
+  const sensed = definition.elements.flatMap((e) => sourceControls(e).flatMap((c) => ("nodes" in c ? c.nodes : [])));
   const touched = new Set([...definition.elements.flatMap((e) => elementNodes(e)), ...sensed]);
   for (const t of definition.terminals) if (!touched.has(t)) out.push(`terminal "${t}" is neither a node of an element nor a controlling node`);
   for (const o of definition.optional ?? []) if (!names.has(o)) out.push(`optional part "${o}" is not an element of the cell`);
@@ -210,7 +217,7 @@ export function checkCellDefinition(definition: CellDefinition): string[] {
 
 // ---------------------------------------------------------------------------------------------
 // The netlist line of a cell instance:
-//   <name> cell <cell> <terminal>=<node> ... [include <part> ...] [rename <symbol>:<new> ...]
+//   <name> cell <cell> <terminal>=<node> ... [with <part> ...] [rename <symbol>:<new> ...]
 
 export class CellLineError extends Error {
   constructor(
@@ -221,7 +228,7 @@ export class CellLineError extends Error {
   }
 }
 
-export const CELL_LINE_USAGE = "<name> cell <cell> <terminal>=<node> ... [include <part> ...] [rename <symbol>:<new> ...]";
+export const CELL_LINE_USAGE = "<name> cell <cell> <terminal>=<node> ... [with <part> ...] [rename <symbol>:<new> ...]";
 
 /** Read a cell line from its whitespace-separated tokens (1-based columns). */
 export function readCellLine(tokens: readonly { text: string; column: number }[]): CellInstance {
@@ -230,15 +237,16 @@ export function readCellLine(tokens: readonly { text: string; column: number }[]
   if (!cellToken) throw new CellLineError(`missing the cell; write "${CELL_LINE_USAGE}"`, tokens[1].column + 5);
   if (!CELL_ID_PATTERN.test(cellToken.text)) throw new CellLineError(`"${cellToken.text}" is not a cell id`, cellToken.column);
   const instance: CellInstance = { name: nameToken.text, cell: cellToken.text, terminals: {} };
-  let section: "terminals" | "include" | "rename" = "terminals";
+  let section: "terminals" | "with" | "rename" = "terminals";
   for (const t of tokens.slice(3)) {
-    if (t.text === "include" || t.text === "rename") {
+    if (t.text === "include") throw new CellLineError(RENAMED_INCLUDE, t.column);
+    if (t.text === "with" || t.text === "rename") {
       section = t.text;
       continue;
     }
-    if (section === "include") {
+    if (section === "with") {
       if (!NAME_PATTERN.test(t.text)) throw new CellLineError(`"${t.text}" is not a part name`, t.column);
-      (instance.include ??= []).push(t.text);
+      (instance.with ??= []).push(t.text);
     } else if (section === "rename") {
       const m = /^([\p{L}\p{N}_]+):(.+)$/u.exec(t.text);
       if (!m) throw new CellLineError(`write a rename as <symbol>:<new>, e.g. gm:gm1 (no spaces)`, t.column);
@@ -255,7 +263,7 @@ export function readCellLine(tokens: readonly { text: string; column: number }[]
 
 export function printCellLine(c: CellInstance): string {
   const parts = [c.name, "cell", c.cell, ...Object.entries(c.terminals).map(([t, n]) => `${t}=${n}`)];
-  if (c.include && c.include.length > 0) parts.push("include", ...c.include);
+  if (c.with && c.with.length > 0) parts.push("with", ...c.with);
   const renames = Object.entries(c.symbols ?? {});
   if (renames.length > 0) parts.push("rename", ...renames.map(([s, v]) => `${s}:${v.replace(/\s+/g, "")}`));
   return parts.join(" ");

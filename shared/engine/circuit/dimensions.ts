@@ -5,10 +5,10 @@
 import { RationalFunction } from "../algebra";
 import type { Diagnostic, DimensionCheck, DimensionReport, Network, Quantity, ResultName } from "../types";
 import { diagnostic } from "./diagnostics";
-import { isOpamp, valueQuantity } from "./elements";
+import { gainQuantity, isOpamp, valueQuantity } from "./elements";
 import { assembleNodalSystem } from "./mna";
 import { floatPortValues, seededRandom } from "./numeric";
-import { LAPLACE } from "./values";
+import { LAPLACE, type SourceTerm, type SourceTerms } from "./values";
 
 /** Exponents of volt, ampere and second. */
 export type Dim = readonly [number, number, number];
@@ -75,6 +75,7 @@ export function inferQuantities(
   network: Network,
   values: ReadonlyMap<string, RationalFunction>,
   declared: Record<string, Quantity>,
+  terms: SourceTerms = new Map(),
 ): { known: Map<string, Known>; conflicts: DimensionReport["conflicts"]; diagnostics: Diagnostic[] } {
   const known = new Map<string, Known>();
   for (const [s, q] of Object.entries(declared)) known.set(s, { dim: QUANTITY_DIMS[q], quantity: q, source: "declared" });
@@ -84,7 +85,13 @@ export function inferQuantities(
     if (isOpamp(e)) return [];
     const v = values.get(e.name);
     const q = valueQuantity(e.kind);
-    return v && q ? [{ element: e.name, quantity: q, target: QUANTITY_DIMS[q], num: termsOf(v.num), den: termsOf(v.den) }] : [];
+    const own = v && q ? [{ element: e.name, quantity: q, target: QUANTITY_DIMS[q], num: termsOf(v.num), den: termsOf(v.den) }] : [];
+    // Each gain of a controlled source carries the unit that turns its control into the source's output.
+    const gains = (terms.get(e.name) ?? []).map((t) => {
+      const g = gainQuantity(e.kind, t.control);
+      return { element: e.name, quantity: g, target: QUANTITY_DIMS[g], num: termsOf(t.gain.num), den: termsOf(t.gain.den) };
+    });
+    return [...own, ...gains];
   });
   const conflicts = new Map<string, { symbol: string; quantities: Set<Quantity>; elements: Set<string> }>();
   const noteConflict = (symbol: string, a: Known, demanded: Dim, element: string) => {
@@ -172,13 +179,15 @@ const LABEL: Record<ResultName, string> = { vth: "Vth", isc: "Isc", rth: "Rth", 
 export function checkDimensions(
   network: Network,
   values: ReadonlyMap<string, RationalFunction>,
+  terms: SourceTerms,
   results: Partial<Record<ResultName, RationalFunction | null>>,
   declared: Record<string, Quantity>,
   seed: number,
 ): { report: DimensionReport; diagnostics: Diagnostic[] } {
-  const { known, conflicts, diagnostics } = inferQuantities(network, values, declared);
+  const { known, conflicts, diagnostics } = inferQuantities(network, values, declared, terms);
   const symbols = new Set<string>();
   for (const v of values.values()) for (const s of v.variables()) symbols.add(s);
+  for (const ts of terms.values()) for (const t of ts) for (const s of t.gain.variables()) symbols.add(s);
   if (network.elements.some((e) => e.kind === "capacitor" || e.kind === "inductor")) symbols.add(LAPLACE);
   const quantities: Record<string, Quantity | null> = {};
   const sources: Record<string, string> = {};
@@ -203,6 +212,22 @@ export function checkDimensions(
     dimValues.set(e.name, RationalFunction.variable(name));
     dims.set(name, QUANTITY_DIMS[q]);
     base[name] = c.toNumber();
+  });
+  const dimTerms = new Map<string, SourceTerm[]>();
+  network.elements.forEach((e, i) => {
+    const ts = terms.get(e.name);
+    if (!ts) return;
+    dimTerms.set(
+      e.name,
+      ts.map((t, j) => {
+        const c = t.gain.constantValue();
+        if (!c || c.isZero()) return t;
+        const name = `$n${i + 1}_${j + 1}`;
+        dims.set(name, QUANTITY_DIMS[gainQuantity(e.kind, t.control)]);
+        base[name] = c.toNumber();
+        return { control: t.control, gain: RationalFunction.variable(name) };
+      }),
+    );
   });
 
   const checks: DimensionReport["checks"] = {};
@@ -229,7 +254,7 @@ export function checkDimensions(
     }
   }
   if (needScaling.length > 0) {
-    const sys = assembleNodalSystem(network, dimValues);
+    const sys = assembleNodalSystem(network, dimValues, dimTerms);
     const random = seededRandom(seed);
     const scaled = (point: Record<string, number>, l: Dim) => {
       const out: Record<string, number> = {};

@@ -1,39 +1,63 @@
 // The element model: what each kind is, which nodes it touches, what its value means.
 
-import type { ControlledSourceElement, Element, ElementKind, Network, OpampElement, Quantity, TwoTerminalElement } from "../types";
+import { controlsIn } from "../algebra/expression";
+import type { Control, Element, ElementKind, Network, OpampElement, Quantity, TwoTerminalElement } from "../types";
 
 export function isOpamp(e: Element): e is OpampElement {
   return e.kind === "opamp";
 }
 
-export function isControlled(e: Element): e is ControlledSourceElement {
-  return e.kind === "vcvs" || e.kind === "vccs" || e.kind === "ccvs" || e.kind === "cccs";
-}
-
 export function isTwoTerminal(e: Element): e is TwoTerminalElement {
-  return !isOpamp(e) && !isControlled(e);
+  return !isOpamp(e);
 }
 
 export function isPassive(e: Element): boolean {
   return e.kind === "resistor" || e.kind === "conductance" || e.kind === "capacitor" || e.kind === "inductor";
 }
 
-export function isIndependentSource(e: Element): boolean {
-  return e.kind === "vsource" || e.kind === "isource";
+export function isSource(e: Element): boolean {
+  return e.kind === "voltage" || e.kind === "current";
 }
 
 /** Sources that fix a voltage between their nodes and carry a branch current as an unknown. */
 export function isVoltageType(kind: ElementKind): boolean {
-  return kind === "vsource" || kind === "vcvs" || kind === "ccvs";
+  return kind === "voltage";
 }
 
 /** Sources that drive a current between their nodes. */
 export function isCurrentType(kind: ElementKind): boolean {
-  return kind === "isource" || kind === "vccs" || kind === "cccs";
+  return kind === "current";
 }
 
-export function isVoltageControlled(kind: ElementKind): boolean {
-  return kind === "vcvs" || kind === "vccs";
+const controlCache = new Map<string, Control[]>();
+
+/**
+ * The controls a source value names (across(a, b) -> nodes, through(x) -> element), in text order,
+ * read structurally without the algebra; a value that does not scan names none (its syntax error
+ * is reported where values are parsed).
+ */
+export function controlsOfValue(value: string): Control[] {
+  const cached = controlCache.get(value);
+  if (cached) return cached;
+  let controls: Control[] = [];
+  try {
+    controls = controlsIn(value).map((c): Control => (c.word === "across" ? { nodes: [c.args[0], c.args[1]] } : { element: c.args[0] }));
+  } catch {
+    controls = [];
+  }
+  if (controlCache.size > 5000) controlCache.clear();
+  controlCache.set(value, controls);
+  return controls;
+}
+
+/** The controls of an element: those its value names when it is a source, none otherwise. */
+export function sourceControls(e: Element): Control[] {
+  return isSource(e) && !isOpamp(e) ? controlsOfValue(e.value) : [];
+}
+
+/** A source whose value names at least one control: a dependent (controlled) source. */
+export function isControlled(e: Element): boolean {
+  return sourceControls(e).length > 0;
 }
 
 /** Every node an element touches, in its own order. */
@@ -56,7 +80,7 @@ export function networkNodes(network: Network): string[] {
   return order;
 }
 
-/** The quantity an element's value carries; for dependent sources, the gain's. */
+/** The quantity an element's value carries; for a source, that of its independent part. */
 export function valueQuantity(kind: ElementKind): Quantity | null {
   switch (kind) {
     case "resistor":
@@ -67,55 +91,49 @@ export function valueQuantity(kind: ElementKind): Quantity | null {
       return "capacitance";
     case "inductor":
       return "inductance";
-    case "vsource":
+    case "voltage":
       return "voltage";
-    case "isource":
+    case "current":
       return "current";
-    case "vcvs":
-    case "cccs":
-      return "dimensionless";
-    case "vccs":
-      return "transconductance";
-    case "ccvs":
-      return "transresistance";
     case "opamp":
       return null;
   }
 }
 
-/** Words used in explanations. */
+/** The quantity of the gain that multiplies a control in a source value (V/V, V/A, A/V, A/A). */
+export function gainQuantity(kind: ElementKind, control: Control): Quantity {
+  const byVoltage = "nodes" in control;
+  if (kind === "voltage") return byVoltage ? "dimensionless" : "transresistance";
+  return byVoltage ? "transconductance" : "dimensionless";
+}
+
+/** Words for a kind, used in explanations. */
 export function kindPhrase(kind: ElementKind): string {
   switch (kind) {
-    case "resistor":
-      return "resistor";
-    case "conductance":
-      return "conductance";
-    case "capacitor":
-      return "capacitor";
-    case "inductor":
-      return "inductor";
-    case "vsource":
+    case "voltage":
       return "voltage source";
-    case "isource":
+    case "current":
       return "current source";
-    case "vcvs":
-      return "voltage-controlled voltage source";
-    case "vccs":
-      return "voltage-controlled current source";
-    case "ccvs":
-      return "current-controlled voltage source";
-    case "cccs":
-      return "current-controlled current source";
     case "opamp":
       return "ideal op-amp";
+    default:
+      return kind;
   }
+}
+
+/** The trade's name for an element: "voltage-controlled current source" for a source that names across(...). */
+export function elementPhrase(e: Element): string {
+  const controls = sourceControls(e);
+  if (controls.length === 0) return kindPhrase(e.kind);
+  const byVoltage = controls.some((c) => "nodes" in c);
+  const byCurrent = controls.some((c) => "element" in c);
+  const by = byVoltage && byCurrent ? "voltage- and current-controlled" : byVoltage ? "voltage-controlled" : "current-controlled";
+  return `${by} ${kindPhrase(e.kind)}`;
 }
 
 /** Names of elements whose reference current is a controlling variable of some dependent source. */
 export function currentControlledElements(network: Network): Set<string> {
   const out = new Set<string>();
-  for (const e of network.elements) {
-    if (isControlled(e) && "element" in e.control) out.add(e.control.element);
-  }
+  for (const e of network.elements) for (const c of sourceControls(e)) if ("element" in c) out.add(c.element);
   return out;
 }

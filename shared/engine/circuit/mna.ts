@@ -5,7 +5,7 @@ import type { Network } from "../types";
 import { currentInfix, currentTex, voltageInfix, voltageTex } from "./display";
 import { currentControlledElements, isOpamp, isVoltageType, networkNodes } from "./elements";
 import { branchRow, currentUnknown, kclRow, stampElement, voltageUnknown, type ElementStamp } from "./stamps";
-import type { InternalSymbol } from "./values";
+import type { InternalSymbol, SourceTerms } from "./values";
 
 export interface Unknown {
   key: string;
@@ -48,12 +48,12 @@ export function branchFormElements(network: Network): Set<string> {
   return out;
 }
 
-export function assembleNodalSystem(network: Network, values: ReadonlyMap<string, RationalFunction>): NodalSystem {
+export function assembleNodalSystem(network: Network, values: ReadonlyMap<string, RationalFunction>, terms: SourceTerms = new Map()): NodalSystem {
   const ground = network.ground;
   const nodes = networkNodes(network);
   const branch = branchFormElements(network);
   const stamps = network.elements.map((e, index) =>
-    stampElement(e, { ground, index, value: values.get(e.name) ?? null, branchForm: branch.has(e.name) }),
+    stampElement(e, { ground, index, value: values.get(e.name) ?? null, branchForm: branch.has(e.name), terms: terms.get(e.name) ?? [] }),
   );
 
   const unknowns: Unknown[] = nodes.map((n) => ({ key: voltageUnknown(n), kind: "voltage", of: n, infix: voltageInfix(n), tex: voltageTex(n) }));

@@ -4,35 +4,28 @@
 //   ground 0
 //   port out 0
 //   quantity mu dimensionless
-//   Vin vsource in 0 = Vs
-//   Ro resistor x out = R0
-//   A1 vcvs x 0 = mu * across(in, out)
-//   B1 cccs a b = beta * through(Ro)
-//   U1 opamp p n -> o          (non-inverting input, inverting input, -> output)
+//   Vsens voltage in 0 = Vs
+//   Rout resistor x out = R0
+//   Amp voltage x 0 = mu * across(in, out)           (a source whose value names a control is controlled)
+//   Gain current a b = beta * through(Rout)
+//   Body current d s = gm*across(g, s) + gmb*across(b, s)
+//   Buf opamp p n -> o          (non-inverting input, inverting input, -> output)
 //   assume gm*ro >> 1          (a design assumption: each result also with its dominant terms)
 //
 // The kind is always the word in the second column; element names are free.
 
-import type {
-  CellInstance,
-  Control,
-  ControlledSourceKind,
-  Diagnostic,
-  Element,
-  ElementKind,
-  Network,
-  ParseResult,
-  Quantity,
-} from "../types";
+import { ValueSyntaxError } from "../algebra";
+import { controlsIn } from "../algebra/expression";
+import type { CellInstance, Diagnostic, Element, ElementKind, Network, ParseResult, Quantity } from "../types";
 import { ELEMENT_KINDS, QUANTITIES } from "../types";
 import { CellLineError, printCellLine, readCellLine } from "./cells";
 import { diagnostic } from "./diagnostics";
+import { renamedKind } from "./renamed";
 import { NAME_PATTERN } from "./schema";
 
 /** File extension of the Portfold netlist (ours: "Portfold network"). */
 export const NETLIST_EXTENSION = ".pfn";
 
-const CONTROLLED: ReadonlySet<string> = new Set(["vcvs", "vccs", "ccvs", "cccs"]);
 const DIRECTIVES: ReadonlySet<string> = new Set(["ground", "port", "quantity"]);
 
 interface Token {
@@ -170,6 +163,8 @@ function parseElementLine(
   const name = expectName(tokens[0], "element");
   if (tokens.length < 2) throw new NetlistSyntaxError(`element "${name}" needs a kind (${ELEMENT_KINDS.join(", ")})`, content.trimEnd().length + 1);
   const kindToken = tokens[1];
+  const renamed = renamedKind(kindToken.text);
+  if (renamed) throw new NetlistSyntaxError(renamed, kindToken.column);
   if (!(ELEMENT_KINDS as readonly string[]).includes(kindToken.text)) {
     throw new NetlistSyntaxError(`unknown element kind "${kindToken.text}" (one of ${ELEMENT_KINDS.join(", ")})`, kindToken.column);
   }
@@ -188,9 +183,10 @@ function parseElementLine(
     };
   }
 
-  const usage = CONTROLLED.has(kind)
-    ? `${name} ${kind} <node> <node> = <gain> * ${kind === "vcvs" || kind === "vccs" ? "across(<node>, <node>)" : "through(<element>)"}`
-    : `${name} ${kind} <node> <node> = <value>`;
+  const usage =
+    kind === "voltage" || kind === "current"
+      ? `${name} ${kind} <node> <node> = <value>, e.g. = A * across(in, out) or = rm * through(Rsense)`
+      : `${name} ${kind} <node> <node> = <value>`;
   if (tokens.length > 4) throw new NetlistSyntaxError(`unexpected "${tokens[4].text}"; write "${usage}"`, tokens[4].column);
   if (tokens.length < 4) throw new NetlistSyntaxError(`${kind} "${name}" needs two nodes; write "${usage}"`, eq >= 0 ? eq + 1 : content.trimEnd().length + 1);
   const nodes: [string, string] = [expectName(tokens[2], "node"), expectName(tokens[3], "node")];
@@ -201,148 +197,21 @@ function parseElementLine(
   const valueText = valueRaw.trim();
   const valueColumn = eq + 2 + lead;
   if (valueText === "") throw new NetlistSyntaxError(`missing value after "="; write "${usage}"`, eq + 2);
-
-  if (!CONTROLLED.has(kind)) {
-    const call = findControlCall(valueText);
-    if (call) {
-      throw new NetlistSyntaxError(`${call.word}(...) belongs in a vcvs, vccs, ccvs or cccs value, not a ${kind}`, valueColumn + call.start);
-    }
-    return {
-      element: { name, kind: kind as "resistor", nodes, value: valueText },
-      valueColumn,
-    };
+  if (kind !== "voltage" && kind !== "current") {
+    const named = namedControl(valueText);
+    if (named) throw new NetlistSyntaxError(`${named.word}(...) belongs in the value of a voltage or current source, not a ${kind}`, valueColumn + named.column - 1);
   }
-  const { control, gain, gainOffset } = splitControlledValue(valueText, valueColumn, usage);
-  return {
-    element: { name, kind: kind as ControlledSourceKind, nodes, control, value: gain },
-    valueColumn: valueColumn + gainOffset,
-  };
+  return { element: { name, kind, nodes, value: valueText }, valueColumn };
 }
 
-interface ControlCall {
-  word: "across" | "through";
-  start: number; // offset of the word in the value
-  end: number; // offset just past ")"
-  args: { text: string; offset: number }[];
-}
-
-function findControlCall(value: string): ControlCall | null {
-  const calls = findControlCalls(value);
-  return calls.length > 0 ? calls[0] : null;
-}
-
-function findControlCalls(value: string): ControlCall[] {
-  const calls: ControlCall[] = [];
-  const re = /(?<![\p{L}\p{N}_])(across|through)\s*\(/gu;
-  let m: RegExpExecArray | null;
-  while ((m = re.exec(value)) !== null) {
-    const open = m.index + m[0].length - 1;
-    const close = value.indexOf(")", open);
-    if (close < 0) throw new NetlistSyntaxError(`"${m[1]}(" is not closed`, 0 + m.index + 1);
-    const inner = value.slice(open + 1, close);
-    const args: { text: string; offset: number }[] = [];
-    let offset = open + 1;
-    for (const part of inner.split(",")) {
-      const lead = part.length - part.trimStart().length;
-      args.push({ text: part.trim(), offset: offset + lead });
-      offset += part.length + 1;
-    }
-    calls.push({ word: m[1] as "across" | "through", start: m.index, end: close + 1, args });
-    re.lastIndex = close + 1;
-  }
-  return calls;
-}
-
-// The value of a dependent source is gain × control; the control is written once, as a factor.
-function splitControlledValue(
-  value: string,
-  valueColumn: number,
-  usage: string,
-): { control: Control; gain: string; gainOffset: number } {
-  let calls: ControlCall[];
+// The first control a value names; a value that does not scan is reported when values are read.
+function namedControl(value: string): { word: string; column: number } | null {
   try {
-    calls = findControlCalls(value);
+    return controlsIn(value)[0] ?? null;
   } catch (e) {
-    if (e instanceof NetlistSyntaxError) throw new NetlistSyntaxError(e.message, valueColumn + e.column - 1);
+    if (e instanceof ValueSyntaxError) return null;
     throw e;
   }
-  if (calls.length === 0) throw new NetlistSyntaxError(`a dependent source names its control; write "${usage}"`, valueColumn);
-  if (calls.length > 1) throw new NetlistSyntaxError("a dependent source has exactly one control", valueColumn + calls[1].start);
-  const call = calls[0];
-  const at = (offset: number) => valueColumn + offset;
-
-  let control: Control;
-  if (call.word === "across") {
-    if (call.args.length !== 2) throw new NetlistSyntaxError("across(...) takes two nodes: across(<node>, <node>)", at(call.start));
-    for (const a of call.args) {
-      if (!NAME_PATTERN.test(a.text)) throw new NetlistSyntaxError(`"${a.text}" is not a valid node name`, at(a.offset));
-    }
-    control = { nodes: [call.args[0].text, call.args[1].text] };
-  } else {
-    if (call.args.length !== 1) throw new NetlistSyntaxError("through(...) takes one element: through(<element>)", at(call.start));
-    const a = call.args[0];
-    if (!NAME_PATTERN.test(a.text)) throw new NetlistSyntaxError(`"${a.text}" is not a valid element name`, at(a.offset));
-    control = { element: a.text };
-  }
-
-  const prefix = value.slice(0, call.start);
-  const suffix = value.slice(call.end);
-  const p = prefix.trim();
-  const s = suffix.trim();
-  const suffixOffset = call.end + (suffix.length - suffix.trimStart().length);
-  if (p === "" && s === "") return { control, gain: "1", gainOffset: call.start };
-  if (p === "-" && s === "") return { control, gain: "-1", gainOffset: 0 };
-  if (p.endsWith("*") && s === "") {
-    const gain = p.slice(0, -1).trim();
-    if (gain === "") throw new NetlistSyntaxError("missing gain before \"*\"", valueColumn);
-    if (hasTopLevelSum(gain)) {
-      throw new NetlistSyntaxError(`the gain is a sum; put it in parentheses: (${gain}) * ${call.word}(...)`, valueColumn);
-    }
-    return { control, gain: stripOuterParentheses(gain), gainOffset: 0 };
-  }
-  if (p === "" && (s.startsWith("*") || s.startsWith("/"))) {
-    const rest = s.slice(1).trim();
-    const restOffset = suffixOffset + 1 + (s.slice(1).length - s.slice(1).trimStart().length);
-    if (rest === "") throw new NetlistSyntaxError(`missing gain after "${s[0]}"`, at(suffixOffset));
-    if (hasTopLevelSum(rest)) {
-      throw new NetlistSyntaxError(`the gain is a sum; put it in parentheses: ${call.word}(...) ${s[0]} (${rest})`, at(restOffset));
-    }
-    const gain = s[0] === "*" ? stripOuterParentheses(rest) : `1/(${stripOuterParentheses(rest)})`;
-    return { control, gain, gainOffset: restOffset };
-  }
-  throw new NetlistSyntaxError(`write the value as a gain times the control: "${usage.split("= ")[1]}"`, valueColumn);
-}
-
-// A binary + or - outside parentheses means the control would not be a common factor.
-function hasTopLevelSum(expr: string): boolean {
-  const tokens = expr.match(/\d+(?:\.\d*)?(?:[eE][+-]?\d+)?[TGMkmuµnpf]?|\.\d+(?:[eE][+-]?\d+)?[TGMkmuµnpf]?|[\p{L}_][\p{L}\p{N}_]*|\S/gu) ?? [];
-  let depth = 0;
-  let prev: string | null = null;
-  for (const t of tokens) {
-    if (t === "(") depth++;
-    else if (t === ")") depth--;
-    else if ((t === "+" || t === "-") && depth === 0 && prev !== null && !"*/^(+-".includes(prev)) return true;
-    prev = t;
-  }
-  return false;
-}
-
-function stripOuterParentheses(expr: string): string {
-  let e = expr.trim();
-  while (e.startsWith("(") && e.endsWith(")") && matchingClose(e, 0) === e.length - 1) e = e.slice(1, -1).trim();
-  return e;
-}
-
-function matchingClose(e: string, open: number): number {
-  let depth = 0;
-  for (let i = open; i < e.length; i++) {
-    if (e[i] === "(") depth++;
-    else if (e[i] === ")") {
-      depth--;
-      if (depth === 0) return i;
-    }
-  }
-  return -1;
 }
 
 /** Print a network as a Portfold netlist; parseNetlistText(printNetlistText(n)) gives n back. */
@@ -360,10 +229,5 @@ export function printNetlistText(network: Network, title?: string): string {
 
 export function printElementLine(e: Element): string {
   if (e.kind === "opamp") return `${e.name} opamp ${e.inputs[0]} ${e.inputs[1]} -> ${e.output}`;
-  const head = `${e.name} ${e.kind} ${e.nodes[0]} ${e.nodes[1]} = `;
-  if (!("control" in e)) return head + e.value;
-  const control = "element" in e.control ? `through(${e.control.element})` : `across(${e.control.nodes[0]}, ${e.control.nodes[1]})`;
-  const gain = e.value.trim();
-  if (gain === "1") return head + control;
-  return head + (hasTopLevelSum(gain) ? `(${gain})` : gain) + " * " + control;
+  return `${e.name} ${e.kind} ${e.nodes[0]} ${e.nodes[1]} = ${e.value}`;
 }

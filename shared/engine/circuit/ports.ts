@@ -3,7 +3,7 @@
 
 import { Poly, RationalFunction } from "../algebra";
 import type { Network, Port } from "../types";
-import { isIndependentSource } from "./elements";
+import { isControlled, isSource } from "./elements";
 import type { NodalSystem, Row, Unknown } from "./mna";
 import { kclRow, voltageUnknown } from "./stamps";
 
@@ -17,15 +17,23 @@ export function portVector(sys: NodalSystem, port: Port): Poly[] {
   return c;
 }
 
-/** Independent sources set to zero for the test-source solve: V -> short, I -> open. */
-export function zeroIndependentSources(network: Network): { shorted: string[]; opened: string[] } {
+/**
+ * Independent sources set to zero for the test-source solve: V -> short, I -> open. A controlled
+ * source stays; only an independent part it adds to its controlled parts is set to zero (partly).
+ */
+export function zeroIndependentSources(
+  network: Network,
+  independent: ReadonlyMap<string, RationalFunction>,
+): { shorted: string[]; opened: string[]; partly: string[] } {
   const shorted: string[] = [];
   const opened: string[] = [];
+  const partly: string[] = [];
   for (const e of network.elements) {
-    if (!isIndependentSource(e)) continue;
-    (e.kind === "vsource" ? shorted : opened).push(e.name);
+    if (!isSource(e)) continue;
+    if (!isControlled(e)) (e.kind === "voltage" ? shorted : opened).push(e.name);
+    else if (!(independent.get(e.name)?.isZero() ?? true)) partly.push(e.name);
   }
-  return { shorted, opened };
+  return { shorted, opened, partly };
 }
 
 /** The right side with a 1 A test current driven into plus and out of minus, every independent source zeroed. */

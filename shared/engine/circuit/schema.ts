@@ -4,6 +4,7 @@ import { z } from "zod";
 import type { Diagnostic, Network, NetworkInput, Quantity } from "../types";
 import { ELEMENT_KINDS, QUANTITIES } from "../types";
 import { diagnostic } from "./diagnostics";
+import { RENAMED_CONTROL, RENAMED_INCLUDE, renamedKind } from "./renamed";
 
 /** Element and node names: letters, digits and underscore, so the text netlist can always spell them. */
 export const NAME_PATTERN = /^[\p{L}\p{N}_]+$/u;
@@ -14,20 +15,11 @@ const node = z.string().regex(NAME_PATTERN, "a node name is letters, digits and 
 const value = z.union([z.string().trim().min(1, "a value cannot be empty"), z.number().finite().transform((n) => String(n))]);
 const nodePair = z.tuple([node, node]);
 
+// A source's controls live in its value (across(a, b), through(x)), in the netlist's expression language.
 const twoTerminal = z.strictObject({
   name,
-  kind: z.enum(["resistor", "conductance", "capacitor", "inductor", "vsource", "isource"]),
+  kind: z.enum(["resistor", "conductance", "capacitor", "inductor", "voltage", "current"]),
   nodes: nodePair,
-  value,
-});
-
-const control = z.union([z.strictObject({ nodes: nodePair }), z.strictObject({ element: name })]);
-
-const controlled = z.strictObject({
-  name,
-  kind: z.enum(["vcvs", "vccs", "ccvs", "cccs"]),
-  nodes: nodePair,
-  control,
   value,
 });
 
@@ -38,7 +30,7 @@ const opamp = z.strictObject({
   output: node,
 });
 
-const element = z.discriminatedUnion("kind", [twoTerminal, controlled, opamp]);
+const element = z.discriminatedUnion("kind", [twoTerminal, opamp]);
 
 // Cells (an extension): instances are parts with named terminals, expanded before solving (circuit/cells.ts).
 const cellId = z.string().regex(/^[\p{L}\p{N}_-]+$/u, "a cell id is letters, digits, underscore and hyphen");
@@ -47,7 +39,7 @@ const cellInstance = z.strictObject({
   cell: cellId,
   terminals: z.record(name, node),
   symbols: z.record(name, z.string().trim().min(1, "a symbol's new name cannot be empty")).optional(),
-  include: z.array(name).optional(),
+  with: z.array(name).optional(),
 });
 const cellDefinition = z.strictObject({
   id: cellId,
@@ -72,7 +64,7 @@ export const networkSchema = z.strictObject({
 
 /** Check a parsed JSON value against the interchange format. */
 export function validateNetworkJson(input: unknown): { network: Network | null; diagnostics: Diagnostic[] } {
-  const kindProblems = unknownKinds(input);
+  const kindProblems = [...renamedWords(input), ...unknownKinds(input)];
   if (kindProblems.length > 0) return { network: null, diagnostics: kindProblems };
   const parsed = networkSchema.safeParse(input);
   if (!parsed.success) {
@@ -108,21 +100,62 @@ export function normalizeNetwork(input: NetworkInput): Network {
   return network;
 }
 
+/** Every element array of a network value, with its JSON path: the elements and each cell definition's. */
+function elementArrays(input: unknown): { path: (string | number)[]; elements: unknown[] }[] {
+  if (typeof input !== "object" || input === null) return [];
+  const out: { path: (string | number)[]; elements: unknown[] }[] = [];
+  const elements = (input as { elements?: unknown }).elements;
+  if (Array.isArray(elements)) out.push({ path: ["elements"], elements });
+  const definitions = (input as { cellDefinitions?: unknown }).cellDefinitions;
+  if (Array.isArray(definitions)) {
+    definitions.forEach((d, k) => {
+      const inner = typeof d === "object" && d !== null ? (d as { elements?: unknown }).elements : undefined;
+      if (Array.isArray(inner)) out.push({ path: ["cellDefinitions", k, "elements"], elements: inner });
+    });
+  }
+  return out;
+}
+
+function eachElement(input: unknown, visit: (e: Record<string, unknown>, path: (string | number)[], names: string[]) => void): void {
+  for (const { path, elements } of elementArrays(input)) {
+    elements.forEach((e, i) => {
+      if (typeof e !== "object" || e === null) return;
+      const n = (e as { name?: unknown }).name;
+      visit(e as Record<string, unknown>, [...path, i], typeof n === "string" ? [n] : []);
+    });
+  }
+}
+
+// Words of the earlier format are refused with the word that replaced each.
+function renamedWords(input: unknown): Diagnostic[] {
+  const out: Diagnostic[] = [];
+  eachElement(input, (e, path, elements) => {
+    const renamed = typeof e.kind === "string" ? renamedKind(e.kind) : null;
+    if (renamed) out.push(diagnostic("format-renamed", `${formatPath([...path, "kind"])}: ${renamed}`, { path: [...path, "kind"], elements }));
+    if ("control" in e) out.push(diagnostic("format-renamed", `${formatPath([...path, "control"])}: ${RENAMED_CONTROL}`, { path: [...path, "control"], elements }));
+  });
+  const cells = typeof input === "object" && input !== null ? (input as { cells?: unknown }).cells : undefined;
+  if (Array.isArray(cells)) {
+    cells.forEach((c, i) => {
+      if (typeof c === "object" && c !== null && "include" in c) {
+        const n = (c as { name?: unknown }).name;
+        out.push(diagnostic("format-renamed", `cells[${i}].include: ${RENAMED_INCLUDE}`, { path: ["cells", i, "include"], elements: typeof n === "string" ? [n] : [] }));
+      }
+    });
+  }
+  return out;
+}
+
 // zod's message for an unknown discriminator is generic; name the kinds we accept instead.
 function unknownKinds(input: unknown): Diagnostic[] {
-  if (typeof input !== "object" || input === null) return [];
-  const elements = (input as { elements?: unknown }).elements;
-  if (!Array.isArray(elements)) return [];
   const out: Diagnostic[] = [];
-  elements.forEach((e, i) => {
-    if (typeof e !== "object" || e === null) return;
-    const kind = (e as { kind?: unknown }).kind;
-    if (typeof kind === "string" && !(ELEMENT_KINDS as readonly string[]).includes(kind)) {
-      const n = (e as { name?: unknown }).name;
+  eachElement(input, (e, path, elements) => {
+    const kind = e.kind;
+    if (typeof kind === "string" && !(ELEMENT_KINDS as readonly string[]).includes(kind) && !renamedKind(kind)) {
       out.push(
-        diagnostic("schema-invalid", `elements[${i}].kind: unknown element kind "${kind}" (one of ${ELEMENT_KINDS.join(", ")})`, {
-          path: ["elements", i, "kind"],
-          elements: typeof n === "string" ? [n] : [],
+        diagnostic("schema-invalid", `${formatPath([...path, "kind"])}: unknown element kind "${kind}" (one of ${ELEMENT_KINDS.join(", ")})`, {
+          path: [...path, "kind"],
+          elements,
         }),
       );
     }

@@ -15,7 +15,7 @@ import { exactExpression, limitsOf, parseAssignments, sensitivitiesOf, solveForT
 import { buildLedger } from "./steps";
 import { checkTopology, suspectStructures } from "./topology";
 import { checkStructure } from "./validate";
-import { LAPLACE, parseElementValues } from "./values";
+import { LAPLACE, parseElementValues, type SourceTerms } from "./values";
 
 export function emptyResult(network: Network | null, diagnostics: Diagnostic[]): SolveResult {
   return {
@@ -55,14 +55,14 @@ function placeDiagnostics(diagnostics: Diagnostic[], positions: ParseResult["pos
 export function checkNetwork(
   network: Network,
   positions?: ParseResult["positions"],
-): { values: Map<string, RationalFunction> | null; diagnostics: Diagnostic[] } {
+): { values: Map<string, RationalFunction> | null; terms: SourceTerms; diagnostics: Diagnostic[] } {
   const structural = checkStructure(network);
-  if (hasErrors(structural)) return { values: null, diagnostics: placeDiagnostics(structural, positions) };
+  if (hasErrors(structural)) return { values: null, terms: new Map(), diagnostics: placeDiagnostics(structural, positions) };
   const parsed = parseElementValues(network, positions);
   const diagnostics = [...structural, ...parsed.diagnostics];
-  if (hasErrors(parsed.diagnostics)) return { values: null, diagnostics: placeDiagnostics(diagnostics, positions) };
+  if (hasErrors(parsed.diagnostics)) return { values: null, terms: parsed.terms, diagnostics: placeDiagnostics(diagnostics, positions) };
   diagnostics.push(...checkTopology(network));
-  return { values: hasErrors(diagnostics) ? null : parsed.values, diagnostics: placeDiagnostics(diagnostics, positions) };
+  return { values: hasErrors(diagnostics) ? null : parsed.values, terms: parsed.terms, diagnostics: placeDiagnostics(diagnostics, positions) };
 }
 
 export function solveParsedNetwork(input: Network, options: SolveOptions = {}, inputPositions?: ParseResult["positions"]): SolveResult {
@@ -78,8 +78,9 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   const diagnostics: Diagnostic[] = checked.diagnostics;
   if (checked.values === null) return emptyResult(network, diagnostics);
   const values = checked.values;
+  const terms = checked.terms;
 
-  const port = solvePortExact(network, values);
+  const port = solvePortExact(network, values, terms);
   const { system: sys, open, short, vth, rth, isc, rthFromVocIsc, agree } = port;
   const statements = [...port.statements];
   if (open.singular && short.singular) {
@@ -147,12 +148,12 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   }
   if (options.dimensions ?? true) {
     const declared = { ...(network.quantities ?? {}), ...(options.quantities ?? {}) };
-    const d = checkDimensions(network, values, { vth, isc, rth, rthFromVocIsc }, declared, seed);
+    const d = checkDimensions(network, values, terms, { vth, isc, rth, rthFromVocIsc }, declared, seed);
     result.dimensions = d.report;
     diagnostics.push(...d.diagnostics);
   }
   if (options.steps ?? true) {
-    result.steps = buildLedger({ network, system: sys, values, open, short, vth, rth, isc, rthFromVocIsc, agree });
+    result.steps = buildLedger({ network, system: sys, values, terms, open, short, vth, rth, isc, rthFromVocIsc, agree });
   }
   const { [LAPLACE]: _s, ...given } = options.values ? parseAssignments(options.values).exact : {};
   const frequency = frequencyReport(results, given);
@@ -213,8 +214,8 @@ export interface ExactPort {
 }
 
 /** The exact port results of a checked network (no printing): open port, test source, short, Voc/Isc. */
-export function solvePortExact(network: Network, values: ReadonlyMap<string, RationalFunction>): ExactPort {
-  const sys = assembleNodalSystem(network, values);
+export function solvePortExact(network: Network, values: ReadonlyMap<string, RationalFunction>, terms: SourceTerms = new Map()): ExactPort {
+  const sys = assembleNodalSystem(network, values, terms);
   const open = solveOpenPort(sys, network.port);
   const short = solveShortedPort(sys, network.port);
 

@@ -6,9 +6,10 @@
 // to its second node; an op-amp's current I:<name> is what it delivers into its output node.
 
 import { Poly, RationalFunction } from "../algebra";
-import type { ControlledSourceElement, Element, OpampElement, TwoTerminalElement } from "../types";
-import { currentInfix, currentTex, differenceOf, negate, over, times, voltageInfix, voltageTex, type Written } from "./display";
-import { LAPLACE, coefficientOf, type Coefficient, type InternalSymbol } from "./values";
+import type { Element, OpampElement, TwoTerminalElement } from "../types";
+import { currentInfix, currentTex, differenceOf, negate, over, sumOf, times, voltageInfix, voltageTex, type Written } from "./display";
+import { elementPhrase } from "./elements";
+import { LAPLACE, coefficientOf, type Coefficient, type InternalSymbol, type SourceTerm } from "./values";
 
 export const kclRow = (node: string) => `KCL:${node}`;
 export const branchRow = (element: string) => `BR:${element}`;
@@ -56,7 +57,8 @@ export interface ElementStamp {
   sources: SourceEntry[];
   currents: NodeCurrent[];
   branch: BranchEquation | null;
-  control: ControlVariable | null;
+  /** The controlling variables a controlled source names, one per controlled part. */
+  controls: ControlVariable[];
   internals: InternalSymbol[];
 }
 
@@ -68,6 +70,8 @@ export interface StampContext {
   value: RationalFunction | null;
   /** The element's current is an unknown (it is some dependent source's control). */
   branchForm: boolean;
+  /** A source's controlled parts (gain × control); empty for every other element. */
+  terms: readonly SourceTerm[];
 }
 
 const ONE = RationalFunction.constant(1);
@@ -133,7 +137,7 @@ interface PassiveForm {
 
 function stampPassive(e: TwoTerminalElement, ctx: StampContext, form: PassiveForm): ElementStamp {
   const [a, b] = e.nodes;
-  const base = { element: e.name, kind: e.kind, sources: [], control: null };
+  const base = { element: e.name, kind: e.kind, sources: [], controls: [] };
   if (!ctx.branchForm) {
     const y = coefficientOf(form.admittance, e.name, ctx.index, "admittance");
     return {
@@ -200,223 +204,134 @@ export function stampInductor(e: TwoTerminalElement, ctx: StampContext): Element
   return stampPassive(e, ctx, { admittance: z.inverse(), impedance: z, current: (d) => over(d, z), phrase: "inductor" });
 }
 
-// ---- independent sources ---------------------------------------------------------------
+// ---- sources -----------------------------------------------------------------------------
+// A source's value is an independent part plus Σ gain × control (across(a, b) or through(x)):
+// the independent part goes to the right side, each controlled part into the matrix.
 
-export function stampVsource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
-  const [a, b] = e.nodes;
-  const row = branchRow(e.name);
-  const v = coefficientOf(ctx.value!, e.name, ctx.index, "source");
+/** One controlled part of a source, ready to stamp into any row. */
+interface ControlPart {
+  at(row: string, sign: 1 | -1): MatrixEntry[];
+  written: Written;
+  variable: ControlVariable;
+  coefficient: Coefficient;
+}
+
+function controlParts(e: TwoTerminalElement, ctx: StampContext): ControlPart[] {
+  const label = (letter: "v" | "i", j: number) => {
+    const sub = ctx.terms.length > 1 ? `${e.name}_${j + 1}` : e.name;
+    return { infix: `${letter}_${sub}`, tex: `${letter}_{${sub.replace(/_/g, "\\_")}}` };
+  };
+  return ctx.terms.map((term, j): ControlPart => {
+    const k = coefficientOf(term.gain, e.name, ctx.index, "gain", false, j);
+    if ("nodes" in term.control) {
+      const [c1, c2] = term.control.nodes;
+      const diff = differenceOf(c1, c2, ctx.ground);
+      return {
+        at: (row, sign) => differenceEntries(row, c1, c2, k, sign),
+        written: times(term.gain, diff),
+        variable: {
+          equation: written(label("v", j), diff),
+          explanation: `The controlling voltage across(${c1}, ${c2}) of "${e.name}" is V(${c1}) − V(${c2}), written directly in the node voltages.`,
+        },
+        coefficient: k,
+      };
+    }
+    const x = term.control.element;
+    const current = { infix: currentInfix(x), tex: currentTex(x) };
+    return {
+      at: (row, sign) => [entry(row, currentUnknown(x), k, sign)],
+      written: times(term.gain, current),
+      variable: {
+        equation: written(label("i", j), current),
+        explanation: `The controlling current through(${x}) of "${e.name}" is the reference current of "${x}", an unknown of the system.`,
+      },
+      coefficient: k,
+    };
+  });
+}
+
+/** What a source drives: its independent part (when not zero) plus its controlled parts. */
+function drivenWritten(value: RationalFunction, parts: ControlPart[]): Written {
+  const terms = parts.map((p) => p.written);
+  if (!value.isZero() || terms.length === 0) terms.unshift(valueWritten(value));
+  return sumOf(terms);
+}
+
+function sourceBase(e: TwoTerminalElement, parts: ControlPart[], own: Coefficient) {
   return {
     element: e.name,
     kind: e.kind,
-    entries: [...branchCurrentEntries(e), ...differenceEntries(row, a, b, unit)],
+    controls: parts.map((p) => p.variable),
+    internals: internalsOf(own, ...parts.map((p) => p.coefficient)),
+  };
+}
+
+function sourceWords(e: TwoTerminalElement): string {
+  const phrase = elementPhrase(e);
+  return phrase.charAt(0).toUpperCase() + phrase.slice(1);
+}
+
+/** A voltage source: V(a) − V(b) − Σ gain·control = independent part; its current is a new unknown. */
+export function stampVoltageSource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+  const [a, b] = e.nodes;
+  const row = branchRow(e.name);
+  const v = coefficientOf(ctx.value!, e.name, ctx.index, "source");
+  const parts = controlParts(e, ctx);
+  const words = sourceWords(e);
+  return {
+    ...sourceBase(e, parts, v),
+    entries: [...branchCurrentEntries(e), ...differenceEntries(row, a, b, unit), ...parts.flatMap((p) => p.at(row, -1))],
     sources: [{ row, value: v.poly, display: v.display }],
     currents: branchCurrents(e),
     branch: {
       row,
       unknown: currentUnknown(e.name),
       kind: "constraint",
-      equation: written(differenceOf(a, b, ctx.ground), valueWritten(ctx.value!)),
-      explanation: `Voltage source "${e.name}" fixes the voltage between its nodes; its current is a new unknown.`,
+      equation: written(differenceOf(a, b, ctx.ground), drivenWritten(ctx.value!, parts)),
+      explanation:
+        parts.length === 0
+          ? `Voltage source "${e.name}" fixes the voltage between its nodes; its current is a new unknown.`
+          : `${words} "${e.name}" sets the voltage between its nodes from its controls; its current is a new unknown.`,
     },
-    control: null,
-    internals: internalsOf(v),
   };
 }
 
-export function stampIsource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+/** A current source: drives its value from a to b; kept as a current unknown when some source names through() it. */
+export function stampCurrentSource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
   const [a, b] = e.nodes;
   const v = coefficientOf(ctx.value!, e.name, ctx.index, "source");
-  const base = { element: e.name, kind: e.kind, control: null, internals: internalsOf(v) };
+  const parts = controlParts(e, ctx);
+  const driven = drivenWritten(ctx.value!, parts);
   if (!ctx.branchForm) {
-    // The source current leaves node a and enters node b; on the right side it changes sign.
-    const vw = valueWritten(ctx.value!);
+    // The source current leaves node a and enters node b; its independent part changes sign on the right side.
     return {
-      ...base,
-      entries: [],
+      ...sourceBase(e, parts, v),
+      entries: parts.flatMap((p) => [...p.at(kclRow(a), 1), ...p.at(kclRow(b), -1)]),
       sources: [
         { row: kclRow(a), value: v.poly.neg(), display: v.display.neg() },
         { row: kclRow(b), value: v.poly, display: v.display },
       ],
       currents: [
-        { node: a, written: vw },
-        { node: b, written: negate(vw) },
+        { node: a, written: driven },
+        { node: b, written: negate(driven) },
       ],
       branch: null,
     };
   }
   const row = branchRow(e.name);
+  const i = currentUnknown(e.name);
   return {
-    ...base,
-    entries: [...branchCurrentEntries(e), entry(row, currentUnknown(e.name), unit)],
+    ...sourceBase(e, parts, v),
+    entries: [...branchCurrentEntries(e), entry(row, i, unit), ...parts.flatMap((p) => p.at(row, -1))],
     sources: [{ row, value: v.poly, display: v.display }],
     currents: branchCurrents(e),
     branch: {
       row,
-      unknown: currentUnknown(e.name),
-      kind: "control",
-      equation: written({ infix: currentInfix(e.name), tex: currentTex(e.name) }, valueWritten(ctx.value!)),
-      explanation: `The current of current source "${e.name}" controls a source, so it is written as an unknown equal to the source value.`,
-    },
-  };
-}
-
-// ---- dependent sources -----------------------------------------------------------------
-
-function voltageControl(e: ControlledSourceElement, ctx: StampContext): { c1: string; c2: string; diff: Written & { terms: number }; variable: ControlVariable } {
-  if (!("nodes" in e.control)) throw new Error(`${e.name}: expected a voltage control`);
-  const [c1, c2] = e.control.nodes;
-  const diff = differenceOf(c1, c2, ctx.ground);
-  const v = { infix: `v_${e.name}`, tex: `v_{${e.name.replace(/_/g, "\\_")}}` };
-  return {
-    c1,
-    c2,
-    diff,
-    variable: {
-      equation: written(v, diff),
-      explanation: `The controlling voltage of "${e.name}" is V(${c1}) − V(${c2}), written directly in the node voltages.`,
-    },
-  };
-}
-
-function currentControl(e: ControlledSourceElement): { col: string; current: Written; variable: ControlVariable } {
-  if (!("element" in e.control)) throw new Error(`${e.name}: expected a current control`);
-  const x = e.control.element;
-  const current = { infix: currentInfix(x), tex: currentTex(x) };
-  const i = { infix: `i_${e.name}`, tex: `i_{${e.name.replace(/_/g, "\\_")}}` };
-  return {
-    col: currentUnknown(x),
-    current,
-    variable: {
-      equation: written(i, current),
-      explanation: `The controlling current of "${e.name}" is the reference current of "${x}", an unknown of the system.`,
-    },
-  };
-}
-
-export function stampVcvs(e: ControlledSourceElement, ctx: StampContext): ElementStamp {
-  const [a, b] = e.nodes;
-  const row = branchRow(e.name);
-  const k = coefficientOf(ctx.value!, e.name, ctx.index, "gain");
-  const c = voltageControl(e, ctx);
-  return {
-    element: e.name,
-    kind: e.kind,
-    entries: [...branchCurrentEntries(e), ...differenceEntries(row, a, b, unit), ...differenceEntries(row, c.c1, c.c2, k, -1)],
-    sources: [],
-    currents: branchCurrents(e),
-    branch: {
-      row,
-      unknown: currentUnknown(e.name),
-      kind: "constraint",
-      equation: written(differenceOf(a, b, ctx.ground), times(ctx.value!, c.diff)),
-      explanation: `VCVS "${e.name}" sets its output voltage to the gain times the controlling voltage; its current is a new unknown.`,
-    },
-    control: c.variable,
-    internals: internalsOf(k),
-  };
-}
-
-export function stampVccs(e: ControlledSourceElement, ctx: StampContext): ElementStamp {
-  const [a, b] = e.nodes;
-  const g = coefficientOf(ctx.value!, e.name, ctx.index, "gain");
-  const c = voltageControl(e, ctx);
-  const driven = times(ctx.value!, c.diff);
-  if (!ctx.branchForm) {
-    return {
-      element: e.name,
-      kind: e.kind,
-      entries: [...differenceEntries(kclRow(a), c.c1, c.c2, g), ...differenceEntries(kclRow(b), c.c1, c.c2, g, -1)],
-      sources: [],
-      currents: [
-        { node: a, written: driven },
-        { node: b, written: negate(driven) },
-      ],
-      branch: null,
-      control: c.variable,
-      internals: internalsOf(g),
-    };
-  }
-  const row = branchRow(e.name);
-  const i = currentUnknown(e.name);
-  return {
-    element: e.name,
-    kind: e.kind,
-    entries: [...branchCurrentEntries(e), entry(row, i, unit), ...differenceEntries(row, c.c1, c.c2, g, -1)],
-    sources: [],
-    currents: branchCurrents(e),
-    branch: {
-      row,
       unknown: i,
       kind: "control",
       equation: written({ infix: currentInfix(e.name), tex: currentTex(e.name) }, driven),
-      explanation: `The current of VCCS "${e.name}" controls another source, so it is kept as an unknown.`,
+      explanation: `The current of ${elementPhrase(e)} "${e.name}" controls another source, so it is kept as an unknown equal to what the source drives.`,
     },
-    control: c.variable,
-    internals: internalsOf(g),
-  };
-}
-
-export function stampCcvs(e: ControlledSourceElement, ctx: StampContext): ElementStamp {
-  const [a, b] = e.nodes;
-  const row = branchRow(e.name);
-  const r = coefficientOf(ctx.value!, e.name, ctx.index, "gain");
-  const c = currentControl(e);
-  return {
-    element: e.name,
-    kind: e.kind,
-    entries: [...branchCurrentEntries(e), ...differenceEntries(row, a, b, unit), entry(row, c.col, r, -1)],
-    sources: [],
-    currents: branchCurrents(e),
-    branch: {
-      row,
-      unknown: currentUnknown(e.name),
-      kind: "constraint",
-      equation: written(differenceOf(a, b, ctx.ground), times(ctx.value!, c.current)),
-      explanation: `CCVS "${e.name}" sets its output voltage to the transresistance times the controlling current; its current is a new unknown.`,
-    },
-    control: c.variable,
-    internals: internalsOf(r),
-  };
-}
-
-export function stampCccs(e: ControlledSourceElement, ctx: StampContext): ElementStamp {
-  const [a, b] = e.nodes;
-  const k = coefficientOf(ctx.value!, e.name, ctx.index, "gain");
-  const c = currentControl(e);
-  const driven = times(ctx.value!, c.current);
-  if (!ctx.branchForm) {
-    return {
-      element: e.name,
-      kind: e.kind,
-      entries: [entry(kclRow(a), c.col, k), entry(kclRow(b), c.col, k, -1)],
-      sources: [],
-      currents: [
-        { node: a, written: driven },
-        { node: b, written: negate(driven) },
-      ],
-      branch: null,
-      control: c.variable,
-      internals: internalsOf(k),
-    };
-  }
-  const row = branchRow(e.name);
-  const i = currentUnknown(e.name);
-  return {
-    element: e.name,
-    kind: e.kind,
-    entries: [...branchCurrentEntries(e), entry(row, i, unit), entry(row, c.col, k, -1)],
-    sources: [],
-    currents: branchCurrents(e),
-    branch: {
-      row,
-      unknown: i,
-      kind: "control",
-      equation: written({ infix: currentInfix(e.name), tex: currentTex(e.name) }, driven),
-      explanation: `The current of CCCS "${e.name}" controls another source, so it is kept as an unknown.`,
-    },
-    control: c.variable,
-    internals: internalsOf(k),
   };
 }
 
@@ -444,7 +359,7 @@ export function stampOpamp(e: OpampElement, ctx: StampContext): ElementStamp {
       equation: written(lhs, rhs),
       explanation: `Ideal op-amp "${e.name}" holds its inputs at equal voltage and draws no input current; the current it delivers at its output is a new unknown.`,
     },
-    control: null,
+    controls: [],
     internals: [],
   };
 }
@@ -459,18 +374,10 @@ export function stampElement(e: Element, ctx: StampContext): ElementStamp {
       return stampCapacitor(e as TwoTerminalElement, ctx);
     case "inductor":
       return stampInductor(e as TwoTerminalElement, ctx);
-    case "vsource":
-      return stampVsource(e as TwoTerminalElement, ctx);
-    case "isource":
-      return stampIsource(e as TwoTerminalElement, ctx);
-    case "vcvs":
-      return stampVcvs(e as ControlledSourceElement, ctx);
-    case "vccs":
-      return stampVccs(e as ControlledSourceElement, ctx);
-    case "ccvs":
-      return stampCcvs(e as ControlledSourceElement, ctx);
-    case "cccs":
-      return stampCccs(e as ControlledSourceElement, ctx);
+    case "voltage":
+      return stampVoltageSource(e as TwoTerminalElement, ctx);
+    case "current":
+      return stampCurrentSource(e as TwoTerminalElement, ctx);
     case "opamp":
       return stampOpamp(e as OpampElement, ctx);
   }

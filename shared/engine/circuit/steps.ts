@@ -3,12 +3,13 @@
 
 import { RationalFunction, type Poly } from "../algebra";
 import type { Network, Step } from "../types";
-import { differenceOf, labelTex, sumOf, voltageTex } from "./display";
-import { elementNodes, isControlled, isOpamp, kindPhrase, networkNodes } from "./elements";
+import { currentTex, differenceOf, labelTex, sumOf, times, voltageTex, type Written } from "./display";
+import { elementNodes, elementPhrase, isOpamp, networkNodes, sourceControls } from "./elements";
 import type { NodalSystem, Unknown } from "./mna";
 import type { OpenPortSolution, ShortPortSolution } from "./port-solution";
 import { displayRing, portVector, shortPort, zeroIndependentSources } from "./ports";
 import { kclRow } from "./stamps";
+import type { SourceTerms } from "./values";
 
 /** Expressions longer than this many terms are left out of the TeX (the data keeps them). */
 const TEX_TERM_LIMIT = 300;
@@ -17,6 +18,8 @@ export interface LedgerInput {
   network: Network;
   system: NodalSystem;
   values: ReadonlyMap<string, RationalFunction>;
+  /** The controlled parts of each controlled source. */
+  terms: SourceTerms;
   open: OpenPortSolution;
   short: ShortPortSolution;
   vth: RationalFunction | null;
@@ -83,13 +86,19 @@ export function buildLedger(input: LedgerInput): Step[] {
   });
 
   const nodes = networkNodes(network);
+  const controlled = network.elements.filter((e) => sourceControls(e).length > 0);
+  const controls = Object.fromEntries(controlled.map((e) => [e.name, sourceControls(e).map(controlText)]));
+  const controlSentence =
+    controlled.length === 0
+      ? ""
+      : `; the controlled sources and their controls: ${controlled.map((e) => `"${e.name}", a ${elementPhrase(e)}, by ${controls[e.name].join(" and ")}`).join("; ")}`;
   steps.push({
     id: "network",
     kind: "network",
     title: "The network as given",
-    explanation: `${network.elements.length} element${network.elements.length === 1 ? "" : "s"} on ${nodes.length} node${nodes.length === 1 ? "" : "s"} besides ground. Each element's reference current runs from its first node to its second.`,
-    tex: `\\begin{aligned} ${network.elements.map((e) => elementTex(e, input.values)).join(" \\\\ ")} \\end{aligned}`,
-    data: { elements: network.elements, nodes },
+    explanation: `${network.elements.length} element${network.elements.length === 1 ? "" : "s"} on ${nodes.length} node${nodes.length === 1 ? "" : "s"} besides ground. Each element's reference current runs from its first node to its second${controlSentence}.`,
+    tex: `\\begin{aligned} ${network.elements.map((e) => elementTex(e, input.values, input.terms)).join(" \\\\ ")} \\end{aligned}`,
+    data: { elements: network.elements, nodes, controls },
   });
 
   // ---- Vth: the open port
@@ -130,14 +139,15 @@ export function buildLedger(input: LedgerInput): Step[] {
   }
 
   for (const s of sys.stamps) {
-    if (!s.control) continue;
+    if (s.controls.length === 0) continue;
+    const several = s.controls.length > 1;
     steps.push({
       id: `vth.control.${s.element}`,
       kind: "control",
-      title: `Controlling variable of ${s.element}`,
-      explanation: s.control.explanation,
-      tex: s.control.equation.tex,
-      data: { element: s.element, equation: s.control.equation.infix },
+      title: `Controlling variable${several ? "s" : ""} of ${s.element}`,
+      explanation: s.controls.map((c) => c.explanation).join(" "),
+      tex: s.controls.map((c) => c.equation.tex).join(",\\quad "),
+      data: { element: s.element, equation: s.controls.map((c) => c.equation.infix).join(", "), equations: s.controls.map((c) => c.equation.infix) },
     });
   }
   for (const s of sys.stamps) {
@@ -179,19 +189,20 @@ export function buildLedger(input: LedgerInput): Step[] {
   });
 
   // ---- Rth: test source with sources zeroed
-  const zeroed = zeroIndependentSources(network);
+  const zeroed = zeroIndependentSources(network, input.values);
   const valueTex = (name: string) => input.values.get(name)?.toTex() ?? "0";
-  const zeroTex = [...zeroed.shorted, ...zeroed.opened].map((n) => `\\mathrm{${n.replace(/_/g, "\\_")}}:\\ ${valueTex(n)} \\to 0`);
+  const zeroTex = [...zeroed.shorted, ...zeroed.opened, ...zeroed.partly].map((n) => `\\mathrm{${n.replace(/_/g, "\\_")}}:\\ ${valueTex(n)} \\to 0`);
   const zeroPhrase = [
     zeroed.shorted.length > 0 ? `voltage source${zeroed.shorted.length > 1 ? "s" : ""} ${listOrNone(zeroed.shorted)} become${zeroed.shorted.length > 1 ? "" : "s"} a short` : "",
     zeroed.opened.length > 0 ? `current source${zeroed.opened.length > 1 ? "s" : ""} ${listOrNone(zeroed.opened)} become${zeroed.opened.length > 1 ? "" : "s"} an open` : "",
+    zeroed.partly.length > 0 ? `the independent part${zeroed.partly.length > 1 ? "s" : ""} of controlled source${zeroed.partly.length > 1 ? "s" : ""} ${listOrNone(zeroed.partly)} ${zeroed.partly.length > 1 ? "are" : "is"} set to zero` : "",
   ].filter((x) => x !== "");
   steps.push({
     id: "rth.zeroing",
     kind: "zeroing",
     title: "Independent sources zeroed",
     explanation:
-      zeroed.shorted.length + zeroed.opened.length === 0
+      zeroed.shorted.length + zeroed.opened.length + zeroed.partly.length === 0
         ? "The network has no independent sources, so nothing is zeroed; dependent sources always stay."
         : `${capitalize(zeroPhrase.join(" and "))}; dependent sources stay.`,
     tex: zeroTex.length > 0 ? zeroTex.join(",\\quad ") : "\\text{no independent sources}",
@@ -322,18 +333,25 @@ function rowData(row: RationalFunction[], unknowns: Unknown[], rhs: RationalFunc
   return { coefficients, rhs: rhs.toInfix() };
 }
 
-function elementTex(e: Network["elements"][number], values: ReadonlyMap<string, RationalFunction>): string {
-  const name = `\\mathrm{${e.name.replace(/_/g, "\\_")}}`;
-  if (isOpamp(e)) {
-    return `${name} &: \\text{${kindPhrase(e.kind)}},\\ ${labelTex(e.inputs[0])}^{+}\\ ${labelTex(e.inputs[1])}^{-} \\to ${labelTex(e.output)}`;
-  }
-  const v = values.get(e.name);
-  const value = v ? v.toTex() : e.value;
-  const [a, b] = elementNodes(e);
-  let control = "";
-  if (isControlled(e)) {
-    control = "nodes" in e.control ? ` \\cdot v(${labelTex(e.control.nodes[0])}, ${labelTex(e.control.nodes[1])})` : ` \\cdot i(\\mathrm{${e.control.element.replace(/_/g, "\\_")}})`;
-  }
-  return `${name} &: \\text{${kindPhrase(e.kind)}},\\ ${labelTex(a)} \\to ${labelTex(b)},\\ ${value}${control}`;
+function controlText(c: ReturnType<typeof sourceControls>[number]): string {
+  return "nodes" in c ? `across(${c.nodes[0]}, ${c.nodes[1]})` : `through(${c.element})`;
 }
 
+/** A control as the ledger writes it: v(a, b) for a voltage, i(x) for a current. */
+function controlWritten(c: ReturnType<typeof sourceControls>[number]): Written {
+  if ("nodes" in c) return { infix: `v(${c.nodes[0]}, ${c.nodes[1]})`, tex: `v(${labelTex(c.nodes[0])}, ${labelTex(c.nodes[1])})` };
+  return { infix: `i(${c.element})`, tex: currentTex(c.element).replace(/^I/, "i") };
+}
+
+function elementTex(e: Network["elements"][number], values: ReadonlyMap<string, RationalFunction>, terms: SourceTerms): string {
+  const name = `\\mathrm{${e.name.replace(/_/g, "\\_")}}`;
+  if (isOpamp(e)) {
+    return `${name} &: \\text{${elementPhrase(e)}},\\ ${labelTex(e.inputs[0])}^{+}\\ ${labelTex(e.inputs[1])}^{-} \\to ${labelTex(e.output)}`;
+  }
+  const v = values.get(e.name);
+  const parts = (terms.get(e.name) ?? []).map((t) => times(t.gain, controlWritten(t.control)).tex);
+  const independent = v ? v.toTex() : e.value;
+  const value = parts.length === 0 ? independent : sumOf([...(v && !v.isZero() ? [{ infix: "", tex: independent }] : []), ...parts.map((tex) => ({ infix: "", tex }))]).tex;
+  const [a, b] = elementNodes(e);
+  return `${name} &: \\text{${elementPhrase(e)}},\\ ${labelTex(a)} \\to ${labelTex(b)},\\ ${value}`;
+}

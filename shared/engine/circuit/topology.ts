@@ -2,12 +2,12 @@
 //
 // Three graphs over the nodes:
 //  - carrying: elements whose current adapts to the network (passives, V-type sources, op-amp output to ground);
-//  - driving:  current sources (isource, vccs, cccs), which fix their own current;
+//  - driving:  current sources (independent or controlled), which fix their own current;
 //  - fixing:   elements that fix a voltage difference (V-type sources and op-amp inputs, the nullator).
 
 import type { Diagnostic, Element, Network } from "../types";
 import { diagnostic } from "./diagnostics";
-import { currentControlledElements, elementNodes, isCurrentType, isOpamp, isVoltageType } from "./elements";
+import { currentControlledElements, elementNodes, isControlled, isCurrentType, isOpamp, isVoltageType } from "./elements";
 
 class UnionFind {
   private readonly parent = new Map<string, string>();
@@ -113,7 +113,7 @@ export function voltageSourceLoops(network: Network): Diagnostic[] {
   const fixing: (Edge & { dependent: boolean; carries: boolean })[] = [];
   for (const e of network.elements) {
     if (isOpamp(e)) fixing.push({ a: e.inputs[0], b: e.inputs[1], element: e.name, dependent: false, carries: false });
-    else if (isVoltageType(e.kind)) fixing.push({ a: e.nodes[0], b: e.nodes[1], element: e.name, dependent: e.kind !== "vsource", carries: true });
+    else if (isVoltageType(e.kind)) fixing.push({ a: e.nodes[0], b: e.nodes[1], element: e.name, dependent: isControlled(e), carries: true });
   }
   for (const loop of findLoops(fixing)) {
     const members = loop.map((i) => fixing[i]);
@@ -195,7 +195,7 @@ export function currentSourceCutsets(network: Network): Diagnostic[] {
     const set = new Set(nodes);
     const crossing = driving.filter((e) => set.has(e.nodes[0]) !== set.has(e.nodes[1]));
     if (crossing.length === 0) continue; // floating, reported elsewhere
-    if (!crossing.every((e) => e.kind === "isource")) continue; // dependent sources may make it solvable
+    if (crossing.some((e) => isControlled(e))) continue; // dependent sources may make it solvable
     out.push(
       diagnostic(
         "current-source-cutset",

@@ -2,7 +2,7 @@
 
 import type { Diagnostic, Network } from "../types";
 import { diagnostic } from "./diagnostics";
-import { elementNodes, isControlled, isVoltageControlled } from "./elements";
+import { elementNodes, sourceControls } from "./elements";
 
 export function checkStructure(network: Network): Diagnostic[] {
   const out: Diagnostic[] = [];
@@ -49,66 +49,46 @@ export function checkStructure(network: Network): Diagnostic[] {
   }
 
   elements.forEach((e, i) => {
-    if (!isControlled(e)) return;
-    const c = e.control;
-    const voltageControlled = isVoltageControlled(e.kind);
-    if ("element" in c) {
-      if (voltageControlled) {
-        out.push(
-          diagnostic(
-            "control-kind-mismatch",
-            `"${e.name}" is a ${e.kind}, controlled by a voltage; give it across(<node>, <node>), or make it a ${e.kind === "vcvs" ? "ccvs" : "cccs"} to use the current of "${c.element}"`,
-            { elements: [e.name], path: ["elements", i, "control"] },
-          ),
-        );
-        return;
-      }
-      if (c.element === e.name) {
-        out.push(
-          diagnostic("control-self", `"${e.name}" is controlled by its own current; a source cannot set its own controlling variable`, {
-            elements: [e.name],
-            path: ["elements", i, "control", "element"],
-          }),
-        );
-        return;
-      }
-      const j = byName.get(c.element);
-      if (j === undefined) {
-        out.push(
-          diagnostic("control-missing-element", `"${e.name}" is controlled by the current of "${c.element}", but no element has that name`, {
-            elements: [e.name],
-            path: ["elements", i, "control", "element"],
-          }),
-        );
-        return;
-      }
-      if (elements[j].kind === "opamp") {
-        out.push(
-          diagnostic(
-            "control-unsupported",
-            `"${e.name}" is controlled by the current of op-amp "${c.element}", which has no single reference current; control it by the current of an element in the output path instead`,
-            { elements: [e.name, c.element], path: ["elements", i, "control", "element"] },
-          ),
-        );
-      }
-    } else {
-      if (!voltageControlled) {
-        out.push(
-          diagnostic(
-            "control-kind-mismatch",
-            `"${e.name}" is a ${e.kind}, controlled by a current; give it through(<element>), or make it a ${e.kind === "ccvs" ? "vcvs" : "vccs"} to use the voltage across(${c.nodes[0]}, ${c.nodes[1]})`,
-            { elements: [e.name], path: ["elements", i, "control"] },
-          ),
-        );
-        return;
+    const path = ["elements", i, "value"];
+    for (const c of sourceControls(e)) {
+      if ("element" in c) {
+        if (c.element === e.name) {
+          out.push(
+            diagnostic("control-self", `"${e.name}" names through(${e.name}), its own current; a source cannot set its own controlling variable`, {
+              elements: [e.name],
+              path,
+            }),
+          );
+          continue;
+        }
+        const j = byName.get(c.element);
+        if (j === undefined) {
+          out.push(
+            diagnostic("control-missing-element", `"${e.name}" names through(${c.element}), but no element has that name`, {
+              elements: [e.name],
+              path,
+            }),
+          );
+          continue;
+        }
+        if (elements[j].kind === "opamp") {
+          out.push(
+            diagnostic(
+              "control-unsupported",
+              `"${e.name}" names through(${c.element}), the current of op-amp "${c.element}", which has no single reference current; name the current of an element in the output path instead`,
+              { elements: [e.name, c.element], path },
+            ),
+          );
+        }
+        continue;
       }
       for (const n of c.nodes) {
         if (!nodes.has(n)) {
           out.push(
-            diagnostic("control-unknown-node", `"${e.name}" is controlled across node "${n}", which no element touches`, {
+            diagnostic("control-unknown-node", `"${e.name}" names across(${c.nodes[0]}, ${c.nodes[1]}), but no element touches node "${n}"`, {
               elements: [e.name],
               nodes: [n],
-              path: ["elements", i, "control", "nodes"],
+              path,
             }),
           );
         }

@@ -3,27 +3,114 @@
 // internal variable, so every matrix entry stays a polynomial and det(A) is multilinear in them.
 
 import { Poly, Rational, RationalFunction, ValueSyntaxError, parseValue } from "../algebra";
-import type { Diagnostic, Element, Network, ParseResult } from "../types";
+import { controlOfSymbol, controlSymbol, controlsIn } from "../algebra/expression";
+import type { Control, Diagnostic, Element, Network, ParseResult } from "../types";
 import { diagnostic } from "./diagnostics";
-import { isOpamp } from "./elements";
+import { isOpamp, isSource } from "./elements";
 
 /** Laplace variable; capacitors and inductors are stamped as sC and 1/(sL). */
 export const LAPLACE = "s";
 
-/** Parsed value of every element that has one (in user symbols). */
-export type ElementValues = ReadonlyMap<string, RationalFunction>;
+/** One controlled part of a source value: gain × control. */
+export interface SourceTerm {
+  control: Control;
+  gain: RationalFunction;
+}
+
+/** The controlled parts of every controlled source, by element name, in the order its value names them. */
+export type SourceTerms = ReadonlyMap<string, readonly SourceTerm[]>;
+
+/** Why a source value cannot be split into an independent part plus gain × control terms. */
+class NonLinearControl extends Error {}
+
+/**
+ * Split a source value read with its controls as symbols into independent part + Σ gain·control.
+ * The value must be linear in its controls: no control in a denominator, no power or product of them.
+ */
+export function splitSourceValue(value: RationalFunction): { independent: RationalFunction; terms: SourceTerm[] } {
+  const controlSymbols = value.variables().filter((v) => controlOfSymbol(v) !== null);
+  if (controlSymbols.length === 0) return { independent: value, terms: [] };
+  const inDenominator = controlSymbols.find((c) => value.den.degreeIn(c) > 0);
+  if (inDenominator) throw new NonLinearControl(`${controlText(inDenominator)} is in a denominator`);
+  for (const t of value.num.terms()) {
+    const named = controlSymbols.filter((c) => (t.monomial[c] ?? 0) > 0);
+    const power = named.reduce((sum, c) => sum + t.monomial[c], 0);
+    if (power > 1) {
+      const what = named.length > 1 ? `${named.map(controlText).join(" and ")} are multiplied together` : `${controlText(named[0])} is raised to a power`;
+      throw new NonLinearControl(what);
+    }
+  }
+  let independent = value.num;
+  const terms: SourceTerm[] = [];
+  for (const c of controlSymbols) {
+    const coefficient = value.num.coefficientIn(c, 1);
+    independent = independent.sub(coefficient.mul(Poly.variable(c)));
+    const parts = controlOfSymbol(c)!;
+    const control: Control = parts.word === "across" ? { nodes: [parts.args[0], parts.args[1]] } : { element: parts.args[0] };
+    terms.push({ control, gain: RationalFunction.from(coefficient, value.den) });
+  }
+  return { independent: RationalFunction.from(independent, value.den), terms };
+}
+
+/** The controlled parts in the order the value names their controls. */
+function inTextOrder(terms: SourceTerm[], text: string): SourceTerm[] {
+  const order = controlsIn(text).map((c) => controlSymbol(c.word, c.args));
+  const key = (t: SourceTerm) => order.indexOf("nodes" in t.control ? controlSymbol("across", t.control.nodes) : controlSymbol("through", [t.control.element]));
+  return [...terms].sort((x, y) => key(x) - key(y));
+}
+
+function controlText(symbol: string): string {
+  const c = controlOfSymbol(symbol)!;
+  return `${c.word}(${c.args.join(", ")})`;
+}
 
 export function parseElementValues(
   network: Network,
   positions?: ParseResult["positions"],
-): { values: Map<string, RationalFunction>; diagnostics: Diagnostic[] } {
+): { values: Map<string, RationalFunction>; terms: Map<string, SourceTerm[]>; diagnostics: Diagnostic[] } {
   const values = new Map<string, RationalFunction>();
+  const terms = new Map<string, SourceTerm[]>();
   const diagnostics: Diagnostic[] = [];
   network.elements.forEach((e, i) => {
     if (isOpamp(e)) return;
     const pos = positions?.[e.name];
+    const at = (column: number) => {
+      const where = pos ? { line: pos.line, column: (pos.valueColumn ?? 1) + column - 1 } : {};
+      return { where, prefix: pos ? `line ${where.line}, column ${where.column}: ` : "" };
+    };
     try {
-      const v = parseValue(e.value);
+      const read = parseValue(e.value);
+      if (!isSource(e)) {
+        const named = controlsIn(e.value)[0];
+        if (named) {
+          const { where, prefix } = at(named.column);
+          diagnostics.push(
+            diagnostic("value-syntax", `${prefix}value "${e.value}" of "${e.name}": ${named.word}(...) belongs in the value of a voltage or current source, not a ${e.kind}`, {
+              elements: [e.name],
+              path: ["elements", i, "value"],
+              ...where,
+            }),
+          );
+          return;
+        }
+      }
+      let v = read;
+      try {
+        const split = splitSourceValue(read);
+        v = split.independent;
+        if (split.terms.length > 0) terms.set(e.name, inTextOrder(split.terms, e.value));
+      } catch (err) {
+        if (!(err instanceof NonLinearControl)) throw err;
+        const { where, prefix } = at(controlsIn(e.value)[0]?.column ?? 1);
+        diagnostics.push(
+          diagnostic("control-nonlinear", `${prefix}value "${e.value}" of "${e.name}" is not linear in its controls: ${err.message}; a controlled source's value is a sum of gain × across(...) or gain × through(...) terms, plus an independent part`, {
+            elements: [e.name],
+            path: ["elements", i, "value"],
+            ...where,
+          }),
+        );
+        return;
+      }
       values.set(e.name, v);
       if ((e.kind === "resistor" || e.kind === "inductor") && v.isZero()) {
         diagnostics.push(
@@ -48,7 +135,7 @@ export function parseElementValues(
       );
     }
   });
-  return { values, diagnostics };
+  return { values, terms, diagnostics };
 }
 
 /** A matrix coefficient: the polynomial that is stamped, and what it stands for in user symbols. */
@@ -75,11 +162,14 @@ export function isInternalSymbol(name: string): boolean {
 
 const ROLE_LETTER: Record<CoefficientRole, string> = { admittance: "y", impedance: "z", gain: "k", source: "u" };
 
-/** The coefficient for one role of one element; an internal variable only when the value is not a polynomial. */
-export function coefficientOf(display: RationalFunction, element: string, index: number, role: CoefficientRole, forceInternal = false): Coefficient {
+/**
+ * The coefficient for one role of one element; an internal variable only when the value is not a
+ * polynomial. part numbers the gains of one source (0 for the first), so each gets its own name.
+ */
+export function coefficientOf(display: RationalFunction, element: string, index: number, role: CoefficientRole, forceInternal = false, part = 0): Coefficient {
   const c = display.den.constantValue();
   if (c !== null && !forceInternal) return { poly: display.num.scale(c.inverse()), display, internal: null };
-  const name = `$${ROLE_LETTER[role]}${index + 1}`;
+  const name = `$${ROLE_LETTER[role]}${index + 1}${part > 0 ? `_${part + 1}` : ""}`;
   const internal: InternalSymbol = { name, value: display, element, role };
   return { poly: Poly.variable(name), display, internal };
 }

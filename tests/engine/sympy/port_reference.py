@@ -5,9 +5,10 @@ where "network" is the interchange format and the "ours" entries are plain infix
 (^ as power) or null. For each network it writes the nodal equations itself, from the
 element semantics of the interchange format (not from Portfold's matrix):
 
-  * unknowns: node voltages, plus one current per vsource / vcvs / ccvs / op-amp output;
-  * current-controlled sources use the controlling element's current written as an
-    expression (Y*(Va - Vb) for a passive, the value for an isource, ...), not a new unknown;
+  * unknowns: node voltages, plus one current per voltage source and op-amp output;
+  * a source value's controls are substituted as expressions: across(a, b) as Va - Vb,
+    through(x) as x's current written as an expression (Y*(Va - Vb) for a passive, the
+    value for a current source, ...), not a new unknown;
   * Vth: the open port; Rth: sources zeroed and 1 A driven into plus, out of minus;
   * Isc: a 0 V source across the port (not the node merge Portfold uses).
 
@@ -36,8 +37,23 @@ def symbol(name):
     return S if name == "s" else sp.Symbol(name)
 
 
-def parse(text):
-    """Parse a value or result string into sympy, every identifier a Symbol, numbers exact."""
+CONTROL = re.compile(r"(across|through)\s*\(([^)]*)\)")
+
+
+def parse(text, control=None):
+    """Parse a value or result string into sympy, every identifier a Symbol, numbers exact.
+
+    control(word, args) gives the expression a control call across(...) / through(...) stands for.
+    """
+    calls = []
+
+    def hole(m):
+        calls.append((m.group(1), [a.strip() for a in m.group(2).split(",")]))
+        return f"__control{len(calls) - 1}"
+
+    text = CONTROL.sub(hole, text)
+    if calls and control is None:
+        raise ValueError(f"a control in {text!r} where none is expected")
     pos = 0
     out = []
     names = {}
@@ -58,6 +74,11 @@ def parse(text):
             out.append(f"(Rational('{mant}')*Rational(10)**({e}))")
         elif m.group("ident"):
             name = m.group("ident")
+            if name.startswith("__control"):
+                j = int(name[len("__control"):])
+                out.append(f"({name})")
+                names.setdefault(name, (name, control(*calls[j])))
+                continue
             key = f"__v{len(names)}" if name not in names else names[name][0]
             names.setdefault(name, (key, symbol(name)))
             out.append(names[name][0])
@@ -85,16 +106,23 @@ def solve_port(network, mode):
 
     branch = {}
     for e in elements:
-        if e["kind"] in ("vsource", "vcvs", "ccvs", "opamp"):
+        if e["kind"] in ("voltage", "opamp"):
             branch[e["name"]] = sp.Symbol(f"I__{len(branch)}")
     short = sp.Symbol("I__short")
 
     zeroed = mode == "test"
 
-    def value(e):
-        if zeroed and e["kind"] in ("vsource", "isource"):
-            return sp.Integer(0)
-        return parse(str(e["value"]))
+    def value(e, seen=()):
+        """A source's value with its controls substituted; its independent part removed for the test source."""
+        full = parse(str(e["value"]), lambda word, args: control(word, args, seen + (e["name"],)))
+        if not zeroed:
+            return full
+        return full - parse(str(e["value"]), lambda word, args: sp.Integer(0))
+
+    def control(word, args, seen):
+        if word == "across":
+            return V(args[0]) - V(args[1])
+        return current(args[0], seen)
 
     def admittance(e):
         v = parse(str(e["value"]))
@@ -111,13 +139,8 @@ def solve_port(network, mode):
             return admittance(e) * (V(a) - V(b))
         if e["name"] in branch:
             return branch[e["name"]]
-        if k == "isource":
-            return value(e)
-        if k == "vccs":
-            c1, c2 = e["control"]["nodes"]
-            return parse(str(e["value"])) * (V(c1) - V(c2))
-        if k == "cccs":
-            return parse(str(e["value"])) * current(e["control"]["element"], seen + (name,))
+        if k == "current":
+            return value(e, seen)
         raise ValueError(f"no current for {k}")
 
     kcl = {n: sp.Integer(0) for n in nodes}
@@ -138,13 +161,8 @@ def solve_port(network, mode):
         i = current(e["name"])
         leave(a, i)
         leave(b, -i)
-        if k == "vsource":
+        if k == "voltage":
             constraints.append(V(a) - V(b) - value(e))
-        elif k == "vcvs":
-            c1, c2 = e["control"]["nodes"]
-            constraints.append(V(a) - V(b) - parse(str(e["value"])) * (V(c1) - V(c2)))
-        elif k == "ccvs":
-            constraints.append(V(a) - V(b) - parse(str(e["value"])) * current(e["control"]["element"]))
 
     unknowns = [volt[n] for n in nodes] + list(branch.values())
     if mode == "test":

@@ -12,8 +12,8 @@ import { useCreateNetwork } from "../api/create-network";
 const STARTER = `# sensor buffer: finite-gain amplifier wired as a follower
 ground 0
 port out 0
-Sensor vsource in 0 = Vs
-Amp vcvs x 0 = mu * across(in, out)
+Sensor voltage in 0 = Vs
+Amp voltage x 0 = mu * across(in, out)
 OutputRes resistor x out = R0
 `;
 
