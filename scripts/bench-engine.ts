@@ -1,7 +1,7 @@
 // Benchmark of the exact engine: Vth + Isc + Rth on ladder networks, beside sympy on the same
 // networks in the same run. A script, not a test: it prints figures, it asserts nothing.
 //
-//   npm run bench:engine -- [--max N] [--max-vccs N] [--sympy-budget SECONDS] [--sympy-cap SECONDS] [--no-sympy]
+//   npm run bench:engine -- [--max N] [--max-gm N] [--sympy-budget SECONDS] [--sympy-cap SECONDS] [--no-sympy]
 //
 // Each network is solved in a fresh child process, so "peak MB" is that process's peak RSS; times
 // are the best of up to three runs after a warm-up on a small ladder.
@@ -20,13 +20,13 @@ const HERE = fileURLToPath(import.meta.url);
 const SYMPY_SCRIPT = fileURLToPath(new URL("../tests/engine/sympy/bench_port.py", import.meta.url));
 const PYTHON = "/usr/bin/python3";
 
-/** n sections of series Ra_i and shunt Rb_i, driven by Vs; optionally a VCCS gm_i·V(n_{i-1}) in every section. */
-export function ladderNetwork(n: number, withVccs: boolean): NetworkInput {
+/** n sections of series Ra_i and shunt Rb_i, driven by Vs; optionally a transconductance gm_i·V(n_{i-1}) (a current source naming across) in every section. */
+export function ladderNetwork(n: number, withGm: boolean): NetworkInput {
   const elements: Element[] = [{ name: "Vin", kind: "voltage", nodes: ["n0", "0"], value: "Vs" }];
   for (let i = 1; i <= n; i++) {
     elements.push({ name: `Ra${i}`, kind: "resistor", nodes: [`n${i - 1}`, `n${i}`], value: `Ra_${i}` });
     elements.push({ name: `Rb${i}`, kind: "resistor", nodes: [`n${i}`, "0"], value: `Rb_${i}` });
-    if (withVccs) elements.push({ name: `G${i}`, kind: "vccs", nodes: [`n${i}`, "0"], control: { nodes: [`n${i - 1}`, "0"] }, value: `gm_${i}` });
+    if (withGm) elements.push({ name: `Gm${i}`, kind: "current", nodes: [`n${i}`, "0"], value: `gm_${i} * across(n${i - 1}, 0)` });
   }
   return { port: { plus: `n${n}`, minus: "0" }, elements };
 }
@@ -43,10 +43,10 @@ interface OneRun {
 }
 
 /** Child mode: solve one ladder and report on stdout. */
-function runOne(n: number, withVccs: boolean): OneRun {
-  const net = ladderNetwork(n, withVccs);
+function runOne(n: number, withGm: boolean): OneRun {
+  const net = ladderNetwork(n, withGm);
   // Warm the JIT on a small ladder first, then keep the best of up to three runs (within ~3 s).
-  solveNetwork(ladderNetwork(3, withVccs), { steps: false });
+  solveNetwork(ladderNetwork(3, withGm), { steps: false });
   let exactMs = Infinity;
   let fullMs = Infinity;
   const first = performance.now();
@@ -103,9 +103,9 @@ function runSympy(net: NetworkInput, capSeconds: number, ours: OneRun["results"]
   return { seconds: out.seconds, wall, status: "ok", matches };
 }
 
-function childRun(n: number, withVccs: boolean): OneRun {
-  const r = spawnSync(process.execPath, ["--import", "tsx", HERE, "--one", String(n), withVccs ? "vccs" : "plain"], { encoding: "utf8", maxBuffer: 1 << 30 });
-  if (r.status !== 0) throw new Error(`child failed for ${withVccs ? "vccs-" : ""}ladder-${n}: ${r.stderr}`);
+function childRun(n: number, withGm: boolean): OneRun {
+  const r = spawnSync(process.execPath, ["--import", "tsx", HERE, "--one", String(n), withGm ? "gm" : "plain"], { encoding: "utf8", maxBuffer: 1 << 30 });
+  if (r.status !== 0) throw new Error(`child failed for ${withGm ? "gm-" : ""}ladder-${n}: ${r.stderr}`);
   return JSON.parse(r.stdout) as OneRun;
 }
 
@@ -121,11 +121,11 @@ function pad(s: string, n: number): string {
 function main(): void {
   const one = process.argv.indexOf("--one");
   if (one >= 0) {
-    process.stdout.write(JSON.stringify(runOne(Number(process.argv[one + 1]), process.argv[one + 2] === "vccs")));
+    process.stdout.write(JSON.stringify(runOne(Number(process.argv[one + 1]), process.argv[one + 2] === "gm")));
     return;
   }
   const maxPlain = arg("--max", 12);
-  const maxVccs = arg("--max-vccs", 10);
+  const maxGm = arg("--max-gm", 10);
   const budget = arg("--sympy-budget", 90);
   const cap = arg("--sympy-cap", 30);
   const sympy = !process.argv.includes("--no-sympy");
@@ -138,17 +138,17 @@ function main(): void {
   const rows: { name: string; ours: OneRun; sym: SympyRun | null }[] = [];
   // Smallest first, the two families interleaved, so the sympy budget reaches both.
   const cases: [number, boolean][] = [];
-  for (let n = 3; n <= Math.max(maxPlain, maxVccs); n++) {
+  for (let n = 3; n <= Math.max(maxPlain, maxGm); n++) {
     if (n <= maxPlain) cases.push([n, false]);
-    if (n <= maxVccs) cases.push([n, true]);
+    if (n <= maxGm) cases.push([n, true]);
   }
-  for (const [n, withVccs] of cases) {
-    const name = `${withVccs ? "vccs-" : ""}ladder-${n}`;
-    const ours = childRun(n, withVccs);
+  for (const [n, withGm] of cases) {
+    const name = `${withGm ? "gm-" : ""}ladder-${n}`;
+    const ours = childRun(n, withGm);
     let sym: SympyRun | null = null;
     if (sympy) {
       const left = budget - spent;
-      sym = left <= 1 ? { seconds: null, wall: 0, status: "timeout", matches: null } : runSympy(ladderNetwork(n, withVccs), Math.min(cap, left), ours.results);
+      sym = left <= 1 ? { seconds: null, wall: 0, status: "timeout", matches: null } : runSympy(ladderNetwork(n, withGm), Math.min(cap, left), ours.results);
       spent += sym.wall;
     }
     rows.push({ name, ours, sym });

@@ -3,6 +3,7 @@
 export { parseNetlistText, printElementLine, printNetlistText, NETLIST_EXTENSION } from "../../shared/engine/circuit/netlist-text";
 export { validateNetworkJson } from "../../shared/engine/circuit/schema";
 export { ELEMENT_KINDS, QUANTITIES } from "../../shared/engine/types";
+export { elementPhrase, isControlled, sourceControls } from "../../shared/engine/circuit/elements";
 export type { Element, ElementKind, Network as EngineNetwork, ParseResult, Quantity } from "../../shared/engine/types";
 export { BUILT_IN_CELLS } from "../../shared/engine/circuit/cells";
 export type { CellDefinition, CellInstance } from "../../shared/engine/types";

@@ -86,18 +86,18 @@ describe("schematic canvas in chromium", () => {
   it("draws the finite-gain follower by mouse and the netlist follows", async () => {
     await page.getByRole("tab", { name: "Drawing" }).click();
     const palette = page.getByRole("toolbar", { name: "Palette" });
-    for (const kind of ["resistor", "conductance", "capacitor", "inductor", "vsource", "isource", "vcvs", "vccs", "ccvs", "cccs", "op-amp"]) {
+    for (const kind of ["resistor", "conductance", "capacitor", "inductor", "voltage", "current", "voltage by across", "current by across", "voltage by through", "current by through", "op-amp"]) {
       await palette.getByRole("button", { name: kind, exact: true }).waitFor();
     }
     // The source, standing: + at (0, -3), − at (0, 3).
-    await palette.getByRole("button", { name: "vsource", exact: true }).click();
+    await palette.getByRole("button", { name: "voltage", exact: true }).click();
     await click(page, 0, 0);
-    await setPart(page, "vsource1", { Name: "Vs", Value: "Vs" });
-    // The amplifier, standing at x = 10.
-    await palette.getByRole("button", { name: "vcvs", exact: true }).click();
+    await setPart(page, "voltage1", { Name: "Vs", Value: "Vs" });
+    // The amplifier, standing at x = 10: a voltage source whose value names its control.
+    await palette.getByRole("button", { name: "voltage by across", exact: true }).click();
     await click(page, 10, 0);
-    await setPart(page, "vcvs1", { Name: "Amp" });
-    await setPart(page, "Amp", { Gain: "mu", "Controlling node (first)": "in", "Controlling node (second)": "out" });
+    await setPart(page, "voltage2", { Name: "Amp" });
+    await setPart(page, "Amp", { Value: "mu * across(in, out)" });
     // The output resistance, lying from (13, -6) to (19, -6).
     await palette.getByRole("button", { name: "resistor", exact: true }).click();
     await click(page, 16, -6);
@@ -131,7 +131,7 @@ describe("schematic canvas in chromium", () => {
     const canvas = page.getByTestId("schematic-canvas");
     await shot(page, "canvas-drawn");
     await expect(canvas.getAttribute("aria-label")).resolves.toBe("Drawing: 3 parts, port out to 0");
-    await expect(page.locator('[data-part="Amp"]').getAttribute("aria-label")).resolves.toBe("Amp: vcvs, mu·across(in, out)");
+    await expect(page.locator('[data-part="Amp"]').getAttribute("aria-label")).resolves.toBe("Amp: voltage, mu * across(in, out)");
     expect(await page.locator("[data-junction]").count()).toBe(0);
     await shot(page, "canvas-drawn");
 
@@ -139,8 +139,8 @@ describe("schematic canvas in chromium", () => {
     await page.getByRole("tab", { name: "Netlist text" }).click();
     const text = await page.getByLabel("Portfold netlist").inputValue();
     expect(text).toMatch(/^port out 0$/m);
-    expect(text).toMatch(/^Vs vsource in 0 = Vs$/m);
-    const amp = /^Amp vcvs (\w+) 0 = mu \* across\(in, out\)$/m.exec(text);
+    expect(text).toMatch(/^Vs voltage in 0 = Vs$/m);
+    const amp = /^Amp voltage (\w+) 0 = mu \* across\(in, out\)$/m.exec(text);
     expect(amp).not.toBeNull();
     expect(text).toMatch(new RegExp(`^R0 resistor ${amp![1]} out = R0$`, "m"));
   });

@@ -8,8 +8,8 @@ import { expectSameExpression } from "../support/expressions";
 
 const CASCODE = `
 port out 0
-M1 cell mosfet g=0 d=x s=0 b=0 rename gm:gm1 gmb:gmb1 ro:ro1
-M2 cell mosfet g=0 d=out s=x b=x rename gm:gm2 gmb:gmb2 ro:ro2
+Dev1 cell mosfet g=0 d=x s=0 b=0 rename gm:gm1 gmb:gmb1 ro:ro1
+Dev2 cell mosfet g=0 d=out s=x b=x rename gm:gm2 gmb:gmb2 ro:ro2
 `;
 
 describe("approximations", () => {
@@ -34,7 +34,7 @@ describe("approximations", () => {
 
   it("degenerated common source: Rout ≈ ro(1 + gm·Rs) for gm·ro ≫ 1 (Rs alone is dropped, ro is kept)", () => {
     // Razavi, 2nd ed., ch. 3 (CS with degeneration, Rout ≈ (1 + gm Rs) ro when gm ro ≫ 1); from memory.
-    const r = solveNetwork("port out 0\nDegen resistor src 0 = Rs\nM1 cell mosfet g=0 d=out s=src b=src\n", { assume: ["gm*ro >> 1"], steps: false });
+    const r = solveNetwork("port out 0\nDegen resistor src 0 = Rs\nDev1 cell mosfet g=0 d=out s=src b=src\n", { assume: ["gm*ro >> 1"], steps: false });
     expectSameExpression(r.rth?.infix, "ro + Rs + gm*ro*Rs");
     expectSameExpression(r.approximations?.results.rth?.approximate, "ro*(1 + gm*Rs)");
   });
@@ -56,7 +56,7 @@ describe("approximations", () => {
   });
 
   it("an unreadable assumption is an option-invalid diagnostic", () => {
-    const r = solveNetwork("port a 0\nR1 resistor a 0 = R\n", { assume: ["gm much bigger than ro"], steps: false });
+    const r = solveNetwork("port a 0\nRes1 resistor a 0 = R\n", { assume: ["gm much bigger than ro"], steps: false });
     expect(r.diagnostics.map((d) => d.code)).toEqual(["option-invalid"]);
     expect(r.approximations).toBeUndefined();
   });

@@ -107,7 +107,7 @@ describe("finite-gain amplifier cell", () => {
     const r = solve(`
       port out 0
       Sig voltage in 0 = Vs
-      U1 cell amplifier p=in n=out o=out`);
+      Dev1 cell amplifier p=in n=out o=out`);
     const lim = parseValue(r.rth!.infix).limit("Rin", "inf");
     expect(lim.kind).toBe("finite");
     if (lim.kind === "finite") expectSameExpression(lim.value.toInfix(), "Ro/(1 + A)");

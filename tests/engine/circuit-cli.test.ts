@@ -41,12 +41,23 @@ describe("solve CLI", () => {
   it("exits 2 for invalid input and prints the diagnostics", () => {
     const dir = mkdtempSync(join(tmpdir(), "portfold-cli-"));
     const file = join(dir, "bad.pfn");
-    writeFileSync(file, "port a 0\nR1 resistor a 0 = R\nV1 voltage a 0 = Va\nV2 voltage a 0 = Vb\n");
+    writeFileSync(file, "port a 0\nRload resistor a 0 = R\nSupplyA voltage a 0 = Va\nSupplyB voltage a 0 = Vb\n");
     const r = solve(file);
     expect(r.code).toBe(2);
     const o = JSON.parse(r.out);
     expect(o.diagnostics.map((d: { code: string }) => d.code)).toContain("voltage-source-loop");
     expect(o.vth).toBeNull();
+  });
+
+  it("exits 2 for a file in the earlier format, naming the word that replaced the old one", () => {
+    const dir = mkdtempSync(join(tmpdir(), "portfold-cli-"));
+    const file = join(dir, "earlier.json");
+    writeFileSync(file, JSON.stringify({ port: { plus: "o", minus: "0" }, elements: [{ name: "Amp", kind: "vcvs", nodes: ["o", "0"], control: { nodes: ["i", "0"] }, value: "A" }] }));
+    const r = solve(file);
+    expect(r.code).toBe(2);
+    const o = JSON.parse(r.out);
+    expect(o.diagnostics[0]).toMatchObject({ code: "format-renamed", path: ["elements", 0, "kind"] });
+    expect(o.diagnostics[0].message).toContain("`vcvs` is now `voltage` with a value such as `A * across(in, out)`");
   });
 
   it("exits 1 when the file cannot be read or the command is malformed", () => {

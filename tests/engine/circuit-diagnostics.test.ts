@@ -21,20 +21,20 @@ const TRIGGERS: Record<keyof typeof DIAGNOSTIC_CODES, Trigger> = {
   },
   "invalid-json": { input: '{ "port": { "plus": "a", "minus": "0" },\n  "elements": [ }', expect: { line: 2, column: 17 } },
   "schema-invalid": {
-    input: { port: { plus: "a", minus: "0" }, elements: [{ name: "R1", kind: "resistor", nodes: ["a"], value: "R" }] },
-    expect: { elements: ["R1"], path: ["elements", 0, "nodes"] },
+    input: { port: { plus: "a", minus: "0" }, elements: [{ name: "Res1", kind: "resistor", nodes: ["a"], value: "R" }] },
+    expect: { elements: ["Res1"], path: ["elements", 0, "nodes"] },
   },
   "value-syntax": {
-    input: "port a 0\nR1 resistor a 0 = R1 + * 2\n",
-    expect: { elements: ["R1"], line: 2, column: 24 },
+    input: "port a 0\nRes1 resistor a 0 = R1 + * 2\n",
+    expect: { elements: ["Res1"], line: 2, column: 26 },
   },
   "duplicate-name": {
-    input: "port a 0\nR1 resistor a 0 = Ra\nR1 resistor a 0 = Rb\n",
-    expect: { elements: ["R1"], line: 2 },
+    input: "port a 0\nRes1 resistor a 0 = Ra\nRes1 resistor a 0 = Rb\n",
+    expect: { elements: ["Res1"], line: 2 },
   },
   "empty-network": { input: { port: { plus: "a", minus: "0" }, elements: [] } },
-  "port-unknown-node": { input: "port out 0\nR1 resistor a 0 = R\n", expect: { nodes: ["out"] } },
-  "port-same-node": { input: "port a a\nR1 resistor a 0 = R\n", expect: { nodes: ["a"] } },
+  "port-unknown-node": { input: "port out 0\nRes1 resistor a 0 = R\n", expect: { nodes: ["out"] } },
+  "port-same-node": { input: "port a a\nRes1 resistor a 0 = R\n", expect: { nodes: ["a"] } },
   "control-missing-element": {
     input: "port a 0\nRload resistor a 0 = R\nMirror current 0 a = beta * through(Rx)\n",
     expect: { elements: ["Mirror"], line: 3, path: ["elements", 1, "value"] },
@@ -56,45 +56,45 @@ const TRIGGERS: Record<keyof typeof DIAGNOSTIC_CODES, Trigger> = {
     input: "port o 0\nVs voltage p 0 = V\nRgnd resistor n 0 = R1\nRfb resistor n o = R2\nBuf opamp p n -> o\nMirror current 0 o = beta * through(Buf)\n",
     expect: { elements: ["Mirror", "Buf"] },
   },
-  "value-zero": { input: "port a 0\nR1 resistor a 0 = 0\n", expect: { elements: ["R1"], line: 2, column: 19 } },
+  "value-zero": { input: "port a 0\nRes1 resistor a 0 = 0\n", expect: { elements: ["Res1"], line: 2, column: 21 } },
   "floating-node": {
-    input: "port a 0\nR1 resistor a 0 = R1\nR2 resistor b c = R2\n",
-    expect: { nodes: ["b", "c"], elements: ["R2"] },
+    input: "port a 0\nRes1 resistor a 0 = R1\nRes2 resistor b c = R2\n",
+    expect: { nodes: ["b", "c"], elements: ["Res2"] },
   },
   "no-dc-path": {
-    input: "port a 0\nVs voltage in 0 = V\nR1 resistor in a = R1\nC1 capacitor a b = C1\nR2 resistor b c = R2\nC2 capacitor c 0 = C2\n",
+    input: "port a 0\nVs voltage in 0 = V\nRes1 resistor in a = R1\nCap1 capacitor a b = C1\nRes2 resistor b c = R2\nCap2 capacitor c 0 = C2\n",
     ok: true,
-    expect: { nodes: ["b", "c"], elements: ["C1", "C2"] },
+    expect: { nodes: ["b", "c"], elements: ["Cap1", "Cap2"] },
   },
   "voltage-source-loop": {
-    input: "port a 0\nV1 voltage a 0 = Va\nV2 voltage a 0 = Vb\n",
-    expect: { elements: ["V1", "V2"] },
+    input: "port a 0\nSrc1 voltage a 0 = Va\nSrc2 voltage a 0 = Vb\n",
+    expect: { elements: ["Src1", "Src2"] },
   },
   "current-source-cutset": {
-    input: "port a 0\nR1 resistor a 0 = R\nI1 current 0 b = Ib\nR2 resistor b c = R2\n",
-    expect: { elements: ["I1"], nodes: ["b", "c"] },
+    input: "port a 0\nRes1 resistor a 0 = R\nFeed1 current 0 b = Ib\nRes2 resistor b c = R2\n",
+    expect: { elements: ["Feed1"], nodes: ["b", "c"] },
   },
   "singular-system": {
-    input: "port o 0\nVs voltage p 0 = V\nR1 resistor n 0 = R1\nU1 opamp p n -> o\nRL resistor o 0 = RL\n",
+    input: "port o 0\nVs voltage p 0 = V\nRes1 resistor n 0 = R1\nBuf1 opamp p n -> o\nRL resistor o 0 = RL\n",
   },
-  "option-invalid": { input: "port a 0\nR1 resistor a 0 = R\n", options: { values: { R: "4.7 kilo" } }, ok: false },
+  "option-invalid": { input: "port a 0\nRes1 resistor a 0 = R\n", options: { values: { R: "4.7 kilo" } }, ok: false },
   "quantity-conflict": {
-    input: "port b 0\nVs voltage a 0 = V\nR1 resistor a 0 = R\nE1 voltage b 0 = R * across(a, 0)\n",
+    input: "port b 0\nVs voltage a 0 = V\nRes1 resistor a 0 = R\nSrc1x voltage b 0 = R * across(a, 0)\n",
     ok: true,
-    expect: { elements: ["R1", "E1"] },
+    expect: { elements: ["Res1", "Src1x"] },
   },
   "dimension-mismatch": { input: "port a 0\nquantity V current\nVs voltage a 0 = V\n", ok: true },
   "cell-unknown": {
-    input: "port c 0\nRL resistor c 0 = RL\nQ1 cell bjt-hybrid c=c b=0 e=0\n",
-    expect: { elements: ["Q1"], line: 3, path: ["cells", 0, "cell"] },
+    input: "port c 0\nRL resistor c 0 = RL\nDev1 cell bjt-hybrid c=c b=0 e=0\n",
+    expect: { elements: ["Dev1"], line: 3, path: ["cells", 0, "cell"] },
   },
   "cell-terminals": {
-    input: "port c 0\nRL resistor c 0 = RL\nQ1 cell bjt-hybrid-pi c=c b=0\n",
-    expect: { elements: ["Q1"], line: 3, path: ["cells", 0, "terminals"] },
+    input: "port c 0\nRL resistor c 0 = RL\nDev1 cell bjt-hybrid-pi c=c b=0\n",
+    expect: { elements: ["Dev1"], line: 3, path: ["cells", 0, "terminals"] },
   },
   "cell-symbols": {
-    input: "port c 0\nRL resistor c 0 = RL\nQ1 cell bjt-hybrid-pi c=c b=0 e=0 rename beta:beta1\n",
-    expect: { elements: ["Q1"], line: 3, path: ["cells", 0, "symbols"] },
+    input: "port c 0\nRL resistor c 0 = RL\nDev1 cell bjt-hybrid-pi c=c b=0 e=0 rename beta:beta1\n",
+    expect: { elements: ["Dev1"], line: 3, path: ["cells", 0, "symbols"] },
   },
 };
 
@@ -113,25 +113,25 @@ describe("diagnostics", () => {
   });
 
   it("a well-posed network raises no diagnostic at all", () => {
-    const r = solveNetwork("port a 0\nVs voltage in 0 = V\nR1 resistor in a = R1\nR2 resistor a 0 = R2\n");
+    const r = solveNetwork("port a 0\nVs voltage in 0 = V\nRes1 resistor in a = R1\nRes2 resistor a 0 = R2\n");
     expect(r.diagnostics).toEqual([]);
     expect(r.ok).toBe(true);
   });
 
   it("a voltage source across the port is a degenerate port, not a loop error", () => {
-    const r = solveNetwork("port a 0\nV1 voltage a 0 = Va\nR1 resistor a 0 = R\n");
+    const r = solveNetwork("port a 0\nSrc1 voltage a 0 = Va\nRes1 resistor a 0 = R\n");
     expect(r.ok).toBe(true);
     expect(r.statements.map((s) => s.code)).toContain("rth-zero");
   });
 
   it("a current source alone at the port is a degenerate port, not a cutset error", () => {
-    const r = solveNetwork("port a 0\nI1 current 0 a = I\n");
+    const r = solveNetwork("port a 0\nFeed1 current 0 a = I\n");
     expect(r.ok).toBe(true);
     expect(r.statements.map((s) => s.code)).toContain("rth-infinite");
   });
 
   it("a node seen only by op-amp inputs is floating, with the reason", () => {
-    const r = solveNetwork("port o 0\nR1 resistor n o = R\nR2 resistor n 0 = R\nU1 opamp p n -> o\n");
+    const r = solveNetwork("port o 0\nRes1 resistor n o = R\nRes2 resistor n 0 = R\nBuf1 opamp p n -> o\n");
     const d = r.diagnostics.find((x) => x.code === "floating-node");
     expect(d?.nodes).toEqual(["p"]);
     expect(d?.message).toMatch(/op-amp inputs draw no current/);

@@ -93,7 +93,7 @@ describe("Zth(s) against sympy", () => {
 
   it("the frequency extension is in the CLI output only when s appears", () => {
     expect(toSolveOutput(solve(RC)).frequency?.dc.rth.value).toBe("R1 + R2");
-    expect("frequency" in toSolveOutput(solve("port a 0\nR1 resistor a 0 = R\n"))).toBe(false);
+    expect("frequency" in toSolveOutput(solve("port a 0\nRes1 resistor a 0 = R\n"))).toBe(false);
   });
 });
 

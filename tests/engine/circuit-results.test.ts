@@ -87,26 +87,26 @@ describe("results", () => {
   });
 
   it("counts plain numbers in element values in their element's unit", () => {
-    const r = solveNetwork("port a 0\nVs voltage in 0 = V\nR1 resistor in a = 4.7k\nR2 resistor a 0 = Rx\n", { steps: false });
+    const r = solveNetwork("port a 0\nVs voltage in 0 = V\nRes1 resistor in a = 4.7k\nRes2 resistor a 0 = Rx\n", { steps: false });
     expect(r.dimensions!.checks.rth).toMatchObject({ status: "ok", found: "Ω" });
     expect(r.dimensions!.checks.isc).toMatchObject({ status: "ok", found: "A" });
   });
 
   it("says why a dimension cannot be checked, and what is wrong when it fails", () => {
-    const unknown = solveNetwork("port a 0\nR1 resistor a 0 = Ra*Rb/(Ra + Rb)\n", { steps: false });
+    const unknown = solveNetwork("port a 0\nRes1 resistor a 0 = Ra*Rb/(Ra + Rb)\n", { steps: false });
     expect(unknown.dimensions!.checks.rth).toMatchObject({ status: "unknown" });
     expect(unknown.dimensions!.checks.rth!.message).toMatch(/"Ra", "Rb"/);
-    const declared = solveNetwork("port a 0\nquantity Ra resistance\nR1 resistor a 0 = Ra*Rb/(Ra + Rb)\n", { steps: false });
+    const declared = solveNetwork("port a 0\nquantity Ra resistance\nRes1 resistor a 0 = Ra*Rb/(Ra + Rb)\n", { steps: false });
     expect(declared.dimensions!.quantities.Rb).toBe("resistance");
     expect(declared.dimensions!.checks.rth).toMatchObject({ status: "ok" });
-    const wrong = solveNetwork("port b 0\nVs voltage a 0 = V\nR1 resistor a 0 = R\nE1 voltage b 0 = R * across(a, 0)\n", { steps: false });
+    const wrong = solveNetwork("port b 0\nVs voltage a 0 = V\nRes1 resistor a 0 = R\nSrc1 voltage b 0 = R * across(a, 0)\n", { steps: false });
     expect(wrong.dimensions!.checks.vth!.status).toBe("mismatch");
     expect(wrong.dimensions!.checks.vth!.found).toBe("V^2·A^-1");
   });
 
   it("follows the port's sign conventions: Isc leaves at plus; swapping plus and minus negates Vth and Isc only", () => {
     // Common practice: a source V behind R1 into the port drives Isc = V/R1 out of the plus terminal.
-    const text = (port: string) => `port ${port}\nVs voltage in 0 = V\nR1 resistor in a = R1\nR2 resistor a b = R2\nR3 resistor b 0 = R3\n`;
+    const text = (port: string) => `port ${port}\nVs voltage in 0 = V\nRes1 resistor in a = R1\nRes2 resistor a b = R2\nRes3 resistor b 0 = R3\n`;
     const ab = solveNetwork(text("a 0"), { steps: false });
     same(ab.isc!.infix, "V/R1");
     const ba = solveNetwork(text("0 a"), { steps: false });

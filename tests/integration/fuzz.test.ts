@@ -79,8 +79,8 @@ const kind = fc.oneof(fc.constantFrom(...ELEMENT_KINDS), fc.constantFrom("widget
 
 const netlistLine = fc.oneof(
   fc.tuple(wordy, kind, nodeName, nodeName, value).map(([n, k, a, b, v]) => `${n} ${k} ${a} ${b} = ${v}`),
-  fc.tuple(wordy, fc.constantFrom("vcvs", "vccs"), nodeName, nodeName, symbol, nodeName, nodeName).map(([n, k, a, b, g, c, d]) => `${n} ${k} ${a} ${b} = ${g} * across(${c}, ${d})`),
-  fc.tuple(wordy, fc.constantFrom("ccvs", "cccs"), nodeName, nodeName, symbol, wordy).map(([n, k, a, b, g, e]) => `${n} ${k} ${a} ${b} = ${g} * through(${e})`),
+  fc.tuple(wordy, fc.constantFrom("voltage", "current"), nodeName, nodeName, symbol, nodeName, nodeName).map(([n, k, a, b, g, c, d]) => `${n} ${k} ${a} ${b} = ${g} * across(${c}, ${d})`),
+  fc.tuple(wordy, fc.constantFrom("voltage", "current"), nodeName, nodeName, symbol, wordy).map(([n, k, a, b, g, e]) => `${n} ${k} ${a} ${b} = ${g} * through(${e})`),
   fc.tuple(wordy, nodeName, nodeName, nodeName).map(([n, p, m, o]) => `${n} opamp ${p} ${m} -> ${o}`),
   fc.tuple(nodeName, nodeName).map(([a, b]) => `port ${a} ${b}`),
   nodeName.map((n) => `ground ${n}`),

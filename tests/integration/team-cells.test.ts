@@ -25,7 +25,7 @@ const withCell = {
   ground: "0",
   port: { plus: "vo", minus: "0" },
   elements: [{ name: "Vsense", kind: "voltage", nodes: ["vg", "0"], value: "Vs" }],
-  cells: [{ name: "Q1", cell: "cs-stage", terminals: { in: "vg", out: "vo" }, symbols: { gm: "gm1" } }],
+  cells: [{ name: "Dev1", cell: "cs-stage", terminals: { in: "vg", out: "vo" }, symbols: { gm: "gm1" } }],
 };
 
 // The same network with the cell written out element by element.

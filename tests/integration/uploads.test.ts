@@ -54,6 +54,19 @@ describe("uploads: importing networks and attaching files", () => {
     expect(badJson.body.error.diagnostics[0].code).toBe("invalid-json");
   });
 
+  it("refuses a file and a circuit in the earlier format with 400, naming the new word for the old one", async () => {
+    const earlier = followerNetlist.replace("Amp voltage x 0", "Amp vcvs x 0");
+    const file = await editor.client.upload(importPath(), { name: "earlier.pfn", type: "text/plain", content: earlier });
+    expect(file.status).toBe(400);
+    expect(file.body.error.diagnostics[0]).toMatchObject({ code: "parse-error", line: 4, column: 5 });
+    expect(file.body.error.diagnostics[0].message).toContain("`vcvs` is now `voltage` with a value such as `A * across(in, out)`");
+    const circuit = { port: { plus: "out", minus: "0" }, elements: [{ name: "Drive", kind: "vsource", nodes: ["out", "0"], value: "Vs" }] };
+    const created = await editor.client.post(`/api/teams/${teamId}/networks`, { title: "Earlier shape", circuit });
+    expect(created.status).toBe(400);
+    expect(created.body.error.diagnostics[0]).toMatchObject({ code: "format-renamed", path: ["elements", 0, "kind"] });
+    expect(created.body.error.diagnostics[0].message).toContain("`vsource` is now `voltage`");
+  });
+
   it("refuses files over the size limit (413) and of the wrong type (415)", async () => {
     const large = `${followerNetlist}${"# padding\n".repeat(300)}`;
     const tooLarge = await editor.client.upload(importPath(), { name: "large.pfn", type: "text/plain", content: large });

@@ -43,7 +43,8 @@ async function freePort(): Promise<number> {
   });
 }
 
-export async function createThrowawayCluster(): Promise<ThrowawayCluster> {
+/** A cluster of the test's own, migrated with the given folder (the project's migrations by default). */
+export async function createThrowawayCluster(options: { migrationsFolder?: string } = {}): Promise<ThrowawayCluster> {
   const dir = mkdtempSync(join(tmpdir(), "portfold-fault-pg-"));
   if (isRoot) chownSync(dir, idOf("-u"), idOf("-g"));
   const data = join(dir, "data");
@@ -72,7 +73,7 @@ export async function createThrowawayCluster(): Promise<ThrowawayCluster> {
   await admin.end();
   const pool = createPool(cluster.url, 1);
   try {
-    await migrate(createDatabase(pool), { migrationsFolder: "migrations" });
+    await migrate(createDatabase(pool), { migrationsFolder: options.migrationsFolder ?? "migrations" });
   } finally {
     await pool.end();
   }

@@ -16,7 +16,7 @@ const CS_STAGE = `ground 0
 port out 0
 Vsense voltage in 0 = Vs
 RD resistor out 0 = RD
-M1 cell mosfet d=out g=in s=0 b=0 rename gm:gm1
+Dev1 cell mosfet d=out g=in s=0 b=0 rename gm:gm1
 `;
 
 const read = (text: string): EngineNetwork => {
@@ -35,7 +35,7 @@ describe("a cell instance on the drawing", () => {
     expect(cellParts).toHaveLength(1);
     const part = cellParts[0].element;
     if (!isCellPart(part)) throw new Error("not a cell part");
-    expect(part.name).toBe("M1");
+    expect(part.name).toBe("Dev1");
     expect(part.pins).toEqual(BUILT_IN_CELLS.get("mosfet")!.terminals);
     expect(partPins(cellParts[0])).toHaveLength(4);
     // Pins on distinct grid points: two on each side of the box.
@@ -59,13 +59,13 @@ describe("a cell instance on the drawing", () => {
     const network = read(CS_STAGE);
     const drawing = drawingFor(network, undefined);
     const layout = toLayout(drawing);
-    expect(layout.parts.map((p) => p.element)).toContain("M1");
+    expect(layout.parts.map((p) => p.element)).toContain("Dev1");
     const json = validateNetworkJson(JSON.parse(JSON.stringify({ ...network, layout })));
     expect(json.network?.cells).toEqual(network.cells);
-    const moved = { ...layout, parts: layout.parts.map((p) => (p.element === "M1" ? { ...p, at: [p.at[0] + 20, p.at[1]] as [number, number] } : p)) };
+    const moved = { ...layout, parts: layout.parts.map((p) => (p.element === "Dev1" ? { ...p, at: [p.at[0] + 20, p.at[1]] as [number, number] } : p)) };
     const again = drawingFor(json.network!, moved);
-    const m1 = again.parts.find((p) => p.element.name === "M1")!;
-    expect(m1.at[0]).toBe(drawing.parts.find((p) => p.element.name === "M1")!.at[0] + 20);
+    const m1 = again.parts.find((p) => p.element.name === "Dev1")!;
+    expect(m1.at[0]).toBe(drawing.parts.find((p) => p.element.name === "Dev1")!.at[0] + 20);
     expect(extractConnectivity(again, network.ground, network).cells).toEqual(network.cells);
     expect(readLayout(moved, [])?.parts).toEqual([]);
   });
@@ -73,20 +73,20 @@ describe("a cell instance on the drawing", () => {
   it("follows a rename and a rewiring in the text", () => {
     const network = read(CS_STAGE);
     const drawing = drawingFor(network, undefined);
-    const renamed = read(CS_STAGE.replace("M1 cell mosfet d=out g=in", "M2 cell mosfet d=out g=in"));
+    const renamed = read(CS_STAGE.replace("Dev1 cell mosfet d=out g=in", "Dev2 cell mosfet d=out g=in"));
     const after = syncDrawing(drawing, renamed);
-    const m2 = after.parts.find((p) => p.element.name === "M2")!;
-    expect(m2.at).toEqual(drawing.parts.find((p) => p.element.name === "M1")!.at);
+    const m2 = after.parts.find((p) => p.element.name === "Dev2")!;
+    expect(m2.at).toEqual(drawing.parts.find((p) => p.element.name === "Dev1")!.at);
     const rewired = read(CS_STAGE.replace("s=0 b=0", "s=0 b=sub").replace("RD resistor out 0 = RD", "RD resistor out 0 = RD\nRsub resistor sub 0 = Rb"));
     expect(extractConnectivity(syncDrawing(after, rewired), rewired.ground, rewired).cells).toEqual(rewired.cells);
   });
 
   it("placed from the palette, takes the nodes its wires reach; the stage then solves to the textbook gain", () => {
     // Start from the source and the load only; place the cell and wire its pins to their nodes.
-    const network = read(CS_STAGE.replace(/^M1.*\n/m, ""));
+    const network = read(CS_STAGE.replace(/^Dev1.*\n/m, ""));
     let drawing = drawingFor(network, undefined);
     const library = cellLibrary();
-    const fresh = newCellPart(library.get("mosfet")!, "M1", network.ground);
+    const fresh = newCellPart(library.get("mosfet")!, "Dev1", network.ground);
     drawing = addPart(drawing, fresh, [40, -20], 0);
     const pins = partPins(drawing.parts[drawing.parts.length - 1]);
     const x0 = extractConnectivity(drawing, network.ground, network);
@@ -101,7 +101,7 @@ describe("a cell instance on the drawing", () => {
     drawing = { ...drawing, grounds: [...drawing.grounds, s, b] };
     void ground;
     const back = networkOfDrawing(drawing, network).network;
-    expect(back.cells).toEqual([{ name: "M1", cell: "mosfet", terminals: { g: "in", d: "out", s: "0", b: "0" } }]);
+    expect(back.cells).toEqual([{ name: "Dev1", cell: "mosfet", terminals: { g: "in", d: "out", s: "0", b: "0" } }]);
 
     // Common-source stage: Av = −gm·(RD ‖ ro), Rout = RD ‖ ro
     // (Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3; from memory).

@@ -11,7 +11,7 @@ import { extractConnectivity } from "@/features/canvas/model/connectivity";
 import { EMPTY_DRAWING, partPins, type Drawing, type Part } from "@/features/canvas/model/drawing";
 import { addGround, addLabel, addPart, addWire, deleteSelection, mirrorSelection, moveSelection, NOTHING, selectAll, setPort, turnSelection, type Selection } from "@/features/canvas/model/edit";
 
-const two = (name: string, kind: "resistor" | "vsource", value: string): Element => ({ name, kind, nodes: ["0", "0"], value });
+const two = (name: string, kind: "resistor" | "voltage", value: string): Element => ({ name, kind, nodes: ["0", "0"], value });
 const part = (element: Element, at: [number, number], turn: 0 | 1 | 2 | 3 = 0, mirror = false): Part => ({ element, at, turn, mirror });
 const only = (...parts: string[]): Selection => ({ ...NOTHING, parts });
 const pinsOf = (d: Drawing, name: string) => partPins(d.parts.find((p) => p.element.name === name)!);
@@ -28,7 +28,7 @@ const read = (d: Drawing) => {
 function frontEnd(): Drawing {
   let d: Drawing = {
     ...EMPTY_DRAWING,
-    parts: [part(two("Vs", "vsource", "Vs"), [0, 0], 1), part(two("Rs", "resistor", "Rs"), [6, -3]), part(two("Rload", "resistor", "RL"), [12, 0], 1)],
+    parts: [part(two("Vs", "voltage", "Vs"), [0, 0], 1), part(two("Rs", "resistor", "Rs"), [6, -3]), part(two("Rload", "resistor", "RL"), [12, 0], 1)],
   };
   d = addWire(d, [0, -3], [3, -3]);
   d = addWire(d, [9, -3], [12, -3]);

@@ -15,7 +15,7 @@ const FOLLOWER = `ground 0
 port out 0
 Vs voltage in 0 = Vs
 Amp voltage x 0 = mu * across(in, out)
-R0 resistor x out = R0
+Res0 resistor x out = R0
 `;
 
 const read = (text: string) => {
@@ -71,13 +71,13 @@ describe("text edits reach the drawing", () => {
   it("moves a pin to another node when the text says so", () => {
     const before = read(FOLLOWER);
     const layout = layoutFor(before, undefined);
-    readsBack(read(FOLLOWER.replace("R0 resistor x out", "R0 resistor in out")), layout);
+    readsBack(read(FOLLOWER.replace("Res0 resistor x out", "Res0 resistor in out")), layout);
     readsBack(read(FOLLOWER.replace("port out 0", "port x 0")), layout);
   });
 
   it("drops a part deleted in the text", () => {
     const layout = layoutFor(read(FOLLOWER), undefined);
-    const drawing = readsBack(read(FOLLOWER.replace("R0 resistor x out = R0\n", "Rb resistor x out = R0\n")), layout);
+    const drawing = readsBack(read(FOLLOWER.replace("Res0 resistor x out = R0\n", "Rb resistor x out = R0\n")), layout);
     expect(drawing.parts.map((p) => p.element.name)).toEqual(["Vs", "Amp", "Rb"]);
   });
 });

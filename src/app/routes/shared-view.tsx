@@ -12,7 +12,7 @@ import { ReviewPanel } from "@/features/review/components/review-panel";
 import { useSharedRevision } from "@/features/sharing/api/get-shared-revision";
 import { ApiError } from "@/lib/api-client";
 import { shortDateTime } from "@/lib/dates";
-import type { EngineNetwork } from "@/lib/engine-netlist";
+import { printElementLine, type EngineNetwork } from "@/lib/engine-netlist";
 
 // The page behind a share link: one revision, read-only, no account needed. Team members who
 // sign in see the review notes and may add their own.
@@ -94,7 +94,7 @@ export function SharedViewRoute() {
           <ul className="mt-2 space-y-0.5 font-mono text-[11px] text-ink/80" aria-label="Elements">
             {revision.circuit.elements.map((e) => (
               <li key={e.name}>
-                {e.name} {e.kind} {e.kind === "opamp" ? `${e.inputs.join(" ")} -> ${e.output}` : `${e.nodes.join(" ")} = ${e.value}${"control" in e ? ` · ${"element" in e.control ? `through(${e.control.element})` : `across(${e.control.nodes.join(", ")})`}` : ""}`}
+                {printElementLine(e)}
               </li>
             ))}
             <li>

@@ -27,30 +27,13 @@ export function PartInspector({ element, nodes, elements, onChange }: { element:
       <input id={`${listId}-name`} className={field} value={draft.name} onChange={(e) => setDraft({ ...draft, name: e.target.value })} {...keys} />
       {draft.kind !== "opamp" && (
         <>
-          <label htmlFor={`${listId}-value`}>{"control" in draft ? "Gain" : "Value"}</label>
+          <label htmlFor={`${listId}-value`}>Value</label>
           <input id={`${listId}-value`} className={field} value={draft.value} onChange={(e) => setDraft({ ...draft, value: e.target.value })} {...keys} />
-        </>
-      )}
-      {"control" in draft && "nodes" in draft.control && (
-        <>
-          <span>Controlled by</span>
-          <span className="flex items-center gap-1 font-mono">
-            across(
-            <input aria-label="Controlling node (first)" list={listId} className={`${field} w-16`} value={draft.control.nodes[0]} onChange={(e) => setDraft({ ...draft, control: { nodes: [e.target.value, (draft.control as { nodes: [string, string] }).nodes[1]] } })} {...keys} />,
-            <input aria-label="Controlling node (second)" list={listId} className={`${field} w-16`} value={draft.control.nodes[1]} onChange={(e) => setDraft({ ...draft, control: { nodes: [(draft.control as { nodes: [string, string] }).nodes[0], e.target.value] } })} {...keys} />)
-          </span>
-        </>
-      )}
-      {"control" in draft && "element" in draft.control && (
-        <>
-          <label htmlFor={`${listId}-through`}>Controlled by</label>
-          <select id={`${listId}-through`} className={field} value={draft.control.element} onChange={(e) => { const next = { ...draft, control: { element: e.target.value } }; setDraft(next); apply(next); }}>
-            {elements.map((n) => (
-              <option key={n} value={n}>
-                through({n})
-              </option>
-            ))}
-          </select>
+          {(draft.kind === "voltage" || draft.kind === "current") && (
+            <p className="col-span-2 text-ink/60">
+              A source value may name its controls: across(node, node) for a voltage, through(element) for a current; nodes here: {nodes.join(", ") || "none yet"}.
+            </p>
+          )}
         </>
       )}
       {draft.kind === "opamp" && <p className="col-span-2 text-ink/60">Ideal op-amp: inputs held equal, output referenced to ground; wire its three pins.</p>}

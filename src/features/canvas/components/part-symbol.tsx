@@ -1,6 +1,5 @@
 import type { Element } from "@/lib/engine-netlist";
 import { hasPolarity, SymbolBody } from "@/features/network-editor/components/schematic";
-import { controlLabel } from "@/features/network-editor/lib/schematic-layout";
 import { cellHalfHeight, isCellPart, type CellPartElement } from "../model/cell-part";
 import { partPins, type Part } from "../model/drawing";
 import { GRID, orient, place, type Point } from "../model/geometry";
@@ -9,7 +8,7 @@ const px = (p: Point): [number, number] => [p[0] * GRID, p[1] * GRID];
 
 export function valueText(e: Element): string {
   if (e.kind === "opamp") return "ideal";
-  return "control" in e ? controlLabel(e) : e.value;
+  return e.value;
 }
 
 // The op-amp in its local frame: a triangle pointing along +x, inputs on the left.

@@ -1,6 +1,6 @@
 import { useEffect, useId, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent as ReactKeyboardEvent, type PointerEvent as ReactPointerEvent } from "react";
 import { Dialog } from "@/components/ui/dialog";
-import { ELEMENT_KINDS, type CellDefinition, type Element, type ElementKind, type EngineNetwork } from "@/lib/engine-netlist";
+import { type CellDefinition, type Element, type ElementKind, type EngineNetwork } from "@/lib/engine-netlist";
 import { cellHalfHeight, cellLibrary, isCellPart, newCellPart } from "../model/cell-part";
 import type { Extraction } from "../model/connectivity";
 import { partPins, type Drawing, type Part } from "../model/drawing";
@@ -16,11 +16,13 @@ import {
   mirrorSelection,
   moveSelection,
   newElement,
+  PALETTE,
   replaceElement,
   selectAll,
   setPort,
   turnSelection,
   wiresAt,
+  type PalettePreset,
   type Selection,
 } from "../model/edit";
 import { GRID, insideSegment, samePoint, type Point, type Turn } from "../model/geometry";
@@ -29,10 +31,10 @@ import { PartInspector } from "./part-inspector";
 import { PartSymbol } from "./part-symbol";
 import { SHORTCUTS } from "./shortcuts";
 
-type Tool = { kind: "select" } | { kind: "connect"; from: Point | null } | { kind: "name" } | { kind: "zero" } | { kind: "terminals"; plus: Point | null } | { kind: "place"; element: ElementKind; turn: Turn; mirror: boolean } | { kind: "place-cell"; cell: CellDefinition; turn: Turn; mirror: boolean };
+type Tool = { kind: "select" } | { kind: "connect"; from: Point | null } | { kind: "name" } | { kind: "zero" } | { kind: "terminals"; plus: Point | null } | { kind: "place"; preset: PalettePreset; turn: Turn; mirror: boolean } | { kind: "place-cell"; cell: CellDefinition; turn: Turn; mirror: boolean };
 
-const PALETTE: { kind: ElementKind; label: string }[] = ELEMENT_KINDS.map((kind) => ({ kind, label: kind === "opamp" ? "op-amp" : kind }));
-const DEFAULT_TURN = (kind: ElementKind): Turn => (kind === "vsource" || kind === "isource" || kind === "vcvs" || kind === "vccs" || kind === "ccvs" || kind === "cccs" ? 1 : 0);
+// Sources stand upright by default, as they are usually drawn; passives lie along the wire.
+const DEFAULT_TURN = (kind: ElementKind): Turn => (kind === "voltage" || kind === "current" ? 1 : 0);
 
 interface View {
   x: number; // screen px of world origin
@@ -194,8 +196,8 @@ export function SchematicCanvas({ drawing, network, extraction, onChange, readOn
         return;
       }
       case "place": {
-        const name = freshName(drawing, tool.element);
-        const element = newElement(tool.element, name, network, drawing);
+        const name = freshName(drawing, tool.preset.kind);
+        const element = newElement(tool.preset, name, network, drawing);
         commit(addPart(drawing, element, [Math.round(w[0]), Math.round(w[1])], tool.turn, tool.mirror));
         setSelection({ ...NOTHING, parts: [name] });
         if (!event.shiftKey) setTool({ kind: "select" });
@@ -308,7 +310,7 @@ export function SchematicCanvas({ drawing, network, extraction, onChange, readOn
   );
   const ghost =
     tool.kind === "place" && pointer
-      ? ({ element: newElement(tool.element, freshName(drawing, tool.element), network, drawing), at: pointer, turn: tool.turn, mirror: tool.mirror } satisfies Part)
+      ? ({ element: newElement(tool.preset, freshName(drawing, tool.preset.kind), network, drawing), at: pointer, turn: tool.turn, mirror: tool.mirror } satisfies Part)
       : tool.kind === "place-cell" && pointer
         ? ({ element: newCellPart(tool.cell, freshName(drawing, tool.cell.id), network.ground), at: pointer, turn: tool.turn, mirror: tool.mirror } satisfies Part)
         : null;
@@ -320,15 +322,16 @@ export function SchematicCanvas({ drawing, network, extraction, onChange, readOn
       {!readOnly && (
         <div className="space-y-1.5">
           <div role="toolbar" aria-label="Palette" className="flex flex-wrap gap-1">
-            {PALETTE.map(({ kind, label }) => (
+            {PALETTE.map((preset) => (
               <button
-                key={kind}
+                key={preset.label}
                 type="button"
-                aria-pressed={tool.kind === "place" && tool.element === kind}
-                onClick={() => setTool({ kind: "place", element: kind, turn: DEFAULT_TURN(kind), mirror: false })}
-                className={`rounded border px-1.5 py-0.5 font-mono text-[11px] ${tool.kind === "place" && tool.element === kind ? "border-copper bg-copper/10" : "border-rule bg-white/60 hover:border-ink/40"}`}
+                aria-pressed={tool.kind === "place" && tool.preset === preset}
+                title={preset.value ? `${preset.kind} = ${preset.value.replaceAll("{ground}", network.ground).replaceAll("{first}", "…")}` : "ideal op-amp"}
+                onClick={() => setTool({ kind: "place", preset, turn: DEFAULT_TURN(preset.kind), mirror: false })}
+                className={`rounded border px-1.5 py-0.5 font-mono text-[11px] ${tool.kind === "place" && tool.preset === preset ? "border-copper bg-copper/10" : "border-rule bg-white/60 hover:border-ink/40"}`}
               >
-                {label}
+                {preset.label}
               </button>
             ))}
             <span className="mx-1 self-center text-[11px] text-ink/50">cells:</span>

@@ -110,27 +110,34 @@ export function freshName(d: Drawing, kind: ElementKind | string): string {
   for (let k = 1; ; k += 1) if (!names.has(`${word}${k}`)) return `${word}${k}`;
 }
 
-const DEFAULT_VALUE: Record<Exclude<ElementKind, "opamp">, string> = {
-  resistor: "R",
-  conductance: "G",
-  capacitor: "C",
-  inductor: "L",
-  vsource: "V",
-  isource: "I",
-  vcvs: "mu",
-  vccs: "gm",
-  ccvs: "rm",
-  cccs: "beta",
-};
+/** What the palette places: a kind and a starting value; a source's value may name its control. */
+export interface PalettePreset {
+  label: string;
+  kind: ElementKind;
+  /** The starting value; "{ground}" and "{first}" stand for the ground and the first part's name. */
+  value: string | null;
+}
 
-/** A new element of a kind, as the palette places it; nodes are filled in by the wires. */
-export function newElement(kind: ElementKind, name: string, network: EngineNetwork, d: Drawing): Element {
+export const PALETTE: readonly PalettePreset[] = [
+  { label: "resistor", kind: "resistor", value: "R" },
+  { label: "conductance", kind: "conductance", value: "G" },
+  { label: "capacitor", kind: "capacitor", value: "C" },
+  { label: "inductor", kind: "inductor", value: "L" },
+  { label: "voltage", kind: "voltage", value: "V" },
+  { label: "current", kind: "current", value: "I" },
+  { label: "voltage by across", kind: "voltage", value: "mu * across({ground}, {ground})" },
+  { label: "current by across", kind: "current", value: "gm * across({ground}, {ground})" },
+  { label: "voltage by through", kind: "voltage", value: "rm * through({first})" },
+  { label: "current by through", kind: "current", value: "beta * through({first})" },
+  { label: "op-amp", kind: "opamp", value: null },
+];
+
+/** A new element from a palette preset; nodes are filled in by the wires, controls named in the inspector. */
+export function newElement(preset: PalettePreset, name: string, network: EngineNetwork, d: Drawing): Element {
   const g = network.ground;
-  if (kind === "opamp") return { name, kind, inputs: [g, g], output: g };
-  const value = DEFAULT_VALUE[kind];
-  if (kind === "vcvs" || kind === "vccs") return { name, kind, nodes: [g, g], value, control: { nodes: [g, g] } };
-  if (kind === "ccvs" || kind === "cccs") return { name, kind, nodes: [g, g], value, control: { element: d.parts[0]?.element.name ?? name } };
-  return { name, kind, nodes: [g, g], value };
+  if (preset.kind === "opamp") return { name, kind: "opamp", inputs: [g, g], output: g };
+  const value = (preset.value ?? "1").replaceAll("{ground}", g).replaceAll("{first}", d.parts[0]?.element.name ?? name);
+  return { name, kind: preset.kind, nodes: [g, g], value };
 }
 
 export function addPart(d: Drawing, element: PartElement, at: Point, turn: Turn, mirror = false): Drawing {

@@ -9,12 +9,8 @@ const KIND_MEANING: Record<ElementKind, string> = {
   conductance: "conductance",
   capacitor: "capacitor, impedance 1/(sC)",
   inductor: "inductor, impedance sL",
-  vsource: "independent voltage source",
-  isource: "independent current source",
-  vcvs: "voltage-controlled voltage source",
-  vccs: "voltage-controlled current source",
-  ccvs: "current-controlled voltage source",
-  cccs: "current-controlled current source",
+  voltage: "voltage source; a value naming across(…) or through(…) makes it a controlled source",
+  current: "current source; a value naming across(…) or through(…) makes it a controlled source",
   opamp: "ideal op-amp (nullor)",
 };
 
@@ -23,8 +19,6 @@ function rekind(e: Element, kind: ElementKind): Element {
   const nodes: [string, string] = e.kind === "opamp" ? [e.output, "0"] : e.nodes;
   const value = e.kind === "opamp" ? "1" : e.value;
   if (kind === "opamp") return { name: e.name, kind, inputs: ["p", "n"], output: nodes[0] };
-  if (kind === "vcvs" || kind === "vccs") return { name: e.name, kind, nodes, value, control: { nodes: ["a", "0"] } };
-  if (kind === "ccvs" || kind === "cccs") return { name: e.name, kind, nodes, value, control: { element: "" } };
   return { name: e.name, kind, nodes, value };
 }
 
@@ -60,10 +54,9 @@ export function ElementTable({
           <thead>
             <tr className="border-b border-rule text-left text-ink/60">
               <th scope="col" className="w-[15%] py-1 font-medium">Name</th>
-              <th scope="col" className="w-[24%] py-1 font-medium">Kind</th>
+              <th scope="col" className="w-[18%] py-1 font-medium">Kind</th>
               <th scope="col" className="w-[22%] py-1 font-medium">Nodes</th>
-              <th scope="col" className="w-[17%] py-1 font-medium">Value</th>
-              <th scope="col" className="w-[17%] py-1 font-medium">Control</th>
+              <th scope="col" className="w-[40%] py-1 font-medium" title="A source's value may name across(node, node) or through(element)">Value</th>
               <th scope="col" className="w-[5%] py-1"><span className="sr-only">Remove</span></th>
             </tr>
           </thead>
@@ -101,17 +94,6 @@ export function ElementTable({
                     <span className="px-1 text-ink/40">none</span>
                   ) : (
                     <input aria-label={`Value of ${e.name}`} className={cell} value={e.value} readOnly={readOnly} onChange={(ev) => update(i, { ...e, value: ev.target.value })} />
-                  )}
-                </td>
-                <td className="py-0.5">
-                  {"control" in e && "nodes" in e.control && (
-                    <div className="grid grid-cols-2 gap-0.5" title="across(first, second)">
-                      <input aria-label={`Controlling node (first) of ${e.name}`} className={cell} value={e.control.nodes[0]} readOnly={readOnly} onChange={(ev) => update(i, { ...e, control: { nodes: [ev.target.value, (e.control as { nodes: [string, string] }).nodes[1]] } })} />
-                      <input aria-label={`Controlling node (second) of ${e.name}`} className={cell} value={e.control.nodes[1]} readOnly={readOnly} onChange={(ev) => update(i, { ...e, control: { nodes: [(e.control as { nodes: [string, string] }).nodes[0], ev.target.value] } })} />
-                    </div>
-                  )}
-                  {"control" in e && "element" in e.control && (
-                    <input aria-label={`Controlling element of ${e.name}`} title="through(element)" className={cell} value={e.control.element} readOnly={readOnly} onChange={(ev) => update(i, { ...e, control: { element: ev.target.value } })} />
                   )}
                 </td>
                 <td className="py-0.5 text-right">

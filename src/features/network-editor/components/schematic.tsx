@@ -1,6 +1,6 @@
 import { useId } from "react";
-import type { Element, EngineNetwork } from "@/lib/engine-netlist";
-import { controlLabel, layoutSchematic, type PlacedOpamp, type PlacedPart } from "../lib/schematic-layout";
+import { isControlled, type Element, type EngineNetwork } from "@/lib/engine-netlist";
+import { layoutSchematic, type PlacedOpamp, type PlacedPart } from "../lib/schematic-layout";
 
 const BODY = 20; // half-length of a symbol along its axis
 
@@ -24,22 +24,25 @@ export function SymbolBody({ element, reversed }: { element: Element; reversed: 
       return <path d={`M${-BODY} 0H-4M-4 -11V11M4 -11V11M4 0H${BODY}`} />;
     case "inductor":
       return <path d={`M${-BODY} 0H-16a4 4 0 0 1 8 0a4 4 0 0 1 8 0a4 4 0 0 1 8 0a4 4 0 0 1 8 0H${BODY}`} fill="none" />;
-    case "vsource":
-    case "isource":
-      return (
-        <>
-          <path d={`M${-BODY} 0H-12M12 0H${BODY}`} />
-          <circle r={12} fill="#FAF8F3" />
-          {element.kind === "isource" && <path d={`M${-7 * dir} 0H${7 * dir}M${3 * dir} -3L${7 * dir} 0L${3 * dir} 3`} fill="none" />}
-        </>
-      );
-    default: {
-      const current = element.kind === "vccs" || element.kind === "cccs";
+    case "voltage":
+    case "current": {
+      const current = element.kind === "current";
+      const arrow = current && <path d={`M${-7 * dir} 0H${7 * dir}M${3 * dir} -3L${7 * dir} 0L${3 * dir} 3`} fill="none" />;
+      if (!isControlled(element)) {
+        return (
+          <>
+            <path d={`M${-BODY} 0H-12M12 0H${BODY}`} />
+            <circle r={12} fill="#FAF8F3" />
+            {arrow}
+          </>
+        );
+      }
+      // A controlled source is drawn as a diamond (IEC 60617 / IEEE 315).
       return (
         <>
           <path d={`M${-BODY} 0H-13M13 0H${BODY}`} />
           <path d="M-13 0L0 -13L13 0L0 13Z" fill="#FAF8F3" />
-          {current && <path d={`M${-7 * dir} 0H${7 * dir}M${3 * dir} -3L${7 * dir} 0L${3 * dir} 3`} fill="none" />}
+          {arrow}
         </>
       );
     }
@@ -47,7 +50,7 @@ export function SymbolBody({ element, reversed }: { element: Element; reversed: 
 }
 
 export function hasPolarity(e: Element) {
-  return e.kind === "vsource" || e.kind === "vcvs" || e.kind === "ccvs";
+  return e.kind === "voltage";
 }
 
 function Part({ part }: { part: PlacedPart }) {
@@ -61,7 +64,7 @@ function Part({ part }: { part: PlacedPart }) {
   const at = (t: number): [number, number] => (vertical ? [cx, cy + t] : [cx + t, cy]);
   const plusAt = at((reversed ? 1 : -1) * 6);
   const minusAt = at((reversed ? -1 : 1) * 6);
-  const value = e.kind === "opamp" ? "" : "control" in e ? controlLabel(e) : e.value;
+  const value = e.kind === "opamp" ? "" : e.value;
   return (
     <g>
       <title>{`${e.name}: ${e.kind}${value ? `, ${value}` : ""}`}</title>

@@ -216,14 +216,9 @@ export function layoutSchematic(network: EngineNetwork): SchematicLayout {
 // Room for an element hanging from a bus: its symbol plus the name and value written beside it.
 function slotWidth(e: Element): number {
   if (e.kind === "opamp") return SLOT;
-  const value = "control" in e ? controlLabel(e) : e.value;
+  const value = e.value;
   const chars = Math.max(e.name.length * 1.1, Math.min(18, value.length));
   return Math.max(SLOT, Math.ceil(30 + 5.6 * chars));
 }
 
-/** The control written the Portfold way, for a dependent source's label. */
-export function controlLabel(e: Element): string {
-  if (e.kind === "opamp" || !("control" in e)) return "";
-  const c = "element" in e.control ? `through(${e.control.element})` : `across(${e.control.nodes[0]}, ${e.control.nodes[1]})`;
-  return e.value.trim() === "1" ? c : `${e.value}·${c}`;
-}
+
