@@ -5,6 +5,7 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { invitations, teamMembers } from "../../server/db/schema.js";
 import { followerCircuit, signedInPerson, teamWithEveryRole, uniqueEmail, type Person, type TeamFixture } from "../support/fixtures.js";
+import { formulaTerms } from "../../src/features/review/lib/formula-terms.js";
 import { linkIn, mailCount, waitForMail } from "../support/mail.js";
 import { startTestServer, type TestServer } from "../support/server.js";
 
@@ -105,8 +106,13 @@ describe("review sign-off", () => {
     const made = await team.clients.reviewer.post(`${rev(2)}/comments`, { stepId: step.id, body: "This phrase?", anchor: { part: "explanation", text } });
     expect(made.status).toBe(201);
     expect(made.body.anchor).toEqual({ part: "explanation", text, start: step.explanation.indexOf(text) });
-    const term = await team.clients.reviewer.post(`${rev(2)}/comments`, { stepId: step.id, body: "This term?", anchor: { part: "formula", text: "not in any formula" } });
-    expect(term.body.error.code).toBe("unknown_anchor");
+    const wrong = await team.clients.reviewer.post(`${rev(2)}/comments`, { stepId: step.id, body: "This term?", anchor: { part: "formula", text: "not in any formula" } });
+    expect(wrong.body.error.code).toBe("unknown_anchor");
+    // The terms the client offers for a step's formula are what the server accepts.
+    const withTerms = steps.find((s) => formulaTerms(s.tex).length > 1)!;
+    const term = formulaTerms(withTerms.tex)[1];
+    const onTerm = await team.clients.reviewer.post(`${rev(2)}/comments`, { stepId: withTerms.id, body: "This term?", anchor: { part: "formula", text: term } });
+    expect(onTerm.body.anchor).toEqual({ part: "formula", text: term, start: withTerms.tex.indexOf(term) });
   });
 
   it("resolves and reopens threads by their author, the revision's author or an owner, and counts open ones", async () => {
@@ -159,7 +165,7 @@ describe("review sign-off", () => {
   it("lists what awaits my review and my revisions in review, with paging", async () => {
     const awaiting = (await team.clients.reviewer.get("/api/reviews/awaiting?pageSize=50")).body;
     const item = awaiting.items.find((i: { network: { id: string } }) => i.network.id === networkId);
-    expect(item).toMatchObject({ revision: 2, author: { id: author.user.id }, state: { verdict: "open" }, openNotes: 1 });
+    expect(item).toMatchObject({ revision: 2, author: { id: author.user.id }, state: { verdict: "open" }, openNotes: 2 });
     // The author and a viewer do not review it.
     expect((await author.client.get("/api/reviews/awaiting")).body.items.some((i: { network: { id: string } }) => i.network.id === networkId)).toBe(false);
     expect((await team.clients.viewer.get("/api/reviews/awaiting")).body.total).toBe(0);

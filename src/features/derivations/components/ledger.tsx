@@ -62,6 +62,7 @@ export function Ledger({ revision, comments, review }: { revision: Revision; com
                 <StepComments
                   stepId={step.id}
                   stepTitle={`step ${index + 1}, ${step.title}`}
+                  formula={step.tex}
                   comments={comments}
                   // The way to comment is offered once, beside the first step, not in every margin.
                   review={index === 0 ? review : { ...review, commentPath: undefined }}

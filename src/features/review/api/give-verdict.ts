@@ -19,6 +19,8 @@ export async function refreshAfterVerdict(queryClient: QueryClient, networkId: s
     queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", "list"] }),
     queryClient.invalidateQueries({ queryKey: ["share"] }),
     queryClient.invalidateQueries({ queryKey: ["reviews"] }),
+    // Team network lists show each network's latest verdict.
+    queryClient.invalidateQueries({ predicate: (query) => query.queryKey[0] === "teams" && query.queryKey[2] === "networks" }),
   ]);
 }
 

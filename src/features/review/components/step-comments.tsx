@@ -2,12 +2,14 @@ import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { controlClass } from "@/components/ui/field";
 import { InlineError } from "@/components/ui/states";
+import { MathTex } from "@/components/ui/math";
 import { shortDateTime as when } from "@/lib/dates";
 import type { Comment, NoteAnchor } from "@/types/api";
 import { useCreateComment } from "../api/create-comment";
 import { useDeleteComment } from "../api/delete-comment";
 import { useSetThreadResolved } from "../api/set-thread-resolved";
 import { useUpdateComment } from "../api/update-comment";
+import { formulaTerms } from "../lib/formula-terms";
 
 export interface ReviewContext {
   networkId: string;
@@ -22,10 +24,39 @@ export interface ReviewContext {
 }
 
 function AnchorQuote({ anchor }: { anchor: NoteAnchor }) {
+  if (anchor.part === "formula") {
+    return (
+      <p className="mb-0.5 text-[11px] text-ink/60">
+        on the term <span className="rounded bg-copper/10 px-0.5 text-ink/80"><MathTex tex={anchor.text} /></span> of the formula
+      </p>
+    );
+  }
   return (
     <p className="mb-0.5 text-[11px] text-ink/60">
-      on <q className="bg-copper/10 italic text-ink/80">{anchor.text}</q> {anchor.part === "formula" ? "in the formula" : ""}
+      on <q className="bg-copper/10 italic text-ink/80">{anchor.text}</q>
     </p>
+  );
+}
+
+// A new note may point at one term of the step's formula instead of the whole step.
+function TermPicker({ formula, value, onChange }: { formula: string; value: string; onChange: (term: string) => void }) {
+  const id = useId();
+  const terms = formulaTerms(formula);
+  if (terms.length < 2) return null;
+  return (
+    <div className="mt-1">
+      <label htmlFor={id} className="text-[11px] text-ink/60">
+        On a term of the formula (optional)
+      </label>
+      <select id={id} value={value} onChange={(e) => onChange(e.target.value)} className={`${controlClass} text-xs`}>
+        <option value="">the whole step</option>
+        {terms.map((term) => (
+          <option key={term} value={term}>
+            {term.length > 60 ? `${term.slice(0, 57)}…` : term}
+          </option>
+        ))}
+      </select>
+    </div>
   );
 }
 
@@ -203,9 +234,11 @@ function CommentItem({ comment, replies, review, stepTitle }: { comment: Comment
 }
 
 // The margin beside one step: its notes, threaded, and a way to add one.
-export function StepComments({ stepId, stepTitle, comments, review, highlight, onHighlightUsed }: {
+export function StepComments({ stepId, stepTitle, formula = "", comments, review, highlight, onHighlightUsed }: {
   stepId: string;
   stepTitle: string;
+  /** The step's TeX, whose terms a new note may point at. */
+  formula?: string;
   comments: Comment[];
   review: ReviewContext;
   /** Text the reader highlighted in this step's explanation, offered as the anchor of a new note. */
@@ -213,6 +246,7 @@ export function StepComments({ stepId, stepTitle, comments, review, highlight, o
   onHighlightUsed?: () => void;
 }) {
   const [adding, setAdding] = useState<false | "step" | "highlight">(false);
+  const [term, setTerm] = useState("");
   const create = useCreateComment(() => {
     setAdding(false);
     onHighlightUsed?.();
@@ -233,13 +267,17 @@ export function StepComments({ stepId, stepTitle, comments, review, highlight, o
         adding ? (
           <>
             {adding === "highlight" && highlight && <AnchorQuote anchor={highlight} />}
+            {adding === "step" && formula && <TermPicker formula={formula} value={term} onChange={setTerm} />}
             <CommentForm
               label={`Note on ${stepTitle}`}
               submitLabel="Add note"
               pending={create.isPending}
               error={create.error}
               onCancel={() => setAdding(false)}
-              onSubmit={(body) => create.mutate({ networkId: review.networkId, k: review.k, stepId, body, ...(adding === "highlight" && highlight ? { anchor: highlight } : {}) })}
+              onSubmit={(body) => {
+                const anchor: NoteAnchor | undefined = adding === "highlight" && highlight ? highlight : adding === "step" && term ? { part: "formula", text: term } : undefined;
+                create.mutate({ networkId: review.networkId, k: review.k, stepId, body, ...(anchor ? { anchor } : {}) }, { onSuccess: () => setTerm("") });
+              }}
             />
           </>
         ) : (
