@@ -10,7 +10,8 @@ export interface Person {
 }
 
 export async function shot(page: Page, name: string): Promise<void> {
-  await page.screenshot({ path: `${screenshotDir}/${name}.png`, fullPage: true });
+  // A full-page picture of a long ledger can take a while on a loaded machine.
+  await page.screenshot({ path: `${screenshotDir}/${name}.png`, fullPage: true, timeout: 30_000 });
 }
 
 /** Fills the sign-up form on the current page and sends it. */
