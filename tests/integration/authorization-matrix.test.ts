@@ -1,11 +1,11 @@
 // Every route × {anonymous, non-member, viewer, reviewer, editor, owner}, with the exact status, against the real database.
 import { randomUUID } from "node:crypto";
-import type { Express } from "express";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createApp } from "../../server/app.js";
 import { createLucia, createSessionToken, sessionCookieName } from "../../server/auth/lucia.js";
 import { comments, teamMembers, teams } from "../../server/db/schema.js";
 import { ApiClient } from "../support/api.js";
+import { mountedRoutes } from "../support/routes.js";
 import { actors, followerCircuit, signedInPerson, teamWithEveryRole, uniqueEmail, type Actor, type Person, type TeamFixture } from "../support/fixtures.js";
 import { linkIn, waitForMail } from "../support/mail.js";
 import { clientShellDir, startTestServer, type TestServer } from "../support/server.js";
@@ -188,27 +188,6 @@ const cases: Case[] = [
   { method: "GET", route: "/dev/mailbox.css", expect: everyone(200), path: () => "/dev/mailbox.css" },
   { method: "GET", route: "/api/health", expect: everyone(200), path: () => "/api/health" },
 ];
-
-interface RouterLayer {
-  rawPath?: unknown;
-  route?: { path: unknown; methods: Record<string, boolean> };
-  handle?: { stack?: RouterLayer[] };
-}
-
-// Reads the routes off Express's own router, so a route added without a matrix row fails the test.
-function mountedRoutes(app: Express): string[] {
-  const walk = (stack: RouterLayer[], prefix: string): string[] =>
-    stack.flatMap((layer) => {
-      // The client's catch-all shell (a regular expression) is not a route of the API.
-      if (layer.route && typeof layer.route.path === "string") {
-        const path = `${prefix}${layer.route.path}`.replace(/(.)\/$/, "$1");
-        return Object.keys(layer.route.methods).filter((m) => m !== "_all").map((m) => `${m.toUpperCase()} ${path}`);
-      }
-      if (layer.handle?.stack && typeof layer.rawPath === "string") return walk(layer.handle.stack, layer.rawPath === "/" ? prefix : `${prefix}${layer.rawPath}`);
-      return [];
-    });
-  return walk((app as unknown as { router: { stack: RouterLayer[] } }).router.stack, "");
-}
 
 describe("authorization matrix", () => {
   const world = {} as World;
