@@ -205,7 +205,8 @@ describe("authorization matrix", () => {
     world.attachmentId = (await owner.upload(`/api/networks/${network.id}/attachments`, { name: "scope.png", type: "image/png", content: png })).body.id;
     world.inviteToken = (await invite(world)).token;
     world.solveJobId = (await owner.post(`/api/networks/${network.id}/solve?wait=0`)).body.job.id;
-  });
+    // A solve on a freshly started thread: room on a loaded machine.
+  }, 120_000);
   afterAll(async () => {
     await world.server.close();
   });
