@@ -229,6 +229,8 @@ async function main() {
   }
   log("building the client");
   run(bin("vite"), ["build", "--logLevel", "warn"], { env });
+  log("building the command line (npm run solve)");
+  run(process.execPath, ["scripts/build-solve.mjs"], { env });
   if (mode === "start") {
     const server = spawn(bin("tsx"), ["server/index.ts"], { stdio: "inherit", cwd: root, env });
     const stop = (signal) => server.kill(signal);

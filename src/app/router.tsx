@@ -36,6 +36,7 @@ const router = createBrowserRouter([
       { path: "/networks/:networkId/history", lazy: async () => ({ Component: (await import("./routes/revision-history")).RevisionHistoryRoute }) },
       { path: "/n/:slug/r/:k", lazy: async () => ({ Component: (await import("./routes/workbench")).PermalinkRoute }) },
       { path: "/s/:token", handle: { wide: true }, lazy: async () => ({ Component: (await import("./routes/shared-view")).SharedViewRoute }) },
+      { path: "/how-results-are-checked", lazy: async () => ({ Component: (await import("./routes/how-results-are-checked")).HowResultsAreCheckedRoute }) },
       { path: "*", element: <NotFoundRoute /> },
     ],
   },

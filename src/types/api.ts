@@ -103,6 +103,26 @@ export interface ResultForm {
 
 export type ResultName = "vth" | "isc" | "rth";
 
+export type CheckMark = "testSource" | "vocIsc" | "numeric" | "exactPoint";
+
+/** What one mark of the check badge did and found (engine CheckDetail). */
+export interface CheckDetail {
+  agree: boolean | null;
+  method: string;
+  outcome: string;
+  points: number;
+  relativeError: number | null;
+}
+
+/** The check badge; details is null for revisions solved before each check said what it did. */
+export interface ResultChecks {
+  testSource: boolean | null;
+  vocIsc: boolean | null;
+  numeric: boolean | null;
+  exactPoint: boolean | null;
+  details: Record<CheckMark, CheckDetail> | null;
+}
+
 export interface Results {
   vth: ResultForm | null;
   isc: ResultForm | null;
@@ -110,7 +130,7 @@ export interface Results {
   rthFromVocIsc: ResultForm | null;
   agree: boolean | null;
   statements: { code: string; message: string }[];
-  checks: { testSource: boolean | null; vocIsc: boolean | null; numeric: boolean | null };
+  checks: ResultChecks;
   /** Quantity per symbol (resistance, voltage, dimensionless, ...), null when none could be inferred. */
   quantities: Record<string, string | null>;
   dimensionChecks: Partial<Record<ResultName, { status: string; message: string; found: string | null }>>;

@@ -75,7 +75,7 @@ describe("workbench tools in chromium", () => {
     // The stored network prints as ground, port, then the elements in order: "Gauge ..." is line 7.
     expect(text.split("\n")[6]).toBe("Gauge resistor b 0 = Rd");
     await expect(diagnostics.textContent()).resolves.toMatch(/^Line 7, column 7: /);
-    await expect(page.getByText("(last version that read without errors)")).toBeTruthy();
+    expect(await page.getByText("(last version that read without errors)").isVisible()).toBe(true);
     expect(await page.getByRole("button", { name: "Solve", exact: true }).isDisabled()).toBe(true);
     await shot(page, "workbench-diagnostic");
     await editor.fill(text);

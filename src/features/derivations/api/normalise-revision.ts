@@ -1,6 +1,8 @@
-import type { ResultForm, Results, Revision, Step, Verdict } from "@/types/api";
+import type { ResultChecks, ResultForm, Results, Revision, Step, Verdict } from "@/types/api";
 
 type Loose = Record<string, unknown>;
+
+const bool = (v: unknown) => (typeof v === "boolean" ? v : null);
 
 const asString = (v: unknown): string | null => (typeof v === "string" ? v : null);
 const nameOf = (v: unknown): string | null =>
@@ -28,7 +30,6 @@ function normaliseResults(raw: Loose): Results {
   const statements = Array.isArray(raw.statements) ? (raw.statements as Results["statements"]) : [];
   const form = (name: string) => normaliseForm(raw[name], compact[name], tex[name]);
   const agree = typeof raw.agree === "boolean" ? raw.agree : null;
-  const bool = (v: unknown) => (typeof v === "boolean" ? v : null);
   return {
     vth: form("vth"),
     isc: form("isc"),
@@ -36,13 +37,21 @@ function normaliseResults(raw: Loose): Results {
     rthFromVocIsc: form("rthFromVocIsc"),
     agree,
     statements,
-    checks: {
-      testSource: bool(checks.testSource) ?? (raw.rth != null ? true : null),
-      vocIsc: bool(checks.vocIsc) ?? agree,
-      numeric: bool(checks.numeric) ?? bool((raw.numericCheck as Loose | null | undefined)?.agree),
-    },
+    checks: normaliseChecks(checks, agree, raw.numericCheck as Loose | null | undefined),
     quantities: (dims.quantities ?? raw.quantities ?? {}) as Results["quantities"],
     dimensionChecks: (dims.checks ?? {}) as Results["dimensionChecks"],
+  };
+}
+
+// Before each mark said what it did, the test-source mark only said that Rth existed: it is shown as not checked.
+function normaliseChecks(checks: Loose, agree: boolean | null, numericCheck: Loose | null | undefined): ResultChecks {
+  const details = checks.details && typeof checks.details === "object" ? (checks.details as ResultChecks["details"]) : null;
+  return {
+    testSource: details ? bool(checks.testSource) : null,
+    vocIsc: bool(checks.vocIsc) ?? agree,
+    numeric: bool(checks.numeric) ?? bool(numericCheck?.agree),
+    exactPoint: bool(checks.exactPoint),
+    details,
   };
 }
 
