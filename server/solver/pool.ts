@@ -143,15 +143,25 @@ export function createSolver(settings: SolveSettings): Solver {
     else map.delete(key);
   };
   // Fair order: solves wait per team, and a free thread takes the next solve of the team served
-  // longest ago (a Map iterates in insertion order; a served team moves to the back).
+  // longest ago (a team never served goes first), so a quiet team never waits behind a busy one's queue.
   const waiting = new Map<string, (() => void)[]>();
+  const lastServed = new Map<string, number>();
+  let turns = 0;
   let handedOut = 0;
   const pump = () => {
     while (handedOut < settings.threads && waiting.size > 0) {
-      const [team, queue] = waiting.entries().next().value!;
+      let team = "";
+      let oldest = Number.POSITIVE_INFINITY;
+      for (const candidate of waiting.keys()) {
+        const served = lastServed.get(candidate) ?? -1;
+        if (served < oldest) [team, oldest] = [candidate, served];
+      }
+      const queue = waiting.get(team)!;
       const start = queue.shift()!;
-      waiting.delete(team);
-      if (queue.length > 0) waiting.set(team, queue);
+      if (queue.length === 0) waiting.delete(team);
+      lastServed.set(team, (turns += 1));
+      // Teams with nothing queued need no memory of their turn beyond a while.
+      if (lastServed.size > 10_000) for (const known of lastServed.keys()) if (!waiting.has(known)) lastServed.delete(known);
       handedOut += 1;
       start();
     }

@@ -1,12 +1,12 @@
 // Every route × {anonymous, non-member, viewer, reviewer, editor, owner}, with the exact status, against the real database.
 import { randomUUID } from "node:crypto";
-import type { Express } from "express";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createApp } from "../../server/app.js";
 import { createLucia, createSessionToken, sessionCookieName } from "../../server/auth/lucia.js";
 import { comments, invitations, teamMembers, teams, type Role } from "../../server/db/schema.js";
 import { newToken } from "../../server/lib/tokens.js";
 import { ApiClient } from "../support/api.js";
+import { mountedRoutes } from "../support/routes.js";
 import { actors, followerCircuit, signedInPerson, teamWithEveryRole, uniqueEmail, type Actor, type Person, type TeamFixture } from "../support/fixtures.js";
 import { linkIn, waitForMail } from "../support/mail.js";
 import { clientShellDir, startTestServer, type TestServer } from "../support/server.js";
@@ -232,27 +232,6 @@ const cases: Case[] = [
   { method: "GET", route: "/api/health", expect: everyone(200), path: () => "/api/health" },
 ];
 
-interface RouterLayer {
-  rawPath?: unknown;
-  route?: { path: unknown; methods: Record<string, boolean> };
-  handle?: { stack?: RouterLayer[] };
-}
-
-// Reads the routes off Express's own router, so a route added without a matrix row fails the test.
-function mountedRoutes(app: Express): string[] {
-  const walk = (stack: RouterLayer[], prefix: string): string[] =>
-    stack.flatMap((layer) => {
-      // The client's catch-all shell (a regular expression) is not a route of the API.
-      if (layer.route && typeof layer.route.path === "string") {
-        const path = `${prefix}${layer.route.path}`.replace(/(.)\/$/, "$1");
-        return Object.keys(layer.route.methods).filter((m) => m !== "_all").map((m) => `${m.toUpperCase()} ${path}`);
-      }
-      if (layer.handle?.stack && typeof layer.rawPath === "string") return walk(layer.handle.stack, layer.rawPath === "/" ? prefix : `${prefix}${layer.rawPath}`);
-      return [];
-    });
-  return walk((app as unknown as { router: { stack: RouterLayer[] } }).router.stack, "");
-}
-
 describe("authorization matrix", () => {
   const world = {} as World;
   beforeAll(async () => {
@@ -269,8 +248,8 @@ describe("authorization matrix", () => {
     world.attachmentId = (await owner.upload(`/api/networks/${network.id}/attachments`, { name: "scope.png", type: "image/png", content: png })).body.id;
     world.inviteToken = (await invite(world)).token;
     world.solveJobId = (await owner.post(`/api/networks/${network.id}/solve?wait=0`)).body.job.id;
-    // Two solves, an upload and mails: more than the default hook time on a loaded machine.
-  }, 60_000);
+    // Two solves (one on a freshly started thread), an upload and mails: room on a loaded machine.
+  }, 120_000);
   afterAll(async () => {
     await world.server.close();
   });
