@@ -90,7 +90,7 @@ function runOne(name: string): OneRun {
   }
   const port = exact.port!;
   const symbols = new Set<string>();
-  for (const e of net.elements) if ("value" in e) for (const m of String(e.value).matchAll(/(?<![0-9.])[A-Za-z_][A-Za-z0-9_]*/g)) symbols.add(m[0]);
+  for (const e of net.elements) if ("value" in e) for (const m of String(e.value).replace(/\b(?:across|through)\s*\([^)]*\)/g, "").matchAll(/(?<![0-9.])[A-Za-z_][A-Za-z0-9_]*/g)) symbols.add(m[0]);
   return {
     elements: net.elements.length,
     symbols: symbols.size,
