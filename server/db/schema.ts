@@ -282,6 +282,8 @@ export const solveJobs = pgTable(
     createdAt: createdAt(),
     startedAt: timestamp("started_at", { withTimezone: true }),
     finishedAt: timestamp("finished_at", { withTimezone: true }),
+    // The server process (INSTANCE_NAME) running the solve: when it starts again, its unfinished jobs are failed.
+    runner: text("runner"),
   },
   (table) => [index("solve_jobs_network_idx").on(table.networkId), index("solve_jobs_finished_idx").on(table.finishedAt)],
 );

@@ -3,9 +3,12 @@ import { randomBytes } from "node:crypto";
 import { and, asc, count, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { networks, teamMembers, users, type Role } from "../db/schema.js";
+import { withoutControls } from "../lib/validate.js";
 import { HttpError, notFound } from "../lib/errors.js";
 import { requireNetworkRole, requireTeamRole, type NetworkRow } from "./access.js";
-import { NETLIST_EXTENSION, readNetworkFile, type Network } from "./engine.js";
+import { NETLIST_EXTENSION, type Network } from "./engine.js";
+import { readNetworkFile } from "./reading.js";
+import type { Services } from "./services.js";
 
 export interface NetworkView {
   id: string;
@@ -206,12 +209,14 @@ export async function duplicateNetwork(db: Database, networkId: string, userId: 
   });
 }
 
+export const networkTitleMax = 200;
+
 const importExtensions = [".json", NETLIST_EXTENSION];
 const importTypes = ["application/json", "text/plain"];
 
 // Import from a file: our JSON or our text netlist, as UTF-8 text; refused with the engine's diagnostics.
 export async function importNetwork(
-  db: Database,
+  services: Services,
   teamId: string,
   userId: string,
   file: { originalname: string; mimetype: string; buffer: Buffer },
@@ -230,8 +235,8 @@ export async function importNetwork(
     text = "\u0000";
   }
   if (text.includes("\u0000")) throw new HttpError(415, "unsupported_type", "The file is not UTF-8 text.", { file: "binary content" });
-  const { network, format } = readNetworkFile(text);
-  const base = dot > 0 ? filename.slice(0, dot) : filename;
-  const created = await createNetwork(db, teamId, userId, { title: title?.trim() || base.trim() || "Imported network", circuit: network });
+  const { network, format } = await readNetworkFile(services, text);
+  const base = withoutControls(dot > 0 ? filename.slice(0, dot) : filename).slice(0, networkTitleMax).trim();
+  const created = await createNetwork(services.db, teamId, userId, { title: title || base || "Imported network", circuit: network });
   return { ...created, importedFrom: format };
 }

@@ -1,5 +1,6 @@
 // Derivation revisions: immutable solves of a network, numbered per network, steps as rows.
 import { and, asc, desc, eq, inArray, max } from "drizzle-orm";
+import { config } from "../config.js";
 import type { Database } from "../db/client.js";
 import { networks, revisionSteps, revisionVerdicts, revisions, users, type Role, type Verdict } from "../db/schema.js";
 import { notFound } from "../lib/errors.js";
@@ -89,10 +90,22 @@ export async function currentVerdicts(db: Database, revisionIds: string[]): Prom
 
 export const openVerdict: VerdictView = { verdict: "open", by: null, at: null };
 
-// Steps and author of a revision never change, so each process keeps the last few hundred it read:
-// a shared revision under load costs the share check and the verdict, not the whole ledger again.
-const immutableParts = new Map<string, Promise<{ steps: (typeof revisionSteps.$inferSelect)[]; authorName: string | null }>>();
-const immutablePartsKept = 200;
+// Steps and author of a revision never change, so each process keeps recently read ones, up to
+// STEP_CACHE_MB of step text: a shared revision under load costs the share check and the verdict,
+// not the whole ledger again. Counted in bytes, so a few huge ledgers cannot fill the memory.
+type ImmutableParts = { steps: (typeof revisionSteps.$inferSelect)[]; authorName: string | null };
+const immutableParts = new Map<string, { parts: Promise<ImmutableParts>; bytes: number }>();
+let cachedBytes = 0;
+
+const stepBytes = (steps: ImmutableParts["steps"]) =>
+  steps.reduce((sum, step) => sum + step.tex.length + step.explanation.length + step.title.length + JSON.stringify(step.data ?? null).length, 0);
+
+function forget(id: string) {
+  const entry = immutableParts.get(id);
+  if (!entry) return;
+  cachedBytes -= entry.bytes;
+  immutableParts.delete(id);
+}
 
 function stepsAndAuthor(db: Database, revision: RevisionRow) {
   const known = immutableParts.get(revision.id);
@@ -100,15 +113,24 @@ function stepsAndAuthor(db: Database, revision: RevisionRow) {
     // Map order is insertion order: re-inserting keeps the recently read at the end.
     immutableParts.delete(revision.id);
     immutableParts.set(revision.id, known);
-    return known;
+    return known.parts;
   }
   const loading = Promise.all([
     db.select().from(revisionSteps).where(eq(revisionSteps.revisionId, revision.id)).orderBy(asc(revisionSteps.ordinal)),
     revision.createdBy ? db.select({ name: users.name }).from(users).where(eq(users.id, revision.createdBy)) : Promise.resolve([]),
   ]).then(([steps, [author]]) => ({ steps, authorName: author?.name ?? null }));
-  immutableParts.set(revision.id, loading);
-  loading.catch(() => immutableParts.delete(revision.id));
-  while (immutableParts.size > immutablePartsKept) immutableParts.delete(immutableParts.keys().next().value!);
+  const entry = { parts: loading, bytes: 0 };
+  immutableParts.set(revision.id, entry);
+  loading.then(
+    ({ steps }) => {
+      if (immutableParts.get(revision.id) !== entry) return;
+      entry.bytes = stepBytes(steps);
+      cachedBytes += entry.bytes;
+      if (entry.bytes > config.solve.stepCacheBytes) forget(revision.id);
+      while (cachedBytes > config.solve.stepCacheBytes && immutableParts.size > 0) forget(immutableParts.keys().next().value!);
+    },
+    () => forget(revision.id),
+  );
   return loading;
 }
 

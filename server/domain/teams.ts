@@ -7,7 +7,7 @@ import { hashToken, newToken } from "../lib/tokens.js";
 import { invitationMail } from "../mail/templates.js";
 import { requireTeamRole } from "./access.js";
 import type { PublicUser } from "./accounts.js";
-import { link, type Services } from "./services.js";
+import { link, type Services, type Transaction } from "./services.js";
 
 const invitationLifetimeMs = 7 * 24 * 3_600_000;
 
@@ -60,33 +60,46 @@ export async function deleteTeam(db: Database, teamId: string, userId: string): 
   await db.delete(teams).where(eq(teams.id, teamId));
 }
 
-async function ownerCount(db: Database, teamId: string): Promise<number> {
-  const [row] = await db.select({ n: count() }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.role, "owner")));
-  return row.n;
-}
-
-async function memberOf(db: Database, teamId: string, memberId: string): Promise<Role> {
-  const [row] = await db.select({ role: teamMembers.role }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
-  if (!row) throw notFound("That member");
-  return row.role;
-}
-
 const lastOwner = () => new HttpError(409, "last_owner", "A team keeps at least one owner; make someone else owner first.");
 
+/**
+ * Membership changes of one team run one at a time: the team row is locked for update, then the
+ * acting member's role, the member's role and the owner count are read and the change written in
+ * the same transaction, so two owners demoting each other (or both leaving) cannot leave none.
+ */
+async function changeMembership(
+  db: Database,
+  teamId: string,
+  userId: string,
+  memberId: string,
+  minimum: Role,
+  write: (tx: Transaction, current: Role, owners: number) => Promise<void>,
+): Promise<void> {
+  await db.transaction(async (tx) => {
+    const locked = await tx.select({ id: teams.id }).from(teams).where(eq(teams.id, teamId)).for("update");
+    if (locked.length === 0) throw notFound("That team");
+    await requireTeamRole(tx, teamId, userId, minimum);
+    const [member] = await tx.select({ role: teamMembers.role }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+    if (!member) throw notFound("That member");
+    const [owners] = await tx.select({ n: count() }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.role, "owner")));
+    await write(tx, member.role, owners.n);
+  });
+}
+
 export async function changeMemberRole(db: Database, teamId: string, userId: string, memberId: string, role: Role): Promise<TeamDetail> {
-  await requireTeamRole(db, teamId, userId, "owner");
-  const current = await memberOf(db, teamId, memberId);
-  if (current === "owner" && role !== "owner" && (await ownerCount(db, teamId)) <= 1) throw lastOwner();
-  await db.update(teamMembers).set({ role }).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+  await changeMembership(db, teamId, userId, memberId, "owner", async (tx, current, owners) => {
+    if (current === "owner" && role !== "owner" && owners <= 1) throw lastOwner();
+    await tx.update(teamMembers).set({ role }).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+  });
   return teamDetail(db, teamId, userId);
 }
 
 // Owners remove anyone; every member may leave by removing themselves.
 export async function removeMember(db: Database, teamId: string, userId: string, memberId: string): Promise<void> {
-  await requireTeamRole(db, teamId, userId, memberId === userId ? "viewer" : "owner");
-  const current = await memberOf(db, teamId, memberId);
-  if (current === "owner" && (await ownerCount(db, teamId)) <= 1) throw lastOwner();
-  await db.delete(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+  await changeMembership(db, teamId, userId, memberId, memberId === userId ? "viewer" : "owner", async (tx, current, owners) => {
+    if (current === "owner" && owners <= 1) throw lastOwner();
+    await tx.delete(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+  });
 }
 
 // ---- invitations ----

@@ -62,7 +62,7 @@ export function authRouter(services: Services, limits: RateLimits): Router {
 
   router.post("/auth/password-reset", limits.mailRequest, async (req, res) => {
     const { email } = parseBody(resetRequestBody, req.body);
-    await requestPasswordReset(services, email);
+    requestPasswordReset(services, email);
     res.status(202).json({ sent: true });
   });
 

@@ -17,9 +17,9 @@ import {
   teamDetail,
 } from "../domain/teams.js";
 import { notFound } from "../lib/errors.js";
-import { emailField, idParam, parseBody, tokenParam } from "../lib/validate.js";
+import { emailField, idParam, nameText, parseBody, tokenParam } from "../lib/validate.js";
 
-const teamName = z.string().trim().min(1, { error: "Give the team a name." }).max(100);
+const teamName = nameText(100, "Give the team a name.");
 const teamBody = z.object({ name: teamName });
 const roleBody = z.object({ role: z.enum(roles) });
 const invitationBody = z.object({ email: emailField, role: z.enum(roles) });

@@ -2,8 +2,10 @@
 // Plain data only (strings, numbers, arrays), so a result can be stored and sent as JSON.
 
 import type { ApproximationReport } from "./circuit/approximations";
+import type { BoundedApproximationReport, ErrorBoundOptions } from "./circuit/error-bound";
 import type { FrequencyReport } from "./circuit/frequency";
 export type { ApproximationEntry, ApproximationReport } from "./circuit/approximations";
+export type { BoundedApproximation, BoundedApproximationReport, ErrorBoundOptions } from "./circuit/error-bound";
 export type { FrequencyEquivalent, FrequencyLimitValue, FrequencyReport, PolesZeros, SRoot } from "./circuit/frequency";
 
 /** Every element kind Portfold knows, spelled as the word used in both the JSON and the text netlist. */
@@ -171,6 +173,11 @@ export interface SolveOptions {
   quantities?: Record<string, Quantity>;
   /** Design assumptions such as "gm*ro >> 1": each result is also given with its dominant terms only (an extension). */
   assume?: string[];
+  /**
+   * Approximate Vth, Rth/Zth and Isc within a relative error (an extension): terms of N and D are
+   * dropped at the design point given by `values`, over an optional band and ± tolerance box.
+   */
+  approximate?: ErrorBoundOptions;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -202,7 +209,8 @@ export interface PortStatement {
     | "rth-agree"
     | "rth-disagree"
     | "sensitivity-skipped"
-    | "forms-skipped";
+    | "forms-skipped"
+    | "approximation-needs-band";
   message: string;
 }
 
@@ -368,6 +376,8 @@ export interface SolveResult {
   frequency?: FrequencyReport;
   /** Extension: present only when SolveOptions.assume was given. */
   approximations?: ApproximationReport;
+  /** Extension: present only when SolveOptions.approximate was given. */
+  boundedApproximations?: BoundedApproximationReport;
 }
 
 /** What parseNetwork returns: the network when it could be read, and what went wrong. */

@@ -1,7 +1,11 @@
 // Steps several browser tests take the same way: a screenshot, signing up or in through the
 // forms, importing a netlist file from the team home.
+import { mkdirSync } from "node:fs";
 import type { Page } from "playwright-core";
-import { screenshotDir } from "../support/browser.js";
+import { ApiClient } from "../support/api.js";
+import { launchBrowser, screenshotDir, type TestBrowser } from "../support/browser.js";
+import { startTestServer, type TestServer } from "../support/server.js";
+import { watchPage } from "./page-watch.js";
 
 export interface Person {
   name: string;
@@ -37,4 +41,35 @@ export async function importNetlist(page: Page, file: { name: string; text: stri
   await page.getByLabel(/^Title/).fill(file.title);
   await page.getByRole("button", { name: "Import", exact: true }).click();
   await page.waitForURL(/\/networks\/[0-9a-f-]{36}$/);
+}
+
+/** What most browser tests start with: the app with its database, one person signed up through the API, a watched page. */
+export interface SignedUpSession {
+  server: TestServer;
+  browser: TestBrowser;
+  page: Page;
+  pageErrors: string[];
+  close(): Promise<void>;
+}
+
+export async function signedUpSession(person: Person): Promise<SignedUpSession> {
+  mkdirSync(screenshotDir, { recursive: true });
+  const server = await startTestServer();
+  const api = new ApiClient(server.url);
+  const signup = await api.post("/api/auth/signup", person);
+  if (signup.status !== 201) throw new Error(`sign-up answered ${signup.status}`);
+  const browser = await launchBrowser();
+  const page = await browser.context.newPage();
+  const pageErrors: string[] = [];
+  watchPage(page, pageErrors);
+  return {
+    server,
+    browser,
+    page,
+    pageErrors,
+    close: async () => {
+      await browser.close();
+      await server.close();
+    },
+  };
 }

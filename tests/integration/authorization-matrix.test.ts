@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import type { Express } from "express";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createApp } from "../../server/app.js";
-import { createLucia, sessionCookieName } from "../../server/auth/lucia.js";
+import { createLucia, createSessionToken, sessionCookieName } from "../../server/auth/lucia.js";
 import { comments, teamMembers, teams } from "../../server/db/schema.js";
 import { ApiClient } from "../support/api.js";
 import { actors, followerCircuit, signedInPerson, teamWithEveryRole, uniqueEmail, type Actor, type Person, type TeamFixture } from "../support/fixtures.js";
@@ -235,8 +235,8 @@ describe("authorization matrix", () => {
   async function clientFor(actor: Actor, ownSession: boolean): Promise<ApiClient> {
     if (!ownSession || actor === "anonymous") return actor === "anonymous" ? new ApiClient(world.server.url) : world.team.clients[actor];
     const person = world.team.people[actor];
-    const session = await auth().createSession(person.user.id, {});
-    return new ApiClient(world.server.url, { cookie: `${sessionCookieName}=${session.id}` });
+    const token = await createSessionToken(auth(), person.user.id);
+    return new ApiClient(world.server.url, { cookie: `${sessionCookieName}=${token}` });
   }
 
   it("covers every route the server mounts, each once", () => {

@@ -6,6 +6,7 @@ import type { Diagnostic, Network, ParseResult, PortStatement, SolveOptions, Sol
 import { approximationsOf, AssumptionSyntaxError, parseAssumption, type Assumption } from "./approximations";
 import { attributeToCells, expandCells } from "./cells";
 import { checkDimensions } from "./dimensions";
+import { boundedApproximationsOf } from "./error-bound";
 import { diagnostic, hasErrors } from "./diagnostics";
 import { assembleNodalSystem, type NodalSystem } from "./mna";
 import { checkResults, uncheckedMarks, undeterminedParts, vocIscAgreement } from "./checks";
@@ -158,6 +159,14 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
       result.approximations = approximated.report;
       if (options.steps ?? true) result.steps = [...result.steps, ...approximated.steps];
     }
+  }
+  if (options.approximate) {
+    const nominal = Object.fromEntries(Object.entries(options.values ? parseAssignments(options.values).exact : {}).map(([k, v]) => [k, v.toNumber()]));
+    const b = boundedApproximationsOf(results, nominal, options.approximate);
+    result.boundedApproximations = b.report;
+    if (options.steps ?? true) result.steps = [...result.steps, ...b.steps];
+    if (b.missing.length > 0) diagnostics.push(diagnostic("option-invalid", `approximation within a bound needs a value for ${b.missing.join(", ")} (the design point)`));
+    if (b.needsBand) statements.push({ code: "approximation-needs-band", message: "Results in s are approximated only over a frequency band (approximate.band)." });
   }
   result.statements = statements;
   result.diagnostics = placeDiagnostics(diagnostics, positions);
