@@ -166,7 +166,11 @@ export interface TeamMembership {
   personal: boolean;
 }
 
-export async function accountOverview(db: Database, userId: string): Promise<{ user: PublicUser; teams: TeamMembership[] }> {
+export interface AccountSettings {
+  reviewMail: boolean;
+}
+
+export async function accountOverview(db: Database, userId: string): Promise<{ user: PublicUser; teams: TeamMembership[]; settings: AccountSettings }> {
   const [row] = await db.select().from(users).where(eq(users.id, userId));
   if (!row) throw new HttpError(401, "unauthenticated", "Sign in to continue.");
   const memberships = await db
@@ -178,5 +182,12 @@ export async function accountOverview(db: Database, userId: string): Promise<{ u
   return {
     user: publicUser(row),
     teams: memberships.map((m) => ({ id: m.id, name: m.name, role: m.role, personal: m.personalUserId === userId })),
+    settings: { reviewMail: row.reviewMail },
   };
+}
+
+export async function updateAccountSettings(db: Database, userId: string, changes: Partial<AccountSettings>): Promise<AccountSettings> {
+  const [row] = await db.update(users).set(changes).where(eq(users.id, userId)).returning({ reviewMail: users.reviewMail });
+  if (!row) throw new HttpError(401, "unauthenticated", "Sign in to continue.");
+  return { reviewMail: row.reviewMail };
 }

@@ -6,6 +6,7 @@ import { networks, teamMembers, users, type Role } from "../db/schema.js";
 import { withoutControls } from "../lib/validate.js";
 import { HttpError, notFound } from "../lib/errors.js";
 import { requireNetworkRole, requireTeamRole, type NetworkRow } from "./access.js";
+import { revisionStateSql } from "./verdicts.js";
 import { NETLIST_EXTENSION, type Network } from "./engine.js";
 import { readNetworkFile } from "./reading.js";
 import type { Services } from "./services.js";
@@ -28,11 +29,13 @@ export interface NetworkView {
 
 // The latest revision number and that revision's current verdict, read beside each network.
 const latestRevision = sql<number | null>`(select max(r.number) from revisions r where r.network_id = ${networks.id})`;
-const latestVerdict = sql<string | null>`(
-  select v.verdict from revision_verdicts v join revisions r on r.id = v.revision_id
-  where r.network_id = ${networks.id}
-    and r.number = (select max(r2.number) from revisions r2 where r2.network_id = ${networks.id})
-  order by v.created_at desc, v.id desc limit 1)`;
+const latestVerdict = revisionStateSql(
+  sql`(select r.id from revisions r where r.network_id = ${networks.id} order by r.number desc limit 1)`,
+  sql`(select r.created_by from revisions r where r.network_id = ${networks.id} order by r.number desc limit 1)`,
+  sql`(select t.required_approvals from teams t where t.id = ${networks.teamId})`,
+);
+// Never solved: no verdict at all.
+const latestVerdictOrNull = sql<string | null>`(case when ${latestRevision} is null then null else ${latestVerdict} end)`;
 
 function view(row: NetworkRow, role: Role, author: { id: string; name: string } | null, latest: number | null): NetworkView {
   const circuit = row.circuit as Network;
@@ -98,7 +101,7 @@ export async function listNetworks(db: Database, teamId: string, userId: string,
     title: sql`lower(${networks.title})`,
     author: sql`lower(${users.name})`,
     lastRevision: latestRevision,
-    verdict: latestVerdict,
+    verdict: latestVerdictOrNull,
     updatedAt: sql`${networks.updatedAt}`,
     createdAt: sql`${networks.createdAt}`,
   }[query.sort];
@@ -114,7 +117,7 @@ export async function listNetworks(db: Database, teamId: string, userId: string,
       createdAt: networks.createdAt,
       updatedAt: networks.updatedAt,
       latestRevision,
-      verdict: latestVerdict,
+      verdict: latestVerdictOrNull,
     })
     .from(networks)
     .leftJoin(users, eq(users.id, networks.authorId))

@@ -2,11 +2,13 @@
 import { and, asc, desc, eq, inArray, max } from "drizzle-orm";
 import { config } from "../config.js";
 import type { Database } from "../db/client.js";
-import { networks, revisionSteps, revisionVerdicts, revisions, users, type Role, type Verdict } from "../db/schema.js";
+import { networks, revisionSteps, revisions, users, type Role } from "../db/schema.js";
 import { notFound } from "../lib/errors.js";
 import { requireNetworkRole, type NetworkRow } from "./access.js";
 import type { Derivation, StepRecord } from "../solver/derive.js";
 import type { Diagnostic, Network } from "./engine.js";
+import { openNoteCounts } from "./reviews.js";
+import { approvedBefore, revisionStates, type RevisionState } from "./verdicts.js";
 
 // What a revision stores is exactly what a solve derives (server/solver/derive.ts).
 export type StepInput = StepRecord;
@@ -14,11 +16,7 @@ export type RevisionInput = Derivation;
 
 type RevisionRow = typeof revisions.$inferSelect;
 
-export interface VerdictView {
-  verdict: Verdict;
-  by: { id: string; name: string } | null;
-  at: string | null;
-}
+export type VerdictView = RevisionState;
 
 export function permalink(slug: string, number: number): string {
   return `/n/${slug}/r/${number}`;
@@ -62,33 +60,6 @@ export async function storeRevision(db: Database, networkId: string, userId: str
     return revision;
   });
 }
-
-export async function currentVerdicts(db: Database, revisionIds: string[]): Promise<Map<string, VerdictView>> {
-  const out = new Map<string, VerdictView>();
-  if (revisionIds.length === 0) return out;
-  const rows = await db
-    .selectDistinctOn([revisionVerdicts.revisionId], {
-      revisionId: revisionVerdicts.revisionId,
-      verdict: revisionVerdicts.verdict,
-      userId: revisionVerdicts.userId,
-      userName: users.name,
-      at: revisionVerdicts.createdAt,
-    })
-    .from(revisionVerdicts)
-    .leftJoin(users, eq(users.id, revisionVerdicts.userId))
-    .where(inArray(revisionVerdicts.revisionId, revisionIds))
-    .orderBy(revisionVerdicts.revisionId, desc(revisionVerdicts.createdAt), desc(revisionVerdicts.id));
-  for (const row of rows) {
-    out.set(row.revisionId, {
-      verdict: row.verdict,
-      by: row.userId && row.userName ? { id: row.userId, name: row.userName } : null,
-      at: row.at.toISOString(),
-    });
-  }
-  return out;
-}
-
-export const openVerdict: VerdictView = { verdict: "open", by: null, at: null };
 
 // Steps and author of a revision never change, so each process keeps recently read ones, up to
 // STEP_CACHE_MB of step text: a shared revision under load costs the share check and the verdict,
@@ -134,11 +105,13 @@ function stepsAndAuthor(db: Database, revision: RevisionRow) {
   return loading;
 }
 
-// `knownVerdict`: the caller read the current verdict already (in the same query as its access check).
-export async function revisionView(db: Database, network: Pick<NetworkRow, "id" | "slug" | "title">, revision: RevisionRow, knownVerdict?: VerdictView) {
-  const [{ steps, authorName }, verdict] = await Promise.all([
+// `verdict` is the revision's state derived from its verdict history (server/domain/verdicts.ts);
+// `approvedBefore` the latest earlier revision that reads as approved, which a newer one is compared with.
+export async function revisionView(db: Database, network: Pick<NetworkRow, "id" | "slug" | "title" | "teamId">, revision: RevisionRow) {
+  const [{ steps, authorName }, verdict, before] = await Promise.all([
     stepsAndAuthor(db, revision),
-    knownVerdict ?? currentVerdicts(db, [revision.id]).then((verdicts) => verdicts.get(revision.id) ?? openVerdict),
+    revisionStates(db, network.teamId, [revision]).then((states) => states.get(revision.id)!),
+    approvedBefore(db, network.id, network.teamId, revision.number),
   ]);
   return {
     id: revision.id,
@@ -159,6 +132,7 @@ export async function revisionView(db: Database, network: Pick<NetworkRow, "id" 
       data: step.data,
     })),
     verdict,
+    approvedBefore: before,
     createdBy: revision.createdBy && authorName !== null ? { id: revision.createdBy, name: authorName } : null,
     createdAt: revision.createdAt.toISOString(),
   };
@@ -173,9 +147,11 @@ export async function requireRevision(db: Database, networkId: string, number: n
   return { ...access, revision };
 }
 
-export async function getRevision(db: Database, networkId: string, number: number, userId: string): Promise<RevisionView> {
+// For members: the revision with its count of open note threads (the shared view carries no notes).
+export async function getRevision(db: Database, networkId: string, number: number, userId: string) {
   const { network, revision } = await requireRevision(db, networkId, number, userId, "viewer");
-  return revisionView(db, network, revision);
+  const [view, notes] = await Promise.all([revisionView(db, network, revision), openNoteCounts(db, [revision.id])]);
+  return { ...view, openNotes: notes.get(revision.id)! };
 }
 
 export async function listRevisions(db: Database, networkId: string, userId: string) {
@@ -186,7 +162,7 @@ export async function listRevisions(db: Database, networkId: string, userId: str
     .leftJoin(users, eq(users.id, revisions.createdBy))
     .where(eq(revisions.networkId, networkId))
     .orderBy(desc(revisions.number));
-  const verdictByRevision = await currentVerdicts(db, rows.map((row) => row.revision.id));
+  const verdictByRevision = await revisionStates(db, network.teamId, rows.map((row) => row.revision));
   return rows.map(({ revision, authorName }) => {
     const results = revision.results as Record<string, { infix?: string } | null>;
     return {
@@ -195,7 +171,7 @@ export async function listRevisions(db: Database, networkId: string, userId: str
       permalink: permalink(network.slug, revision.number),
       createdBy: revision.createdBy && authorName ? { id: revision.createdBy, name: authorName } : null,
       createdAt: revision.createdAt.toISOString(),
-      verdict: verdictByRevision.get(revision.id) ?? openVerdict,
+      verdict: verdictByRevision.get(revision.id)!,
       summary: { vth: results.vth?.infix ?? null, rth: results.rth?.infix ?? null, isc: results.isc?.infix ?? null },
     };
   });

@@ -20,9 +20,14 @@ export interface TeamMembership {
   personal?: boolean;
 }
 
+export interface AccountSettings {
+  reviewMail: boolean;
+}
+
 export interface Me {
   user: User;
   teams: TeamMembership[];
+  settings?: AccountSettings;
 }
 
 /** The engine's interchange format (issue 3), exactly as stored. */
@@ -81,6 +86,17 @@ export interface Step {
   data: unknown;
 }
 
+export interface NoteAnchor {
+  part: "explanation" | "formula";
+  text: string;
+  start?: number;
+}
+
+export interface Stamp {
+  by: string | null;
+  at: string;
+}
+
 export interface Comment {
   id: string;
   stepId: string;
@@ -91,6 +107,51 @@ export interface Comment {
   authorId: string | null;
   createdAt: string;
   updatedAt: string;
+  anchor: NoteAnchor | null;
+  /** On a thread's first note: resolved (who, when), and the last reopening. */
+  resolved: Stamp | null;
+  reopened: Stamp | null;
+}
+
+/** A revision's review state, derived on the server from its verdict history. */
+export interface ReviewState {
+  verdict: Verdict;
+  by: string | null;
+  at: string | null;
+  approvals: number;
+  requiredApprovals: number;
+}
+
+export interface VerdictEntry {
+  id: string;
+  k: number;
+  /** "open" is a withdrawal of the entry in `withdraws`. */
+  verdict: Verdict;
+  by: string | null;
+  byId: string | null;
+  role: Role | null;
+  note: string | null;
+  at: string;
+  withdraws: string | null;
+  withdrawnAt: string | null;
+}
+
+export interface ReviewQueueItem {
+  networkId: string;
+  title: string;
+  teamName: string;
+  k: number;
+  author: string | null;
+  createdAt: string;
+  state: ReviewState;
+  openNotes: number;
+}
+
+export interface ReviewQueuePage {
+  items: ReviewQueueItem[];
+  total: number;
+  page: number;
+  pageSize: number;
 }
 
 /** One exact result in the forms the client shows: canonical N/D and compact, as infix and TeX. */
@@ -144,11 +205,16 @@ export interface Revision {
   permalink: string | null;
   createdAt: string;
   author: string | null;
+  authorId: string | null;
   circuit: Circuit;
   results: Results;
   diagnostics: Diagnostic[];
   steps: Step[];
-  verdict: { verdict: Verdict; by: string | null; at: string | null };
+  verdict: ReviewState;
+  /** The latest earlier revision that reads as approved. */
+  approvedBefore: { k: number; by: string | null; at: string | null } | null;
+  /** Open note threads; null where notes are not shown (the shared view). */
+  openNotes: number | null;
 }
 
 export interface ShareLink {

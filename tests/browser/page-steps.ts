@@ -14,7 +14,8 @@ export interface Person {
 }
 
 export async function shot(page: Page, name: string): Promise<void> {
-  await page.screenshot({ path: `${screenshotDir}/${name}.png`, fullPage: true });
+  // A full-page picture of a long ledger can take a while on a loaded machine.
+  await page.screenshot({ path: `${screenshotDir}/${name}.png`, fullPage: true, timeout: 30_000 });
 }
 
 /** Fills the sign-up form on the current page and sends it. */
@@ -25,13 +26,13 @@ export async function signUpThroughForm(page: Page, who: Person): Promise<void> 
   await page.getByRole("button", { name: "Create account" }).click();
 }
 
-/** Signs in through the form and waits for the team home. */
+/** Signs in through the form and waits for the team home (or the list of teams, for someone in several). */
 export async function signInThroughForm(page: Page, baseUrl: string, who: Pick<Person, "email" | "password">): Promise<void> {
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel("E-mail").fill(who.email);
   await page.getByLabel("Password").fill(who.password);
   await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL(/\/teams\//);
+  await page.waitForURL(/\/teams(\/|$)/);
 }
 
 /** From the team home: imports a Portfold netlist as a file and waits for its workbench. */

@@ -1,4 +1,4 @@
-import type { ResultChecks, ResultForm, Results, Revision, Step, Verdict } from "@/types/api";
+import type { ResultChecks, ResultForm, Results, ReviewState, Revision, Step, Verdict } from "@/types/api";
 
 type Loose = Record<string, unknown>;
 
@@ -86,10 +86,21 @@ export function normaliseRevision(body: unknown): Revision {
     results: normaliseResults((raw.results ?? {}) as Loose),
     diagnostics: (raw.diagnostics ?? []) as Revision["diagnostics"],
     steps,
-    verdict: {
-      verdict: ((typeof raw.verdict === "string" ? raw.verdict : verdict.verdict) ?? "open") as Verdict,
-      by: nameOf(verdict.by),
-      at: asString(verdict.at),
-    },
+    authorId: asString((raw.createdBy as Loose | null)?.id),
+    verdict: normaliseReviewState(typeof raw.verdict === "string" ? { verdict: raw.verdict } : verdict),
+    approvedBefore: raw.approvedBefore
+      ? { k: Number((raw.approvedBefore as Loose).number), by: nameOf((raw.approvedBefore as Loose).by), at: asString((raw.approvedBefore as Loose).at) }
+      : null,
+    openNotes: typeof raw.openNotes === "number" ? raw.openNotes : null,
+  };
+}
+
+export function normaliseReviewState(raw: Loose): ReviewState {
+  return {
+    verdict: (asString(raw.verdict) ?? "open") as Verdict,
+    by: nameOf(raw.by),
+    at: asString(raw.at),
+    approvals: Number(raw.approvals ?? 0),
+    requiredApprovals: Number(raw.requiredApprovals ?? 1),
   };
 }

@@ -2,13 +2,20 @@ import { Caution } from "@/components/ui/caution";
 import { MathTex } from "@/components/ui/math";
 import { EmptyState } from "@/components/ui/states";
 import { StepComments, type ReviewContext } from "@/features/review/components/step-comments";
-import type { Comment, Revision } from "@/types/api";
+import { useState } from "react";
+import type { Comment, NoteAnchor, Revision } from "@/types/api";
 import { CheckBadge, DimensionCheck } from "./check-badge";
 import { Equivalents } from "./equivalents";
 
 // The ledger: every stored step, numbered and typeset, with its review notes in the margin.
 export function Ledger({ revision, comments, review }: { revision: Revision; comments: Comment[]; review: ReviewContext }) {
   const { results, steps } = revision;
+  // A stretch of a step's explanation the reader highlighted, offered as a note's anchor beside that step.
+  const [highlight, setHighlight] = useState<{ stepId: string; anchor: NoteAnchor } | null>(null);
+  const readHighlight = (stepId: string, explanation: string) => {
+    const text = window.getSelection()?.toString().trim() ?? "";
+    setHighlight(text && explanation.includes(text) ? { stepId, anchor: { part: "explanation", text } } : null);
+  };
   return (
     <div>
       <div className="flex flex-wrap items-center justify-between gap-2 border-b border-rule pb-2">
@@ -40,7 +47,11 @@ export function Ledger({ revision, comments, review }: { revision: Revision; com
               <span className="pt-0.5 text-right font-mono text-xs text-ink/50">{index + 1}</span>
               <div className="min-w-0">
                 <h3 className="text-sm font-medium">{step.title}</h3>
-                {step.explanation && <p className="mt-0.5 text-xs leading-relaxed text-ink/70">{step.explanation}</p>}
+                {step.explanation && (
+                  <p className="mt-0.5 text-xs leading-relaxed text-ink/70" onMouseUp={review.canComment ? () => readHighlight(step.id, step.explanation) : undefined}>
+                    {step.explanation}
+                  </p>
+                )}
                 {step.tex && (
                   <div className="ledger-tex mt-1.5 overflow-x-auto text-[0.88rem]">
                     <MathTex tex={step.tex} block />
@@ -51,9 +62,12 @@ export function Ledger({ revision, comments, review }: { revision: Revision; com
                 <StepComments
                   stepId={step.id}
                   stepTitle={`step ${index + 1}, ${step.title}`}
+                  formula={step.tex}
                   comments={comments}
                   // The way to comment is offered once, beside the first step, not in every margin.
                   review={index === 0 ? review : { ...review, commentPath: undefined }}
+                  highlight={highlight?.stepId === step.id ? highlight.anchor : null}
+                  onHighlightUsed={() => setHighlight(null)}
                 />
               </div>
             </li>
