@@ -1,73 +1,103 @@
-// Benchmark of the exact engine: Vth + Isc + Rth on ladder networks, beside sympy on the same
-// networks in the same run. A script, not a test: it prints figures, it asserts nothing.
+// Benchmark of the exact engine beside sympy on the same networks in the same run: ladders, and
+// small dense or non-planar graphs (scripts/bench-networks.ts). A script, not a test: it prints
+// figures and whether each target is met, it asserts nothing.
 //
-//   npm run bench:engine -- [--max N] [--max-gm N] [--sympy-budget SECONDS] [--sympy-cap SECONDS] [--no-sympy]
+//   npm run bench:engine -- [--max N] [--max-gm N] [--sympy-budget SECONDS] [--sympy-cap SECONDS] [--no-sympy] [--only NAME] [--parse-only]
 //
 // Each network is solved in a fresh child process, so "peak MB" is that process's peak RSS; times
-// are the best of up to three runs after a warm-up on a small ladder.
+// are the best of up to three runs after a warm-up on a small ladder. The machine may be shared, so
+// next to each wall time the child's CPU time is printed too ("cpu"), which load inflates less.
 // Columns: first = the first exact solve of that network (after the warm-up); exact = best of three of
 // the three results in lowest terms plus the Voc/Isc cross-check (no printing);
-// full = solveNetwork with every printed form (infix, TeX, compact), no ledger.
-// sympy = tests/engine/sympy/bench_port.py (Cramer's rule on DomainMatrix determinants over
-// the polynomial ring, then cancel), given a per-network cap and a total budget.
+// printed = solveNetwork with every printed form (infix, TeX, compact), no ledger or sensitivities;
+// complete = solveNetwork with everything (results, ledger, sensitivities, dimensions, TeX).
+// sympy = tests/engine/sympy/bench_port.py (Cramer's rule on fraction-free DomainMatrix determinants
+// over the polynomial ring, lowest terms by the ring's gcd), given a per-network cap and a total budget.
 
 import { spawnSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
-import { solveNetwork, solveNetworkExact, type Element, type NetworkInput } from "../shared/engine";
-import { readExpression } from "../shared/engine/algebra";
+import { solveNetwork, solveNetworkExact, type NetworkInput } from "../shared/engine";
+import { parseValue, readExpression } from "../shared/engine/algebra";
+import { familyNetworks, ladderNetwork } from "./bench-networks";
 
 const HERE = fileURLToPath(import.meta.url);
 const SYMPY_SCRIPT = fileURLToPath(new URL("../tests/engine/sympy/bench_port.py", import.meta.url));
 const PYTHON = "/usr/bin/python3";
 
-/** n sections of series Ra_i and shunt Rb_i, driven by Vs; optionally a transconductance gm_i·V(n_{i-1}) (a current source naming across) in every section. */
-export function ladderNetwork(n: number, withGm: boolean): NetworkInput {
-  const elements: Element[] = [{ name: "Vin", kind: "voltage", nodes: ["n0", "0"], value: "Vs" }];
-  for (let i = 1; i <= n; i++) {
-    elements.push({ name: `Ra${i}`, kind: "resistor", nodes: [`n${i - 1}`, `n${i}`], value: `Ra_${i}` });
-    elements.push({ name: `Rb${i}`, kind: "resistor", nodes: [`n${i}`, "0"], value: `Rb_${i}` });
-    if (withGm) elements.push({ name: `Gm${i}`, kind: "current", nodes: [`n${i}`, "0"], value: `gm_${i} * across(n${i - 1}, 0)` });
-  }
-  return { port: { plus: `n${n}`, minus: "0" }, elements };
+
+/** Every network the benchmark knows, by its printed name. */
+function networkNamed(name: string): NetworkInput {
+  const ladder = /^(gm-)?ladder-(\d+)$/.exec(name);
+  if (ladder) return ladderNetwork(Number(ladder[2]), ladder[1] !== undefined);
+  const family = familyNetworks().find((f) => f.name === name);
+  if (!family) throw new Error(`no network called ${name}`);
+  return family.network;
+}
+
+interface Timed {
+  wallMs: number;
+  cpuMs: number;
+}
+
+function timed<T>(run: () => T): [T, Timed] {
+  const c0 = process.cpuUsage();
+  const t0 = performance.now();
+  const out = run();
+  const wallMs = performance.now() - t0;
+  const c = process.cpuUsage(c0);
+  return [out, { wallMs, cpuMs: (c.user + c.system) / 1000 }];
+}
+
+function best(a: Timed, b: Timed): Timed {
+  return { wallMs: Math.min(a.wallMs, b.wallMs), cpuMs: Math.min(a.cpuMs, b.cpuMs) };
 }
 
 interface OneRun {
+  elements: number;
+  symbols: number;
   /** The first exact solve of this network (after the small warm-up). */
-  firstMs: number;
-  exactMs: number;
-  fullMs: number;
+  first: Timed;
+  exact: Timed;
+  printed: Timed;
+  complete: Timed;
   peakMB: number;
   terms: { rthNum: number; rthDen: number; vthNum: number; iscNum: number; iscDen: number };
   agree: boolean | null;
+  skipped: string[];
   results: { vth: string | null; rth: string | null; isc: string | null };
 }
 
-/** Child mode: solve one ladder and report on stdout. */
-function runOne(n: number, withGm: boolean): OneRun {
-  const net = ladderNetwork(n, withGm);
+/** Child mode: solve one network and report on stdout. */
+function runOne(name: string): OneRun {
+  const net = networkNamed(name);
   // Warm the JIT on a small ladder first, then keep the best of up to three runs (within ~3 s).
-  solveNetwork(ladderNetwork(3, withGm), { steps: false });
-  let exactMs = Infinity;
-  let fullMs = Infinity;
-  const first = performance.now();
-  let exact = solveNetworkExact(net);
-  const firstMs = performance.now() - first;
-  let full = solveNetwork(net, { steps: false, sensitivities: false, dimensions: false });
-  for (let run = 0, spent = 0; run < 3 && spent < 3000; run++) {
+  solveNetwork(ladderNetwork(3, true));
+  const [first, firstT] = timed(() => solveNetworkExact(net));
+  let exact = first;
+  let [full, printed] = timed(() => solveNetwork(net, { steps: false, sensitivities: false, dimensions: false }));
+  let [all, complete] = timed(() => solveNetwork(net));
+  let exactT = firstT;
+  for (let run = 0, spent = 0; run < 2 && spent < 3000; run++) {
     const t0 = performance.now();
-    exact = solveNetworkExact(net);
-    const t1 = performance.now();
-    full = solveNetwork(net, { steps: false, sensitivities: false, dimensions: false });
-    const t2 = performance.now();
-    exactMs = Math.min(exactMs, t1 - t0);
-    fullMs = Math.min(fullMs, t2 - t1);
-    spent += t2 - t0;
+    const [e, te] = timed(() => solveNetworkExact(net));
+    const [f, tf] = timed(() => solveNetwork(net, { steps: false, sensitivities: false, dimensions: false }));
+    const [a, ta] = timed(() => solveNetwork(net));
+    [exact, full, all] = [e, f, a];
+    exactT = best(exactT, te);
+    printed = best(printed, tf);
+    complete = best(complete, ta);
+    spent += performance.now() - t0;
   }
   const port = exact.port!;
+  const symbols = new Set<string>();
+  for (const e of net.elements) if ("value" in e) for (const m of String(e.value).replace(/\b(?:across|through)\s*\([^)]*\)/g, "").matchAll(/(?<![0-9.])[A-Za-z_][A-Za-z0-9_]*/g)) symbols.add(m[0]);
   return {
-    firstMs,
-    exactMs,
-    fullMs,
+    elements: net.elements.length,
+    symbols: symbols.size,
+    first: firstT,
+    exact: exactT,
+    printed,
+    complete,
     peakMB: process.resourceUsage().maxRSS / 1024,
     terms: {
       rthNum: port.rth?.num.termCount() ?? 0,
@@ -77,6 +107,7 @@ function runOne(n: number, withGm: boolean): OneRun {
       iscDen: port.isc?.den.termCount() ?? 0,
     },
     agree: port.agree,
+    skipped: all.statements.filter((s) => s.code.endsWith("-skipped")).map((s) => s.code),
     results: { vth: full.vth?.infix ?? null, rth: full.rth?.infix ?? null, isc: full.isc?.infix ?? null },
   };
 }
@@ -103,9 +134,9 @@ function runSympy(net: NetworkInput, capSeconds: number, ours: OneRun["results"]
   return { seconds: out.seconds, wall, status: "ok", matches };
 }
 
-function childRun(n: number, withGm: boolean): OneRun {
-  const r = spawnSync(process.execPath, ["--import", "tsx", HERE, "--one", String(n), withGm ? "gm" : "plain"], { encoding: "utf8", maxBuffer: 1 << 30 });
-  if (r.status !== 0) throw new Error(`child failed for ${withGm ? "gm-" : ""}ladder-${n}: ${r.stderr}`);
+function childRun(name: string): OneRun {
+  const r = spawnSync(process.execPath, ["--import", "tsx", HERE, "--one", name], { encoding: "utf8", maxBuffer: 1 << 30 });
+  if (r.status !== 0) throw new Error(`child failed for ${name}: ${r.stderr}`);
   return JSON.parse(r.stdout) as OneRun;
 }
 
@@ -118,70 +149,144 @@ function pad(s: string, n: number): string {
   return s.length >= n ? s : " ".repeat(n - s.length) + s;
 }
 
+const ms = (t: Timed) => `${t.wallMs.toFixed(0)}/${t.cpuMs.toFixed(0)}`;
+const verdict = (ok: boolean) => (ok ? "met" : "NOT met");
+
+/** A value of n terms over 21 symbols, each term a small integer times about ten of them (the shape of a printed result). */
+function longValue(n: number): string {
+  let seed = 7;
+  const random = () => (seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648;
+  const names = Array.from({ length: 21 }, (_, i) => (i % 2 ? `Ra_${i}` : `Rb_${i}`));
+  return Array.from({ length: n }, (_, i) => `${(i % 7) + 1}*${names.filter(() => random() < 0.5).join("*")}`).join(" + ");
+}
+
+const SYMPY_PARSE = String.raw`
+import sys, time
+from sympy.parsing.sympy_parser import parse_expr
+text = sys.stdin.read()
+start = time.perf_counter()
+parse_expr(text)
+print(time.perf_counter() - start)
+`;
+
+/** Parsing: parseValue (user values, through nerdamer) and readExpression (our reader) beside sympy's parse_expr. */
+function parseRows(sympy: boolean): void {
+  console.log("");
+  console.log("parsing a value of n terms (wall/cpu ms, best of three); reference: sympy parse_expr on the same text");
+  console.log(["terms", "chars", "parseValue", "readExpression", "sympy s"].map((h, i) => pad(h, [7, 9, 12, 15, 9][i])).join(" "));
+  let worst = 0;
+  for (const n of [100, 1000, 10000]) {
+    const text = longValue(n);
+    let pv: Timed = { wallMs: Infinity, cpuMs: Infinity };
+    let re: Timed = { wallMs: Infinity, cpuMs: Infinity };
+    for (let run = 0; run < 3; run++) {
+      pv = best(pv, timed(() => parseValue(text))[1]);
+      re = best(re, timed(() => readExpression(text))[1]);
+    }
+    let sym = "-";
+    if (sympy) {
+      const r = spawnSync(PYTHON, ["-c", SYMPY_PARSE], { input: text, encoding: "utf8", timeout: 60_000 });
+      sym = r.status === 0 ? Number(r.stdout).toFixed(2) : ">cap";
+    }
+    if (n === 10000) worst = pv.wallMs;
+    console.log([String(n), String(text.length), ms(pv), ms(re), sym].map((c, i) => pad(c, [7, 9, 12, 15, 9][i])).join(" "));
+  }
+  console.log(`target a value of 10,000 terms parses in <= 0.2 s: ${verdict(worst <= 200)} (parseValue ${worst.toFixed(0)} ms wall)`);
+}
+
 function main(): void {
   const one = process.argv.indexOf("--one");
   if (one >= 0) {
-    process.stdout.write(JSON.stringify(runOne(Number(process.argv[one + 1]), process.argv[one + 2] === "gm")));
+    process.stdout.write(JSON.stringify(runOne(process.argv[one + 1])));
+    return;
+  }
+  if (process.argv.includes("--parse-only")) {
+    parseRows(!process.argv.includes("--no-sympy"));
     return;
   }
   const maxPlain = arg("--max", 12);
   const maxGm = arg("--max-gm", 10);
-  const budget = arg("--sympy-budget", 90);
-  const cap = arg("--sympy-cap", 30);
+  const budget = arg("--sympy-budget", 240);
+  const cap = arg("--sympy-cap", 40);
   const sympy = !process.argv.includes("--no-sympy");
+  const onlyAt = process.argv.indexOf("--only");
+  const only = onlyAt >= 0 ? process.argv[onlyAt + 1] : null;
   let spent = 0;
 
-  const header = ["network", "first ms", "exact ms", "full ms", "peak MB", "Rth N/D terms", "Vth N", "Isc N/D", "agree", "sympy s", "same", "sympy/exact"];
-  const widths = [14, 9, 9, 9, 8, 15, 6, 14, 6, 12, 5, 11];
+  const header = ["network", "elem/sym", "first ms", "exact ms", "printed ms", "complete ms", "peak MB", "Rth N/D", "Vth N", "Isc N/D", "agree", "sympy s", "same", "sympy/exact"];
+  const widths = [14, 8, 10, 10, 11, 12, 8, 11, 6, 11, 6, 11, 5, 11];
   console.log(`Portfold engine benchmark (node ${process.version}); sympy budget ${budget} s, cap ${cap} s per network`);
-  console.log(header.map((h, i) => pad(h, widths[i])).join(" "));
+  console.log("times: wall/cpu ms; exact = lowest terms + Voc/Isc check, printed = every printed form, complete = results, ledger, sensitivities, dimensions, TeX");
   const rows: { name: string; ours: OneRun; sym: SympyRun | null }[] = [];
-  // Smallest first, the two families interleaved, so the sympy budget reaches both.
-  const cases: [number, boolean][] = [];
+  // Smallest ladders first, the two ladder families interleaved, then ladder-14 and -16, then the graphs.
+  const names: string[] = [];
   for (let n = 3; n <= Math.max(maxPlain, maxGm); n++) {
-    if (n <= maxPlain) cases.push([n, false]);
-    if (n <= maxGm) cases.push([n, true]);
+    if (n <= maxPlain) names.push(`ladder-${n}`);
+    if (n <= maxGm) names.push(`gm-ladder-${n}`);
   }
-  for (const [n, withGm] of cases) {
-    const name = `${withGm ? "gm-" : ""}ladder-${n}`;
-    const ours = childRun(n, withGm);
+  names.push("ladder-14", "ladder-16", ...familyNetworks().map((f) => f.name));
+  const print = (cells: string[]) => console.log(cells.map((c, i) => pad(c, widths[i])).join(" "));
+  print(header);
+  for (const name of names) {
+    if (only && !name.startsWith(only)) continue;
+    const ours = childRun(name);
     let sym: SympyRun | null = null;
-    if (sympy) {
+    // sympy is not asked about the two largest ladders: it cannot finish them within any cap here.
+    if (sympy && name !== "ladder-14" && name !== "ladder-16") {
       const left = budget - spent;
-      sym = left <= 1 ? { seconds: null, wall: 0, status: "timeout", matches: null } : runSympy(ladderNetwork(n, withGm), Math.min(cap, left), ours.results);
+      sym = left <= 1 ? { seconds: null, wall: 0, status: "timeout", matches: null } : runSympy(networkNamed(name), Math.min(cap, left), ours.results);
       spent += sym.wall;
     }
     rows.push({ name, ours, sym });
     const t = ours.terms;
-    const symText = !sym ? "-" : sym.status === "ok" ? sym.seconds!.toFixed(2) : sym.status === "timeout" ? "sympy: >cap" : "error";
-    const ratio = sym && sym.status === "ok" ? `${(sym.seconds! * 1000 / ours.exactMs).toFixed(0)}x` : "-";
-    console.log(
-      [
-        name,
-        ours.firstMs.toFixed(0),
-        ours.exactMs.toFixed(0),
-        ours.fullMs.toFixed(0),
-        ours.peakMB.toFixed(0),
-        `${t.rthNum}/${t.rthDen}`,
-        String(t.vthNum),
-        `${t.iscNum}/${t.iscDen}`,
-        String(ours.agree),
-        symText,
-        sym && sym.matches !== null ? (sym.matches ? "yes" : "NO") : "-",
-        ratio,
-      ]
-        .map((c, i) => pad(c, widths[i]))
-        .join(" "),
-    );
+    const symText = !sym ? "-" : sym.status === "ok" ? sym.seconds!.toFixed(2) : sym.status === "timeout" ? ">cap" : "error";
+    const ratio = sym && sym.status === "ok" ? `${((sym.seconds! * 1000) / ours.exact.wallMs).toFixed(0)}x` : "-";
+    print([
+      name,
+      `${ours.elements}/${ours.symbols}`,
+      ms(ours.first),
+      ms(ours.exact),
+      ms(ours.printed),
+      ms(ours.complete) + (ours.skipped.length > 0 ? "*" : ""),
+      ours.peakMB.toFixed(0),
+      `${t.rthNum}/${t.rthDen}`,
+      String(t.vthNum),
+      `${t.iscNum}/${t.iscDen}`,
+      String(ours.agree),
+      symText,
+      sym && sym.matches !== null ? (sym.matches ? "yes" : "NO") : "-",
+      ratio,
+    ]);
   }
-  const l12 = rows.find((r) => r.name === "ladder-12");
-  const l7 = rows.find((r) => r.name === "ladder-7");
+  console.log("* a part was skipped by a size limit (sensitivities of results above SolveOptions.sensitivitySizeLimit)");
   console.log("");
-  if (l12) console.log(`target ladder-12 (Rth denominator ${l12.ours.terms.rthDen} terms) <= 2 s: first ${(l12.ours.firstMs / 1000).toFixed(2)} s, exact ${(l12.ours.exactMs / 1000).toFixed(2)} s, full ${(l12.ours.fullMs / 1000).toFixed(2)} s`);
-  if (l7?.sym?.status === "ok") {
-    const s7 = l7.sym.seconds! * 1000;
-    console.log(`target >= 100x sympy on ladder-7: ${(s7 / l7.ours.exactMs).toFixed(0)}x best, ${(s7 / l7.ours.firstMs).toFixed(0)}x first run (sympy ${(s7 / 1000).toFixed(1)} s, exact ${l7.ours.exactMs.toFixed(0)} ms, first ${l7.ours.firstMs.toFixed(0)} ms)`);
+  const row = (n: string) => rows.find((r) => r.name === n);
+  const families = rows.filter((r) => !r.name.includes("ladder"));
+  const small = families.filter((r) => r.ours.elements <= 14 && r.ours.symbols <= 14);
+  if (small.length > 0) {
+    const worst = small.reduce((a, b) => (b.ours.complete.wallMs > a.ours.complete.wallMs ? b : a));
+    const over = small.filter((r) => r.ours.complete.wallMs > 1000).map((r) => r.name);
+    console.log(`target every network <= 14 elements and <= 14 symbols solved completely in <= 1 s: ${verdict(over.length === 0)} (${small.length} networks; slowest ${worst.name} ${ms(worst.ours.complete)} ms${over.length > 0 ? `; over: ${over.join(", ")}` : ""})`);
   }
+  const l14 = row("ladder-14");
+  if (l14) {
+    const o = l14.ours;
+    console.log(`target ladder-14 exact <= 2 s: ${verdict(o.exact.wallMs <= 2000)} (${ms(o.exact)} ms); every printed form <= 4 s: ${verdict(o.printed.wallMs <= 4000)} (${ms(o.printed)} ms); peak <= 600 MB: ${verdict(o.peakMB <= 600)} (${o.peakMB.toFixed(0)} MB)`);
+  }
+  const l16 = row("ladder-16");
+  if (l16) console.log(`target ladder-16 completes: met (complete ${ms(l16.ours.complete)} ms, peak ${l16.ours.peakMB.toFixed(0)} MB${l16.ours.skipped.length > 0 ? `, ${l16.ours.skipped.join(", ")}` : ""})`);
+  for (const n of ["ladder-7", "K3,3"]) {
+    const r = row(n);
+    if (!r) continue;
+    if (r.sym?.status !== "ok") {
+      console.log(`target >= 1000x sympy on ${n}: not measured (sympy ${r.sym ? r.sym.status : "off"})`);
+      continue;
+    }
+    const s = r.sym.seconds! * 1000;
+    const x = s / r.ours.exact.wallMs;
+    console.log(`target >= 1000x sympy on ${n}: ${verdict(x >= 1000)} (${x.toFixed(0)}x best, ${(s / r.ours.first.wallMs).toFixed(0)}x first run; sympy ${(s / 1000).toFixed(2)} s, exact ${r.ours.exact.wallMs.toFixed(1)} ms)`);
+  }
+  if (!only) parseRows(sympy);
 }
 
 main();

@@ -10,6 +10,9 @@
 //      0 errors. Reference: GET /api/health at the same load.
 //   2. GET /api/health, 10 connections for 10 s, while heavy solves keep every solver thread busy;
 //      target p99 ≤ 20 ms. Reference: the same health load with no solve running.
+//   3. Hostile mix: one account floods solves (40 at once, again and again) while 8 connections read
+//      the largest revision the bounds allow (a wide symbolic chain, trimmed to REVISION_MAX_BYTES);
+//      health p99 beside the quiet reference of 2; target ≤ 3 × the reference.
 // BENCH_SECONDS scales both durations (default 20 for the first, half that for the second).
 import { spawn, type ChildProcess } from "node:child_process";
 import { randomBytes } from "node:crypto";
@@ -142,6 +145,39 @@ async function main() {
     console.log(line("GET /api/health, no solve running (reference)", idle));
     console.log(line(`GET /api/health, ${loops.length} solve loops`, busy, "p99 ≤ 20 ms"));
     console.log(`  → ${busy.p99 <= 20 ? "within target" : "OUTSIDE target"}; ${solved} heavy solves ran meanwhile`);
+
+    console.log("\n3. hostile mix: one account flooding solves, 8 readers of the largest revision");
+    const post = (path: string, body?: unknown) => fetch(`${url}${path}`, { method: "POST", headers: { ...origin, Cookie: cookie }, body: body === undefined ? undefined : JSON.stringify(body) });
+    // Forty links of two symbols each: its sensitivities alone are far past REVISION_MAX_BYTES, so the stored revision is as large as allowed.
+    const wideTag = randomBytes(3).toString("hex");
+    const wide = { ground: "0", port: { plus: "t40", minus: "0" }, elements: [{ name: "Source", kind: "voltage", nodes: ["t0", "0"], value: "Vs" }, ...Array.from({ length: 40 }, (_, i) => ({ name: `link${i + 1}`, kind: "resistor", nodes: [`t${i}`, `t${i + 1}`], value: `Ra${wideTag}${i} + Rb${wideTag}${i}` }))] };
+    const wideId = ((await (await post(`/api/teams/${benchTeam}/networks`, { title: "Widest chain", circuit: wide })).json()) as { id: string }).id;
+    const wideAnswer = await post(`/api/networks/${wideId}/solve?wait=60000`);
+    const largest = `${url}/api/networks/${wideId}/revisions/1`;
+    const largestBytes = wideAnswer.status === 201 ? (await wideAnswer.text()).length : 0;
+    let flooding = true;
+    const floodAnswers: Record<number, number> = {};
+    const flood = async () => {
+      while (flooding) {
+        const tags = Array.from({ length: 40 }, () => randomBytes(3).toString("hex"));
+        const ids = await Promise.all(tags.map(async (tag) => ((await (await post(`/api/teams/${benchTeam}/networks`, { title: `Flood ${tag}`, circuit: heavyCircuit(tag) })).json()) as { id: string }).id));
+        const answers = await Promise.all(ids.map((id) => post(`/api/networks/${id}/solve?wait=0`)));
+        for (const answer of answers) floodAnswers[answer.status] = (floodAnswers[answer.status] ?? 0) + 1;
+        await new Promise((resolve) => setTimeout(resolve, 500));
+      }
+    };
+    const flooder = flood();
+    const readers = largestBytes > 0 ? load(largest, 8, healthSeconds, { Cookie: cookie }) : Promise.resolve(null);
+    await new Promise((resolve) => setTimeout(resolve, 500));
+    const hostile = await load(`${url}/api/health`, 10, healthSeconds);
+    const read = await readers;
+    flooding = false;
+    await flooder;
+    console.log(line("GET /api/health, quiet (reference, from 2.)", idle));
+    console.log(line("GET /api/health, hostile mix", hostile, `p99 ≤ ${3 * idle.p99} ms (3 × reference)`));
+    if (read) console.log(line(`GET the largest revision (${Math.round(largestBytes / 1024)} kB), 8 readers`, read));
+    else console.log(`  the widest chain did not store a revision (${wideAnswer.status}); readers skipped`);
+    console.log(`  → ${hostile.p99 <= 3 * Math.max(1, idle.p99) ? "within target" : "OUTSIDE target"}; flood answers by status: ${JSON.stringify(floodAnswers)}`);
   } finally {
     if (benchTeam) await fetch(`${url}/api/teams/${benchTeam}`, { method: "DELETE", headers: { Origin: url, Cookie: cookie } }).catch(() => undefined);
     server.child?.kill("SIGTERM");

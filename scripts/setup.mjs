@@ -229,6 +229,8 @@ async function main() {
   }
   log("building the client");
   run(bin("vite"), ["build", "--logLevel", "warn"], { env });
+  log("building the command line (npm run solve)");
+  run(process.execPath, ["scripts/build-solve.mjs"], { env });
   if (mode === "start") {
     const server = spawn(bin("tsx"), ["server/index.ts"], { stdio: "inherit", cwd: root, env });
     const stop = (signal) => server.kill(signal);
@@ -245,12 +247,19 @@ async function main() {
   rmSync(report, { force: true });
   const vitest = run(bin("vitest"), ["run", "--reporter=default", "--reporter=json", `--outputFile.json=${report}`],
     { env: { ...env, NODE_ENV: "test" }, allowFailure: true });
-  // One plain summary line last, whatever vitest printed before it.
+  // One plain summary line last, whatever vitest printed before it. A file that fails to load has no
+  // tests to fail, so it is counted as a failed file; a run that wrote no report at all is one too.
+  let failedFiles = 1;
+  let line = "0 passed, 0 failed, 1 files failed, 0 skipped";
   if (existsSync(report)) {
     const summary = JSON.parse(readFileSync(report, "utf8"));
-    process.stdout.write(`${summary.numPassedTests} passed, ${summary.numFailedTests} failed\n`);
+    const files = summary.testResults ?? [];
+    failedFiles = files.filter((file) => file.status === "failed" || (file.message && file.assertionResults?.length === 0)).length;
+    const skipped = (summary.numPendingTests ?? 0) + (summary.numTodoTests ?? 0);
+    line = `${summary.numPassedTests} passed, ${summary.numFailedTests} failed, ${failedFiles} files failed, ${skipped} skipped`;
   }
-  process.exit(vitest.status ?? 1);
+  process.stdout.write(`${line}\n`);
+  process.exit(vitest.status === 0 && failedFiles === 0 ? 0 : (vitest.status || 1));
 }
 
 main().catch((error) => fail(error instanceof Error ? error.message : String(error)));

@@ -7,6 +7,7 @@
 // Exit status: 0 solved (degenerate ports included), 2 invalid input (diagnostics printed), 1 otherwise.
 
 import { readFileSync } from "node:fs";
+import { startupSnapshot } from "node:v8";
 import { QUANTITIES, solveNetwork, toSolveOutput, type Quantity, type ResultName, type SolveOptions } from "../shared/engine";
 
 const USAGE = `usage: npm run -s solve -- FILE [--limit SYMBOL=inf|0] [--set NAME=VALUE,...] [--float]
@@ -115,9 +116,20 @@ function main(argv: string[]): number {
   return result.ok ? 0 : 2;
 }
 
-try {
-  process.exitCode = main(process.argv.slice(2));
-} catch (e) {
-  process.stderr.write(`solve: internal error: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`);
-  process.exitCode = 1;
+function run(argv: string[]): void {
+  try {
+    process.exitCode = main(argv);
+  } catch (e) {
+    process.stderr.write(`solve: internal error: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`);
+    process.exitCode = 1;
+  }
+}
+
+// `npm run solve` starts from a startup snapshot of this file (scripts/build-solve.mjs): the engine is
+// loaded and warmed once at build time, and a run from the snapshot gets its arguments after node alone.
+if (startupSnapshot.isBuildingSnapshot()) {
+  solveNetwork("port out 0\nSensor vsource emf 0 = Vs\nWinding resistor emf out = Rs\n");
+  startupSnapshot.setDeserializeMainFunction(() => run(process.argv.slice(1)));
+} else {
+  run(process.argv.slice(2));
 }

@@ -3,6 +3,7 @@ import { existsSync } from "node:fs";
 import { join, resolve } from "node:path";
 import type pg from "pg";
 import type { Logger } from "pino";
+import { checkHost } from "./auth/hosts.js";
 import { createLucia } from "./auth/lucia.js";
 import { createRateLimits } from "./auth/rate-limits.js";
 import { checkOrigin, loadSession } from "./auth/session.js";
@@ -56,13 +57,16 @@ export function createApp(context: AppContext): Express {
 
   const app = express();
   app.disable("x-powered-by");
-  app.set("trust proxy", "loopback");
+  // Off unless TRUST_PROXY names the balancers: otherwise any client could pick its own address for the rate limits.
+  app.set("trust proxy", settings.trustProxy);
   app.use(requestLogger(log));
   // CSP of exactly what the client loads, nosniff, no referrer, no framing; HSTS only in production.
   app.use(securityHeaders(settings.production));
   app.use(express.json({ limit: settings.jsonBodyBytes, reviver: refuseNul }));
 
+  // Health stays open to any name: balancers probe by address.
   app.use("/api/health", healthRouter(context.pool));
+  app.use(checkHost(settings.publicUrl));
   app.use("/api", checkOrigin(settings.publicUrl), loadSession(services.auth));
   app.use(
     "/api",

@@ -1,5 +1,6 @@
 // Every setting the server reads, with its default, in one place (documented in README.md).
-import { availableParallelism } from "node:os";
+import { availableParallelism, hostname } from "node:os";
+import { DEFAULT_EXPRESSION_BOUNDS, type ExpressionBounds } from "../shared/engine/algebra/expression-bounds.js";
 
 const env = process.env;
 
@@ -8,6 +9,18 @@ function numberFrom(name: string, fallback: number): number {
   if (raw === undefined || raw === "") return fallback;
   const value = Number(raw);
   if (!Number.isFinite(value)) throw new Error(`${name} must be a number, got "${raw}"`);
+  return value;
+}
+
+// Express's "trust proxy": off (the socket's address is the client's), a hop count, or addresses/subnets
+// of the balancers whose X-Forwarded-For is believed (e.g. "loopback" or "10.0.0.0/8, 192.168.1.5").
+export type TrustProxy = boolean | number | string;
+
+export function trustProxyFrom(raw: string | undefined): TrustProxy {
+  const value = (raw ?? "").trim();
+  if (value === "" || value === "false" || value === "0") return false;
+  if (value === "true") return true;
+  if (/^[1-9][0-9]*$/.test(value)) return Number(value);
   return value;
 }
 
@@ -26,6 +39,9 @@ export const config = {
   publicUrl: (env.PUBLIC_URL || servedUrl).replace(/\/+$/, ""),
   dbPoolSize: numberFrom("DB_POOL_SIZE", 10),
   logLevel: env.LOG_LEVEL ?? (nodeEnv === "test" ? "silent" : "info"),
+  trustProxy: trustProxyFrom(env.TRUST_PROXY),
+  // One name per server process that survives its restart: its unfinished solve jobs are failed at start-up.
+  instanceName: env.INSTANCE_NAME || `${hostname()}:${port}`,
   mail: {
     // Without SMTP_HOST the server starts the local capture server and sends to it.
     smtpHost: env.SMTP_HOST ?? "",
@@ -52,8 +68,22 @@ export const config = {
     maxElements: numberFrom("SOLVE_MAX_ELEMENTS", 60),
     maxSymbols: numberFrom("SOLVE_MAX_SYMBOLS", 40),
     maxResultTerms: numberFrom("SOLVE_MAX_RESULT_TERMS", 20_000),
+    // Stored size of one revision (results and steps, as JSON); larger optional parts are left out.
+    maxRevisionBytes: numberFrom("REVISION_MAX_BYTES", 4 * 1024 * 1024),
+    // Bytes of steps each process keeps in memory for repeated reads of the same revisions.
+    stepCacheBytes: numberFrom("STEP_CACHE_MB", 64) * 1024 * 1024,
     waitMs: numberFrom("SOLVE_WAIT_MS", 2_000),
     queueMax: numberFrom("SOLVE_QUEUE_MAX", 32),
+    // Solves queued or running at once for one person and for one team (per process); beyond, 429.
+    maxPerUser: numberFrom("SOLVE_MAX_PER_USER", 4),
+    maxPerTeam: numberFrom("SOLVE_MAX_PER_TEAM", 8),
+  },
+  // Size bounds on every typed expression, checked before it is parsed (422 expression_too_large).
+  expressions: {
+    maxChars: numberFrom("EXPRESSION_MAX_CHARS", DEFAULT_EXPRESSION_BOUNDS.maxChars),
+    maxTerms: numberFrom("EXPRESSION_MAX_TERMS", DEFAULT_EXPRESSION_BOUNDS.maxTerms),
+    maxDepth: numberFrom("EXPRESSION_MAX_DEPTH", DEFAULT_EXPRESSION_BOUNDS.maxDepth),
+    maxExponent: numberFrom("EXPRESSION_MAX_EXPONENT", DEFAULT_EXPRESSION_BOUNDS.maxExponent),
   },
   demoPassword: env.DEMO_PASSWORD ?? "sensor-lab-demo",
 };
@@ -68,9 +98,12 @@ export interface AppSettings {
   publicUrl: string;
   mailFrom: string;
   logLevel: string;
+  trustProxy: TrustProxy;
+  instanceName: string;
   limits: typeof config.limits;
   jsonBodyBytes: number;
   solve: SolveSettings;
+  expressions: ExpressionBounds;
 }
 
 export function defaultSettings(): AppSettings {
@@ -79,8 +112,11 @@ export function defaultSettings(): AppSettings {
     publicUrl: config.publicUrl,
     mailFrom: config.mail.from,
     logLevel: config.logLevel,
+    trustProxy: config.trustProxy,
+    instanceName: config.instanceName,
     limits: { ...config.limits },
     jsonBodyBytes: config.jsonBodyBytes,
     solve: { ...config.solve },
+    expressions: { ...config.expressions },
   };
 }

@@ -8,6 +8,7 @@ import { startCaptureServerNear, type CaptureServer } from "./mail/capture-serve
 import { createSmtpMailer, smtpTarget } from "./mail/mailer.js";
 import { createLogger } from "./lib/logging.js";
 import { createSolver } from "./solver/pool.js";
+import { failInterruptedJobs } from "./domain/solve-jobs.js";
 
 const log = createLogger(config.logLevel);
 const pool = createPool(config.databaseUrl, config.dbPoolSize);
@@ -20,6 +21,9 @@ if (!config.mail.smtpHost) {
   capture = await startCaptureServerNear(db, config.mail.capturePort);
   console.log(`[portfold] mail capture (SMTP) on ${capture.host}:${capture.port}${isProduction ? "" : `; read it at ${ownUrl}/dev/mailbox`}`);
 }
+// Jobs this process left unfinished when it last stopped are failed now, not after the staleness wait.
+const interrupted = await failInterruptedJobs(db, config.instanceName).catch(() => 0);
+if (interrupted > 0) log.warn({ interrupted }, "solve jobs left unfinished by the previous run were marked failed");
 const solver = createSolver(defaultSettings().solve);
 // Threads start now, so the first solve does not wait for the engine to load.
 solver.warm();

@@ -1,7 +1,7 @@
 import type { RequestHandler, Response } from "express";
 import { verifyRequestOrigin, type Session, type User } from "lucia";
 import { HttpError } from "../lib/errors.js";
-import type { Auth } from "./lucia.js";
+import { sessionIdOf, type Auth } from "./lucia.js";
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -18,14 +18,15 @@ export function loadSession(auth: Auth): RequestHandler {
   return async (req, res, next) => {
     res.locals.user = null;
     res.locals.session = null;
-    const sessionId = auth.readSessionCookie(req.headers.cookie ?? "");
-    if (!sessionId) return next();
-    const { session, user } = await auth.validateSession(sessionId);
+    const token = auth.readSessionCookie(req.headers.cookie ?? "");
+    if (!token) return next();
+    const { session, user } = await auth.validateSession(sessionIdOf(token));
     if (!session) {
       res.appendHeader("Set-Cookie", auth.createBlankSessionCookie().serialize());
       return next();
     }
-    if (session.fresh) res.appendHeader("Set-Cookie", auth.createSessionCookie(session.id).serialize());
+    // The cookie keeps the token; session.id is only its hash.
+    if (session.fresh) res.appendHeader("Set-Cookie", auth.createSessionCookie(token).serialize());
     res.locals.user = user;
     res.locals.session = session;
     next();
@@ -52,8 +53,8 @@ export function signedInUser(res: Response): User {
   return user;
 }
 
-export function setSessionCookie(res: Response, auth: Auth, sessionId: string): void {
-  res.appendHeader("Set-Cookie", auth.createSessionCookie(sessionId).serialize());
+export function setSessionCookie(res: Response, auth: Auth, token: string): void {
+  res.appendHeader("Set-Cookie", auth.createSessionCookie(token).serialize());
 }
 
 export function clearSessionCookie(res: Response, auth: Auth): void {

@@ -72,4 +72,5 @@ export const demoReview = {
   },
   note: { stepId: "result.thevenin", stepKind: "equivalent", body: "Please add the Rth limit for beta → 0 so we can compare with the plain bridge." },
   verdict: "needs_changes" as const,
+  verdictNote: "Add the beta → 0 limit and state the sign of beta before this goes to layout.",
 };

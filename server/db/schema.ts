@@ -35,6 +35,8 @@ export const users = pgTable("users", {
   // null: no password set, so password sign-in is impossible for this row.
   passwordHash: text("password_hash"),
   emailVerifiedAt: timestamp("email_verified_at", { withTimezone: true }),
+  // Account setting: mails about notes and verdicts on the revisions one takes part in.
+  reviewMail: boolean("review_mail").notNull().default(true),
   createdAt: createdAt(),
 });
 
@@ -74,6 +76,8 @@ export const teams = pgTable("teams", {
   name: text("name").notNull(),
   // Set on the one personal team every user gets at sign-up; that team cannot be deleted.
   personalUserId: text("personal_user_id").unique().references(() => users.id, { onDelete: "cascade" }),
+  // Approvals (by people other than the revision's author) before a revision reads as approved.
+  requiredApprovals: integer("required_approvals").notNull().default(1),
   createdAt: createdAt(),
 });
 
@@ -164,7 +168,8 @@ export const revisionSteps = pgTable(
 
 // ---- review ----
 
-// A history: the current verdict of a revision is its latest row (no row = open).
+// A history, never updated: each person's latest row is their standing verdict ("open" = withdrawn),
+// and the revision's state is derived from those (server/domain/verdicts.ts).
 export const revisionVerdicts = pgTable(
   "revision_verdicts",
   {
@@ -172,10 +177,25 @@ export const revisionVerdicts = pgTable(
     revisionId: uuid("revision_id").notNull().references(() => revisions.id, { onDelete: "cascade" }),
     verdict: text("verdict", { enum: verdicts }).notNull(),
     userId: text("user_id").references(() => users.id, { onDelete: "set null" }),
+    // The giver's role in the team when it was given (null on rows older than this column).
+    role: text("role", { enum: roles }),
+    note: text("note"),
+    // On a withdrawal ("open"): the verdict it takes back.
+    withdrawsId: uuid("withdraws_id"),
     createdAt: createdAt(),
   },
-  (table) => [index("revision_verdicts_revision_idx").on(table.revisionId, table.createdAt)],
+  (table) => [
+    index("revision_verdicts_revision_idx").on(table.revisionId, table.createdAt),
+    foreignKey({ name: "revision_verdicts_withdraws_fk", columns: [table.withdrawsId], foreignColumns: [table.id] }).onDelete("cascade"),
+  ],
 );
+
+// Where a note points inside its step: a highlighted stretch of the explanation or a term of the formula.
+export interface NoteAnchor {
+  part: "explanation" | "formula";
+  text: string;
+  start?: number;
+}
 
 export const comments = pgTable(
   "comments",
@@ -191,6 +211,12 @@ export const comments = pgTable(
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
     // Deleted comments keep their row so the replies under them stay in place.
     deletedAt: timestamp("deleted_at", { withTimezone: true }),
+    anchor: jsonb("anchor").$type<NoteAnchor>(),
+    // On a thread's first comment: the thread's state, with who changed it last and when.
+    resolvedAt: timestamp("resolved_at", { withTimezone: true }),
+    resolvedBy: text("resolved_by").references(() => users.id, { onDelete: "set null" }),
+    reopenedAt: timestamp("reopened_at", { withTimezone: true }),
+    reopenedBy: text("reopened_by").references(() => users.id, { onDelete: "set null" }),
   },
   (table) => [
     foreignKey({
@@ -299,6 +325,8 @@ export const solveJobs = pgTable(
     createdAt: createdAt(),
     startedAt: timestamp("started_at", { withTimezone: true }),
     finishedAt: timestamp("finished_at", { withTimezone: true }),
+    // The server process (INSTANCE_NAME) running the solve: when it starts again, its unfinished jobs are failed.
+    runner: text("runner"),
   },
   (table) => [index("solve_jobs_network_idx").on(table.networkId), index("solve_jobs_finished_idx").on(table.finishedAt)],
 );

@@ -65,7 +65,7 @@ async function seed(db: Database) {
       { revisionId: reviewed, stepKey: question.stepKey, parentId: question.id, authorId: demoUser.id, body: thread.answer },
       { revisionId: reviewed, stepKey: anchor(note), authorId: demoReviewer.id, body: note.body },
     ]);
-    await db.insert(revisionVerdicts).values({ revisionId: reviewed, verdict: demoReview.verdict, userId: demoReviewer.id });
+    await db.insert(revisionVerdicts).values({ revisionId: reviewed, verdict: demoReview.verdict, userId: demoReviewer.id, role: "reviewer", note: demoReview.verdictNote });
   }
 }
 

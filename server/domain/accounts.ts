@@ -1,6 +1,7 @@
 // Accounts: sign-up with a verified address, sign-in, password reset by e-mail link.
 import { and, asc, eq, gt, isNull, sql } from "drizzle-orm";
 import { generateIdFromEntropySize } from "lucia";
+import { createSessionToken } from "../auth/lucia.js";
 import { hashPassword, verifyDecoy, verifyPassword } from "../auth/password.js";
 import type { Database } from "../db/client.js";
 import { emailTokens, teamMembers, teams, users, type EmailTokenPurpose, type Role } from "../db/schema.js";
@@ -85,9 +86,9 @@ export async function signIn(db: Database, email: string, password: string): Pro
   return publicUser(row);
 }
 
-export async function startSession(services: Services, userId: string): Promise<string> {
-  const session = await services.auth.createSession(userId, {});
-  return session.id;
+/** A new session for the user; returns the token for the cookie (the database keeps its hash). */
+export function startSession(services: Services, userId: string): Promise<string> {
+  return createSessionToken(services.auth, userId);
 }
 
 async function issueEmailToken(db: Database | Transaction, userId: string, purpose: EmailTokenPurpose): Promise<string> {
@@ -126,13 +127,17 @@ export async function verifyEmail(db: Database, token: string): Promise<PublicUs
   });
 }
 
-// Answers the same whether or not the address has an account, so it cannot be used to probe;
-// the mail goes out after the answer, so neither can the time it takes.
-export async function requestPasswordReset(services: Services, email: string): Promise<void> {
+// Answers the same, in the same time, whether or not the address has an account: the request only
+// hands the address on; looking it up, issuing the token and mailing happen after the answer.
+export function requestPasswordReset(services: Services, email: string): void {
+  void sendPasswordReset(services, email).catch((error: unknown) => services.log.error({ err: error }, "a password-reset mail could not be prepared"));
+}
+
+async function sendPasswordReset(services: Services, email: string): Promise<void> {
   const [row] = await services.db.select().from(users).where(eq(users.email, email));
   if (!row) return;
   const token = await issueEmailToken(services.db, row.id, "reset_password");
-  void services.mailer.send(passwordResetMail(row.email, row.name, link(services, `/reset-password?token=${token}`)));
+  await services.mailer.send(passwordResetMail(row.email, row.name, link(services, `/reset-password?token=${token}`)));
 }
 
 export async function resetPassword(services: Services, token: string, password: string): Promise<PublicUser> {
@@ -161,7 +166,11 @@ export interface TeamMembership {
   personal: boolean;
 }
 
-export async function accountOverview(db: Database, userId: string): Promise<{ user: PublicUser; teams: TeamMembership[] }> {
+export interface AccountSettings {
+  reviewMail: boolean;
+}
+
+export async function accountOverview(db: Database, userId: string): Promise<{ user: PublicUser; teams: TeamMembership[]; settings: AccountSettings }> {
   const [row] = await db.select().from(users).where(eq(users.id, userId));
   if (!row) throw new HttpError(401, "unauthenticated", "Sign in to continue.");
   const memberships = await db
@@ -173,5 +182,12 @@ export async function accountOverview(db: Database, userId: string): Promise<{ u
   return {
     user: publicUser(row),
     teams: memberships.map((m) => ({ id: m.id, name: m.name, role: m.role, personal: m.personalUserId === userId })),
+    settings: { reviewMail: row.reviewMail },
   };
+}
+
+export async function updateAccountSettings(db: Database, userId: string, changes: Partial<AccountSettings>): Promise<AccountSettings> {
+  const [row] = await db.update(users).set(changes).where(eq(users.id, userId)).returning({ reviewMail: users.reviewMail });
+  if (!row) throw new HttpError(401, "unauthenticated", "Sign in to continue.");
+  return { reviewMail: row.reviewMail };
 }

@@ -3,13 +3,14 @@ import { and, asc, eq } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { attachments, users } from "../db/schema.js";
 import { HttpError, notFound } from "../lib/errors.js";
+import { withoutControls } from "../lib/validate.js";
 import { requireNetworkRole } from "./access.js";
 
 // The type is read from the file's first bytes (its signature), not trusted from the client.
-const signatures: { type: string; bytes: number[] }[] = [
-  { type: "application/pdf", bytes: [0x25, 0x50, 0x44, 0x46, 0x2d] }, // "%PDF-"
-  { type: "image/png", bytes: [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a] },
-  { type: "image/jpeg", bytes: [0xff, 0xd8, 0xff] },
+const signatures: { type: string; bytes: number[]; extensions: string[] }[] = [
+  { type: "application/pdf", bytes: [0x25, 0x50, 0x44, 0x46, 0x2d], extensions: [".pdf"] }, // "%PDF-"
+  { type: "image/png", bytes: [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a], extensions: [".png"] },
+  { type: "image/jpeg", bytes: [0xff, 0xd8, 0xff], extensions: [".jpg", ".jpeg"] },
 ];
 
 export const attachmentTypes = signatures.map((s) => s.type);
@@ -19,11 +20,17 @@ export function sniffContentType(content: Buffer): string | null {
   return match?.type ?? null;
 }
 
-// Keeps the name a person gave the file, minus anything that could break a header or a path.
-export function cleanFilename(name: string): string {
-  const base = name.split(/[\\/]/).pop() ?? "";
-  const cleaned = base.replace(/[\u0000-\u001f\u007f"]/g, "").trim().slice(0, 200);
-  return cleaned || "attachment";
+/**
+ * Keeps the name a person gave the file, minus anything that could break a header or a path or make
+ * it read as something else (controls, bidi overrides), ending in the extension of its sniffed type.
+ */
+export function cleanFilename(name: string, contentType: string): string {
+  const { extensions } = signatures.find((s) => s.type === contentType)!;
+  const base = withoutControls((name.split(/[\\/]/).pop() ?? "").replace(/"/g, ""));
+  const dot = base.lastIndexOf(".");
+  const own = dot > 0 ? base.slice(dot).toLowerCase() : "";
+  const stem = (dot > 0 ? base.slice(0, dot) : base).slice(0, 190).trim() || "attachment";
+  return `${stem}${extensions.includes(own) ? own : extensions[0]}`;
 }
 
 type AttachmentRow = typeof attachments.$inferSelect;
@@ -57,7 +64,7 @@ export async function addAttachment(
   }
   const [row] = await db
     .insert(attachments)
-    .values({ networkId, filename: cleanFilename(file.originalname), contentType, size: file.buffer.length, content: file.buffer, uploadedBy: userId })
+    .values({ networkId, filename: cleanFilename(file.originalname, contentType), contentType, size: file.buffer.length, content: file.buffer, uploadedBy: userId })
     .returning();
   const [uploader] = await db.select({ name: users.name }).from(users).where(eq(users.id, userId));
   return view(row, uploader?.name ?? null);

@@ -4,8 +4,9 @@ import type { Database } from "../db/client.js";
 import { teamCells, users } from "../db/schema.js";
 import { HttpError, notFound } from "../lib/errors.js";
 import { requireTeamRole } from "./access.js";
-import { BUILT_IN_CELLS, externalCellIds, readCellDefinition, type CellDefinition, type Network } from "./engine.js";
-import type { Transaction } from "./services.js";
+import { BUILT_IN_CELLS, externalCellIds, type CellDefinition, type Network } from "./engine.js";
+import { readCell } from "./reading.js";
+import type { Services, Transaction } from "./services.js";
 
 export interface CellView {
   /** The id networks use in a cell instance. */
@@ -51,9 +52,10 @@ export async function listCells(db: Database, teamId: string, userId: string): P
   return { cells: rows.map((r) => view(r.cell, r.authorName)) };
 }
 
-export async function createCell(db: Database, teamId: string, userId: string, input: unknown): Promise<CellView> {
+export async function createCell(services: Services, teamId: string, userId: string, input: unknown): Promise<CellView> {
+  const { db } = services;
   await requireTeamRole(db, teamId, userId, "editor");
-  const { definition, diagnostics } = readCellDefinition(input);
+  const { definition, diagnostics } = await readCell(services, input);
   if (!definition) throw new HttpError(400, "invalid_cell", "The cell definition is not valid; see the diagnostics.", { definition: diagnostics[0]?.message ?? "invalid" }, diagnostics);
   // A team cell named like a built-in one would silently replace it in every network of the team.
   if (BUILT_IN_CELLS.has(definition.id)) throw nameTaken(definition.id, true);

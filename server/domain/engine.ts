@@ -1,5 +1,6 @@
 // The one door from the server into the engine: reading circuits and netlists, solving.
 import { parseValue } from "../../shared/engine/algebra/index.js";
+import { expressionBreach, type ExpressionBounds, type ExpressionBreach } from "../../shared/engine/algebra/expression-bounds.js";
 import {
   BUILT_IN_CELLS,
   NETLIST_EXTENSION,
@@ -18,6 +19,79 @@ import { HttpError } from "../lib/errors.js";
 export { BUILT_IN_CELLS, NETLIST_EXTENSION, solveNetwork };
 export type { CellDefinition, Diagnostic, Network, SolveOptions, SolveResult };
 
+const boundSetting: Record<ExpressionBreach["bound"], string> = {
+  characters: "EXPRESSION_MAX_CHARS",
+  terms: "EXPRESSION_MAX_TERMS",
+  depth: "EXPRESSION_MAX_DEPTH",
+  exponent: "EXPRESSION_MAX_EXPONENT",
+};
+
+const boundWords: Record<ExpressionBreach["bound"], string> = {
+  characters: "characters",
+  terms: "terms (numbers and names)",
+  depth: "levels of nested brackets",
+  exponent: "as the power it reaches (exponents multiply through nested brackets)",
+};
+
+/** Every user-typed expression of a network (JSON or netlist text) or a cell definition, with where it sits. */
+function typedExpressions(input: unknown): { where: string; text: string }[] {
+  if (typeof input === "string" && input.trimStart().startsWith("{")) {
+    try {
+      return typedExpressions(JSON.parse(input));
+    } catch {
+      return [];
+    }
+  }
+  if (typeof input === "string") {
+    return input.split(/\r?\n/).flatMap((line, i) => {
+      const eq = line.indexOf("=");
+      return eq < 0 ? [] : [{ where: `line ${i + 1}`, text: line.slice(eq + 1) }];
+    });
+  }
+  const found: { where: string; text: string }[] = [];
+  const elementValues = (elements: unknown, prefix: string) => {
+    if (!Array.isArray(elements)) return;
+    elements.slice(0, 10_000).forEach((e, i) => {
+      const value = (e as { value?: unknown })?.value;
+      if (typeof value === "string") found.push({ where: `${prefix}elements[${i}].value`, text: value });
+    });
+  };
+  const network = (input ?? {}) as { elements?: unknown; cellDefinitions?: unknown; cells?: unknown };
+  elementValues(network.elements, "");
+  if (Array.isArray(network.cellDefinitions)) network.cellDefinitions.slice(0, 1_000).forEach((d, j) => elementValues((d as { elements?: unknown })?.elements, `cellDefinitions[${j}].`));
+  if (Array.isArray(network.cells)) {
+    network.cells.slice(0, 10_000).forEach((c, k) => {
+      const symbols = (c as { symbols?: unknown })?.symbols;
+      if (symbols && typeof symbols === "object") for (const [name, text] of Object.entries(symbols)) if (typeof text === "string") found.push({ where: `cells[${k}].symbols.${name}`, text });
+    });
+  }
+  return found;
+}
+
+/**
+ * Refuses, before anything parses it, a network or cell whose typed expressions go past a size bound:
+ * 422 `expression_too_large` naming the bound, its setting and where the expression sits. Returns
+ * how many typed characters it checked.
+ */
+export function checkExpressionBounds(input: unknown, bounds: ExpressionBounds): number {
+  let typedChars = 0;
+  for (const { where, text } of typedExpressions(input)) {
+    typedChars += text.length;
+    const found = expressionBreach(text, bounds);
+    if (!found) continue;
+    const setting = boundSetting[found.bound];
+    throw new HttpError(
+      422,
+      "expression_too_large",
+      `The expression at ${where} is too large to read: it has ${found.actual} ${boundWords[found.bound]}, over the bound of ${found.limit} set by ${setting}.`,
+      { [where]: `over the ${found.bound} bound of ${found.limit}` },
+      undefined,
+      { details: { bound: { ...found, setting, where } } },
+    );
+  }
+  return typedChars;
+}
+
 /**
  * The engine's reader, held to its contract: whatever the input, an answer with diagnostics. Should
  * the reader itself fail on some input, that is reported as a diagnostic of the input (a 400), not
@@ -31,41 +105,6 @@ export function parseNetwork(input: unknown): ParseResult {
     const message = "Portfold could not read this network: its reader stopped at an unexpected construct. Check each line against the netlist form.";
     return { network: null, format, diagnostics: [{ code: "parse-error", severity: "error", message, elements: [], nodes: [] }] };
   }
-}
-
-// A stored circuit must have the engine's shape; whether it is solvable is the solve's business.
-export function readCircuit(input: Record<string, unknown>, field = "circuit"): Network {
-  const { network, diagnostics } = parseNetwork(input);
-  if (!network) {
-    throw new HttpError(400, "invalid_circuit", "The circuit is not in Portfold's network format.", { [field]: diagnostics[0]?.message ?? "invalid" }, diagnostics);
-  }
-  return network;
-}
-
-/**
- * A circuit and/or its netlist text from a request. Text that is sent must read without errors;
- * the circuit is taken from the text when only the text is sent. Null text: made from JSON.
- */
-export function readCircuitAndText(body: { circuit?: Record<string, unknown>; netlist?: string | null }): { circuit: Network; netlist: string | null | undefined } {
-  if (typeof body.netlist === "string") {
-    const read = parseNetwork(body.netlist);
-    if (!read.network || read.format !== "text") {
-      throw new HttpError(400, "invalid_netlist", "The netlist text has errors; each one names its line and column.", { netlist: read.diagnostics[0]?.message ?? "not a Portfold netlist" }, read.diagnostics);
-    }
-    return { circuit: body.circuit !== undefined ? readCircuit(body.circuit) : read.network, netlist: body.netlist };
-  }
-  if (body.circuit === undefined) throw new HttpError(400, "invalid_circuit", "Send the circuit with its text set to null.", { circuit: "missing" });
-  return { circuit: readCircuit(body.circuit), netlist: body.netlist };
-}
-
-// An uploaded file: our JSON or our text netlist (the engine tells them apart); errors carry line and column.
-export function readNetworkFile(text: string): { network: Network; format: "json" | "text" } {
-  const { network, diagnostics, format } = parseNetwork(text);
-  if (!network) {
-    const message = format === "text" ? "The netlist has errors; each one names its line and column." : "The file is not a Portfold network in JSON.";
-    throw new HttpError(400, "invalid_network_file", message, undefined, diagnostics);
-  }
-  return { network, format };
 }
 
 const definitionProblem = (message: string, path: (string | number)[], elements: string[] = []): Diagnostic => ({ code: "schema-invalid", severity: "error", message, elements, nodes: [], path });

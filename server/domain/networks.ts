@@ -3,9 +3,13 @@ import { randomBytes } from "node:crypto";
 import { and, asc, count, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { networks, teamMembers, users, type Role } from "../db/schema.js";
+import { withoutControls } from "../lib/validate.js";
 import { HttpError, notFound } from "../lib/errors.js";
 import { requireNetworkRole, requireTeamRole, type NetworkRow } from "./access.js";
-import { NETLIST_EXTENSION, readNetworkFile, type Network } from "./engine.js";
+import { revisionStateSql } from "./verdicts.js";
+import { NETLIST_EXTENSION, type Network } from "./engine.js";
+import { readNetworkFile } from "./reading.js";
+import type { Services } from "./services.js";
 
 export interface NetworkView {
   id: string;
@@ -27,11 +31,13 @@ export interface NetworkView {
 
 // The latest revision number and that revision's current verdict, read beside each network.
 const latestRevision = sql<number | null>`(select max(r.number) from revisions r where r.network_id = ${networks.id})`;
-const latestVerdict = sql<string | null>`(
-  select v.verdict from revision_verdicts v join revisions r on r.id = v.revision_id
-  where r.network_id = ${networks.id}
-    and r.number = (select max(r2.number) from revisions r2 where r2.network_id = ${networks.id})
-  order by v.created_at desc, v.id desc limit 1)`;
+const latestVerdict = revisionStateSql(
+  sql`(select r.id from revisions r where r.network_id = ${networks.id} order by r.number desc limit 1)`,
+  sql`(select r.created_by from revisions r where r.network_id = ${networks.id} order by r.number desc limit 1)`,
+  sql`(select t.required_approvals from teams t where t.id = ${networks.teamId})`,
+);
+// Never solved: no verdict at all.
+const latestVerdictOrNull = sql<string | null>`(case when ${latestRevision} is null then null else ${latestVerdict} end)`;
 
 function view(row: NetworkRow, role: Role, author: { id: string; name: string } | null, latest: number | null): NetworkView {
   const circuit = row.circuit as Network;
@@ -98,7 +104,7 @@ export async function listNetworks(db: Database, teamId: string, userId: string,
     title: sql`lower(${networks.title})`,
     author: sql`lower(${users.name})`,
     lastRevision: latestRevision,
-    verdict: latestVerdict,
+    verdict: latestVerdictOrNull,
     updatedAt: sql`${networks.updatedAt}`,
     createdAt: sql`${networks.createdAt}`,
   }[query.sort];
@@ -114,7 +120,7 @@ export async function listNetworks(db: Database, teamId: string, userId: string,
       createdAt: networks.createdAt,
       updatedAt: networks.updatedAt,
       latestRevision,
-      verdict: latestVerdict,
+      verdict: latestVerdictOrNull,
     })
     .from(networks)
     .leftJoin(users, eq(users.id, networks.authorId))
@@ -212,12 +218,14 @@ export async function duplicateNetwork(db: Database, networkId: string, userId: 
   });
 }
 
+export const networkTitleMax = 200;
+
 const importExtensions = [".json", NETLIST_EXTENSION];
 const importTypes = ["application/json", "text/plain"];
 
 // Import from a file: our JSON or our text netlist, as UTF-8 text; refused with the engine's diagnostics.
 export async function importNetwork(
-  db: Database,
+  services: Services,
   teamId: string,
   userId: string,
   file: { originalname: string; mimetype: string; buffer: Buffer },
@@ -236,8 +244,8 @@ export async function importNetwork(
     text = "\u0000";
   }
   if (text.includes("\u0000")) throw new HttpError(415, "unsupported_type", "The file is not UTF-8 text.", { file: "binary content" });
-  const { network, format } = readNetworkFile(text);
-  const base = dot > 0 ? filename.slice(0, dot) : filename;
-  const created = await createNetwork(db, teamId, userId, { title: title?.trim() || base.trim() || "Imported network", circuit: network, netlist: format === "text" ? text : null });
+  const { network, format } = await readNetworkFile(services, text);
+  const base = withoutControls(dot > 0 ? filename.slice(0, dot) : filename).slice(0, networkTitleMax).trim();
+  const created = await createNetwork(services.db, teamId, userId, { title: title || base || "Imported network", circuit: network, netlist: format === "text" ? text : null });
   return { ...created, importedFrom: format };
 }

@@ -1,14 +1,18 @@
-// Review of a revision: comments anchored to a step, one level of replies, and the verdict.
-import { and, asc, eq } from "drizzle-orm";
+// Review notes on a revision: threads anchored to a step (optionally to part of it), one level of
+// replies, resolved and reopened by the people the thread concerns. Verdicts live in verdicts.ts.
+import { and, asc, eq, inArray, or } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
 import type { Database } from "../db/client.js";
-import { comments, revisionSteps, revisionVerdicts, users, type Verdict } from "../db/schema.js";
+import { comments, revisionSteps, users, type NoteAnchor } from "../db/schema.js";
 import { HttpError, forbidden, notFound } from "../lib/errors.js";
-import { commentMail, verdictMail } from "../mail/templates.js";
+import { commentMail } from "../mail/templates.js";
 import type { PublicUser } from "./accounts.js";
+import { mailPeople } from "./review-mail.js";
 import { permalink, requireRevision } from "./revisions.js";
 import { link, type Services } from "./services.js";
 
 type CommentRow = typeof comments.$inferSelect;
+type Person = { id: string; name: string } | null;
 
 export interface CommentView {
   id: string;
@@ -19,46 +23,84 @@ export interface CommentView {
   deleted: boolean;
   createdAt: string;
   updatedAt: string;
+  anchor: NoteAnchor | null;
+  // Thread state, on a thread's first comment (null on replies and open threads).
+  resolved: { by: Person; at: string } | null;
+  reopened: { by: Person; at: string } | null;
   replies: CommentView[];
 }
 
-function view(row: CommentRow, authorName: string | null): CommentView {
+const resolver = alias(users, "resolver");
+const reopener = alias(users, "reopener");
+const who = (id: string | null, name: string | null): Person => (id && name !== null ? { id, name } : null);
+
+function view(row: CommentRow, names: { author: string | null; resolver?: string | null; reopener?: string | null }): CommentView {
   const deleted = row.deletedAt !== null;
   return {
     id: row.id,
     stepId: row.stepKey,
     parentId: row.parentId,
-    author: !deleted && row.authorId && authorName ? { id: row.authorId, name: authorName } : null,
+    author: !deleted && row.authorId && names.author ? { id: row.authorId, name: names.author } : null,
     body: deleted ? "" : row.body,
     deleted,
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
+    anchor: row.anchor ?? null,
+    resolved: row.resolvedAt ? { by: who(row.resolvedBy, names.resolver ?? null), at: row.resolvedAt.toISOString() } : null,
+    reopened: row.reopenedAt ? { by: who(row.reopenedBy, names.reopener ?? null), at: row.reopenedAt.toISOString() } : null,
     replies: [],
   };
 }
 
-export async function listComments(db: Database, networkId: string, number: number, userId: string): Promise<CommentView[]> {
-  const { revision } = await requireRevision(db, networkId, number, userId, "viewer");
+async function threadsOf(db: Database, revisionId: string): Promise<CommentView[]> {
   const rows = await db
-    .select({ comment: comments, authorName: users.name })
+    .select({ comment: comments, authorName: users.name, resolverName: resolver.name, reopenerName: reopener.name })
     .from(comments)
     .leftJoin(users, eq(users.id, comments.authorId))
-    .where(eq(comments.revisionId, revision.id))
+    .leftJoin(resolver, eq(resolver.id, comments.resolvedBy))
+    .leftJoin(reopener, eq(reopener.id, comments.reopenedBy))
+    .where(eq(comments.revisionId, revisionId))
     .orderBy(asc(comments.createdAt), asc(comments.id));
   const threads = new Map<string, CommentView>();
-  for (const { comment, authorName } of rows) {
-    const entry = view(comment, authorName);
+  for (const { comment, authorName, resolverName, reopenerName } of rows) {
+    const entry = view(comment, { author: authorName, resolver: resolverName, reopener: reopenerName });
     if (comment.parentId === null) threads.set(comment.id, entry);
     else threads.get(comment.parentId)?.replies.push(entry);
   }
   return [...threads.values()];
 }
 
-// The network's author hears about review activity, unless the author did it.
-async function notifyAuthor(services: Services, authorId: string | null, actor: PublicUser, mail: (to: string) => Parameters<Services["mailer"]["send"]>[0]) {
-  if (!authorId || authorId === actor.id) return;
-  const [author] = await services.db.select({ email: users.email }).from(users).where(eq(users.id, authorId));
-  if (author) await services.mailer.send(mail(author.email));
+export async function listComments(db: Database, networkId: string, number: number, userId: string): Promise<CommentView[]> {
+  const { revision } = await requireRevision(db, networkId, number, userId, "viewer");
+  return threadsOf(db, revision.id);
+}
+
+// A thread is open until resolved, unless everything in it was deleted.
+export function isOpenThread(thread: CommentView): boolean {
+  return thread.resolved === null && (!thread.deleted || thread.replies.some((reply) => !reply.deleted));
+}
+
+/** Open note threads per revision id. */
+export async function openNoteCounts(db: Database, revisionIds: string[]): Promise<Map<string, number>> {
+  const out = new Map<string, number>(revisionIds.map((id) => [id, 0]));
+  if (revisionIds.length === 0) return out;
+  const rows = await db
+    .select({ id: comments.id, revisionId: comments.revisionId, parentId: comments.parentId, deletedAt: comments.deletedAt, resolvedAt: comments.resolvedAt })
+    .from(comments)
+    .where(inArray(comments.revisionId, revisionIds));
+  const live = new Set(rows.filter((r) => r.deletedAt === null).map((r) => r.parentId ?? r.id));
+  for (const row of rows) if (row.parentId === null && row.resolvedAt === null && live.has(row.id)) out.set(row.revisionId, out.get(row.revisionId)! + 1);
+  return out;
+}
+
+// A highlighted stretch must be in the step as stored: a quote of its explanation, or a term of its formula.
+function checkAnchor(anchor: NoteAnchor, step: { explanation: string; tex: string }): NoteAnchor {
+  const source = anchor.part === "explanation" ? step.explanation : step.tex;
+  const at = anchor.start ?? source.indexOf(anchor.text);
+  if (at < 0 || source.slice(at, at + anchor.text.length) !== anchor.text) {
+    throw new HttpError(400, "unknown_anchor", `The highlighted text is not in this step's ${anchor.part}.`, { anchor: `not part of the step's ${anchor.part}` });
+  }
+  return { part: anchor.part, text: anchor.text, start: at };
 }
 
 export async function addComment(
@@ -66,16 +108,18 @@ export async function addComment(
   networkId: string,
   number: number,
   actor: PublicUser,
-  input: { stepId: string; body: string; parentId?: string },
+  input: { stepId: string; body: string; parentId?: string; anchor?: NoteAnchor },
 ): Promise<CommentView> {
   const { db } = services;
   const { network, revision } = await requireRevision(db, networkId, number, actor.id, "reviewer");
   const [step] = await db
-    .select({ title: revisionSteps.title })
+    .select({ title: revisionSteps.title, explanation: revisionSteps.explanation, tex: revisionSteps.tex })
     .from(revisionSteps)
     .where(and(eq(revisionSteps.revisionId, revision.id), eq(revisionSteps.stepKey, input.stepId)));
   if (!step) throw new HttpError(400, "unknown_step", "This revision has no step with that id.", { stepId: "no such step in this revision" });
   let parentId: string | null = null;
+  if (input.parentId && input.anchor) throw new HttpError(400, "anchor_on_reply", "A reply belongs to its thread's anchor; only a new note takes one.", { anchor: "not on a reply" });
+  const anchor = input.anchor ? checkAnchor(input.anchor, step) : null;
   if (input.parentId) {
     const [parent] = await db.select().from(comments).where(and(eq(comments.id, input.parentId), eq(comments.revisionId, revision.id)));
     if (!parent) throw new HttpError(400, "unknown_parent", "The comment you reply to is not on this revision.", { parentId: "no such comment" });
@@ -85,12 +129,24 @@ export async function addComment(
   }
   const [row] = await db
     .insert(comments)
-    .values({ revisionId: revision.id, stepKey: input.stepId, parentId, authorId: actor.id, body: input.body })
+    .values({ revisionId: revision.id, stepKey: input.stepId, parentId, authorId: actor.id, body: input.body, anchor })
     .returning();
-  await notifyAuthor(services, network.authorId, actor, (to) =>
-    commentMail(to, actor.name, network.title, revision.number, step.title, input.body, link(services, permalink(network.slug, revision.number))),
+  // A new note tells the authors; a reply also tells everyone who wrote in the thread.
+  const thread = parentId
+    ? await db.select({ authorId: comments.authorId }).from(comments).where(and(eq(comments.revisionId, revision.id), or(eq(comments.id, parentId), eq(comments.parentId, parentId))))
+    : [];
+  await mailPeople(services, [revision.createdBy, network.authorId, ...thread.map((c) => c.authorId)], actor.id, (to) =>
+    commentMail(to, {
+      commenter: actor.name,
+      networkTitle: network.title,
+      revision: revision.number,
+      stepTitle: step.title,
+      body: input.body,
+      reply: parentId !== null,
+      url: link(services, permalink(network.slug, revision.number)),
+    }),
   );
-  return view(row, actor.name);
+  return view(row, { author: actor.name });
 }
 
 async function ownComment(db: Database, revisionId: string, commentId: string) {
@@ -104,7 +160,7 @@ export async function editComment(db: Database, networkId: string, number: numbe
   const row = await ownComment(db, revision.id, commentId);
   if (row.authorId !== actor.id) throw forbidden("Only the author of a comment can edit it.");
   const [updated] = await db.update(comments).set({ body, updatedAt: new Date() }).where(eq(comments.id, commentId)).returning();
-  return view(updated, actor.name);
+  return view(updated, { author: actor.name });
 }
 
 // Authors delete their own comments; team owners may remove any.
@@ -115,14 +171,22 @@ export async function deleteComment(db: Database, networkId: string, number: num
   await db.update(comments).set({ deletedAt: new Date(), body: "" }).where(eq(comments.id, commentId));
 }
 
-export const verdictLabel: Record<Verdict, string> = { open: "open", approved: "approved", needs_changes: "needs changes" };
-
-export async function setVerdict(services: Services, networkId: string, number: number, actor: PublicUser, verdict: Verdict) {
-  const { db } = services;
-  const { network, revision } = await requireRevision(db, networkId, number, actor.id, "reviewer");
-  const [row] = await db.insert(revisionVerdicts).values({ revisionId: revision.id, verdict, userId: actor.id }).returning();
-  await notifyAuthor(services, network.authorId, actor, (to) =>
-    verdictMail(to, actor.name, network.title, revision.number, verdictLabel[verdict], link(services, permalink(network.slug, revision.number))),
-  );
-  return { verdict: row.verdict, by: { id: actor.id, name: actor.name }, at: row.createdAt.toISOString() };
+// A thread is resolved or reopened by its first note's author, the revision's author, or a team owner.
+export async function setThreadResolved(db: Database, networkId: string, number: number, commentId: string, actor: PublicUser, resolved: boolean): Promise<CommentView> {
+  const { revision, role } = await requireRevision(db, networkId, number, actor.id, "viewer");
+  const [row] = await db.select().from(comments).where(and(eq(comments.id, commentId), eq(comments.revisionId, revision.id)));
+  if (!row) throw notFound("That comment");
+  if (row.parentId !== null) throw new HttpError(400, "not_a_thread", "Resolve the thread through its first note, not a reply.");
+  if (row.authorId !== actor.id && revision.createdBy !== actor.id && role !== "owner") {
+    throw forbidden("Only the note's author, the revision's author or a team owner can resolve or reopen this thread.");
+  }
+  if (resolved && row.resolvedAt) throw new HttpError(409, "already_resolved", "This thread is resolved already.");
+  if (!resolved && !row.resolvedAt) throw new HttpError(409, "not_resolved", "This thread is open already.");
+  const now = new Date();
+  await db
+    .update(comments)
+    .set(resolved ? { resolvedAt: now, resolvedBy: actor.id } : { resolvedAt: null, resolvedBy: null, reopenedAt: now, reopenedBy: actor.id })
+    .where(eq(comments.id, commentId));
+  const thread = (await threadsOf(db, revision.id)).find((t) => t.id === commentId)!;
+  return thread;
 }

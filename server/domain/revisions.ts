@@ -1,11 +1,14 @@
 // Derivation revisions: immutable solves of a network, numbered per network, steps as rows.
 import { and, asc, desc, eq, inArray, max } from "drizzle-orm";
+import { config } from "../config.js";
 import type { Database } from "../db/client.js";
-import { networks, revisionSteps, revisionVerdicts, revisions, users, type Role, type Verdict } from "../db/schema.js";
+import { networks, revisionSteps, revisions, users, type Role } from "../db/schema.js";
 import { notFound } from "../lib/errors.js";
 import { requireNetworkRole, type NetworkRow } from "./access.js";
 import type { Derivation, StepRecord } from "../solver/derive.js";
 import type { Diagnostic, Network } from "./engine.js";
+import { openNoteCounts } from "./reviews.js";
+import { approvedBefore, revisionStates, type RevisionState } from "./verdicts.js";
 
 // What a revision stores is exactly what a solve derives (server/solver/derive.ts).
 export type StepInput = StepRecord;
@@ -13,11 +16,7 @@ export type RevisionInput = Derivation;
 
 type RevisionRow = typeof revisions.$inferSelect;
 
-export interface VerdictView {
-  verdict: Verdict;
-  by: { id: string; name: string } | null;
-  at: string | null;
-}
+export type VerdictView = RevisionState;
 
 export function permalink(slug: string, number: number): string {
   return `/n/${slug}/r/${number}`;
@@ -62,37 +61,22 @@ export async function storeRevision(db: Database, networkId: string, userId: str
   });
 }
 
-export async function currentVerdicts(db: Database, revisionIds: string[]): Promise<Map<string, VerdictView>> {
-  const out = new Map<string, VerdictView>();
-  if (revisionIds.length === 0) return out;
-  const rows = await db
-    .selectDistinctOn([revisionVerdicts.revisionId], {
-      revisionId: revisionVerdicts.revisionId,
-      verdict: revisionVerdicts.verdict,
-      userId: revisionVerdicts.userId,
-      userName: users.name,
-      at: revisionVerdicts.createdAt,
-    })
-    .from(revisionVerdicts)
-    .leftJoin(users, eq(users.id, revisionVerdicts.userId))
-    .where(inArray(revisionVerdicts.revisionId, revisionIds))
-    .orderBy(revisionVerdicts.revisionId, desc(revisionVerdicts.createdAt), desc(revisionVerdicts.id));
-  for (const row of rows) {
-    out.set(row.revisionId, {
-      verdict: row.verdict,
-      by: row.userId && row.userName ? { id: row.userId, name: row.userName } : null,
-      at: row.at.toISOString(),
-    });
-  }
-  return out;
+// Steps and author of a revision never change, so each process keeps recently read ones, up to
+// STEP_CACHE_MB of step text: a shared revision under load costs the share check and the verdict,
+// not the whole ledger again. Counted in bytes, so a few huge ledgers cannot fill the memory.
+type ImmutableParts = { steps: (typeof revisionSteps.$inferSelect)[]; authorName: string | null };
+const immutableParts = new Map<string, { parts: Promise<ImmutableParts>; bytes: number }>();
+let cachedBytes = 0;
+
+const stepBytes = (steps: ImmutableParts["steps"]) =>
+  steps.reduce((sum, step) => sum + step.tex.length + step.explanation.length + step.title.length + JSON.stringify(step.data ?? null).length, 0);
+
+function forget(id: string) {
+  const entry = immutableParts.get(id);
+  if (!entry) return;
+  cachedBytes -= entry.bytes;
+  immutableParts.delete(id);
 }
-
-export const openVerdict: VerdictView = { verdict: "open", by: null, at: null };
-
-// Steps and author of a revision never change, so each process keeps the last few hundred it read:
-// a shared revision under load costs the share check and the verdict, not the whole ledger again.
-const immutableParts = new Map<string, Promise<{ steps: (typeof revisionSteps.$inferSelect)[]; authorName: string | null }>>();
-const immutablePartsKept = 200;
 
 function stepsAndAuthor(db: Database, revision: RevisionRow) {
   const known = immutableParts.get(revision.id);
@@ -100,23 +84,34 @@ function stepsAndAuthor(db: Database, revision: RevisionRow) {
     // Map order is insertion order: re-inserting keeps the recently read at the end.
     immutableParts.delete(revision.id);
     immutableParts.set(revision.id, known);
-    return known;
+    return known.parts;
   }
   const loading = Promise.all([
     db.select().from(revisionSteps).where(eq(revisionSteps.revisionId, revision.id)).orderBy(asc(revisionSteps.ordinal)),
     revision.createdBy ? db.select({ name: users.name }).from(users).where(eq(users.id, revision.createdBy)) : Promise.resolve([]),
   ]).then(([steps, [author]]) => ({ steps, authorName: author?.name ?? null }));
-  immutableParts.set(revision.id, loading);
-  loading.catch(() => immutableParts.delete(revision.id));
-  while (immutableParts.size > immutablePartsKept) immutableParts.delete(immutableParts.keys().next().value!);
+  const entry = { parts: loading, bytes: 0 };
+  immutableParts.set(revision.id, entry);
+  loading.then(
+    ({ steps }) => {
+      if (immutableParts.get(revision.id) !== entry) return;
+      entry.bytes = stepBytes(steps);
+      cachedBytes += entry.bytes;
+      if (entry.bytes > config.solve.stepCacheBytes) forget(revision.id);
+      while (cachedBytes > config.solve.stepCacheBytes && immutableParts.size > 0) forget(immutableParts.keys().next().value!);
+    },
+    () => forget(revision.id),
+  );
   return loading;
 }
 
-// `knownVerdict`: the caller read the current verdict already (in the same query as its access check).
-export async function revisionView(db: Database, network: Pick<NetworkRow, "id" | "slug" | "title">, revision: RevisionRow, knownVerdict?: VerdictView) {
-  const [{ steps, authorName }, verdict] = await Promise.all([
+// `verdict` is the revision's state derived from its verdict history (server/domain/verdicts.ts);
+// `approvedBefore` the latest earlier revision that reads as approved, which a newer one is compared with.
+export async function revisionView(db: Database, network: Pick<NetworkRow, "id" | "slug" | "title" | "teamId">, revision: RevisionRow) {
+  const [{ steps, authorName }, verdict, before] = await Promise.all([
     stepsAndAuthor(db, revision),
-    knownVerdict ?? currentVerdicts(db, [revision.id]).then((verdicts) => verdicts.get(revision.id) ?? openVerdict),
+    revisionStates(db, network.teamId, [revision]).then((states) => states.get(revision.id)!),
+    approvedBefore(db, network.id, network.teamId, revision.number),
   ]);
   return {
     id: revision.id,
@@ -137,6 +132,7 @@ export async function revisionView(db: Database, network: Pick<NetworkRow, "id" 
       data: step.data,
     })),
     verdict,
+    approvedBefore: before,
     createdBy: revision.createdBy && authorName !== null ? { id: revision.createdBy, name: authorName } : null,
     createdAt: revision.createdAt.toISOString(),
   };
@@ -151,9 +147,11 @@ export async function requireRevision(db: Database, networkId: string, number: n
   return { ...access, revision };
 }
 
-export async function getRevision(db: Database, networkId: string, number: number, userId: string): Promise<RevisionView> {
+// For members: the revision with its count of open note threads (the shared view carries no notes).
+export async function getRevision(db: Database, networkId: string, number: number, userId: string) {
   const { network, revision } = await requireRevision(db, networkId, number, userId, "viewer");
-  return revisionView(db, network, revision);
+  const [view, notes] = await Promise.all([revisionView(db, network, revision), openNoteCounts(db, [revision.id])]);
+  return { ...view, openNotes: notes.get(revision.id)! };
 }
 
 export async function listRevisions(db: Database, networkId: string, userId: string) {
@@ -164,7 +162,7 @@ export async function listRevisions(db: Database, networkId: string, userId: str
     .leftJoin(users, eq(users.id, revisions.createdBy))
     .where(eq(revisions.networkId, networkId))
     .orderBy(desc(revisions.number));
-  const verdictByRevision = await currentVerdicts(db, rows.map((row) => row.revision.id));
+  const verdictByRevision = await revisionStates(db, network.teamId, rows.map((row) => row.revision));
   return rows.map(({ revision, authorName }) => {
     const results = revision.results as Record<string, { infix?: string } | null>;
     return {
@@ -173,7 +171,7 @@ export async function listRevisions(db: Database, networkId: string, userId: str
       permalink: permalink(network.slug, revision.number),
       createdBy: revision.createdBy && authorName ? { id: revision.createdBy, name: authorName } : null,
       createdAt: revision.createdAt.toISOString(),
-      verdict: verdictByRevision.get(revision.id) ?? openVerdict,
+      verdict: verdictByRevision.get(revision.id)!,
       summary: { vth: results.vth?.infix ?? null, rth: results.rth?.infix ?? null, isc: results.isc?.infix ?? null },
     };
   });

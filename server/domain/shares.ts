@@ -1,11 +1,11 @@
 // Share links: read-only, revocable, optionally expiring access to one revision, no account needed.
 import { and, asc, eq, gt, isNull, or, sql } from "drizzle-orm";
 import type { Database } from "../db/client.js";
-import { networks, revisions, shareLinks, teamMembers, users, type Verdict } from "../db/schema.js";
+import { networks, revisions, shareLinks, teamMembers, users } from "../db/schema.js";
 import { HttpError, notFound } from "../lib/errors.js";
 import { hashToken, newToken } from "../lib/tokens.js";
 import { roleAtLeast } from "./access.js";
-import { openVerdict, requireRevision, revisionView, type VerdictView } from "./revisions.js";
+import { requireRevision, revisionView } from "./revisions.js";
 import { link, type Services } from "./services.js";
 import { valueSetsOf } from "./value-sets.js";
 
@@ -83,23 +83,10 @@ export async function revokeShare(db: Database, networkId: string, number: numbe
   await revoke(db, row.id);
 }
 
-// The current verdict comes with the share in the same query: a shared read is one round trip
-// (the revision's steps are kept in memory by revisionView).
-const latestVerdict = sql<{ verdict: Verdict; userId: string | null; userName: string | null; at: string } | null>`(
-  select json_build_object('verdict', v.verdict, 'userId', v.user_id, 'userName', u.name, 'at', v.created_at)
-  from revision_verdicts v left join users u on u.id = v.user_id
-  where v.revision_id = ${revisions.id}
-  order by v.created_at desc, v.id desc limit 1)`;
-
-function verdictView(latest: { verdict: Verdict; userId: string | null; userName: string | null; at: string } | null): VerdictView {
-  if (!latest) return openVerdict;
-  return { verdict: latest.verdict, by: latest.userId && latest.userName ? { id: latest.userId, name: latest.userName } : null, at: new Date(latest.at).toISOString() };
-}
-
 async function liveShare(db: Database, token: string) {
   const [row] = await db
     // The network's own circuit is not needed here: the revision carries its snapshot.
-    .select({ share: shareLinks, revision: revisions, network: { id: networks.id, slug: networks.slug, title: networks.title, description: networks.description }, verdict: latestVerdict })
+    .select({ share: shareLinks, revision: revisions, network: { id: networks.id, teamId: networks.teamId, slug: networks.slug, title: networks.title, description: networks.description } })
     .from(shareLinks)
     .innerJoin(revisions, eq(revisions.id, shareLinks.revisionId))
     .innerJoin(networks, eq(networks.id, revisions.networkId))
@@ -113,7 +100,7 @@ const shareGone = () => notFound("That share link");
 export async function sharedRevision(db: Database, token: string) {
   const row = await liveShare(db, token);
   if (!row) throw shareGone();
-  const revision = await revisionView(db, row.network, row.revision, verdictView(row.verdict));
+  const revision = await revisionView(db, row.network, row.revision);
   return {
     readOnly: true as const,
     network: { title: row.network.title, description: row.network.description, slug: row.network.slug },

@@ -1,6 +1,6 @@
 // Solve jobs: a solve that outlives the request's wait becomes a row the client polls
 // (queued → solving → done | failed). Rows live in PostgreSQL, so any server can answer the poll.
-import { and, eq, lt } from "drizzle-orm";
+import { and, eq, inArray, lt } from "drizzle-orm";
 import type { SolveSettings } from "../config.js";
 import type { Database } from "../db/client.js";
 import { networks, solveJobs, type SolveJobStatus } from "../db/schema.js";
@@ -67,6 +67,7 @@ export class SolveJobRecorder {
     private readonly db: Database,
     private readonly network: { id: string; slug: string },
     private readonly userId: string,
+    private readonly runner: string,
   ) {}
 
   started(): void {
@@ -94,7 +95,7 @@ export class SolveJobRecorder {
   private async insert(): Promise<string> {
     const [row] = await this.db
       .insert(solveJobs)
-      .values({ networkId: this.network.id, requestedBy: this.userId, ...this.progress })
+      .values({ networkId: this.network.id, requestedBy: this.userId, runner: this.runner, ...this.progress })
       .returning({ id: solveJobs.id });
     if (Date.now() - lastPrune > 60 * 60 * 1000) {
       lastPrune = Date.now();
@@ -117,7 +118,19 @@ export class SolveJobRecorder {
   }
 }
 
-/** How long a job may stay queued or solving before its server is presumed gone. */
+const interrupted = { code: "solve_interrupted", message: "The server running this solve stopped before it finished; solve the network again." };
+
+/** At start-up: the jobs this process left queued or solving when it stopped can never finish; say so at once. */
+export async function failInterruptedJobs(db: Database, runner: string): Promise<number> {
+  const failed = await db
+    .update(solveJobs)
+    .set({ status: "failed", error: interrupted, finishedAt: new Date() })
+    .where(and(eq(solveJobs.runner, runner), inArray(solveJobs.status, ["queued", "solving"])))
+    .returning({ id: solveJobs.id });
+  return failed.length;
+}
+
+/** How long a job may stay queued or solving before its server is presumed gone (one that never restarts). */
 export function staleAfterMs(settings: SolveSettings): number {
   const turns = 1 + Math.ceil(settings.queueMax / settings.threads);
   return settings.timeLimitMs * turns + 60_000;
@@ -135,7 +148,6 @@ export async function getSolveJob(db: Database, settings: SolveSettings, network
   const progress: Progress = { ...job, error: job.error as Record<string, unknown> | null };
   const pending = job.status === "queued" || job.status === "solving";
   if (pending && Date.now() - (job.startedAt ?? job.createdAt).getTime() > staleAfterMs(settings)) {
-    const interrupted = { code: "solve_interrupted", message: "The server running this solve stopped before it finished; solve the network again." };
     return view(job.id, networkId, row.slug, { ...progress, status: "failed", error: interrupted });
   }
   return view(job.id, networkId, row.slug, progress);

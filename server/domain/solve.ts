@@ -4,10 +4,11 @@ import { HttpError } from "../lib/errors.js";
 import { breachMessage, resultBreach, sizeBreach, type CapBreach } from "../solver/caps.js";
 import { cachedDerivation, noteCacheHit, solveKey, storeDerivation } from "../solver/cache.js";
 import { deriveOutcome, type Derivation, type SolveOutcome } from "../solver/derive.js";
-import { SolverBusyError } from "../solver/pool.js";
+import { SolveLimitError, SolverBusyError } from "../solver/pool.js";
 import { requireNetworkRole } from "./access.js";
 import { withTeamCells } from "./cells.js";
-import { parseNetwork, type Network, type SolveOptions } from "./engine.js";
+import type { Network, SolveOptions } from "./engine.js";
+import { readNetwork } from "./reading.js";
 import { revisionView, storeRevision, type RevisionView } from "./revisions.js";
 import type { Services } from "./services.js";
 import { SolveJobRecorder, type SolveJobView } from "./solve-jobs.js";
@@ -24,6 +25,19 @@ const solverBusy = () =>
   new HttpError(503, "solver_busy", "Every solver is busy and the queue is full; try again in a few seconds.", undefined, undefined, {
     headers: { "Retry-After": "5" },
   });
+
+function solveLimited(error: SolveLimitError): HttpError {
+  const who = error.scope === "user" ? "You already have" : "Your team already has";
+  const setting = error.scope === "user" ? "SOLVE_MAX_PER_USER" : "SOLVE_MAX_PER_TEAM";
+  return new HttpError(
+    429,
+    "solve_limit",
+    `${who} ${error.count} solves queued or running, the most allowed at once (${setting}); this one starts when you ask again after one of them finishes.`,
+    undefined,
+    undefined,
+    { details: { limit: { scope: error.scope, running: error.count, limit: error.limit, setting } }, headers: { "Retry-After": "10" } },
+  );
+}
 
 const engineFailed = () =>
   new HttpError(422, "engine_failed", "Portfold's engine could not solve this network: it failed on something in it. The failure is in the server's log; try changing the network.");
@@ -45,7 +59,7 @@ export type SolveAnswer = { kind: "revision"; revision: RevisionView; cacheHit: 
 export async function solve(services: Services, networkId: string, userId: string, waitMs: number): Promise<SolveAnswer> {
   const { db, solver, settings } = services;
   const { network } = await requireNetworkRole(db, networkId, userId, "editor");
-  const parsed = parseNetwork(network.circuit);
+  const parsed = await readNetwork(services, network.circuit);
   if (!parsed.network) throw illPosed(parsed.diagnostics);
   // The team's cells go into the circuit itself, so the cache key and the revision carry their definitions.
   const circuit = await withTeamCells(db, network.teamId, parsed.network);
@@ -54,9 +68,16 @@ export async function solve(services: Services, networkId: string, userId: strin
 
   const options: SolveOptions = {};
   const key = solveKey(circuit, options);
-  const recorder = new SolveJobRecorder(db, network, userId);
+  const recorder = new SolveJobRecorder(db, network, userId, settings.instanceName);
+  const owner = { userId, teamId: network.teamId };
+  let release: () => void;
+  try {
+    release = solver.reserve(owner);
+  } catch (error) {
+    throw error instanceof SolveLimitError ? solveLimited(error) : error;
+  }
   const fresh = async () => {
-    const outcome = await solver.solve(circuit, options, key, { onStart: () => recorder.started() }).catch((error: unknown) => {
+    const outcome = await solver.solve(circuit, options, key, owner, { onStart: () => recorder.started() }).catch((error: unknown) => {
       throw error instanceof SolverBusyError ? solverBusy() : error;
     });
     if (outcome.kind === "engine_failed") services.log.error({ networkId: network.id, engineError: outcome.message }, "the engine failed on a network");
@@ -75,7 +96,7 @@ export async function solve(services: Services, networkId: string, userId: strin
     const revision = await storeRevision(db, network.id, userId, cached ?? (await fresh()));
     return { revision, cacheHit: cached !== null };
   })();
-  const settled = work.then(
+  const settled = work.finally(release).then(
     (done) => {
       recorder.finished(done.revision.number, done.cacheHit);
       return { done };

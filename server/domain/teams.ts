@@ -7,7 +7,7 @@ import { hashToken, newToken } from "../lib/tokens.js";
 import { invitationMail } from "../mail/templates.js";
 import { requireTeamRole } from "./access.js";
 import type { PublicUser } from "./accounts.js";
-import { link, type Services } from "./services.js";
+import { link, type Services, type Transaction } from "./services.js";
 
 const invitationLifetimeMs = 7 * 24 * 3_600_000;
 
@@ -23,6 +23,7 @@ export interface TeamDetail {
   name: string;
   personal: boolean;
   role: Role;
+  requiredApprovals: number;
   members: TeamMember[];
   createdAt: string;
 }
@@ -31,7 +32,7 @@ export async function createTeam(db: Database, userId: string, name: string) {
   return db.transaction(async (tx) => {
     const [team] = await tx.insert(teams).values({ name }).returning();
     await tx.insert(teamMembers).values({ teamId: team.id, userId, role: "owner" });
-    return { id: team.id, name: team.name, personal: false, role: "owner" as Role, createdAt: team.createdAt.toISOString() };
+    return { id: team.id, name: team.name, personal: false, role: "owner" as Role, requiredApprovals: team.requiredApprovals, createdAt: team.createdAt.toISOString() };
   });
 }
 
@@ -44,13 +45,36 @@ export async function teamDetail(db: Database, teamId: string, userId: string): 
     .innerJoin(users, eq(users.id, teamMembers.userId))
     .where(eq(teamMembers.teamId, teamId))
     .orderBy(asc(users.name));
-  return { id: team.id, name: team.name, personal: team.personalUserId === userId, role, members, createdAt: team.createdAt.toISOString() };
+  return {
+    id: team.id,
+    name: team.name,
+    personal: team.personalUserId === userId,
+    role,
+    requiredApprovals: team.requiredApprovals,
+    members,
+    createdAt: team.createdAt.toISOString(),
+  };
 }
 
-export async function renameTeam(db: Database, teamId: string, userId: string, name: string): Promise<TeamDetail> {
+// Owners rename the team and set how many approvals a revision needs.
+export async function updateTeam(db: Database, teamId: string, userId: string, changes: { name?: string; requiredApprovals?: number }): Promise<TeamDetail> {
   await requireTeamRole(db, teamId, userId, "owner");
-  await db.update(teams).set({ name }).where(eq(teams.id, teamId));
+  await db.update(teams).set(changes).where(eq(teams.id, teamId));
   return teamDetail(db, teamId, userId);
+}
+
+// A personal team belongs to one person for good: it cannot be left, given away or get another owner.
+const personalTeam = (message: string) => new HttpError(409, "personal_team", message);
+
+async function personalHolder(db: Database, teamId: string): Promise<string | null> {
+  const [team] = await db.select({ personalUserId: teams.personalUserId }).from(teams).where(eq(teams.id, teamId));
+  return team?.personalUserId ?? null;
+}
+
+function checkPersonalRole(holder: string | null, memberId: string | null, role: Role) {
+  if (!holder) return;
+  if (memberId === holder && role !== "owner") throw personalTeam("A personal team cannot be given away: its holder stays its owner.");
+  if (memberId !== holder && role === "owner") throw personalTeam("A personal team has one owner, its holder; invite others with another role.");
 }
 
 export async function deleteTeam(db: Database, teamId: string, userId: string): Promise<void> {
@@ -60,33 +84,48 @@ export async function deleteTeam(db: Database, teamId: string, userId: string): 
   await db.delete(teams).where(eq(teams.id, teamId));
 }
 
-async function ownerCount(db: Database, teamId: string): Promise<number> {
-  const [row] = await db.select({ n: count() }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.role, "owner")));
-  return row.n;
-}
-
-async function memberOf(db: Database, teamId: string, memberId: string): Promise<Role> {
-  const [row] = await db.select({ role: teamMembers.role }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
-  if (!row) throw notFound("That member");
-  return row.role;
-}
-
 const lastOwner = () => new HttpError(409, "last_owner", "A team keeps at least one owner; make someone else owner first.");
 
+/**
+ * Membership changes of one team run one at a time: the team row is locked for update, then the
+ * acting member's role, the member's role and the owner count are read and the change written in
+ * the same transaction, so two owners demoting each other (or both leaving) cannot leave none.
+ */
+async function changeMembership(
+  db: Database,
+  teamId: string,
+  userId: string,
+  memberId: string,
+  minimum: Role,
+  write: (tx: Transaction, current: Role, owners: number) => Promise<void>,
+): Promise<void> {
+  await db.transaction(async (tx) => {
+    const locked = await tx.select({ id: teams.id }).from(teams).where(eq(teams.id, teamId)).for("update");
+    if (locked.length === 0) throw notFound("That team");
+    await requireTeamRole(tx, teamId, userId, minimum);
+    const [member] = await tx.select({ role: teamMembers.role }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+    if (!member) throw notFound("That member");
+    const [owners] = await tx.select({ n: count() }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.role, "owner")));
+    await write(tx, member.role, owners.n);
+  });
+}
+
 export async function changeMemberRole(db: Database, teamId: string, userId: string, memberId: string, role: Role): Promise<TeamDetail> {
-  await requireTeamRole(db, teamId, userId, "owner");
-  const current = await memberOf(db, teamId, memberId);
-  if (current === "owner" && role !== "owner" && (await ownerCount(db, teamId)) <= 1) throw lastOwner();
-  await db.update(teamMembers).set({ role }).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+  await changeMembership(db, teamId, userId, memberId, "owner", async (tx, current, owners) => {
+    checkPersonalRole(await personalHolder(tx, teamId), memberId, role);
+    if (current === "owner" && role !== "owner" && owners <= 1) throw lastOwner();
+    await tx.update(teamMembers).set({ role }).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+  });
   return teamDetail(db, teamId, userId);
 }
 
 // Owners remove anyone; every member may leave by removing themselves.
 export async function removeMember(db: Database, teamId: string, userId: string, memberId: string): Promise<void> {
-  await requireTeamRole(db, teamId, userId, memberId === userId ? "viewer" : "owner");
-  const current = await memberOf(db, teamId, memberId);
-  if (current === "owner" && (await ownerCount(db, teamId)) <= 1) throw lastOwner();
-  await db.delete(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+  await changeMembership(db, teamId, userId, memberId, memberId === userId ? "viewer" : "owner", async (tx, current, owners) => {
+    if ((await personalHolder(tx, teamId)) === memberId) throw personalTeam("A personal team cannot be left: it is its holder's own.");
+    if (current === "owner" && owners <= 1) throw lastOwner();
+    await tx.delete(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
+  });
 }
 
 // ---- invitations ----
@@ -104,6 +143,8 @@ function invitationView(row: InvitationRow) {
   };
 }
 
+const ownerWarning = "An owner can change every member's role, remove anyone, invite others and delete the team.";
+
 export async function inviteMember(services: Services, teamId: string, inviter: PublicUser, email: string, role: Role) {
   const { db } = services;
   await requireTeamRole(db, teamId, inviter.id, "owner");
@@ -115,6 +156,7 @@ export async function inviteMember(services: Services, teamId: string, inviter: 
     .innerJoin(users, eq(users.id, teamMembers.userId))
     .where(and(eq(teamMembers.teamId, teamId), eq(users.email, email)));
   if (existing) throw new HttpError(409, "already_member", "This address already belongs to a member of the team.", { email: "already a member" });
+  checkPersonalRole(await personalHolder(db, teamId), null, role);
   const [team] = await db.select({ name: teams.name }).from(teams).where(eq(teams.id, teamId));
   const { token, hash } = newToken();
   const [row] = await db
@@ -122,7 +164,7 @@ export async function inviteMember(services: Services, teamId: string, inviter: 
     .values({ teamId, email, role, tokenHash: hash, invitedBy: inviter.id, expiresAt: new Date(Date.now() + invitationLifetimeMs) })
     .returning();
   await services.mailer.send(invitationMail(email, inviter.name, team.name, role, link(services, `/invitations/accept?token=${token}`)));
-  return invitationView(row);
+  return { ...invitationView(row), ...(role === "owner" ? { warning: ownerWarning } : {}) };
 }
 
 export async function pendingInvitations(db: Database, teamId: string, userId: string) {
@@ -167,7 +209,9 @@ export async function invitationPreview(db: Database, token: string) {
   };
 }
 
-export async function acceptInvitation(db: Database, token: string, userId: string) {
+// Only the invited address, signed in and confirmed, accepts: a forwarded link lets nobody else in.
+export async function acceptInvitation(db: Database, token: string, user: PublicUser) {
+  const userId = user.id;
   return db.transaction(async (tx) => {
     const [invitation] = await tx
       .update(invitations)
@@ -175,6 +219,15 @@ export async function acceptInvitation(db: Database, token: string, userId: stri
       .where(and(eq(invitations.tokenHash, hashToken(token)), isNull(invitations.acceptedAt), gt(invitations.expiresAt, sql`now()`)))
       .returning();
     if (!invitation) throw notFound("That invitation");
+    if (invitation.email.toLowerCase() !== user.email.toLowerCase() || !user.emailVerified) {
+      throw new HttpError(
+        403,
+        "invitation_address",
+        invitation.email.toLowerCase() !== user.email.toLowerCase()
+          ? `This invitation is for ${invitation.email}. Sign in with that address to accept it; you are signed in as ${user.email}.`
+          : `This invitation is for ${invitation.email}: confirm that address first (the link is in the mail we sent it), then accept.`,
+      );
+    }
     const joined = await tx
       .insert(teamMembers)
       .values({ teamId: invitation.teamId, userId, role: invitation.role })

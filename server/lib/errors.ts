@@ -1,18 +1,48 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
 
+const quotedMax = 40;
+const messageMax = 300;
+
+/**
+ * An error message that quotes the input keeps only a short excerpt of it: a quoted stretch over 40
+ * characters is cut with "…", the whole message at 300, so an answer never echoes a large body back.
+ */
+export function excerpt(message: string): string {
+  const short = message.replace(/"([^"]{41,})"/g, (_all, quoted: string) => `"${quoted.slice(0, quotedMax)}…"`);
+  return short.length > messageMax ? `${short.slice(0, messageMax - 1)}…` : short;
+}
+
+function shortDiagnostic(item: unknown): unknown {
+  if (!item || typeof item !== "object") return item;
+  const d = item as { message?: unknown; elements?: unknown; nodes?: unknown };
+  const cut = (name: unknown) => (typeof name === "string" && name.length > quotedMax ? `${name.slice(0, quotedMax)}…` : name);
+  const names = (list: unknown[]) => list.slice(0, 20).map(cut);
+  return {
+    ...d,
+    ...(typeof d.message === "string" ? { message: excerpt(d.message) } : {}),
+    ...(Array.isArray(d.elements) ? { elements: names(d.elements) } : {}),
+    ...(Array.isArray(d.nodes) ? { nodes: names(d.nodes) } : {}),
+  };
+}
+
 // The one error shape of the API: { error: { code, message, fields?, diagnostics? } }.
 export class HttpError extends Error {
+  readonly fields?: Record<string, string>;
+  // Engine diagnostics (code, message, line, column, elements) where the engine refused the input.
+  readonly diagnostics?: unknown[];
+
   constructor(
     readonly status: number,
     readonly code: string,
     message: string,
-    readonly fields?: Record<string, string>,
-    // Engine diagnostics (code, message, line, column, elements) where the engine refused the input.
-    readonly diagnostics?: unknown[],
+    fields?: Record<string, string>,
+    diagnostics?: unknown[],
     // More members of the error object (e.g. the cap a solve went past) and headers (Retry-After).
     readonly extra: { details?: Record<string, unknown>; headers?: Record<string, string> } = {},
   ) {
-    super(message);
+    super(excerpt(message));
+    this.fields = fields && Object.fromEntries(Object.entries(fields).slice(0, 50).map(([key, text]) => [excerpt(key), excerpt(text)]));
+    this.diagnostics = diagnostics?.slice(0, 50).map(shortDiagnostic);
   }
 
   /** The `error` member of the answer, also what a solve job keeps when it fails. */

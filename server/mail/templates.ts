@@ -47,24 +47,40 @@ export function invitationMail(to: string, inviter: string, teamName: string, ro
     subject: `${inviter} invited you to "${teamName}" on Portfold`,
     paragraphs: [`${inviter} invited you to join the team "${teamName}" on Portfold as ${role}.`],
     link: { label: "Accept the invitation", url },
-    footnote: "The invitation expires in 7 days. Sign in or create an account with any address to accept it.",
+    footnote: `The invitation expires in 7 days. It is for ${to} only: sign in or create an account with this address, and confirm it, to accept.`,
   });
 }
 
-export function commentMail(to: string, commenter: string, networkTitle: string, revision: number, stepTitle: string, body: string, url: string): OutgoingMail {
+const reviewFootnote = "You get review mail because you take part in this review; turn it off under Account settings in Portfold.";
+
+export function commentMail(
+  to: string,
+  note: { commenter: string; networkTitle: string; revision: number; stepTitle: string; body: string; reply: boolean; url: string },
+): OutgoingMail {
   return compose({
     to,
-    subject: `New comment on "${networkTitle}" revision ${revision}`,
-    paragraphs: [`${commenter} commented on the step "${stepTitle}" of revision ${revision} of "${networkTitle}":`, body],
-    link: { label: "Open the revision", url },
+    subject: `${note.reply ? "New reply" : "New comment"} on "${note.networkTitle}" revision ${note.revision}`,
+    paragraphs: [
+      `${note.commenter} ${note.reply ? "replied in a thread" : "commented"} on the step "${note.stepTitle}" of revision ${note.revision} of "${note.networkTitle}":`,
+      note.body,
+    ],
+    link: { label: "Open the revision", url: note.url },
+    footnote: reviewFootnote,
   });
 }
 
-export function verdictMail(to: string, reviewer: string, networkTitle: string, revision: number, verdict: string, url: string): OutgoingMail {
+export function verdictMail(
+  to: string,
+  verdict: { reviewer: string; action: string; networkTitle: string; revision: number; state: string; note: string | null; url: string },
+): OutgoingMail {
   return compose({
     to,
-    subject: `Revision ${revision} of "${networkTitle}": ${verdict}`,
-    paragraphs: [`${reviewer} set the verdict on revision ${revision} of "${networkTitle}" to: ${verdict}.`],
-    link: { label: "Open the revision", url },
+    subject: `Revision ${verdict.revision} of "${verdict.networkTitle}": ${verdict.state}`,
+    paragraphs: [
+      `${verdict.reviewer} ${verdict.action} revision ${verdict.revision} of "${verdict.networkTitle}". The revision now reads: ${verdict.state}.`,
+      ...(verdict.note ? [verdict.note] : []),
+    ],
+    link: { label: "Open the revision", url: verdict.url },
+    footnote: reviewFootnote,
   });
 }

@@ -10,6 +10,7 @@ import {
   signIn,
   signUp,
   startSession,
+  updateAccountSettings,
   verifyEmail,
 } from "../domain/accounts.js";
 import type { Services } from "../domain/services.js";
@@ -24,6 +25,7 @@ const loginBody = z.object({ email: emailField, password: z.string().min(1).max(
 const tokenBody = z.object({ token: tokenField });
 const resetRequestBody = z.object({ email: emailField });
 const resetBody = z.object({ token: tokenField, password });
+const settingsBody = z.object({ reviewMail: z.boolean() });
 
 export function authRouter(services: Services, limits: RateLimits): Router {
   const router = Router();
@@ -62,7 +64,7 @@ export function authRouter(services: Services, limits: RateLimits): Router {
 
   router.post("/auth/password-reset", limits.mailRequest, async (req, res) => {
     const { email } = parseBody(resetRequestBody, req.body);
-    await requestPasswordReset(services, email);
+    requestPasswordReset(services, email);
     res.status(202).json({ sent: true });
   });
 
@@ -75,6 +77,11 @@ export function authRouter(services: Services, limits: RateLimits): Router {
 
   router.get("/me", async (_req, res) => {
     res.json(await accountOverview(db, signedInUser(res).id));
+  });
+
+  router.patch("/me/settings", async (req, res) => {
+    const user = signedInUser(res);
+    res.json({ settings: await updateAccountSettings(db, user.id, parseBody(settingsBody, req.body)) });
   });
 
   return router;

@@ -28,7 +28,7 @@ export function cellsRouter(services: Services): Router {
     const user = signedInUser(res);
     const teamId = idParam(req.params.teamId, "That team");
     const body = parseBody(createBody, req.body);
-    res.status(201).json(await createCell(db, teamId, user.id, body.definition));
+    res.status(201).json(await createCell(services, teamId, user.id, body.definition));
   });
 
   router.delete("/teams/:teamId/cells/:cellId", async (req, res) => {

@@ -1,6 +1,7 @@
 // The development mailbox: JSON for tests and tools, a plain page for people. 404 in production.
 import { Router, type RequestHandler } from "express";
 import { z } from "zod";
+import { onLoopback } from "../auth/hosts.js";
 import { capturedMail } from "../domain/mailbox.js";
 import type { Services } from "../domain/services.js";
 import { notFound } from "../lib/errors.js";
@@ -55,7 +56,8 @@ ${items || "<p>No mail yet.</p>"}
 
 export function devMailRouter(services: Services): Router {
   const router = Router();
-  const developmentOnly: RequestHandler = (_req, _res, next) => next(services.settings.production ? notFound() : undefined);
+  // Outside production, and then only to a loopback client naming a loopback host (never through a rebound name).
+  const developmentOnly: RequestHandler = (req, _res, next) => next(services.settings.production || !onLoopback(req) ? notFound() : undefined);
 
   router.get("/api/dev/mail", developmentOnly, async (req, res) => {
     const query = parseQuery(mailQuery, req.query);

@@ -2,7 +2,6 @@ import { Router } from "express";
 import { z } from "zod";
 import { signedInUser } from "../auth/session.js";
 import { requireTeamRole } from "../domain/access.js";
-import { readCircuitAndText } from "../domain/engine.js";
 import {
   createNetwork,
   deleteNetwork,
@@ -12,14 +11,16 @@ import {
   listNetworks,
   networkIdForSlug,
   networkSorts,
+  networkTitleMax,
   updateNetwork,
 } from "../domain/networks.js";
+import { readCircuitAndText } from "../domain/reading.js";
 import type { Services } from "../domain/services.js";
 import { notFound } from "../lib/errors.js";
 import { readUpload } from "../lib/uploads.js";
-import { idParam, parseBody, parseQuery, plainText } from "../lib/validate.js";
+import { idParam, nameText, parseBody, parseQuery, plainText } from "../lib/validate.js";
 
-const title = z.string().trim().min(1, { error: "Give the network a title." }).max(200);
+const title = nameText(networkTitleMax, "Give the network a title.");
 const description = z.string().max(5_000);
 // The circuit's shape is the engine's to judge (readCircuit); here it only has to be an object.
 const circuit = z.record(z.string(), z.unknown(), { error: "The circuit is a JSON object in Portfold's network format." });
@@ -35,6 +36,7 @@ const patchBody = z
     error: "Change at least one of title, description, circuit, netlist.",
   });
 const duplicateBody = z.object({ title: title.optional() });
+const importFields = z.object({ title: title.optional() });
 const listQuery = z.object({
   q: plainText(200).optional(),
   sort: z.enum(networkSorts).default("updatedAt"),
@@ -58,7 +60,7 @@ export function networksRouter(services: Services): Router {
     const user = signedInUser(res);
     const teamId = idParam(req.params.teamId, "That team");
     const body = parseBody(createBody, req.body);
-    res.status(201).json(await createNetwork(db, teamId, user.id, { ...body, ...readCircuitAndText(body) }));
+    res.status(201).json(await createNetwork(db, teamId, user.id, { ...body, ...(await readCircuitAndText(services, body)) }));
   });
 
   router.post("/teams/:teamId/networks/import", async (req, res) => {
@@ -67,8 +69,9 @@ export function networksRouter(services: Services): Router {
     // Access first: a file is only read into memory for someone allowed to import it.
     await requireTeamRole(db, teamId, user.id, "editor");
     const { file, fields } = await readUpload(req, res, services.settings.limits.importBytes);
-    const given = plainText(200).safeParse(fields.title).data;
-    res.status(201).json(await importNetwork(db, teamId, user.id, file, given));
+    // A title given with the file obeys the same rule as any title; without one, the file name stands in.
+    const { title: given } = parseBody(importFields, { title: fields.title || undefined });
+    res.status(201).json(await importNetwork(services, teamId, user.id, file, given));
   });
 
   router.get("/networks/by-slug/:slug", async (req, res) => {
@@ -87,7 +90,7 @@ export function networksRouter(services: Services): Router {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
     const body = parseBody(patchBody, req.body);
-    const patch = { ...body, ...(body.circuit !== undefined || body.netlist !== undefined ? readCircuitAndText(body) : { circuit: undefined }) };
+    const patch = { ...body, ...(body.circuit !== undefined || body.netlist !== undefined ? await readCircuitAndText(services, body) : { circuit: undefined }) };
     res.json(await updateNetwork(db, networkId, user.id, patch));
   });
 

@@ -1,15 +1,25 @@
 import { Router } from "express";
 import { z } from "zod";
 import { signedInUser } from "../auth/session.js";
-import { verdicts } from "../db/schema.js";
-import { addComment, deleteComment, editComment, listComments, setVerdict } from "../domain/reviews.js";
+import { awaitingMyReview, myRevisionsInReview } from "../domain/review-queue.js";
+import { addComment, deleteComment, editComment, listComments, setThreadResolved } from "../domain/reviews.js";
 import type { Services } from "../domain/services.js";
-import { idParam, parseBody, revisionNumberParam } from "../lib/validate.js";
+import { giveVerdict, listVerdicts, withdrawVerdict } from "../domain/verdicts.js";
+import { idParam, parseBody, parseQuery, revisionNumberParam } from "../lib/validate.js";
 
 const body = z.string().trim().min(1, { error: "Write something first." }).max(10_000);
-const commentBody = z.object({ stepId: z.string().min(1).max(200), body, parentId: z.uuid().optional() });
+const anchor = z.object({
+  part: z.enum(["explanation", "formula"]),
+  text: z.string().min(1, { error: "Highlight some text." }).max(2_000),
+  start: z.number().int().min(0).max(1_000_000).optional(),
+});
+const commentBody = z.object({ stepId: z.string().min(1).max(200), body, parentId: z.uuid().optional(), anchor: anchor.optional() });
 const editBody = z.object({ body });
-const verdictBody = z.object({ verdict: z.enum(verdicts) });
+const note = z.string().trim().max(10_000).optional();
+const verdictBody = z.object({ verdict: z.enum(["approved", "needs_changes"]), note });
+// The original verdict route: "open" withdraws the caller's standing verdict.
+const legacyVerdictBody = z.object({ verdict: z.enum(["open", "approved", "needs_changes"]), note });
+const pageQuery = z.object({ page: z.coerce.number().int().min(1).max(100_000).default(1), pageSize: z.coerce.number().int().min(1).max(100).default(20) });
 
 export function reviewsRouter(services: Services): Router {
   const router = Router();
@@ -45,11 +55,54 @@ export function reviewsRouter(services: Services): Router {
     res.status(204).end();
   });
 
+  for (const [action, resolved] of [["resolve", true], ["reopen", false]] as const) {
+    router.post(`${path}/comments/:commentId/${action}`, async (req, res) => {
+      const user = signedInUser(res);
+      const [networkId, number] = target(req.params);
+      res.json(await setThreadResolved(db, networkId, number, idParam(req.params.commentId, "That comment"), user, resolved));
+    });
+  }
+
+  router.get(`${path}/verdicts`, async (req, res) => {
+    const user = signedInUser(res);
+    const [networkId, number] = target(req.params);
+    res.json(await listVerdicts(db, networkId, number, user.id));
+  });
+
+  router.post(`${path}/verdicts`, async (req, res) => {
+    const user = signedInUser(res);
+    const [networkId, number] = target(req.params);
+    const input = parseBody(verdictBody, req.body);
+    res.status(201).json(await giveVerdict(services, networkId, number, user, input));
+  });
+
+  router.post(`${path}/verdicts/:verdictId/withdraw`, async (req, res) => {
+    const user = signedInUser(res);
+    const [networkId, number] = target(req.params);
+    const withdrawn = await withdrawVerdict(services, networkId, number, user, idParam(req.params.verdictId, "That verdict"));
+    res.status(201).json(withdrawn);
+  });
+
   router.put(`${path}/verdict`, async (req, res) => {
     const user = signedInUser(res);
     const [networkId, number] = target(req.params);
-    const { verdict } = parseBody(verdictBody, req.body);
-    res.json(await setVerdict(services, networkId, number, user, verdict));
+    const input = parseBody(legacyVerdictBody, req.body);
+    if (input.verdict === "open") {
+      await withdrawVerdict(services, networkId, number, user, null);
+      res.json((await listVerdicts(db, networkId, number, user.id)).state);
+      return;
+    }
+    res.json((await giveVerdict(services, networkId, number, user, { verdict: input.verdict, note: input.note })).state);
+  });
+
+  router.get("/reviews/awaiting", async (req, res) => {
+    const user = signedInUser(res);
+    res.json(await awaitingMyReview(db, user.id, parseQuery(pageQuery, req.query)));
+  });
+
+  router.get("/reviews/mine", async (req, res) => {
+    const user = signedInUser(res);
+    res.json(await myRevisionsInReview(db, user.id, parseQuery(pageQuery, req.query)));
   });
 
   return router;

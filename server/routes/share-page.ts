@@ -8,9 +8,13 @@ import { escapeHtml } from "../lib/html.js";
 const genericTitle = "Shared derivation · Portfold";
 const genericDescription = "A derivation shared from Portfold. This link is not valid (any more).";
 
+// Link previews show a line or two; a result of thousands of terms stays on the page itself.
+const previewMax = { title: 120, description: 300 };
+const clip = (text: string, max: number) => (text.length > max ? `${text.slice(0, max - 1)}…` : text);
+
 export function withPreview(shell: string, preview: { title: string; description: string; url?: string }): string {
-  const title = escapeHtml(preview.title);
-  const description = escapeHtml(preview.description);
+  const title = escapeHtml(clip(preview.title, previewMax.title));
+  const description = escapeHtml(clip(preview.description, previewMax.description));
   const tags = [
     `<meta property="og:type" content="article" />`,
     `<meta property="og:site_name" content="Portfold" />`,

@@ -12,15 +12,18 @@ import {
   inviteMember,
   pendingInvitations,
   removeMember,
-  renameTeam,
   revokeInvitation,
   teamDetail,
+  updateTeam,
 } from "../domain/teams.js";
 import { notFound } from "../lib/errors.js";
-import { emailField, idParam, parseBody, tokenParam } from "../lib/validate.js";
+import { emailField, idParam, nameText, parseBody, tokenParam } from "../lib/validate.js";
 
-const teamName = z.string().trim().min(1, { error: "Give the team a name." }).max(100);
+const teamName = nameText(100, "Give the team a name.");
 const teamBody = z.object({ name: teamName });
+const teamChanges = z
+  .object({ name: teamName.optional(), requiredApprovals: z.number().int().min(1, { error: "At least one approval." }).max(10, { error: "At most 10 approvals." }).optional() })
+  .refine((changes) => changes.name !== undefined || changes.requiredApprovals !== undefined, { error: "Give a name or a number of required approvals." });
 const roleBody = z.object({ role: z.enum(roles) });
 const invitationBody = z.object({ email: emailField, role: z.enum(roles) });
 
@@ -49,8 +52,8 @@ export function teamsRouter(services: Services): Router {
   router.patch("/teams/:teamId", async (req, res) => {
     const user = signedInUser(res);
     const teamId = idParam(req.params.teamId, "That team");
-    const { name } = parseBody(teamBody, req.body);
-    const { members: _members, ...team } = await renameTeam(db, teamId, user.id, name);
+    const changes = parseBody(teamChanges, req.body);
+    const { members: _members, ...team } = await updateTeam(db, teamId, user.id, changes);
     res.json(team);
   });
 
@@ -106,7 +109,7 @@ export function teamsRouter(services: Services): Router {
 
   router.post("/invitations/:token/accept", async (req, res) => {
     const user = signedInUser(res);
-    res.json({ team: await acceptInvitation(db, tokenParam(req.params.token, "That invitation"), user.id) });
+    res.json({ team: await acceptInvitation(db, tokenParam(req.params.token, "That invitation"), user) });
   });
 
   return router;

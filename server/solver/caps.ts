@@ -2,7 +2,7 @@
 import type { SolveSettings } from "../config.js";
 import type { Network } from "../domain/engine.js";
 
-export type CapName = "elements" | "symbols" | "resultTerms" | "time" | "memory";
+export type CapName = "elements" | "symbols" | "resultTerms" | "time" | "memory" | "revisionBytes";
 
 export interface CapBreach {
   cap: CapName;
@@ -18,6 +18,7 @@ const settingOf: Record<CapName, string> = {
   resultTerms: "SOLVE_MAX_RESULT_TERMS",
   time: "SOLVE_TIME_LIMIT_MS",
   memory: "SOLVE_MEMORY_MB",
+  revisionBytes: "REVISION_MAX_BYTES",
 };
 
 export function breach(cap: CapName, limit: number, actual: number | null): CapBreach {
@@ -70,6 +71,7 @@ const capWords: Record<CapName, (limit: number) => string> = {
   resultTerms: (limit) => `a result has more terms (numerator plus denominator) than the cap of ${limit}`,
   time: (limit) => `the solve ran longer than the time cap of ${limit / 1000} s`,
   memory: (limit) => `the solve needed more memory than the cap of ${limit} MB`,
+  revisionBytes: (limit) => `its equivalents alone would take more than the cap of ${limit} bytes to store`,
 };
 
 export function breachMessage(found: CapBreach): string {

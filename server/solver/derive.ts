@@ -1,6 +1,7 @@
 // One solve, as a pure function: the engine derives, the outcome is split the way a revision stores it.
 import { solveNetwork, type Diagnostic, type Network, type SolveOptions } from "../domain/engine.js";
-import { resultBreach, type CapBreach } from "./caps.js";
+import { breach, resultBreach, type CapBreach } from "./caps.js";
+import { boundDerivation } from "./revision-size.js";
 
 export interface StepRecord {
   id: string;
@@ -26,7 +27,7 @@ export type SolveOutcome =
   // The engine threw instead of answering: its bug, reported to the client as unsolvable and logged.
   | { kind: "engine_failed"; message: string };
 
-export function deriveOutcome(circuit: Network, options: SolveOptions, maxResultTerms: number): SolveOutcome {
+export function deriveOutcome(circuit: Network, options: SolveOptions, maxResultTerms: number, maxRevisionBytes = Number.POSITIVE_INFINITY): SolveOutcome {
   let outcome: ReturnType<typeof solveNetwork>;
   try {
     outcome = solveNetwork(circuit, options);
@@ -37,5 +38,9 @@ export function deriveOutcome(circuit: Network, options: SolveOptions, maxResult
   const { steps, diagnostics, network: solved, ...results } = outcome;
   const tooLarge = resultBreach(results, maxResultTerms);
   if (tooLarge) return { kind: "capped", breach: tooLarge };
-  return { kind: "solved", derivation: { circuit: solved, results, diagnostics, steps } };
+  const derivation = { circuit: solved, results, diagnostics, steps };
+  if (!Number.isFinite(maxRevisionBytes)) return { kind: "solved", derivation };
+  const bounded = boundDerivation(derivation, maxRevisionBytes);
+  if (!bounded) return { kind: "capped", breach: breach("revisionBytes", maxRevisionBytes, null) };
+  return { kind: "solved", derivation: bounded.derivation };
 }

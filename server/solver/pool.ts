@@ -4,7 +4,8 @@ import { MessageChannel } from "node:worker_threads";
 import { Piscina } from "piscina";
 import type { SolveSettings } from "../config.js";
 import type { Network, SolveOptions } from "../domain/engine.js";
-import { breach } from "./caps.js";
+import { breach, type CapBreach } from "./caps.js";
+import type { ReadOutcome, ReadTask } from "./read-task.js";
 import type { SolveOutcome } from "./derive.js";
 import { startedMessage, type SolveTask } from "./solve-task.js";
 
@@ -24,8 +25,21 @@ export interface SolveHooks {
   onStart?: () => void;
 }
 
+/** Who asked for a solve: the per-person and per-team limits count queued and running solves by it. */
+export interface SolveOwner {
+  userId: string;
+  teamId: string;
+}
+
 export interface Solver {
-  solve(circuit: Network, options: SolveOptions, key: string, hooks?: SolveHooks): Promise<SolveOutcome>;
+  solve(circuit: Network, options: SolveOptions, key: string, owner: SolveOwner, hooks?: SolveHooks): Promise<SolveOutcome>;
+  /**
+   * Counts one solve against its person's and team's limits until the returned release is called;
+   * throws SolveLimitError when either is reached. Taken before a request's first await on the solve.
+   */
+  reserve(owner: SolveOwner): () => void;
+  /** The engine's reader on a thread of its own, under the same time and memory caps; null when capped. */
+  read(kind: ReadTask["kind"], input: unknown): Promise<ReadOutcome | { kind: "capped"; breach: CapBreach }>;
   stats(): SolverStats;
   warm(): void;
   close(): Promise<void>;
@@ -37,6 +51,17 @@ export class SolverBusyError extends Error {
   }
 }
 
+/** One person or one team already has as many solves queued or running as it may. */
+export class SolveLimitError extends Error {
+  constructor(
+    readonly scope: "user" | "team",
+    readonly count: number,
+    readonly limit: number,
+  ) {
+    super(`${scope} solve limit reached`);
+  }
+}
+
 const workerFile = new URL("./worker.mjs", import.meta.url);
 
 // Identical solves asked for at the same time share one run (the cache only helps the next request).
@@ -45,57 +70,134 @@ interface Flight {
   listeners: (() => void)[];
 }
 
+type Threads = Piscina<unknown, unknown>;
+
+function threadPool(settings: SolveSettings, threads: number): Threads {
+  return new Piscina({
+    filename: workerFile.href,
+    minThreads: threads,
+    maxThreads: threads,
+    idleTimeout: Infinity,
+    // The queue is bounded below, in solve(): piscina does not count tasks that carry an abort signal.
+    // The thread loads tsx itself (worker.mjs); whatever loader the parent runs under stays out.
+    execArgv: [],
+    resourceLimits: { maxOldGenerationSizeMb: settings.memoryMb },
+  });
+}
+
+/**
+ * Runs one task on a thread of `pool` under the time cap (counted from the thread's "started"
+ * message, so queue time is free) and the memory cap; past either, the thread is terminated.
+ */
+async function runCapped<T>(
+  settings: SolveSettings,
+  pool: Threads,
+  task: Record<string, unknown>,
+  name: string,
+  onStarted: () => void,
+  onTerminated: () => void,
+): Promise<T | { kind: "capped"; breach: CapBreach }> {
+  const channel = new MessageChannel();
+  const abort = new AbortController();
+  let timer: NodeJS.Timeout | undefined;
+  let timedOut = false;
+  let started = false;
+  channel.port1.on("message", (message) => {
+    if (message !== startedMessage || started) return;
+    started = true;
+    timer = setTimeout(() => {
+      timedOut = true;
+      abort.abort();
+    }, settings.timeLimitMs);
+    onStarted();
+  });
+  try {
+    return (await pool.run({ ...task, progress: channel.port2 }, { name, transferList: [channel.port2], signal: abort.signal })) as T;
+  } catch (error) {
+    if (timedOut) {
+      onTerminated();
+      return { kind: "capped", breach: breach("time", settings.timeLimitMs, null) };
+    }
+    if ((error as { code?: unknown })?.code === "ERR_WORKER_OUT_OF_MEMORY") {
+      onTerminated();
+      return { kind: "capped", breach: breach("memory", settings.memoryMb, null) };
+    }
+    throw error;
+  } finally {
+    clearTimeout(timer);
+    channel.port1.close();
+  }
+}
+
 export function createSolver(settings: SolveSettings): Solver {
-  let pool: Piscina<SolveTask, SolveOutcome> | null = null;
+  let pool: Threads | null = null;
+  // Reading networks has a thread of its own, so an edit never waits behind long solves.
+  let reader: Threads | null = null;
   const flights = new Map<string, { flight: Flight; outcome: Promise<SolveOutcome> }>();
   const counts = { started: 0, finished: 0, terminated: 0, running: 0 };
-
-  const threads = () => {
-    pool ??= new Piscina<SolveTask, SolveOutcome>({
-      filename: workerFile.href,
-      minThreads: settings.threads,
-      maxThreads: settings.threads,
-      idleTimeout: Infinity,
-      // The queue is bounded below, in solve(): piscina does not count tasks that carry an abort signal.
-      // The thread loads tsx itself (worker.mjs); whatever loader the parent runs under stays out.
-      execArgv: [],
-      resourceLimits: { maxOldGenerationSizeMb: settings.memoryMb },
+  const perUser = new Map<string, number>();
+  const perTeam = new Map<string, number>();
+  const bump = (map: Map<string, number>, key: string, by: number) => {
+    const next = (map.get(key) ?? 0) + by;
+    if (next > 0) map.set(key, next);
+    else map.delete(key);
+  };
+  // Fair order: solves wait per team, and a free thread takes the next solve of the team served
+  // longest ago (a team never served goes first), so a quiet team never waits behind a busy one's queue.
+  const waiting = new Map<string, (() => void)[]>();
+  const lastServed = new Map<string, number>();
+  let turns = 0;
+  let handedOut = 0;
+  const pump = () => {
+    while (handedOut < settings.threads && waiting.size > 0) {
+      let team = "";
+      let oldest = Number.POSITIVE_INFINITY;
+      for (const candidate of waiting.keys()) {
+        const served = lastServed.get(candidate) ?? -1;
+        if (served < oldest) [team, oldest] = [candidate, served];
+      }
+      const queue = waiting.get(team)!;
+      const start = queue.shift()!;
+      if (queue.length === 0) waiting.delete(team);
+      lastServed.set(team, (turns += 1));
+      // Teams with nothing queued need no memory of their turn beyond a while.
+      if (lastServed.size > 10_000) for (const known of lastServed.keys()) if (!waiting.has(known)) lastServed.delete(known);
+      handedOut += 1;
+      start();
+    }
+  };
+  const inTurn = <T>(teamId: string, run: () => Promise<T>): Promise<T> =>
+    new Promise<T>((resolve, reject) => {
+      const queue = waiting.get(teamId) ?? [];
+      queue.push(() =>
+        run()
+          .then(resolve, reject)
+          .finally(() => {
+            handedOut -= 1;
+            pump();
+          }),
+      );
+      waiting.set(teamId, queue);
+      pump();
     });
-    return pool;
+
+  const threads = () => (pool ??= threadPool(settings, settings.threads));
+  const readerThread = () => (reader ??= threadPool(settings, 1));
+  const terminated = () => {
+    counts.terminated += 1;
   };
 
   async function runOnThread(circuit: Network, options: SolveOptions, flight: Flight): Promise<SolveOutcome> {
-    const channel = new MessageChannel();
-    const abort = new AbortController();
-    let timer: NodeJS.Timeout | undefined;
-    let timedOut = false;
-    channel.port1.on("message", (message) => {
-      if (message !== startedMessage || flight.started) return;
+    const task = { circuit, options, maxResultTerms: settings.maxResultTerms, maxRevisionBytes: settings.maxRevisionBytes } satisfies Omit<SolveTask, "progress">;
+    const started = () => {
       flight.started = true;
       counts.started += 1;
       counts.running += 1;
-      timer = setTimeout(() => {
-        timedOut = true;
-        abort.abort();
-      }, settings.timeLimitMs);
       for (const listener of flight.listeners) listener();
-    });
+    };
     try {
-      const task: SolveTask = { circuit, options, maxResultTerms: settings.maxResultTerms, progress: channel.port2 };
-      return await threads().run(task, { transferList: [channel.port2], signal: abort.signal });
-    } catch (error) {
-      if (timedOut) {
-        counts.terminated += 1;
-        return { kind: "capped", breach: breach("time", settings.timeLimitMs, null) };
-      }
-      if ((error as { code?: unknown })?.code === "ERR_WORKER_OUT_OF_MEMORY") {
-        counts.terminated += 1;
-        return { kind: "capped", breach: breach("memory", settings.memoryMb, null) };
-      }
-      throw error;
+      return await runCapped<SolveOutcome>(settings, threads(), task, "default", started, terminated);
     } finally {
-      clearTimeout(timer);
-      channel.port1.close();
       if (flight.started) {
         counts.running -= 1;
         counts.finished += 1;
@@ -104,12 +206,13 @@ export function createSolver(settings: SolveSettings): Solver {
   }
 
   return {
-    solve(circuit, options, key, hooks = {}) {
+    solve(circuit, options, key, owner, hooks = {}) {
       let entry = flights.get(key);
       if (!entry) {
         if (flights.size >= settings.threads + settings.queueMax) return Promise.reject(new SolverBusyError());
         const flight: Flight = { started: false, listeners: [] };
-        entry = { flight, outcome: runOnThread(circuit, options, flight).finally(() => flights.delete(key)) };
+        const outcome = inTurn(owner.teamId, () => runOnThread(circuit, options, flight)).finally(() => flights.delete(key));
+        entry = { flight, outcome };
         flights.set(key, entry);
       }
       if (hooks.onStart) {
@@ -118,11 +221,29 @@ export function createSolver(settings: SolveSettings): Solver {
       }
       return entry.outcome;
     },
+    reserve(owner) {
+      const mine = perUser.get(owner.userId) ?? 0;
+      if (mine >= settings.maxPerUser) throw new SolveLimitError("user", mine, settings.maxPerUser);
+      const ours = perTeam.get(owner.teamId) ?? 0;
+      if (ours >= settings.maxPerTeam) throw new SolveLimitError("team", ours, settings.maxPerTeam);
+      bump(perUser, owner.userId, 1);
+      bump(perTeam, owner.teamId, 1);
+      let released = false;
+      return () => {
+        if (released) return;
+        released = true;
+        bump(perUser, owner.userId, -1);
+        bump(perTeam, owner.teamId, -1);
+      };
+    },
+    read: (kind, input) => runCapped<ReadOutcome>(settings, readerThread(), { kind, input }, "runReadTask", () => undefined, terminated),
     stats: () => ({ ...counts, queued: flights.size - counts.running, threads: pool?.threads.length ?? 0 }),
+    // The reader thread starts on first use: most networks read inline.
     warm: () => void threads(),
     close: async () => {
-      await pool?.destroy();
+      await Promise.all([pool?.destroy(), reader?.destroy()]);
       pool = null;
+      reader = null;
     },
   };
 }

@@ -7,6 +7,7 @@ export interface SolveTask {
   circuit: Network;
   options: SolveOptions;
   maxResultTerms: number;
+  maxRevisionBytes: number;
   // The pool starts the time cap when this port says "started", so time spent queued does not count.
   progress: MessagePort;
 }
@@ -16,5 +17,5 @@ export const startedMessage = "started";
 export function runSolveTask(task: SolveTask): SolveOutcome {
   task.progress.postMessage(startedMessage);
   task.progress.close();
-  return deriveOutcome(task.circuit, task.options, task.maxResultTerms);
+  return deriveOutcome(task.circuit, task.options, task.maxResultTerms, task.maxRevisionBytes);
 }

@@ -1,7 +1,9 @@
-// Entry of a solver thread. Plain JavaScript, so the thread starts the same under `tsx`, vitest and
-// `npm start`; tsx then compiles the TypeScript task and the engine for this thread alone.
+// Entry of a solver or reader thread. Plain JavaScript, so the thread starts the same under `tsx`,
+// vitest and `npm start`; tsx then compiles the TypeScript tasks and the engine for this thread alone.
 import { tsImport } from "tsx/esm/api";
 
-const task = await tsImport("./solve-task.ts", import.meta.url);
+const solve = await tsImport("./solve-task.ts", import.meta.url);
+const read = await tsImport("./read-task.ts", import.meta.url);
 
-export default task.runSolveTask;
+export default solve.runSolveTask;
+export const runReadTask = read.runReadTask;

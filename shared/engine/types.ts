@@ -2,8 +2,10 @@
 // Plain data only (strings, numbers, arrays), so a result can be stored and sent as JSON.
 
 import type { ApproximationReport } from "./circuit/approximations";
+import type { BoundedApproximationReport, ErrorBoundOptions } from "./circuit/error-bound";
 import type { FrequencyReport } from "./circuit/frequency";
 export type { ApproximationEntry, ApproximationReport } from "./circuit/approximations";
+export type { BoundedApproximation, BoundedApproximationReport, ErrorBoundOptions } from "./circuit/error-bound";
 export type { FrequencyEquivalent, FrequencyLimitValue, FrequencyReport, PolesZeros, SRoot } from "./circuit/frequency";
 
 /** Every element kind Portfold knows, spelled as the word used in both the JSON and the text netlist. */
@@ -171,6 +173,11 @@ export interface SolveOptions {
   quantities?: Record<string, Quantity>;
   /** Design assumptions such as "gm*ro >> 1": each result is also given with its dominant terms only (an extension). */
   assume?: string[];
+  /**
+   * Approximate Vth, Rth/Zth and Isc within a relative error (an extension): terms of N and D are
+   * dropped at the design point given by `values`, over an optional band and ± tolerance box.
+   */
+  approximate?: ErrorBoundOptions;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -202,7 +209,8 @@ export interface PortStatement {
     | "rth-agree"
     | "rth-disagree"
     | "sensitivity-skipped"
-    | "forms-skipped";
+    | "forms-skipped"
+    | "approximation-needs-band";
   message: string;
 }
 
@@ -294,12 +302,40 @@ export interface Step {
   data: Record<string, unknown>;
 }
 
-/** The numeric leg of the check badge: the exact results evaluated at a point against a floating-point solve. */
+/** The numeric mark of the check badge in brief: the first point compared and the largest relative difference. */
 export interface NumericCheck {
   agree: boolean | null;
   /** Largest relative difference over the results that exist. */
   relativeError: number | null;
   point: Record<string, number>;
+}
+
+/** What one mark of the check badge did and found, for the badge's details. */
+export interface CheckDetail {
+  /** The mark: true agrees, false disagrees, null when the check could not run. */
+  agree: boolean | null;
+  /** What the check did, in one sentence. */
+  method: string;
+  /** What it found. */
+  outcome: string;
+  /** Points compared (0 for a symbolic check). */
+  points: number;
+  /** Largest relative difference of a floating-point check, or null. */
+  relativeError: number | null;
+}
+
+/** The check badge: each mark a test the results can fail (see "How results are checked" in the README). */
+export interface SolveChecks {
+  /** A test current driven into the port in a separate formulation (float, random points) gives Rth. */
+  testSource: boolean | null;
+  /** Voc/Isc equals the test-source Rth exactly. */
+  vocIsc: boolean | null;
+  /** Vth, Rth and Isc equal a floating-point solve of the separate formulation at random points. */
+  numeric: boolean | null;
+  /** Vth, Rth and Isc equal an exact rational solve of the separate formulation at random rational points (an extension). */
+  exactPoint: boolean | null;
+  /** What each mark did (an extension). */
+  details: { testSource: CheckDetail; vocIsc: CheckDetail; numeric: CheckDetail; exactPoint: CheckDetail };
 }
 
 export interface TheveninEquivalent {
@@ -324,8 +360,8 @@ export interface SolveResult {
   /** Whether the two Rth agree; null when only one exists. */
   agree: boolean | null;
   numericCheck: NumericCheck | null;
-  /** The check badge: Rth found by the test source, Voc/Isc agreeing with it, the numeric check. */
-  checks: { testSource: boolean | null; vocIsc: boolean | null; numeric: boolean | null };
+  /** The check badge: the test source, Voc/Isc, the numeric and the exact-point checks, with what each did. */
+  checks: SolveChecks;
   thevenin: TheveninEquivalent | null;
   norton: NortonEquivalent | null;
   statements: PortStatement[];
@@ -340,6 +376,8 @@ export interface SolveResult {
   frequency?: FrequencyReport;
   /** Extension: present only when SolveOptions.assume was given. */
   approximations?: ApproximationReport;
+  /** Extension: present only when SolveOptions.approximate was given. */
+  boundedApproximations?: BoundedApproximationReport;
 }
 
 /** What parseNetwork returns: the network when it could be read, and what went wrong. */

@@ -2,3 +2,5 @@
 // Imported only by lazily loaded screens (it carries the expression parser).
 export { Rational, RationalFunction, ValueSyntaxError, formatSI, parseSI, readExpression } from "../../shared/engine/algebra/index";
 export type { Limit } from "../../shared/engine/algebra/index";
+export { boundedApproximation } from "../../shared/engine/circuit/error-bound";
+export type { BoundedApproximation, ErrorBoundOptions } from "../../shared/engine/circuit/error-bound";

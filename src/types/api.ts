@@ -20,9 +20,14 @@ export interface TeamMembership {
   personal?: boolean;
 }
 
+export interface AccountSettings {
+  reviewMail: boolean;
+}
+
 export interface Me {
   user: User;
   teams: TeamMembership[];
+  settings?: AccountSettings;
 }
 
 /** The engine's interchange format (issue 3), exactly as stored. */
@@ -83,6 +88,17 @@ export interface Step {
   data: unknown;
 }
 
+export interface NoteAnchor {
+  part: "explanation" | "formula";
+  text: string;
+  start?: number;
+}
+
+export interface Stamp {
+  by: string | null;
+  at: string;
+}
+
 export interface Comment {
   id: string;
   stepId: string;
@@ -93,6 +109,51 @@ export interface Comment {
   authorId: string | null;
   createdAt: string;
   updatedAt: string;
+  anchor: NoteAnchor | null;
+  /** On a thread's first note: resolved (who, when), and the last reopening. */
+  resolved: Stamp | null;
+  reopened: Stamp | null;
+}
+
+/** A revision's review state, derived on the server from its verdict history. */
+export interface ReviewState {
+  verdict: Verdict;
+  by: string | null;
+  at: string | null;
+  approvals: number;
+  requiredApprovals: number;
+}
+
+export interface VerdictEntry {
+  id: string;
+  k: number;
+  /** "open" is a withdrawal of the entry in `withdraws`. */
+  verdict: Verdict;
+  by: string | null;
+  byId: string | null;
+  role: Role | null;
+  note: string | null;
+  at: string;
+  withdraws: string | null;
+  withdrawnAt: string | null;
+}
+
+export interface ReviewQueueItem {
+  networkId: string;
+  title: string;
+  teamName: string;
+  k: number;
+  author: string | null;
+  createdAt: string;
+  state: ReviewState;
+  openNotes: number;
+}
+
+export interface ReviewQueuePage {
+  items: ReviewQueueItem[];
+  total: number;
+  page: number;
+  pageSize: number;
 }
 
 /** One exact result in the forms the client shows: canonical N/D and compact, as infix and TeX. */
@@ -105,6 +166,26 @@ export interface ResultForm {
 
 export type ResultName = "vth" | "isc" | "rth";
 
+export type CheckMark = "testSource" | "vocIsc" | "numeric" | "exactPoint";
+
+/** What one mark of the check badge did and found (engine CheckDetail). */
+export interface CheckDetail {
+  agree: boolean | null;
+  method: string;
+  outcome: string;
+  points: number;
+  relativeError: number | null;
+}
+
+/** The check badge; details is null for revisions solved before each check said what it did. */
+export interface ResultChecks {
+  testSource: boolean | null;
+  vocIsc: boolean | null;
+  numeric: boolean | null;
+  exactPoint: boolean | null;
+  details: Record<CheckMark, CheckDetail> | null;
+}
+
 export interface Results {
   vth: ResultForm | null;
   isc: ResultForm | null;
@@ -112,7 +193,7 @@ export interface Results {
   rthFromVocIsc: ResultForm | null;
   agree: boolean | null;
   statements: { code: string; message: string }[];
-  checks: { testSource: boolean | null; vocIsc: boolean | null; numeric: boolean | null };
+  checks: ResultChecks;
   /** Quantity per symbol (resistance, voltage, dimensionless, ...), null when none could be inferred. */
   quantities: Record<string, string | null>;
   dimensionChecks: Partial<Record<ResultName, { status: string; message: string; found: string | null }>>;
@@ -126,11 +207,16 @@ export interface Revision {
   permalink: string | null;
   createdAt: string;
   author: string | null;
+  authorId: string | null;
   circuit: Circuit;
   results: Results;
   diagnostics: Diagnostic[];
   steps: Step[];
-  verdict: { verdict: Verdict; by: string | null; at: string | null };
+  verdict: ReviewState;
+  /** The latest earlier revision that reads as approved. */
+  approvedBefore: { k: number; by: string | null; at: string | null } | null;
+  /** Open note threads; null where notes are not shown (the shared view). */
+  openNotes: number | null;
 }
 
 export interface ShareLink {

@@ -6,8 +6,8 @@
 import { mkdirSync } from "node:fs";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { parseValue } from "../../shared/engine/algebra/index.js";
 import { launchBrowser, screenshotDir, type TestBrowser } from "../support/browser.js";
+import { expectSameExpression } from "../support/expressions.js";
 import { linkIn, waitForMail } from "../support/mail.js";
 import { startTestServer, type TestServer } from "../support/server.js";
 import { watchPage } from "./page-watch.js";
@@ -182,7 +182,7 @@ describe("schematic canvas in chromium", () => {
     const texts = await equivalents.locator('annotation[encoding="application/x-tex"]').allTextContents();
     const rth = texts.find((t) => t.startsWith("R_{\\mathrm{th}}"))!;
     const infix = texToInfix(rth.replace(/^R_\{\\mathrm\{th\}\}\s*=\s*/, ""));
-    expect(parseValue(infix).equals(parseValue("R0/(1 + mu)"))).toBe(true);
+    expectSameExpression(infix, "R0/(1 + mu)");
 
     const values = page.getByRole("region", { name: "Values" });
     await values.getByLabel("R0", { exact: true }).fill("4.7k");

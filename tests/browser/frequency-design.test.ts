@@ -1,14 +1,10 @@
 // The Frequency panel and design solve in chromium: a sensor's RC output network gets its Bode
 // plot of |Zth| and phase with the DC and high-frequency limits, its pole and zero, and a design
 // solve for the shunt resistor, including a target no value meets.
-import { mkdirSync } from "node:fs";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { ApiClient } from "../support/api.js";
-import { launchBrowser, screenshotDir, type TestBrowser } from "../support/browser.js";
-import { startTestServer, type TestServer } from "../support/server.js";
-import { watchPage } from "./page-watch.js";
-import { importNetlist, shot, signInThroughForm } from "./page-steps.js";
+import type { TestServer } from "../support/server.js";
+import { importNetlist, shot, signedUpSession, signInThroughForm, type SignedUpSession } from "./page-steps.js";
 
 // Zth = Rs + R/(1 + sRC): DC limit Rs + R, high-frequency limit Rs (common practice),
 // pole at s = −1/(RC), zero at s = −(Rs + R)/(Rs·R·C).
@@ -24,23 +20,17 @@ const run = Date.now().toString(36);
 const user = { name: "Fran Freq", email: `fran-${run}@example.com`, password: "first password 1" };
 
 describe("frequency panel and design solve in chromium", () => {
+  let session: SignedUpSession;
   let server: TestServer;
-  let browser: TestBrowser;
   let page: Page;
-  const pageErrors: string[] = [];
+  let pageErrors: string[];
 
   beforeAll(async () => {
-    mkdirSync(screenshotDir, { recursive: true });
-    server = await startTestServer();
-    const api = new ApiClient(server.url);
-    expect((await api.post("/api/auth/signup", user)).status).toBe(201);
-    browser = await launchBrowser();
-    page = await browser.context.newPage();
-    watchPage(page, pageErrors);
+    session = await signedUpSession(user);
+    ({ server, page, pageErrors } = session);
   });
   afterAll(async () => {
-    await browser?.close();
-    await server?.close();
+    await session?.close();
   });
 
   it("solves the RC network and draws the Bode plot with its limits, pole and zero", async () => {

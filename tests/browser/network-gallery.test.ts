@@ -123,7 +123,7 @@ describe("network gallery in chromium", () => {
       expect((await api.post(`/api/networks/${created.body.id}/solve`)).status).toBe(201);
 
       await page.goto(`${server.url}/networks/${created.body.id}`);
-      await page.locator('ol[aria-label="Ledger"] .katex').first().waitFor();
+      await page.locator('ol[aria-label="Ledger"] .katex').first().waitFor({ timeout: 30_000 }); // the first page also loads KaTeX
       expect(await page.locator(".katex-error").count()).toBe(0);
       const elements = parsed.network!.elements.length;
       await expect(page.locator('svg[aria-label^="Schematic preview"]').getAttribute("aria-label")).resolves.toContain(`${elements} elements`);

@@ -1,7 +1,11 @@
 // Steps several browser tests take the same way: a screenshot, signing up or in through the
 // forms, importing a netlist file from the team home.
+import { mkdirSync } from "node:fs";
 import type { Page } from "playwright-core";
-import { screenshotDir } from "../support/browser.js";
+import { ApiClient } from "../support/api.js";
+import { launchBrowser, screenshotDir, type TestBrowser } from "../support/browser.js";
+import { startTestServer, type TestServer } from "../support/server.js";
+import { watchPage } from "./page-watch.js";
 
 export interface Person {
   name: string;
@@ -10,7 +14,8 @@ export interface Person {
 }
 
 export async function shot(page: Page, name: string): Promise<void> {
-  await page.screenshot({ path: `${screenshotDir}/${name}.png`, fullPage: true });
+  // A full-page picture of a long ledger can take a while on a loaded machine.
+  await page.screenshot({ path: `${screenshotDir}/${name}.png`, fullPage: true, timeout: 30_000 });
 }
 
 /** Fills the sign-up form on the current page and sends it. */
@@ -21,13 +26,13 @@ export async function signUpThroughForm(page: Page, who: Person): Promise<void> 
   await page.getByRole("button", { name: "Create account" }).click();
 }
 
-/** Signs in through the form and waits for the team home. */
+/** Signs in through the form and waits for the team home (or the list of teams, for someone in several). */
 export async function signInThroughForm(page: Page, baseUrl: string, who: Pick<Person, "email" | "password">): Promise<void> {
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel("E-mail").fill(who.email);
   await page.getByLabel("Password").fill(who.password);
   await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL(/\/teams\//);
+  await page.waitForURL(/\/teams(\/|$)/);
 }
 
 /** From the team home: imports a Portfold netlist as a file and waits for its workbench. */
@@ -37,4 +42,35 @@ export async function importNetlist(page: Page, file: { name: string; text: stri
   await page.getByLabel(/^Title/).fill(file.title);
   await page.getByRole("button", { name: "Import", exact: true }).click();
   await page.waitForURL(/\/networks\/[0-9a-f-]{36}$/);
+}
+
+/** What most browser tests start with: the app with its database, one person signed up through the API, a watched page. */
+export interface SignedUpSession {
+  server: TestServer;
+  browser: TestBrowser;
+  page: Page;
+  pageErrors: string[];
+  close(): Promise<void>;
+}
+
+export async function signedUpSession(person: Person): Promise<SignedUpSession> {
+  mkdirSync(screenshotDir, { recursive: true });
+  const server = await startTestServer();
+  const api = new ApiClient(server.url);
+  const signup = await api.post("/api/auth/signup", person);
+  if (signup.status !== 201) throw new Error(`sign-up answered ${signup.status}`);
+  const browser = await launchBrowser();
+  const page = await browser.context.newPage();
+  const pageErrors: string[] = [];
+  watchPage(page, pageErrors);
+  return {
+    server,
+    browser,
+    page,
+    pageErrors,
+    close: async () => {
+      await browser.close();
+      await server.close();
+    },
+  };
 }

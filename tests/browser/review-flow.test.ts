@@ -170,8 +170,13 @@ describe("review flow in chromium", () => {
 
     await guest.getByRole("link", { name: "Sign in to comment" }).first().click();
     await guest.getByRole("link", { name: "Create an account" }).click();
+    const signedUpAt = new Date();
     await signUpThroughForm(guest, reviewer);
     await guest.waitForURL(shareUrl);
+    // An invitation is accepted only at the invited address, confirmed.
+    const confirmation = await waitForMail(server.db, reviewer.email, { since: signedUpAt, subject: /confirm/i });
+    await guest.goto(linkIn(confirmation, "/verify-email").toString());
+    await guest.getByText("Your address is confirmed.").waitFor();
 
     const invitation = await waitForMail(server.db, reviewer.email, { subject: /invit/i });
     await guest.goto(linkIn(invitation, "/invitations/accept").toString());
@@ -188,8 +193,9 @@ describe("review flow in chromium", () => {
     await guest.getByRole("button", { name: "Add note" }).click();
     await guest.getByRole("complementary", { name: /^Review notes on step 1,/ }).locator("li p").getByText(note).waitFor();
     await shot(guest, "shared-view-with-note");
-    await guest.getByLabel("Review verdict").selectOption("approved");
-    await guest.getByText("review: approved").waitFor();
+    await guest.getByRole("button", { name: "Approve", exact: true }).click();
+    await guest.getByRole("dialog", { name: "Approve revision 1" }).getByRole("button", { name: "Approve with open notes" }).click();
+    await expect.poll(() => guest.getByRole("status", { name: "Review state" }).textContent(), { timeout: 15_000 }).toContain("approved by Rui Reviewer");
   });
 
   it("sends the author a mail about the note whose link opens the revision with the note beside its step", async () => {

@@ -76,7 +76,7 @@ describe("workbench tools in chromium", () => {
     expect(text).toBe(BRIDGE);
     expect(text.split("\n")[7]).toBe("Gauge resistor b 0 = Rd");
     await expect(diagnostics.textContent()).resolves.toMatch(/^Line 8, column 7: /);
-    await expect(page.getByText("(last version that read without errors)")).toBeTruthy();
+    expect(await page.getByText("(last version that read without errors)").isVisible()).toBe(true);
     expect(await page.getByRole("button", { name: "Solve", exact: true }).isDisabled()).toBe(true);
     await shot(page, "workbench-diagnostic");
     await editor.fill(text);

@@ -3,6 +3,8 @@ import fc from "fast-check";
 import { Poly, Rational, parseValue, polyDivide, polyDivideExact, polyGcd, polyGcdList, polyLcm } from "../../shared/engine/algebra/index";
 import { nonZeroPoly, polyArb } from "./algebra-arbitraries";
 import { askSympy, type SympyQuestion } from "./algebra-sympy";
+import { heuristicGcd } from "../../shared/engine/algebra/heuristic-gcd";
+import { mulberry32 } from "./circuit-generators";
 
 const runs = { numRuns: 120 };
 const P = (s: string) => parseValue(s).num;
@@ -111,5 +113,55 @@ describe("polyGcd agrees with sympy.gcd", () => {
       return { kind: "gcd", a: pa.toInfix(), b: pb.toInfix(), ours: polyGcd(pa, pb).toInfix() };
     });
     expect(askSympy(questions)).toEqual(questions.map(() => true));
+  });
+});
+
+/** A sparse integer polynomial in up to `nvars` of the names below, degree at most `maxDeg` per variable. */
+function sparsePoly(rand: () => number, nvars: number, terms: number, maxDeg: number): Poly {
+  const names = ["Rload", "Rsens", "gm", "ro", "Cc", "Lf", "beta", "Rbias", "Gf", "mu"].slice(0, nvars);
+  const list = Array.from({ length: terms }, () => ({
+    coefficient: Math.floor(rand() * 19) - 9 || 1,
+    monomial: Object.fromEntries(names.filter(() => rand() < 0.45).map((v) => [v, 1 + Math.floor(rand() * maxDeg)])),
+  }));
+  return Poly.fromTerms(list);
+}
+
+describe("multivariate gcd on sparse inputs with planted factors, against sympy.gcd", () => {
+  const rand = mulberry32(2026);
+  const cases = Array.from({ length: 24 }, (_, i) => {
+    const nvars = 4 + (i % 7);
+    const maxDeg = i % 3 === 0 ? 2 : 1;
+    const g = sparsePoly(rand, nvars, 2 + (i % 4), maxDeg);
+    const a = sparsePoly(rand, nvars, 3 + (i % 5), maxDeg).mul(g);
+    const b = sparsePoly(rand, nvars, 2 + (i % 6), maxDeg).mul(g);
+    return { a, b, g };
+  });
+
+  it("polyGcd equals sympy's gcd up to a constant, and contains the planted factor", () => {
+    const questions: SympyQuestion[] = [];
+    for (const { a, b, g } of cases) {
+      if (a.isZero() || b.isZero() || g.isZero()) continue;
+      const ours = polyGcd(a, b);
+      if (!g.isConstant()) expect(polyDivide(ours, g.primitivePart())).not.toBeNull();
+      questions.push({ kind: "gcd", a: a.toInfix(), b: b.toInfix(), ours: ours.toInfix() });
+    }
+    expect(questions.length).toBeGreaterThan(18);
+    expect(askSympy(questions)).toEqual(questions.map(() => true));
+  }, 120_000);
+
+  it("the heuristic gcd alone finds the same gcd with exact quotients", () => {
+    let found = 0;
+    for (const { a, b } of cases) {
+      if (a.isZero() || b.isZero()) continue;
+      const A = a.primitivePart();
+      const B = b.primitivePart();
+      const h = heuristicGcd(A, B);
+      if (h === null) continue;
+      found++;
+      expect(h.gcd.equals(polyGcd(A, B))).toBe(true);
+      expect(h.gcd.mul(h.aQuotient).equals(A)).toBe(true);
+      expect(h.gcd.mul(h.bQuotient).equals(B)).toBe(true);
+    }
+    expect(found).toBeGreaterThan(18);
   });
 });

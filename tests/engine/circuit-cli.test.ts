@@ -8,13 +8,18 @@ import { describe, expect, it } from "vitest";
 
 const ROOT = new URL("../../", import.meta.url).pathname;
 
+/** What `npm run -s solve -- ...` runs: the startup snapshot, rebuilt when a source is newer. */
 function solve(...args: string[]) {
-  const r = spawnSync(process.execPath, ["--import", "tsx", "scripts/solve.ts", ...args], { cwd: ROOT, encoding: "utf8" });
+  const r = spawnSync("sh", ["scripts/solve.sh", ...args], { cwd: ROOT, encoding: "utf8" });
   return { code: r.status, out: r.stdout, err: r.stderr };
 }
 
-describe("solve CLI", () => {
-  it("prints one JSON object with the issue's keys and exits 0 when solved", () => {
+function solveFromSource(...args: string[]) {
+  return spawnSync(process.execPath, ["--import", "tsx", "scripts/solve.ts", ...args], { cwd: ROOT, encoding: "utf8" }).stdout;
+}
+
+describe("solve CLI", { timeout: 120_000 }, () => {
+  it("prints one JSON object with the documented keys and exits 0 when solved", () => {
     const r = solve("fixtures/sensor-buffer.pfn", "--limit", "A=inf", "--set", "Ro=4.7k,A=1e5,Vs=1", "--float");
     expect(r.code).toBe(0);
     const o = JSON.parse(r.out);
@@ -68,4 +73,16 @@ describe("solve CLI", () => {
     expect(usage.code).toBe(1);
     expect(usage.err).toMatch(/SYMBOL=inf or SYMBOL=0/);
   });
+
+  it("the startup snapshot prints exactly what the TypeScript source prints", () => {
+    const args = ["fixtures/sensor-buffer.pfn", "--limit", "A=inf", "--set", "Ro=4.7k,A=1e5,Vs=1", "--float"];
+    const fromSnapshot = solve(...args);
+    expect(fromSnapshot.err).toBe("");
+    expect(fromSnapshot.code).toBe(0);
+    expect(fromSnapshot.out).toBe(solveFromSource(...args));
+    // An option first is the command's, not node's.
+    const usage = solve("--no-such-option");
+    expect(usage.code).toBe(1);
+    expect(usage.err).toMatch(/unknown option --no-such-option/);
+  }, 120_000);
 });

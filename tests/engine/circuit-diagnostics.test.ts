@@ -130,6 +130,18 @@ describe("diagnostics", () => {
     expect(r.statements.map((s) => s.code)).toContain("rth-infinite");
   });
 
+  it("a unity-gain current-controlled source feeding its own control names the elements and the node it leaves free", () => {
+    // KCL at "sense": I(Rsense) − 1·I(Rsense) = 0 holds for any voltage there (common practice: a loop gain of exactly 1).
+    const r = solveNetwork("port out 0\nSig voltage in 0 = Vs\nRo resistor in out = R2\nRsense resistor sense 0 = Rs\nMirror current 0 sense = 1 * through(Rsense)\n");
+    const d = r.diagnostics.find((x) => x.code === "singular-system");
+    expect(d?.elements).toEqual(["Rsense", "Mirror"]);
+    expect(d?.nodes).toEqual(["sense"]);
+    expect(d?.message).toMatch(/currents of "Rsense", "Mirror" and the voltage of node "sense" can take any value/);
+    expect(d?.message).toMatch(/Controlled source "Mirror" = 1 \* through\(Rsense\) is among them/);
+    // The same loop with gain 0.9 is well posed.
+    expect(solveNetwork("port out 0\nSig voltage in 0 = Vs\nRo resistor in out = R2\nRsense resistor sense 0 = Rs\nMirror current 0 sense = 0.9 * through(Rsense)\n").ok).toBe(true);
+  });
+
   it("a node seen only by op-amp inputs is floating, with the reason", () => {
     const r = solveNetwork("port o 0\nRes1 resistor n o = R\nRes2 resistor n 0 = R\nBuf1 opamp p n -> o\n");
     const d = r.diagnostics.find((x) => x.code === "floating-node");

@@ -1,6 +1,7 @@
 // Random networks for the cross-check tests: small, connected, every element kind, deterministic per seed.
 
-import type { Element, ElementKind, NetworkInput } from "../../shared/engine";
+import { readdirSync, readFileSync } from "node:fs";
+import { ELEMENT_KINDS as ELEMENT_KIND_LIST, type Element, type ElementKind, type NetworkInput } from "../../shared/engine";
 
 export function mulberry32(seed: number): () => number {
   let t = seed >>> 0;
@@ -134,4 +135,21 @@ export function randomNetwork(rand: () => number, opts: GeneratorOptions = {}): 
   let minus = pick(["0", "0", ...nodes]);
   if (minus === plus) minus = "0";
   return { port: { plus, minus }, elements };
+}
+
+/** The generated corpus that the sympy cross-check solves: every element kind forced in turn, numbers and s alternating. */
+export function generatedCorpus(count: number): NetworkInput[] {
+  return Array.from({ length: count }, (_, i) => {
+    const rand = mulberry32(1000 + i);
+    return randomNetwork(rand, { numbers: i % 3 === 0, reactive: i % 2 === 1, force: ELEMENT_KIND_LIST[i % ELEMENT_KIND_LIST.length] });
+  });
+}
+
+/** The networks of fixtures/ (JSON and Portfold netlist), by file name. */
+export function fixtureNetworks(): { file: string; text: string }[] {
+  const dir = new URL("../../fixtures/", import.meta.url).pathname;
+  return readdirSync(dir)
+    .filter((f) => f.endsWith(".json") || f.endsWith(".pfn"))
+    .sort()
+    .map((file) => ({ file, text: readFileSync(dir + file, "utf8") }));
 }

@@ -3,12 +3,12 @@
 
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { parseValue } from "../../shared/engine/algebra";
 import { solveNetwork } from "../../shared/engine";
+import { expectSameExpression } from "../support/expressions";
 
 const FIXTURES = new URL("../../fixtures/", import.meta.url).pathname;
 const follower = readFileSync(FIXTURES + "sensor-buffer.pfn", "utf8"); // Vth = A Vs/(1+A), Rth = Ro/(1+A)
-const same = (a: string | null | undefined, b: string) => expect(a != null && parseValue(a).sub(parseValue(b)).isZero(), `${a} vs ${b}`).toBe(true);
+const same = expectSameExpression;
 
 describe("results", () => {
   it("prints expanded and compact forms, infix and TeX", () => {
@@ -125,10 +125,12 @@ describe("results", () => {
     expect(r.statements.map((x) => x.code)).toContain("forms-skipped");
   });
 
-  it("agrees with its own floating-point solve at a seeded point (the numeric check)", () => {
+  it("agrees with a floating-point solve of a separate formulation at seeded points (the numeric check)", () => {
     const r = solveNetwork(follower, { steps: false });
     expect(r.numericCheck!.agree).toBe(true);
     expect(r.numericCheck!.relativeError!).toBeLessThan(1e-12);
-    expect(r.checks).toEqual({ testSource: true, vocIsc: true, numeric: true });
+    const { testSource, vocIsc, numeric, exactPoint } = r.checks;
+    expect({ testSource, vocIsc, numeric, exactPoint }).toEqual({ testSource: true, vocIsc: true, numeric: true, exactPoint: true });
+    expect(r.checks.details.numeric.points).toBe(3);
   });
 });

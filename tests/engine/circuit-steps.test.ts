@@ -12,7 +12,7 @@ const fixture = (name: string) => readFileSync(FIXTURES + name, "utf8");
 describe("derivation steps", () => {
   const buffer = solveNetwork(fixture("sensor-buffer.pfn"));
 
-  it("lists the steps of the issue in order, with stable ids", () => {
+  it("lists the ledger's steps in order, with stable ids", () => {
     expect(buffer.steps.map((s) => s.id)).toEqual([
       "port",
       "network",
@@ -58,13 +58,23 @@ describe("derivation steps", () => {
     expect(new Set(buffer.steps.map((s) => s.id)).size).toBe(buffer.steps.length);
   });
 
-  it("records each KCL contribution and the sources zeroed for Rth", () => {
+  it("records each KCL contribution, the sources zeroed for Rth and the Voc/Isc agreement", () => {
     const kclOut = buffer.steps.find((s) => s.id === "vth.kcl.out")!;
     expect(kclOut.data.contributions).toEqual([{ element: "Rout", current: "(V_out - V_x)/Ro" }]);
     const zero = buffer.steps.find((s) => s.id === "rth.zeroing")!;
     expect(zero.data).toEqual({ shorted: ["Vsens"], opened: [], partly: [] });
     const check = buffer.steps.find((s) => s.id === "check.voc-isc")!;
     expect(check.data.agree).toBe(true);
+  });
+
+  it("when neither the open nor the shorted port solves, the equivalents claim no Rth at all", () => {
+    // A unity-gain current loop leaves node "sense" free with the port open and shorted alike (common practice).
+    const r = solveNetwork("port out 0\nSig voltage in 0 = Vs\nRo resistor in out = R2\nRsense resistor sense 0 = Rs\nMirror current 0 sense = 1 * through(Rsense)\n");
+    for (const id of ["result.thevenin", "result.norton"]) {
+      const step = r.steps.find((s) => s.id === id)!;
+      expect(step.tex, id).toBe("\\text{no unique solution}");
+      expect(step.explanation, id).toMatch(/Neither the open nor the shorted port has a unique solution/);
+    }
   });
 
   it("a degenerate port says so in its equivalents", () => {

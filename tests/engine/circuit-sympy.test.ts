@@ -5,7 +5,7 @@
 import { execFileSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import { ELEMENT_KINDS, solveNetwork, type ElementKind, type NetworkInput } from "../../shared/engine";
-import { mulberry32, randomNetwork } from "./circuit-generators";
+import { generatedCorpus } from "./circuit-generators";
 
 const PYTHON = "/usr/bin/python3";
 const SCRIPT = new URL("./sympy/port_reference.py", import.meta.url).pathname;
@@ -19,10 +19,9 @@ interface Case {
 
 function buildCases(count: number): Case[] {
   const cases: Case[] = [];
+  const networks = generatedCorpus(count);
   for (let i = 0; i < count; i++) {
-    const rand = mulberry32(1000 + i);
-    const force = ELEMENT_KINDS[i % ELEMENT_KINDS.length];
-    const network = randomNetwork(rand, { numbers: i % 3 === 0, reactive: i % 2 === 1, force });
+    const network = networks[i];
     const r = solveNetwork(network, { steps: false, sensitivities: false, dimensions: false });
     cases.push({
       id: `net-${i}`,

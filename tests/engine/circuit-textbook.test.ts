@@ -2,9 +2,8 @@
 // Each check names its source; "from memory" means the formula was recalled, not re-read.
 
 import { describe, expect, it } from "vitest";
-import { parseValue, RationalFunction } from "../../shared/engine/algebra";
 import { solveNetwork, type SolveResult } from "../../shared/engine";
-import { expectSameExpression } from "../support/expressions";
+import { evaluateInfix, expectSameExpression } from "../support/expressions";
 
 function solve(text: string): SolveResult {
   const r = solveNetwork(text, { steps: false, sensitivities: false });
@@ -114,15 +113,20 @@ describe("textbook results", () => {
       Vs voltage in 0 = V
       Ra resistor in out = R1
       Rb resistor out 0 = R2`);
-    const vth = parseValue(r.vth!.infix);
-    const rth = parseValue(r.rth!.infix);
-    const rl = RationalFunction.variable("RL");
-    const power = vth.mul(vth).mul(rl).div(rth.add(rl).pow(2));
-    const slope = power.derivative("RL");
-    expect(slope.substituteExpressions({ RL: rth }).isZero()).toBe(true);
-    expect(power.substituteExpressions({ RL: rth }).sub(vth.mul(vth).div(rth.scale(parseValue("4").constantValue()!))).isZero()).toBe(true);
-    // Off the peak the slope is not zero (RL = 2 Rth).
-    expect(slope.substituteExpressions({ RL: rth.add(rth) }).isZero()).toBe(false);
+    // The load's power from a second solve with the load in place (its voltage is the loaded port's Vth),
+    // read by the independent reader: it peaks where RL equals the first solve's Rth.
+    const loaded = solve(`
+      port out 0
+      Vs voltage in 0 = V
+      Ra resistor in out = R1
+      Rb resistor out 0 = R2
+      Load resistor out 0 = RL`);
+    const point = { V: 1.5, R1: 0.75, R2: 2.25 };
+    const vth = evaluateInfix(r.vth!.infix, point);
+    const rth = evaluateInfix(r.rth!.infix, point);
+    const power = (rl: number) => evaluateInfix(loaded.vth!.infix, { ...point, RL: rl }) ** 2 / rl;
+    expect(power(rth)).toBeCloseTo((vth * vth) / (4 * rth), 12);
+    for (const off of [0.9, 0.99, 1.01, 1.1, 2]) expect(power(rth * off), `RL = ${off} Rth`).toBeLessThan(power(rth));
   });
 
   it("voltage divider: Vth = Vs R2/(R1+R2), Rth = R1 R2/(R1+R2)", () => {

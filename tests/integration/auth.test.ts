@@ -1,6 +1,7 @@
+import { createHash } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { emailTokens, users } from "../../server/db/schema.js";
+import { emailTokens, sessions, users } from "../../server/db/schema.js";
 import { ApiClient } from "../support/api.js";
 import { uniqueEmail } from "../support/fixtures.js";
 import { linkIn, mailCount, waitForMail } from "../support/mail.js";
@@ -30,6 +31,25 @@ describe("sign-up, sign-in, sign-out and password reset", () => {
     expect(me.status).toBe(200);
     expect(me.body.user.email).toBe(email);
     expect(me.body.teams).toEqual([expect.objectContaining({ role: "owner", personal: true })]);
+  });
+
+  // OWASP Session Management Cheat Sheet: at least 64 bits of entropy (we keep 128+); stored hashed like any bearer token — common practice.
+  it("keeps only the SHA-256 of the session token in the database; the cookie holds the token", async () => {
+    const client = new ApiClient(server.url);
+    const email = uniqueEmail("session");
+    await client.post("/api/auth/signup", { email, password: "a session secret", name: "Sid Session" });
+    const token = client.cookie!.split("=")[1];
+    // 128 bits at least: 22 base64url characters carry 132.
+    expect(token).toMatch(/^[A-Za-z0-9_-]{22,}$/);
+    const [user] = await server.db.select().from(users).where(eq(users.email, email));
+    const rows = await server.db.select({ id: sessions.id }).from(sessions).where(eq(sessions.userId, user.id));
+    expect(rows).toEqual([{ id: createHash("sha256").update(token).digest("hex") }]);
+    // The stored id itself is no key: a cookie holding it opens nothing.
+    const stolen = new ApiClient(server.url, { cookie: `portfold_session=${rows[0].id}` });
+    expect((await stolen.get("/api/me")).status).toBe(401);
+    expect((await client.get("/api/me")).status).toBe(200);
+    expect((await client.post("/api/auth/logout")).status).toBe(204);
+    expect(await server.db.select().from(sessions).where(eq(sessions.userId, user.id))).toEqual([]);
   });
 
   it("stores the password as argon2id with OWASP's minimum parameters, never in clear", async () => {

@@ -1,11 +1,12 @@
 // Every route × {anonymous, non-member, viewer, reviewer, editor, owner}, with the exact status, against the real database.
 import { randomUUID } from "node:crypto";
-import type { Express } from "express";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createApp } from "../../server/app.js";
-import { createLucia, sessionCookieName } from "../../server/auth/lucia.js";
-import { comments, teamMembers, teams } from "../../server/db/schema.js";
+import { createLucia, createSessionToken, sessionCookieName } from "../../server/auth/lucia.js";
+import { comments, invitations, teamMembers, teams, type Role } from "../../server/db/schema.js";
+import { newToken } from "../../server/lib/tokens.js";
 import { ApiClient } from "../support/api.js";
+import { mountedRoutes } from "../support/routes.js";
 import { actors, followerCircuit, signedInPerson, teamWithEveryRole, uniqueEmail, type Actor, type Person, type TeamFixture } from "../support/fixtures.js";
 import { linkIn, waitForMail } from "../support/mail.js";
 import { clientShellDir, startTestServer, type TestServer } from "../support/server.js";
@@ -73,18 +74,30 @@ async function freshTeam(world: World): Promise<string> {
   return team.id;
 }
 
-async function invite(world: World, teamId = world.team.teamId): Promise<{ id: string; token: string }> {
-  const email = uniqueEmail("matrix-invitee");
+async function invite(world: World, teamId = world.team.teamId, email = uniqueEmail("matrix-invitee")): Promise<{ id: string; token: string }> {
   const since = new Date();
   const created = await world.team.clients.owner.post(`/api/teams/${teamId}/invitations`, { email, role: "viewer" });
   const token = linkIn(await waitForMail(world.server.db, email, { since }), "/invitations/accept?token=").searchParams.get("token")!;
   return { id: created.body.id, token };
 }
 
-async function reviewerComment(world: World): Promise<string> {
+// Inviting a member is refused up front, so their invitation (made before they joined, say) is written directly.
+async function memberInvitation(world: World, actor: Role): Promise<{ token: string }> {
+  const { token, hash } = newToken();
+  await world.server.db.insert(invitations).values({ teamId: await freshTeam(world), email: world.team.people[actor].user.email, role: "viewer", tokenHash: hash, expiresAt: new Date(Date.now() + 3_600_000) });
+  return { token };
+}
+
+async function reviewerComment(world: World, resolved = false): Promise<string> {
   const [row] = await world.server.db
     .insert(comments)
-    .values({ revisionId: (await world.team.clients.owner.get(`/api/networks/${world.networkId}/revisions/1`)).body.id, stepKey: world.stepId, authorId: world.team.people.reviewer.user.id, body: "scratch" })
+    .values({
+      revisionId: (await world.team.clients.owner.get(`/api/networks/${world.networkId}/revisions/1`)).body.id,
+      stepKey: world.stepId,
+      authorId: world.team.people.reviewer.user.id,
+      body: "scratch",
+      ...(resolved ? { resolvedAt: new Date(), resolvedBy: world.team.people.reviewer.user.id } : {}),
+    })
     .returning();
   return row.id;
 }
@@ -110,6 +123,7 @@ const cases: Case[] = [
   { method: "POST", route: "/api/auth/password-reset", expect: everyone(202), path: () => "/api/auth/password-reset", body: () => ({ email: uniqueEmail("nobody") }) },
   { method: "POST", route: "/api/auth/password-reset/confirm", expect: everyone(400), path: () => "/api/auth/password-reset/confirm", body: () => ({ token: "A".repeat(43), password: "whatever secret" }) },
   { method: "GET", route: "/api/me", expect: signedIn(200), path: () => "/api/me" },
+  { method: "PATCH", route: "/api/me/settings", expect: signedIn(200), path: () => "/api/me/settings", body: () => ({ reviewMail: true }) },
   // ---- teams ----
   { method: "POST", route: "/api/teams", expect: signedIn(201), path: () => "/api/teams", body: () => ({ name: "Matrix team" }) },
   { method: "GET", route: "/api/teams/:teamId", expect: members(200), path: (w) => `/api/teams/${w.team.teamId}` },
@@ -122,8 +136,15 @@ const cases: Case[] = [
   { method: "GET", route: "/api/teams/:teamId/invitations", expect: ownersOnly(200), path: (w) => `/api/teams/${w.team.teamId}/invitations` },
   { method: "DELETE", route: "/api/teams/:teamId/invitations/:invitationId", expect: ownersOnly(204), prepare: async (w) => await invite(w), path: (w, p) => `/api/teams/${w.team.teamId}/invitations/${p.id}` },
   { method: "GET", route: "/api/invitations/:token", expect: everyone(200), path: (w) => `/api/invitations/${w.inviteToken}` },
-  // Members are members already (409); the outsider joins (200) — a scratch team, so the outsider stays outside the fixture team.
-  { method: "POST", route: "/api/invitations/:token/accept", expect: statuses(401, 200, 409, 409, 409, 409), prepare: async (w) => await invite(w, await freshTeam(w)), path: (_w, p) => `/api/invitations/${p.token}/accept` },
+  // Each actor is invited at its own address. Members are members already (409); the outsider joins (200) — a scratch
+  // team, so the outsider stays outside the fixture team.
+  {
+    method: "POST",
+    route: "/api/invitations/:token/accept",
+    expect: statuses(401, 200, 409, 409, 409, 409),
+    prepare: async (w, actor) => (actor === "anonymous" || actor === "nonMember" ? await invite(w, await freshTeam(w), actor === "nonMember" ? w.team.people.nonMember.user.email : undefined) : await memberInvitation(w, actor)),
+    path: (_w, p) => `/api/invitations/${p.token}/accept`,
+  },
   // ---- team cells ----
   { method: "GET", route: "/api/teams/:teamId/cells", expect: members(200), path: (w) => `/api/teams/${w.team.teamId}/cells` },
   // Every actor saves a cell of its own id, so the editor's and the owner's are both 201 (not 409).
@@ -170,7 +191,29 @@ const cases: Case[] = [
   { method: "PATCH", route: "/api/networks/:networkId/revisions/:number/comments/:commentId", expect: statuses(401, 404, 403, 200, 403, 403), path: (w) => `${rev(w)}/comments/${w.commentId}`, body: () => ({ body: "Edited" }) },
   // Its author deletes it, and so may a team owner.
   { method: "DELETE", route: "/api/networks/:networkId/revisions/:number/comments/:commentId", expect: statuses(401, 404, 403, 204, 403, 204), prepare: async (w) => ({ id: await reviewerComment(w) }), path: (w, p) => `${rev(w)}/comments/${p.id}` },
-  { method: "PUT", route: "/api/networks/:networkId/revisions/:number/verdict", expect: reviewersUp(200), path: (w) => `${rev(w)}/verdict`, body: () => ({ verdict: "approved" }) },
+  // The owner solved the revision, so the owner may not approve it.
+  { method: "PUT", route: "/api/networks/:networkId/revisions/:number/verdict", expect: statuses(401, 404, 403, 200, 200, 403), path: (w) => `${rev(w)}/verdict`, body: () => ({ verdict: "approved" }) },
+  { method: "GET", route: "/api/networks/:networkId/revisions/:number/verdicts", expect: members(200), path: (w) => `${rev(w)}/verdicts` },
+  { method: "POST", route: "/api/networks/:networkId/revisions/:number/verdicts", expect: reviewersUp(201), path: (w) => `${rev(w)}/verdicts`, body: () => ({ verdict: "needs_changes", note: "From the matrix" }) },
+  // The reviewer's own verdict: only its giver withdraws it.
+  {
+    method: "POST",
+    route: "/api/networks/:networkId/revisions/:number/verdicts/:verdictId/withdraw",
+    expect: statuses(401, 404, 403, 201, 403, 403),
+    prepare: async (w) => ({ id: (await w.team.clients.reviewer.post(`${rev(w)}/verdicts`, { verdict: "approved" })).body.verdict.id }),
+    path: (w, p) => `${rev(w)}/verdicts/${p.id}/withdraw`,
+  },
+  // The thread's author (the reviewer), the revision's author and an owner (both the owner here) resolve and reopen.
+  { method: "POST", route: "/api/networks/:networkId/revisions/:number/comments/:commentId/resolve", expect: statuses(401, 404, 403, 200, 403, 200), prepare: async (w) => ({ id: await reviewerComment(w) }), path: (w, p) => `${rev(w)}/comments/${p.id}/resolve` },
+  {
+    method: "POST",
+    route: "/api/networks/:networkId/revisions/:number/comments/:commentId/reopen",
+    expect: statuses(401, 404, 403, 200, 403, 200),
+    prepare: async (w) => ({ id: await reviewerComment(w, true) }),
+    path: (w, p) => `${rev(w)}/comments/${p.id}/reopen`,
+  },
+  { method: "GET", route: "/api/reviews/awaiting", expect: signedIn(200), path: () => "/api/reviews/awaiting" },
+  { method: "GET", route: "/api/reviews/mine", expect: signedIn(200), path: () => "/api/reviews/mine?page=1&pageSize=5" },
   // ---- attachments ----
   { method: "POST", route: "/api/networks/:networkId/attachments", expect: editorsUp(201), path: (w) => `${net(w)}/attachments`, body: () => form("scope.png", "image/png", png) },
   { method: "GET", route: "/api/networks/:networkId/attachments", expect: members(200), path: (w) => `${net(w)}/attachments` },
@@ -199,27 +242,6 @@ const cases: Case[] = [
   { method: "GET", route: "/api/health", expect: everyone(200), path: () => "/api/health" },
 ];
 
-interface RouterLayer {
-  rawPath?: unknown;
-  route?: { path: unknown; methods: Record<string, boolean> };
-  handle?: { stack?: RouterLayer[] };
-}
-
-// Reads the routes off Express's own router, so a route added without a matrix row fails the test.
-function mountedRoutes(app: Express): string[] {
-  const walk = (stack: RouterLayer[], prefix: string): string[] =>
-    stack.flatMap((layer) => {
-      // The client's catch-all shell (a regular expression) is not a route of the API.
-      if (layer.route && typeof layer.route.path === "string") {
-        const path = `${prefix}${layer.route.path}`.replace(/(.)\/$/, "$1");
-        return Object.keys(layer.route.methods).filter((m) => m !== "_all").map((m) => `${m.toUpperCase()} ${path}`);
-      }
-      if (layer.handle?.stack && typeof layer.rawPath === "string") return walk(layer.handle.stack, layer.rawPath === "/" ? prefix : `${prefix}${layer.rawPath}`);
-      return [];
-    });
-  return walk((app as unknown as { router: { stack: RouterLayer[] } }).router.stack, "");
-}
-
 describe("authorization matrix", () => {
   const world = {} as World;
   beforeAll(async () => {
@@ -236,7 +258,8 @@ describe("authorization matrix", () => {
     world.attachmentId = (await owner.upload(`/api/networks/${network.id}/attachments`, { name: "scope.png", type: "image/png", content: png })).body.id;
     world.inviteToken = (await invite(world)).token;
     world.solveJobId = (await owner.post(`/api/networks/${network.id}/solve?wait=0`)).body.job.id;
-  });
+    // Two solves (one on a freshly started thread), an upload and mails: room on a loaded machine.
+  }, 120_000);
   afterAll(async () => {
     await world.server.close();
   });
@@ -245,8 +268,8 @@ describe("authorization matrix", () => {
   async function clientFor(actor: Actor, ownSession: boolean): Promise<ApiClient> {
     if (!ownSession || actor === "anonymous") return actor === "anonymous" ? new ApiClient(world.server.url) : world.team.clients[actor];
     const person = world.team.people[actor];
-    const session = await auth().createSession(person.user.id, {});
-    return new ApiClient(world.server.url, { cookie: `${sessionCookieName}=${session.id}` });
+    const token = await createSessionToken(auth(), person.user.id);
+    return new ApiClient(world.server.url, { cookie: `${sessionCookieName}=${token}` });
   }
 
   it("covers every route the server mounts, each once", () => {

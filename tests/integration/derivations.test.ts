@@ -42,7 +42,8 @@ describe("solving a network into derivation revisions", () => {
 
     const read = await editor.client.get(`/api/networks/${network.id}/revisions/1`);
     expect(read.status).toBe(200);
-    expect(read.body).toEqual(solved.body);
+    // Members also read how many note threads are open.
+    expect(read.body).toEqual({ ...solved.body, openNotes: 0 });
     expect((await editor.client.get(`/api/networks/${network.id}/revisions/2`)).status).toBe(404);
     expect((await editor.client.get(`/api/networks/${network.id}/revisions/zero`)).status).toBe(404);
 

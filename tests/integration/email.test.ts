@@ -71,7 +71,14 @@ describe("e-mail through the SMTP capture server", () => {
 
     const newcomer = new ApiClient(server.url);
     expect((await newcomer.post(`/api/invitations/${token}/accept`)).status).toBe(401);
+    const signupAt = new Date();
     await newcomer.post("/api/auth/signup", { email: invitee, password: "joining the lab", name: "Ivy Invitee" });
+    // The invited address, but not confirmed yet: refused, saying which address to use.
+    const early = await newcomer.post(`/api/invitations/${token}/accept`);
+    expect(early.status).toBe(403);
+    expect(early.body.error).toMatchObject({ code: "invitation_address", message: expect.stringContaining(invitee) });
+    const verification = linkIn(await waitForMail(server.db, invitee, { since: signupAt, subject: /confirm/i }), "/verify-email?token=").searchParams.get("token")!;
+    expect((await newcomer.post("/api/auth/verify-email", { token: verification })).status).toBe(200);
     const accepted = await newcomer.post(`/api/invitations/${token}/accept`);
     expect(accepted.status).toBe(200);
     expect(accepted.body.team).toMatchObject({ id: team.body.id, role: "reviewer" });

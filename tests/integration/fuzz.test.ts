@@ -6,9 +6,14 @@ import { join } from "node:path";
 import fc from "fast-check";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { ELEMENT_KINDS } from "../../shared/engine/index.js";
+import { createApp } from "../../server/app.js";
 import { ApiClient, type ApiResponse } from "../support/api.js";
+import { mountedRoutes } from "../support/routes.js";
 import { followerCircuit, teamWithEveryRole, type TeamFixture } from "../support/fixtures.js";
-import { startTestServer, type TestServer } from "../support/server.js";
+import { clientShellDir, startTestServer, type TestServer } from "../support/server.js";
+
+// Every route gets at least this many random requests of its own.
+const casesPerRoute = 15;
 
 // Every request must be answered within this; a hang fails the run.
 const answerWithinMs = 20_000;
@@ -24,6 +29,7 @@ interface World {
   commentId: string;
   attachmentId: string;
   jobId: string;
+  cellId: string;
 }
 
 // A digest of every row the fuzzing people can reach, so a refused request that wrote anything shows.
@@ -47,7 +53,8 @@ async function snapshot(world: World): Promise<string> {
        (select string_agg(l::text, ',' order by l.id) from share_links l where l.revision_id in (select id from fuzz_revisions)),
        (select string_agg(a.id || a.filename || a.size, ',' order by a.id) from attachments a where a.network_id in (select id from fuzz_networks)),
        (select string_agg(i::text, ',' order by i.id) from invitations i where i.team_id in (select team_id from fuzz_teams)),
-       (select string_agg(j::text, ',' order by j.id) from solve_jobs j where j.network_id in (select id from fuzz_networks))
+       (select string_agg(j::text, ',' order by j.id) from solve_jobs j where j.network_id in (select id from fuzz_networks)),
+       (select string_agg(c::text, ',' order by c.id) from cells c where c.team_id in (select team_id from fuzz_teams))
      )) as digest`,
     [users],
   );
@@ -161,6 +168,8 @@ const routesFor = (world: World): Route[] => [
   { method: "POST", path: "/api/auth/verify-email/resend" },
   { method: "POST", path: "/api/auth/password-reset", anonymous: true, body: shaped({ email }) },
   { method: "POST", path: "/api/auth/password-reset/confirm", anonymous: true, body: shaped({ token: text, password: text }) },
+  // Anonymous: signing the fixture owner out would turn every later case into a 401.
+  { method: "POST", path: "/api/auth/logout", anonymous: true },
   { method: "GET", path: "/api/me" },
   { method: "POST", path: "/api/teams", body: shaped({ name: text }) },
   { method: "GET", path: "/api/teams/:teamId" },
@@ -177,6 +186,12 @@ const routesFor = (world: World): Route[] => [
   { method: "GET", path: "/api/teams/:teamId/networks?q=:q&sort=:sort&page=:page" },
   { method: "POST", path: "/api/teams/:teamId/networks", body: shaped({ title: text, description: text, circuit: mutatedCircuit }) },
   { method: "GET", path: "/api/networks/by-slug/:slug" },
+  // Multipart routes: random JSON bodies here; random files in the upload test above.
+  { method: "POST", path: "/api/teams/:teamId/networks/import", body: anyJson },
+  { method: "POST", path: "/api/networks/:networkId/attachments", body: anyJson },
+  { method: "GET", path: "/api/teams/:teamId/cells" },
+  { method: "POST", path: "/api/teams/:teamId/cells", body: shaped({ definition: fc.oneof(anyJson, fc.constant(cellDefinition("fuzzcell2")), shaped({ id: text, title: text, terminals: fc.array(nodeName, { maxLength: 3 }), symbols: fc.array(symbol, { maxLength: 3 }), elements: fc.array(anyJson, { maxLength: 2 }) })) }) },
+  { method: "DELETE", path: "/api/teams/:teamId/cells/:cellId", destructive: true },
   { method: "GET", path: "/api/networks/:networkId" },
   { method: "PATCH", path: "/api/networks/:networkId", body: shaped({ title: text, description: text, circuit: mutatedCircuit, expectedUpdatedAt: fc.oneof(fc.date().map((d) => (Number.isNaN(d.getTime()) ? "x" : d.toISOString())), text) }) },
   { method: "DELETE", path: "/api/networks/:networkId", destructive: true },
@@ -192,10 +207,18 @@ const routesFor = (world: World): Route[] => [
   { method: "GET", path: "/api/share/:token", anonymous: true },
   { method: "DELETE", path: "/api/share/:token", destructive: true },
   { method: "GET", path: "/api/networks/:networkId/revisions/:number/comments" },
-  { method: "POST", path: "/api/networks/:networkId/revisions/:number/comments", body: shaped({ stepId: fc.oneof(text, fc.constant(world.stepId)), body: text, parentId: fc.oneof(fc.uuid(), fc.constant(world.commentId), text) }) },
+  { method: "POST", path: "/api/networks/:networkId/revisions/:number/comments", body: shaped({ stepId: fc.oneof(text, fc.constant(world.stepId)), body: text, parentId: fc.oneof(fc.uuid(), fc.constant(world.commentId), text), anchor: fc.oneof(text, fc.record({ part: fc.constantFrom("explanation", "formula", "x"), text, start: fc.integer() })) }) },
   { method: "PATCH", path: "/api/networks/:networkId/revisions/:number/comments/:commentId", body: shaped({ body: text }) },
   { method: "DELETE", path: "/api/networks/:networkId/revisions/:number/comments/:commentId", destructive: true },
-  { method: "PUT", path: "/api/networks/:networkId/revisions/:number/verdict", body: shaped({ verdict: fc.constantFrom("open", "approved", "needs_changes", "rejected") }) },
+  { method: "PUT", path: "/api/networks/:networkId/revisions/:number/verdict", body: shaped({ verdict: fc.constantFrom("open", "approved", "needs_changes", "rejected"), note: text }) },
+  { method: "GET", path: "/api/networks/:networkId/revisions/:number/verdicts" },
+  { method: "POST", path: "/api/networks/:networkId/revisions/:number/verdicts", body: shaped({ verdict: fc.constantFrom("approved", "needs_changes", "open"), note: text }) },
+  { method: "POST", path: "/api/networks/:networkId/revisions/:number/verdicts/:verdictId/withdraw" },
+  { method: "POST", path: "/api/networks/:networkId/revisions/:number/comments/:commentId/resolve" },
+  { method: "POST", path: "/api/networks/:networkId/revisions/:number/comments/:commentId/reopen" },
+  { method: "GET", path: "/api/reviews/awaiting?page=:page&pageSize=:page" },
+  { method: "GET", path: "/api/reviews/mine?page=:page" },
+  { method: "PATCH", path: "/api/me/settings", body: shaped({ reviewMail: fc.oneof(fc.boolean(), text) }) },
   { method: "GET", path: "/api/networks/:networkId/attachments" },
   { method: "GET", path: "/api/networks/:networkId/attachments/:attachmentId" },
   { method: "DELETE", path: "/api/networks/:networkId/attachments/:attachmentId", destructive: true },
@@ -203,8 +226,16 @@ const routesFor = (world: World): Route[] => [
   { method: "POST", path: "/api/networks/:networkId/value-sets", body: shaped({ name: text, values: fc.oneof(fc.dictionary(text, text), fc.constant({ Rs: "4.7k" }), text) }) },
   { method: "DELETE", path: "/api/networks/:networkId/value-sets/:setId", destructive: true },
   { method: "GET", path: "/api/dev/mail?limit=:page", anonymous: true },
+  { method: "GET", path: "/dev/mailbox?limit=:page", anonymous: true },
+  { method: "GET", path: "/dev/mailbox.css", anonymous: true },
+  { method: "GET", path: "/s/:token", anonymous: true },
   { method: "GET", path: "/api/health", anonymous: true },
 ];
+
+// A team cell in the engine's own words: a resistor between its two terminals.
+function cellDefinition(id: string) {
+  return { id, title: "Fuzz cell", terminals: ["a", "b"], symbols: ["Rc"], elements: [{ name: "Rcell", kind: "resistor", nodes: ["a", "b"], value: "Rc" }] };
+}
 
 // What goes into a path slot: the fixture's real id (not for destructive routes), or something made up.
 const slot = (name: string, real: string, destructive: boolean) =>
@@ -228,7 +259,7 @@ describe("fuzzing", () => {
   const world = {} as World;
   let last = "";
   beforeAll(async () => {
-    world.server = await startTestServer({ solve: { timeLimitMs: 5_000 } });
+    world.server = await startTestServer({ clientDir: clientShellDir(), solve: { timeLimitMs: 5_000 } });
     world.team = await teamWithEveryRole(world.server);
     const owner = world.team.clients.owner;
     const network = (await owner.post(`/api/teams/${world.team.teamId}/networks`, { title: "Fuzz target", circuit: followerCircuit })).body;
@@ -241,9 +272,11 @@ describe("fuzzing", () => {
     world.attachmentId = (await owner.upload(`/api/networks/${network.id}/attachments`, { name: "scope.pdf", type: "application/pdf", content: "%PDF-1.4\n%%EOF\n" })).body.id;
     const job = (await owner.post(`/api/networks/${network.id}/solve?wait=0`)).body.job;
     world.jobId = job.id;
+    world.cellId = (await owner.post(`/api/teams/${world.team.teamId}/cells`, { definition: cellDefinition("fuzzcell") })).body.id;
     while ((await owner.get(job.poll)).body.status !== "done") await new Promise((resolve) => setTimeout(resolve, 50));
     last = await snapshot(world);
-  });
+    // Two solves on a freshly started thread: room on a loaded machine.
+  }, 120_000);
   afterAll(async () => {
     await world.server.close();
   });
@@ -316,6 +349,14 @@ describe("fuzzing", () => {
     );
   });
 
+  it("has a case for every route the server mounts", () => {
+    const app = createApp({ pool: world.server.pool, db: world.server.db, clientDir: clientShellDir(), settings: { logLevel: "silent" } });
+    // Parameter names aside (the fuzz fills slots by its own names), the two lists are the same.
+    const shape = (route: string) => route.replace(/:[a-zA-Z]+/g, ":id");
+    const fuzzed = new Set(routesFor(world).map((route) => shape(`${route.method} ${route.path.split("?")[0]}`)));
+    expect([...fuzzed].sort()).toEqual([...new Set(mountedRoutes(app).map(shape))].sort());
+  });
+
   it("answers random bodies and path ids on every route with a 2xx or a 4xx", async () => {
     const requestOn = (route: Route) => {
       const real: Record<string, string> = {
@@ -328,9 +369,11 @@ describe("fuzzing", () => {
         number: "1",
         shareId: world.commentId,
         commentId: world.commentId,
+        verdictId: world.commentId,
         attachmentId: world.attachmentId,
         setId: world.commentId,
         jobId: world.jobId,
+        cellId: world.cellId,
         q: "Fuzz",
         sort: "title",
         page: "1",
@@ -344,26 +387,32 @@ describe("fuzzing", () => {
         raw: fc.oneof({ weight: 7, arbitrary: fc.constant(null) }, { weight: 1, arbitrary: fc.constantFrom('{"name": ', "[1,2", "\u0000", "null", '"text"', "{}".repeat(50)) }),
       });
     };
-    // Plain data only in each case, so a counterexample prints as the request it was.
-    const requests = fc.oneof(...routesFor(world).map((route) => requestOn(route).map((parts) => ({ route: { method: route.method, path: route.path, anonymous: route.anonymous ?? false }, ...parts }))));
-    await fc.assert(
-      fc.asyncProperty(requests, async ({ route, values, body, raw }) => {
-        const path = fillPath(route.path, values);
-        const client = route.anonymous ? new ApiClient(world.server.url) : world.team.clients.owner;
-        const sendsBody = route.method !== "GET" && route.method !== "DELETE";
-        const what = `${route.method} ${path} ${raw ?? JSON.stringify(body)?.slice(0, 200)}`;
-        // A refused sign-up must not leave an account behind (accounts outside the fixture are not in the snapshot).
-        const signupEmail = route.path === "/api/auth/signup" && typeof (body as { email?: unknown })?.email === "string" ? String((body as { email: string }).email).trim().toLowerCase() : null;
-        const accounts = async () => (signupEmail === null ? 0 : (await world.server.pool.query("select 1 from users where email = $1", [signupEmail])).rowCount);
-        const before = await accounts();
-        const response = await judge(what, () =>
-          raw !== null && sendsBody ? client.raw(route.method, path, raw) : client.request(route.method, path, sendsBody ? (body ?? {}) : undefined),
-        );
-        if (response.status >= 400) expect(await accounts(), `${what} left an account`).toBe(before);
-      }),
-      budget(700),
-    );
+    // Route by route, so each gets its own minimum number of cases; plain data only in each case,
+    // so a counterexample prints as the request it was.
+    for (const route of routesFor(world)) {
+      const requests = requestOn(route).map((parts) => ({ route: { method: route.method, path: route.path, anonymous: route.anonymous ?? false }, ...parts }));
+      let ran = 0;
+      await fc.assert(
+        fc.asyncProperty(requests, async ({ route, values, body, raw }) => {
+          ran += 1;
+          const path = fillPath(route.path, values);
+          const client = route.anonymous ? new ApiClient(world.server.url) : world.team.clients.owner;
+          const sendsBody = route.method !== "GET" && route.method !== "DELETE";
+          const what = `${route.method} ${path} ${raw ?? JSON.stringify(body)?.slice(0, 200)}`;
+          // A refused sign-up must not leave an account behind (accounts outside the fixture are not in the snapshot).
+          const signupEmail = route.path === "/api/auth/signup" && typeof (body as { email?: unknown })?.email === "string" ? String((body as { email: string }).email).trim().toLowerCase() : null;
+          const accounts = async () => (signupEmail === null ? 0 : (await world.server.pool.query("select 1 from users where email = $1", [signupEmail])).rowCount);
+          const before = await accounts();
+          const response = await judge(what, () =>
+            raw !== null && sendsBody ? client.raw(route.method, path, raw) : client.request(route.method, path, sendsBody ? (body ?? {}) : undefined),
+          );
+          if (response.status >= 400) expect(await accounts(), `${what} left an account`).toBe(before);
+        }),
+        { numRuns: casesPerRoute },
+      );
+      expect(ran, `${route.method} ${route.path}`).toBeGreaterThanOrEqual(casesPerRoute);
+    }
     // The fixture is still whole: destructive routes only ever saw ids that do not exist.
     expect((await world.team.clients.owner.get(`/api/networks/${world.networkId}/revisions/1`)).status).toBe(200);
-  });
+  }, 600_000);
 });

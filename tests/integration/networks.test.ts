@@ -1,3 +1,4 @@
+import { teamMembers } from "../../server/db/schema.js";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { followerCircuit, signedInPerson, type Person } from "../support/fixtures.js";
 import { startTestServer, type TestServer } from "../support/server.js";
@@ -73,7 +74,10 @@ describe("networks of a team", () => {
     expect((await editor.client.get(`/api/teams/${team}/networks?q=%25`)).body.total).toBe(0);
     const solvedId = byTitle.body.networks[1].id;
     await editor.client.post(`/api/networks/${solvedId}/solve`);
-    await editor.client.put(`/api/networks/${solvedId}/revisions/1/verdict`, { verdict: "approved" });
+    // Approved by a reviewer of the team: the one who solved it cannot approve it.
+    const reviewer = await signedInPerson(server, "approver");
+    await server.db.insert(teamMembers).values({ teamId: team, userId: reviewer.user.id, role: "reviewer" });
+    expect((await reviewer.client.put(`/api/networks/${solvedId}/revisions/1/verdict`, { verdict: "approved" })).status).toBe(200);
     const byRevision = await editor.client.get(`/api/teams/${team}/networks?sort=lastRevision&order=desc`);
     expect(byRevision.body.networks[0]).toMatchObject({ id: solvedId, latestRevision: 1, verdict: "approved" });
     expect(byRevision.body.networks.slice(1).every((n: { latestRevision: null; verdict: null }) => n.latestRevision === null && n.verdict === null)).toBe(true);

@@ -65,16 +65,20 @@ describe("design review and share links", () => {
     expect((await reviewer.client.patch(`${revisionPath()}/comments/${comment.id}`, { body: "again" })).status).toBe(404);
   });
 
-  it("records a verdict per revision and mails the author", async () => {
+  it("records a verdict per revision through the original route and mails the author", async () => {
     const since = new Date();
-    const verdict = await reviewer.client.put(`${revisionPath()}/verdict`, { verdict: "needs_changes" });
+    const verdict = await reviewer.client.put(`${revisionPath()}/verdict`, { verdict: "needs_changes", note: "State the reference node." });
     expect(verdict.status).toBe(200);
     expect(verdict.body).toMatchObject({ verdict: "needs_changes", by: { id: reviewer.user.id } });
     const mail = await waitForMail(server.db, author.user.email, { since, subject: /needs changes/ });
     expect(mail.subject).toContain("Revision 1");
+    expect(mail.text).toContain("State the reference node.");
     expect((await author.client.get(revisionPath())).body.verdict.verdict).toBe("needs_changes");
     await reviewer.client.put(`${revisionPath()}/verdict`, { verdict: "approved" });
     expect((await author.client.get(revisionPath())).body.verdict.verdict).toBe("approved");
+    // "open" withdraws the caller's own standing verdict.
+    expect((await reviewer.client.put(`${revisionPath()}/verdict`, { verdict: "open" })).body.verdict).toBe("open");
+    await reviewer.client.put(`${revisionPath()}/verdict`, { verdict: "approved" });
     expect((await reviewer.client.put(`${revisionPath()}/verdict`, { verdict: "maybe" })).status).toBe(400);
   });
 

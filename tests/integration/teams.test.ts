@@ -1,4 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { and, count, eq } from "drizzle-orm";
+import { teamMembers } from "../../server/db/schema.js";
 import { signedInPerson, teamWithEveryRole, uniqueEmail } from "../support/fixtures.js";
 import { startTestServer, type TestServer } from "../support/server.js";
 
@@ -66,5 +68,29 @@ describe("teams, members and roles", () => {
     expect((await owner.client.delete(`/api/teams/${team}`)).status).toBe(204);
     expect((await owner.client.get(`/api/networks/${network}`)).status).toBe(404);
     expect((await owner.client.get("/api/me")).body.teams.map((t: { id: string }) => t.id)).not.toContain(team);
+  });
+
+  // Two owners acting on each other at the same moment, 20 times over: a team must never end with no owner.
+  it("keeps an owner when two owners demote each other or both leave at once", async () => {
+    const [first, second] = await Promise.all([signedInPerson(server, "racer"), signedInPerson(server, "rival")]);
+    const owners = async (teamId: string) =>
+      (await server.db.select({ n: count() }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.role, "owner"))))[0].n;
+    const outcomes: number[][] = [];
+    for (let trial = 0; trial < 20; trial += 1) {
+      const teamId = (await first.client.post("/api/teams", { name: `Race ${trial}` })).body.id;
+      await server.db.insert(teamMembers).values({ teamId, userId: second.user.id, role: "owner" });
+      const race =
+        trial % 2 === 0
+          ? [first.client.patch(`/api/teams/${teamId}/members/${second.user.id}`, { role: "editor" }), second.client.patch(`/api/teams/${teamId}/members/${first.user.id}`, { role: "editor" })]
+          : [first.client.delete(`/api/teams/${teamId}/members/${first.user.id}`), second.client.delete(`/api/teams/${teamId}/members/${second.user.id}`)];
+      const statuses = (await Promise.all(race)).map((r) => r.status).sort();
+      outcomes.push(statuses);
+      expect(await owners(teamId), `trial ${trial}: ${statuses.join(", ")}`).toBe(1);
+    }
+    // One side wins, the other is told why: 403 (no longer an owner), 404 (no longer a member) or 409 (last owner).
+    for (const [a, b] of outcomes) {
+      expect([200, 204]).toContain(a);
+      expect([403, 404, 409]).toContain(b);
+    }
   });
 });

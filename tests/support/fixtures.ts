@@ -1,6 +1,6 @@
 // Test people and teams, created through the domain functions (fast, in parallel), not through HTTP.
 import { randomBytes } from "node:crypto";
-import { createLucia, sessionCookieName } from "../../server/auth/lucia.js";
+import { createLucia, createSessionToken, sessionCookieName } from "../../server/auth/lucia.js";
 import { teamMembers, type Role } from "../../server/db/schema.js";
 import { createAccount, type PublicUser } from "../../server/domain/accounts.js";
 import { createTeam } from "../../server/domain/teams.js";
@@ -20,8 +20,8 @@ export interface Person {
 
 export async function signedInPerson(server: TestServer, label: string, options: { verified?: boolean } = {}): Promise<Person> {
   const user = await createAccount(server.db, { email: uniqueEmail(label), password: fixturePassword, name: `${label[0].toUpperCase()}${label.slice(1)} Tester`, verified: options.verified ?? true });
-  const session = await createLucia(server.db, { secureCookie: false }).createSession(user.id, {});
-  return { user, client: new ApiClient(server.url, { cookie: `${sessionCookieName}=${session.id}` }) };
+  const token = await createSessionToken(createLucia(server.db, { secureCookie: false }), user.id);
+  return { user, client: new ApiClient(server.url, { cookie: `${sessionCookieName}=${token}` }) };
 }
 
 export type Actor = "anonymous" | "nonMember" | Role;

@@ -57,6 +57,7 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
   const settings: Partial<AppSettings> = {
     publicUrl: url,
     logLevel: "silent",
+    instanceName: `test-server-${port}`,
     ...options.settings,
     limits: { ...defaultSettings().limits, ...testLimits, ...options.limits },
     solve: { ...defaultSettings().solve, ...testSolve, ...options.solve },

@@ -6,7 +6,7 @@
 import nerdamer from "nerdamer";
 import { Rational } from "./rational";
 import { RationalFunction } from "./rational-function";
-import { exactReading, readWith, type BinaryOp, type ControlWord, type Reading, type SignOp } from "./expression";
+import { exactReading, readWith, sumPairwise, type BinaryOp, type ControlWord, type Reading, type SignOp } from "./expression";
 
 /** A node of nerdamer's parse tree (nerdamer.tree): operators carry left/right, leaves a literal or name. */
 interface NerdamerNode {
@@ -41,13 +41,19 @@ const spelling: Reading<Spelled> = {
   // nerdamer sees a plain name in a control's place; the walk below puts the control back by position.
   control: (word, args, column) => ({ text: "pfcontrol", items: [{ kind: "leaf", text: "pfcontrol", value: null, column, control: { word, args } }] }),
   group: (inner) => ({ text: `(${inner.text})`, items: inner.items }),
-  binary: (op, left, right, column) => ({ text: `${left.text}${op}${right.text}`, items: [...left.items, { kind: "binary", op, column }, ...right.items] }),
+  // Each reading is consumed once, so the left one's items grow in place: long sums stay linear.
+  binary: (op, left, right, column) => ({ text: `${left.text}${op}${right.text}`, items: append(append(left.items, [{ kind: "binary", op, column }]), right.items) }),
   sign: (op, operand, column) => ({ text: `(${op}(${operand.text}))`, items: [{ kind: "sign", op, column }, ...operand.items] }),
   power: (base, exponent, caretColumn, exponentColumn) => ({
     text: `${base.text}^${exponent.text}`,
     items: [...base.items, { kind: "power", caretColumn, exponentColumn }, ...exponent.items],
   }),
 };
+
+function append(to: Item[], more: readonly Item[]): Item[] {
+  for (const item of more) to.push(item);
+  return to;
+}
 
 // Looked up per call, not captured, so a test can watch that values go through it.
 const nerdamerTree = (text: string): NerdamerNode => (nerdamer as unknown as { tree(expression: string): NerdamerNode }).tree(text);
@@ -86,11 +92,28 @@ function buildFromTree(root: NerdamerNode, spelled: Spelled, exact: Reading<Rati
       return exact.sign(item.op, walk(node.left), item.column);
     }
     if (!node.left || !node.right) throw new TreeMismatch(spelled.text, `postfix "${node.value}"`);
+    if (isSum(node)) return walkSum(node);
     const left = walk(node.left);
     const item = take(node);
     if (item.kind === "power" && node.value === "^") return exact.power(left, walk(node.right), item.caretColumn, item.exponentColumn);
     if (item.kind === "binary" && item.op === node.value) return exact.binary(item.op, left, walk(node.right), item.column);
     throw new TreeMismatch(spelled.text, `operator "${node.value}"`);
+  };
+  const isSum = (node: NerdamerNode) => node.type === "OPERATOR" && !!node.left && !!node.right && (node.value === "+" || node.value === "-");
+  // A long sum is a deep left spine: walked in a loop and added pairwise, so 10,000 terms cost
+  // about n log n term operations instead of n^2 and no deep recursion.
+  const walkSum = (top: NerdamerNode): RationalFunction => {
+    const spine: NerdamerNode[] = [];
+    let node = top;
+    for (; isSum(node); node = node.left!) spine.push(node);
+    const terms = [walk(node)];
+    for (let i = spine.length - 1; i >= 0; i--) {
+      const item = take(spine[i]);
+      if (item.kind !== "binary" || item.op !== spine[i].value) throw new TreeMismatch(spelled.text, `operator "${spine[i].value}"`);
+      const right = walk(spine[i].right!);
+      terms.push(item.op === "-" ? exact.sign("-", right, item.column) : right);
+    }
+    return sumPairwise(terms);
   };
   const value = walk(root);
   if (next !== spelled.items.length) throw new TreeMismatch(spelled.text, "tokens left over");

@@ -46,8 +46,12 @@ type Token =
   | { kind: "op"; op: "+" | "-" | "*" | "/" | "^" | "(" | ")"; column: number }
   | { kind: "end"; column: number };
 
-const isIdentStart = (c: string) => /[A-Za-z_]/.test(c);
-const isIdentChar = (c: string) => /[A-Za-z0-9_]/.test(c);
+// Character-code tests, not a regular expression per character: texts run to hundreds of thousands of characters.
+const isIdentStart = (c: string) => {
+  const k = c.charCodeAt(0);
+  return (k >= 65 && k <= 90) || (k >= 97 && k <= 122) || k === 95;
+};
+const isIdentChar = (c: string) => isIdentStart(c) || (c >= "0" && c <= "9");
 const isDigit = (c: string) => c >= "0" && c <= "9";
 
 function prefixFactor(prefix: string): Rational {
@@ -165,6 +169,15 @@ export interface Reading<T> {
   binary(op: BinaryOp, left: T, right: T, column: number): T;
   sign(op: SignOp, operand: T, column: number): T;
   power(base: T, exponent: T, caretColumn: number, exponentColumn: number): T;
+  /** A whole sum t0 op1 t1 op2 t2 ... at once (optional; otherwise binary folds from the left). */
+  sum?(first: T, rest: ReadonlyArray<{ op: SignOp; value: T }>): T;
+}
+
+/** Add many terms pairwise: n log n term operations for a long sum where a left fold costs n^2. */
+export function sumPairwise(terms: RationalFunction[]): RationalFunction {
+  for (let width = 1; width < terms.length; width *= 2)
+    for (let i = 0; i + width < terms.length; i += 2 * width) terms[i] = terms[i].add(terms[i + width]);
+  return terms[0];
 }
 
 /** The exact meaning of each production; the nerdamer path applies the same one, so both readers agree. */
@@ -185,6 +198,7 @@ export function exactReading(text: string): Reading<RationalFunction> {
       return left.div(right);
     },
     sign: (op, operand) => (op === "-" ? operand.neg() : operand),
+    sum: (first, rest) => sumPairwise([first, ...rest.map((t) => (t.op === "-" ? t.value.neg() : t.value))]),
     power(base, exponent, caretColumn, exponentColumn) {
       const e = exponent.constantValue();
       if (e === null || !e.isInteger()) fail("an exponent must be an integer constant", exponentColumn);
@@ -244,11 +258,14 @@ class Parser<T> {
 
   private expression(): T {
     let value = this.term();
+    const sum = this.reading.sum;
+    const rest: Array<{ op: SignOp; value: T }> = [];
     while (this.isOp("+") || this.isOp("-")) {
-      const t = this.tokens[this.pos++] as { op: BinaryOp; column: number };
-      value = this.reading.binary(t.op, value, this.term(), t.column);
+      const t = this.tokens[this.pos++] as { op: SignOp; column: number };
+      if (sum) rest.push({ op: t.op, value: this.term() });
+      else value = this.reading.binary(t.op, value, this.term(), t.column);
     }
-    return value;
+    return sum && rest.length > 0 ? sum(value, rest) : value;
   }
 
   private term(): T {

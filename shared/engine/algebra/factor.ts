@@ -20,7 +20,22 @@ export interface CheapFactorization {
 const SPLIT_MAX_TERMS = 400;
 const SPLIT_MAX_VARS = 16;
 
-export function factorCheap(p: Poly): CheapFactorization {
+/** One factorization per polynomial object: results share their N and D among many printed forms. */
+const cache = new WeakMap<Poly, CheapFactorization>();
+const cacheUngrouped = new WeakMap<Poly, CheapFactorization>();
+
+/** grouping: false keeps to content and monomial (no gcd search), for forms printed by the dozen. */
+export function factorCheap(p: Poly, grouping = true): CheapFactorization {
+  const store = grouping ? cache : cacheUngrouped;
+  let f = store.get(p);
+  if (f === undefined) {
+    f = computeFactorCheap(p, grouping);
+    store.set(p, f);
+  }
+  return f;
+}
+
+function computeFactorCheap(p: Poly, grouping: boolean): CheapFactorization {
   if (p.isZero()) return { constant: Rational.ZERO, monomial: {}, factors: [] };
   const c = p.content();
   const prim = p.scale(c.inverse());
@@ -39,7 +54,7 @@ export function factorCheap(p: Poly): CheapFactorization {
     constant = constant.neg();
     rest = rest.neg();
   }
-  const parts = rest.termCount() <= SPLIT_MAX_TERMS && rest.vars.length <= SPLIT_MAX_VARS ? splitByGrouping(rest) : [rest];
+  const parts = grouping && rest.termCount() <= SPLIT_MAX_TERMS && rest.vars.length <= SPLIT_MAX_VARS ? splitByGrouping(rest) : [rest];
   // Merge equal factors into powers; print order: fewer terms first, then canonical text.
   const merged: Array<{ base: Poly; exponent: number }> = [];
   for (const f of parts) {

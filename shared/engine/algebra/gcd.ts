@@ -10,12 +10,14 @@
 //  3. variables with a zero bound are eliminated: the gcd lies in the other variables and
 //     so divides every coefficient of both inputs with respect to the eliminated ones,
 //     which leaves gcds of far smaller polynomials;
-//  4. otherwise a recursive primitive Euclid (primitive polynomial remainder sequence) in
+//  4. otherwise the heuristic gcd (heuristic-gcd.ts: evaluation at a large integer and
+//     xi-adic reconstruction), and only if it gives up a recursive primitive Euclid (primitive polynomial remainder sequence) in
 //     one variable, with contents computed recursively by this same function.
 // Every answer is exact; randomness only decides how fast it comes.
 
 import { Poly, buildPoly, makeLayout, unionVars, type Key } from "./polynomial";
 import { polyDivide, polyDivideExact } from "./division";
+import { heuristicGcd } from "./heuristic-gcd";
 
 /** A prime below 2^26: the product of two residues stays below 2^53, exact in doubles. */
 const PRIME = 67108859;
@@ -273,7 +275,9 @@ function gcdPrimitive(
   }
   const keep = all.filter((v) => inGcd.has(v));
   if (keep.length < all.length) return gcdByElimination(A, B, keep, bound);
-  // Every variable may occur in the gcd: Euclid in the variable of lowest degree.
+  // Every variable may occur in the gcd: the heuristic gcd first, Euclid in the variable of lowest degree if it gives up.
+  const heuristic = heuristicGcd(A, B);
+  if (heuristic !== null) return { g: heuristic.gcd, qa: heuristic.aQuotient, qb: heuristic.bQuotient };
   let x = commonVars[0];
   for (const v of commonVars) if (Math.max(A.degreeIn(v), B.degreeIn(v)) < Math.max(A.degreeIn(x), B.degreeIn(x))) x = v;
   return { g: primitiveEuclid(A, B, x) };

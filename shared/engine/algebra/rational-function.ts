@@ -5,7 +5,10 @@ import { Rational } from "./rational";
 import { Poly, unionVars } from "./polynomial";
 import { polyGcdCofactors } from "./gcd";
 import { factorCheap, type CheapFactorization } from "./factor";
-import { texName } from "./names";
+import { sortNames, texName } from "./names";
+
+/** Sensitivity numerators up to this many terms are still factored by grouping for display. */
+const SENSITIVITY_GROUPING_TERMS = 40;
 
 export type Limit =
   | { kind: "finite"; value: RationalFunction }
@@ -182,11 +185,25 @@ export class RationalFunction {
     return RationalFunction.from(dn.mul(this.den).sub(this.num.mul(dd)), this.den.mul(this.den));
   }
 
-  /** Normalized sensitivity (v/F) dF/dv; 0 where F is identically 0. */
+  /**
+   * Normalized sensitivity (v/F) dF/dv = v N'/N - v D'/D; 0 where F is identically 0.
+   * From structure: each part is reduced against its own N or D only, and since N and D are
+   * coprime the two reduced denominators are too, so their difference is already in lowest terms.
+   */
   sensitivity(v: string): RationalFunction {
     if (this.isZero()) return RationalFunction.ZERO;
-    const top = this.num.derivative(v).mul(this.den).sub(this.num.mul(this.den.derivative(v))).mul(Poly.variable(v));
-    return RationalFunction.from(top, this.num.mul(this.den));
+    const [pn, qn] = logDerivativeTimes(this.num, v);
+    const [pd, qd] = logDerivativeTimes(this.den, v);
+    // Most symbols leave N and D unreduced: their product is then shared by all of them.
+    const bottom = qn === this.num && qd === this.den ? (this.numTimesDen ??= this.num.mul(this.den)) : qn.mul(qd);
+    const f = RationalFunction.fromCoprime(pn.mul(qd).sub(pd.mul(qn)), bottom);
+    // The denominator is known as a product: compact forms print it so, without searching for factors.
+    if (!f.isZero()) {
+      f.denominatorFactors = [qn, qd].filter((q) => !q.isConstant());
+      // A dozen of these print per result: a large numerator is not searched for factors.
+      f.groupNumerator = f.num.termCount() <= SENSITIVITY_GROUPING_TERMS;
+    }
+    return f;
   }
 
   /**
@@ -277,9 +294,17 @@ export class RationalFunction {
     const { sign, top, bottom } = this.compactParts();
     const tex = (fs: CompactFactor[]) => (fs.length === 0 ? "1" : fs.map((f) => f.tex).join("\\,"));
     const signStr = sign < 0 ? "-" : "";
-    if (bottom.length === 0) return signStr + (top.length === 1 && top[0].exponent === 1 ? top[0].bareTex : tex(top));
+    // A lone sum keeps its brackets under a minus sign: -(R1 + R2), never -R1 + R2.
+    const bare = top.length === 1 && top[0].exponent === 1 && !(sign < 0 && top[0].multiTerm);
+    if (bottom.length === 0) return signStr + (bare ? top[0].bareTex : tex(top));
     return `${signStr}\\frac{${tex(top)}}{${tex(bottom)}}`;
   }
+
+  /** Polynomials whose product is the denominator up to a constant, when known from how it was made. */
+  private denominatorFactors: Poly[] | undefined;
+  private numTimesDen: Poly | undefined;
+  /** Whether the compact forms search the numerator for factors by grouping. */
+  private groupNumerator = true;
 
   private compactCache: { sign: number; top: CompactFactor[]; bottom: CompactFactor[] } | undefined;
 
@@ -289,8 +314,8 @@ export class RationalFunction {
 
   private computeCompactParts(): { sign: number; top: CompactFactor[]; bottom: CompactFactor[] } {
     if (this.isZero()) return { sign: 1, top: [compactNumber(0n)], bottom: [] };
-    const fn = factorCheap(this.num);
-    const fd = factorCheap(this.den);
+    const fn = factorCheap(this.num, this.groupNumerator);
+    const fd = this.denominatorFactors && this.denominatorFactors.length > 1 ? factorProduct(this.den, this.denominatorFactors) : factorCheap(this.den);
     const k = fn.constant.div(fd.constant);
     const top: CompactFactor[] = [];
     const bottom: CompactFactor[] = [];
@@ -315,6 +340,29 @@ interface CompactFactor {
   readonly tex: string;
   readonly multiTerm: boolean;
   readonly exponent: number;
+}
+
+/** factorCheap of den = c * prod(parts), from the parts' own factorizations (equal factors merged into powers). */
+function factorProduct(den: Poly, parts: readonly Poly[]): CheapFactorization {
+  const each = parts.map((q) => factorCheap(q));
+  const monomial: Record<string, number> = {};
+  const factors: Array<{ base: Poly; exponent: number }> = [];
+  let lc = Rational.ONE;
+  for (const f of each) {
+    for (const [v, e] of Object.entries(f.monomial)) monomial[v] = (monomial[v] ?? 0) + e;
+    for (const { base, exponent } of f.factors) {
+      const same = factors.find((x) => x.base.equals(base));
+      if (same) same.exponent += exponent;
+      else factors.push({ base, exponent });
+    }
+    lc = lc.mul(f.constant);
+  }
+  // den / prod(parts) is a constant; the parts' own constants are folded into it.
+  // The leading coefficient of a product is the product of the leading coefficients (a monomial order).
+  const lcProduct = parts.reduce((acc, q) => acc.mul(q.leadingCoefficient()), Rational.ONE);
+  const constant = den.leadingCoefficient().div(lcProduct).mul(lc);
+  factors.sort((a, b) => a.base.termCount() - b.base.termCount() || (a.base.toInfix() < b.base.toInfix() ? -1 : 1));
+  return { constant, monomial: Object.fromEntries(sortNames(Object.keys(monomial)).map((v) => [v, monomial[v]])), factors };
 }
 
 function compactNumber(n: bigint): CompactFactor {
@@ -358,6 +406,22 @@ function pushFactors(out: CompactFactor[], f: CheapFactorization): void {
 function wrapDenominator(d: Poly): string {
   const s = d.toInfix();
   return d.termCount() === 1 && d.vars.length === 1 && d.degreeIn(d.vars[0]) === 1 && d.coefs[0] === 1n ? s : `(${s})`;
+}
+
+/** v P'/P in lowest terms as [top, bottom] (bottom divides P); [0, 1] when P is free of v. */
+function logDerivativeTimes(p: Poly, v: string): [Poly, Poly] {
+  const d = p.degreeIn(v);
+  if (d <= 0) return [Poly.zero(), Poly.one()];
+  const top = p.derivative(v).mul(Poly.variable(v));
+  if (d === 1 && p.lowDegreeIn(v) === 0) {
+    // P = a v + b: v P' = a v, and gcd(a v, a v + b) = gcd(a, b), a gcd of two smaller polynomials.
+    const { gcd, aQuotient: a1, bQuotient: b1 } = polyGcdCofactors(p.coefficientIn(v, 1), p.coefficientIn(v, 0));
+    if (gcd.isOne()) return [top, p];
+    const x = Poly.variable(v);
+    return [a1.mul(x), a1.mul(x).add(b1)];
+  }
+  const { aQuotient, bQuotient } = polyGcdCofactors(top, p);
+  return [aQuotient, bQuotient];
 }
 
 /** P with the variables replaced by n_v/d_v, times prod d_v^deg_v(P); returns the degrees used. */

@@ -61,6 +61,10 @@ export function factorTex(text: string): string {
 
 /** coefficient × (difference), e.g. g_m (V_a − V_b). */
 export function times(coefficient: RationalFunction, x: Written & { terms?: number }): Written {
+  // A negated single term moves its sign to the front: -g_m V_b, never g_m -V_b (which reads as a difference).
+  if ((x.terms ?? 1) === 1 && x.infix.startsWith("-") && x.tex.startsWith("-")) {
+    return negate(times(coefficient, { infix: x.infix.slice(1), tex: x.tex.slice(1), terms: 1 }));
+  }
   const c = coefficient.constantValue();
   const xi = (x.terms ?? 1) > 1 ? `(${x.infix})` : x.infix;
   const xt = (x.terms ?? 1) > 1 ? `\\left(${x.tex}\\right)` : x.tex;
@@ -74,7 +78,10 @@ export function over(x: Written & { terms?: number }, value: RationalFunction): 
   const c = value.constantValue();
   if (c !== null && c.isOne()) return { infix: x.infix, tex: x.tex };
   const xi = (x.terms ?? 1) > 1 ? `(${x.infix})` : x.infix;
-  return { infix: `${xi}/${factorInfix(value.toInfix())}`, tex: `\\frac{${x.tex}}{${value.toTex()}}` };
+  // A divisor is one factor: a/(L*s), never a/L*s, which reads as (a/L)*s.
+  const d = value.toInfix();
+  const divisor = /^[A-Za-z0-9_.]+$/.test(d) ? d : `(${d})`;
+  return { infix: `${xi}/${divisor}`, tex: `\\frac{${x.tex}}{${value.toTex()}}` };
 }
 
 export function negate(x: Written): Written {

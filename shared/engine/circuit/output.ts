@@ -39,6 +39,7 @@ export interface SolveOutput {
   frequency?: SolveResult["frequency"];
   /** Only when assumptions were given: each result beside its dominant-term form. */
   approximations?: SolveResult["approximations"];
+  boundedApproximations?: SolveResult["boundedApproximations"];
 }
 
 function per<T>(f: (r: ResultName) => T): PerResult<T> {
@@ -89,5 +90,6 @@ export function toSolveOutput(result: SolveResult): SolveOutput {
     terms,
     ...(result.frequency ? { frequency: result.frequency } : {}),
     ...(result.approximations ? { approximations: result.approximations } : {}),
+    ...(result.boundedApproximations ? { boundedApproximations: result.boundedApproximations } : {}),
   };
 }

@@ -54,7 +54,8 @@ export const networkSchema = z.strictObject({
   ground: node.optional(),
   port: z.strictObject({ plus: node, minus: node }),
   elements: z.array(element),
-  quantities: z.record(z.string(), z.enum(QUANTITIES)).optional(),
+  // Symbol names as the netlist's `quantity` line spells them, so both forms accept the same names.
+  quantities: z.record(name, z.enum(QUANTITIES)).optional(),
   // The drawing belongs to the client; the engine only keeps it with the network.
   layout: z.record(z.string(), z.unknown()).optional(),
   cells: z.array(cellInstance).optional(),

@@ -2,13 +2,16 @@
 // the cross-checks, and everything derived from the exact results.
 
 import type { RationalFunction } from "../algebra";
-import type { Diagnostic, Network, NumericCheck, ParseResult, PortStatement, SolveOptions, SolveResult } from "../types";
+import type { Diagnostic, Network, ParseResult, PortStatement, SolveOptions, SolveResult } from "../types";
 import { approximationsOf, AssumptionSyntaxError, parseAssumption, type Assumption } from "./approximations";
 import { attributeToCells, expandCells } from "./cells";
 import { checkDimensions } from "./dimensions";
+import { boundedApproximationsOf } from "./error-bound";
 import { diagnostic, hasErrors } from "./diagnostics";
 import { assembleNodalSystem, type NodalSystem } from "./mna";
-import { floatPortValues, hashString, seededRandom } from "./numeric";
+import { checkResults, uncheckedMarks, undeterminedParts, vocIscAgreement } from "./checks";
+import { isControlled } from "./elements";
+import { hashString } from "./numeric";
 import { solveOpenPort, solveShortedPort, type OpenPortSolution, type ShortPortSolution } from "./port-solution";
 import { frequencyReport } from "./frequency";
 import { exactExpression, limitsOf, parseAssignments, sensitivitiesOf, solveForTargets, valuesOf, type Results } from "./results";
@@ -27,7 +30,7 @@ export function emptyResult(network: Network | null, diagnostics: Diagnostic[]):
     rthFromVocIsc: null,
     agree: null,
     numericCheck: null,
-    checks: { testSource: null, vocIsc: null, numeric: null },
+    checks: uncheckedMarks(),
     thevenin: null,
     norton: null,
     statements: [],
@@ -83,17 +86,8 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   const port = solvePortExact(network, values, terms);
   const { system: sys, open, short, vth, rth, isc, rthFromVocIsc, agree } = port;
   const statements = [...port.statements];
-  if (open.singular && short.singular) {
-    const suspects = suspectStructures(network);
-    const why = suspects.length > 0 ? ` Look at: ${suspects.map((s) => s.note).join("; ")}.` : "";
-    diagnostics.push(
-      diagnostic(
-        "singular-system",
-        `the nodal equations have no unique solution, with the port open or shorted (det A = 0 for any values of the symbols).${why}`,
-        { elements: [...new Set(suspects.flatMap((s) => s.elements))] },
-      ),
-    );
-  }
+  const seed = hashString(JSON.stringify(network));
+  if (open.singular && short.singular) diagnostics.push(singularSystem(network, values, terms, seed));
 
   const results: Results = { vth, isc, rth, rthFromVocIsc };
   const result = emptyResult(network, diagnostics);
@@ -114,14 +108,11 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   result.thevenin = vth && rth ? { vth: vth.toInfix(), rth: rth.toInfix() } : null;
   result.norton = isc && rth && !rth.isZero() ? { isc: isc.toInfix(), rth: rth.toInfix() } : null;
 
-  const seed = hashString(JSON.stringify(network));
-  if (!(open.singular && short.singular)) result.numericCheck = numericCheck(sys, network, results, seed);
-
-  result.checks = {
-    testSource: rth !== null ? true : null,
-    vocIsc: agree,
-    numeric: result.numericCheck?.agree ?? null,
-  };
+  if (!(open.singular && short.singular)) {
+    const checked = checkResults({ network, values, terms, vth, isc, rth, seed });
+    result.checks = checked.checks;
+    result.numericCheck = checked.numericCheck;
+  }
 
   if (options.limits && options.limits.length > 0) {
     const l = limitsOf(results, options.limits);
@@ -169,36 +160,18 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
       if (options.steps ?? true) result.steps = [...result.steps, ...approximated.steps];
     }
   }
+  if (options.approximate) {
+    const nominal = Object.fromEntries(Object.entries(options.values ? parseAssignments(options.values).exact : {}).map(([k, v]) => [k, v.toNumber()]));
+    const b = boundedApproximationsOf(results, nominal, options.approximate);
+    result.boundedApproximations = b.report;
+    if (options.steps ?? true) result.steps = [...result.steps, ...b.steps];
+    if (b.missing.length > 0) diagnostics.push(diagnostic("option-invalid", `approximation within a bound needs a value for ${b.missing.join(", ")} (the design point)`));
+    if (b.needsBand) statements.push({ code: "approximation-needs-band", message: "Results in s are approximated only over a frequency band (approximate.band)." });
+  }
   result.statements = statements;
   result.diagnostics = placeDiagnostics(diagnostics, positions);
   result.ok = !hasErrors(result.diagnostics);
   return result;
-}
-
-/** Evaluate the exact results at a seeded point and compare with a floating-point solve. */
-function numericCheck(sys: NodalSystem, network: Network, results: Results, seed: number): NumericCheck {
-  const random = seededRandom(seed ^ 0x5eed);
-  const symbols = new Set<string>();
-  for (const s of sys.internals) for (const v of s.value.variables()) symbols.add(v);
-  for (const row of sys.a) for (const p of row) for (const v of p.variables()) if (!v.startsWith("$")) symbols.add(v);
-  for (const p of sys.b) for (const v of p.variables()) if (!v.startsWith("$")) symbols.add(v);
-  symbols.add(LAPLACE);
-  const point: Record<string, number> = {};
-  for (const s of [...symbols].sort()) point[s] = Number((0.5 + 1.5 * random()).toFixed(6));
-  const float = floatPortValues(sys, network.port, point);
-  let worst = 0;
-  let compared = 0;
-  for (const r of ["vth", "rth", "isc"] as const) {
-    const f = results[r];
-    const x = float[r];
-    if (!f || x === null) continue;
-    const exact = f.evaluate(point);
-    if (!Number.isFinite(exact)) continue;
-    const err = Math.abs(exact - x) / Math.max(1e-12, Math.abs(exact), Math.abs(x));
-    worst = Math.max(worst, err);
-    compared++;
-  }
-  return { agree: compared === 0 ? null : worst < 1e-6, relativeError: compared === 0 ? null : worst, point };
 }
 
 export interface ExactPort {
@@ -224,8 +197,7 @@ export function solvePortExact(network: Network, values: ReadonlyMap<string, Rat
   const vth = open.vth;
   const rth = open.rth;
   const isc = short.isc;
-  let rthFromVocIsc: RationalFunction | null = null;
-  let agree: boolean | null = null;
+  const { rthFromVocIsc, agree } = vocIscAgreement(vth, isc, rth);
   if (!open.singular && short.singular) {
     statements.push({ code: "rth-zero", message: "Rth = 0: the port is an ideal voltage source Vth; it has no Norton form (Isc is unbounded)." });
   }
@@ -234,20 +206,42 @@ export function solvePortExact(network: Network, values: ReadonlyMap<string, Rat
   }
   if (vth && vth.isZero()) statements.push({ code: "vth-zero", message: "Vth = 0: the network holds no source the port can see; it is Rth alone." });
   if (isc && isc.isZero()) statements.push({ code: "isc-zero", message: "Isc = 0: no current flows through a short across the port." });
-  if (vth && isc) {
-    if (isc.isZero()) {
-      if (vth.isZero()) statements.push({ code: "voc-isc-undefined", message: "Vth and Isc are both 0, so Voc/Isc is undefined; Rth comes from the test source alone." });
-      else agree = false;
-    } else {
-      rthFromVocIsc = vth.div(isc);
-      // Mathematical equality (the difference cancels), not just equal printed forms.
-      if (rth) agree = rthFromVocIsc.equals(rth) || rthFromVocIsc.sub(rth).isZero();
-    }
+  if (vth && isc && isc.isZero() && vth.isZero()) {
+    statements.push({ code: "voc-isc-undefined", message: "Vth and Isc are both 0, so Voc/Isc is undefined; Rth comes from the test source alone." });
   }
   if (agree === true) statements.push({ code: "rth-agree", message: "Rth from the test source equals Voc/Isc exactly." });
   if (agree === false) statements.push({ code: "rth-disagree", message: "Rth from the test source differs from Voc/Isc; the derivation is inconsistent." });
 
   return { system: sys, open, short, vth, rth, isc, rthFromVocIsc, agree, statements };
+}
+
+/** Why det A = 0: the structures topology knows, and the elements and nodes left free (often a controlled-source loop of unity gain). */
+function singularSystem(network: Network, values: ReadonlyMap<string, RationalFunction>, terms: SourceTerms, seed: number): Diagnostic {
+  const suspects = suspectStructures(network);
+  const free = undeterminedParts(network, values, terms, seed);
+  const notes = suspects.map((s) => s.note);
+  if (free && free.elements.length + free.nodes.length > 0) {
+    const parts = [
+      free.elements.length > 0 ? `the currents of ${quoteList(free.elements)}` : "",
+      free.nodes.length > 0 ? `the voltage${free.nodes.length > 1 ? "s" : ""} of node${free.nodes.length > 1 ? "s" : ""} ${quoteList(free.nodes)}` : "",
+    ].filter((p) => p !== "");
+    const controlled = network.elements.filter((e) => free.elements.includes(e.name) && isControlled(e)).map((e) => `"${e.name}" = ${"value" in e ? e.value : ""}`);
+    const loop =
+      controlled.length > 0
+        ? ` Controlled source${controlled.length > 1 ? "s" : ""} ${controlled.join(", ")} ${controlled.length > 1 ? "are" : "is"} among them: a loop whose gain exactly cancels what it controls leaves it undetermined; check the gain and the direction of the loop.`
+        : "";
+    const sentence = parts.join(" and ");
+    notes.unshift(`${sentence.charAt(0).toUpperCase()}${sentence.slice(1)} can take any value together, driven by nothing.${loop}`);
+  }
+  const why = notes.length > 0 ? ` ${notes.join(" Also: ")}` : "";
+  return diagnostic("singular-system", `the nodal equations have no unique solution, with the port open or shorted (det A = 0 for any values of the symbols).${why}`, {
+    elements: network.elements.map((e) => e.name).filter((n) => free?.elements.includes(n) || suspects.some((s) => s.elements.includes(n))),
+    nodes: free?.nodes ?? [],
+  });
+}
+
+function quoteList(names: string[]): string {
+  return names.map((n) => `"${n}"`).join(", ");
 }
 
 function assumptionsOf(texts: readonly string[]): { assumptions: Assumption[]; diagnostics: Diagnostic[] } {

@@ -289,8 +289,10 @@ export function buildLedger(input: LedgerInput): Step[] {
     title: "Thevenin equivalent",
     explanation: thevenin
       ? "Seen from the port, the network is a voltage source Vth in series with Rth."
-      : "The port behaves as an ideal current source (Rth is infinite), so it has no Thevenin form.",
-    tex: thevenin ? `V_{th} = ${texOf(input.vth)}, \\qquad R_{th} = ${texOf(input.rth)}` : "R_{th} = \\infty",
+      : input.isc !== null
+        ? "The port behaves as an ideal current source (Rth is infinite), so it has no Thevenin form."
+        : "Neither the open nor the shorted port has a unique solution, so there is no Thevenin form.",
+    tex: thevenin ? `V_{th} = ${texOf(input.vth)}, \\qquad R_{th} = ${texOf(input.rth)}` : input.isc !== null ? "R_{th} = \\infty" : "\\text{no unique solution}",
     data: { exists: thevenin, vth: dataOf(input.vth, "vth"), rth: dataOf(input.rth, "rth") },
   });
   const norton = input.isc !== null && input.rth !== null && !input.rth.isZero();
@@ -302,12 +304,16 @@ export function buildLedger(input: LedgerInput): Step[] {
       ? "Seen from the port, the network is a current source Isc in parallel with Rth."
       : input.isc !== null && input.rth === null
         ? "Rth is infinite: the port is the current source Isc alone, with nothing in parallel."
-        : "Rth is zero: the port is an ideal voltage source, so it has no Norton form.",
+        : input.rth !== null
+          ? "Rth is zero: the port is an ideal voltage source, so it has no Norton form."
+          : "Neither the open nor the shorted port has a unique solution, so there is no Norton form.",
     tex: norton
       ? `I_{sc} = ${texOf(input.isc)}, \\qquad R_{th} = ${texOf(input.rth)}`
       : input.isc !== null
         ? `I_{sc} = ${texOf(input.isc)}, \\qquad R_{th} = \\infty`
-        : "R_{th} = 0",
+        : input.rth !== null
+          ? "R_{th} = 0"
+          : "\\text{no unique solution}",
     data: { exists: norton, isc: dataOf(input.isc, "isc"), rth: dataOf(input.rth, "rth") },
   });
   return steps;

@@ -4,6 +4,7 @@ import { ErrorState, LoadingState } from "@/components/ui/states";
 import { useMe } from "@/features/auth/api/get-me";
 import { useAcceptInvitation } from "@/features/teams/api/accept-invitation";
 import { useInvitation } from "@/features/teams/api/get-invitation";
+import { shortDateTime } from "@/lib/dates";
 
 export function AcceptInvitationRoute() {
   const [params] = useSearchParams();
@@ -25,13 +26,22 @@ export function AcceptInvitationRoute() {
           <>
             <p>
               {invitation.data.invitedBy ?? "The team's owner"} invites {invitation.data.email} to join <strong>{invitation.data.team.name}</strong> as{" "}
-              {invitation.data.role}. The invitation expires on {new Date(invitation.data.expiresAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}.
+              {invitation.data.role}. The invitation expires on {shortDateTime(invitation.data.expiresAt)}.
             </p>
             {me.isLoading ? null : me.data ? (
               <>
                 <p className="text-ink/70">
                   Signed in as {me.data.user.name} ({me.data.user.email}).
                 </p>
+                {me.data.user.email.toLowerCase() !== invitation.data.email.toLowerCase() ? (
+                  <p className="text-copper" role="note">
+                    This invitation is for {invitation.data.email} only: sign out and sign in with that address to accept it.
+                  </p>
+                ) : me.data.user.emailVerified === false ? (
+                  <p className="text-copper" role="note">
+                    Confirm {invitation.data.email} first (the link is in the mail we sent it), then join.
+                  </p>
+                ) : null}
                 {accept.isError && <ErrorState error={accept.error} title="The invitation could not be accepted" />}
                 <Button variant="primary" disabled={accept.isPending} onClick={() => accept.mutate({ token }, { onSuccess: (data) => navigate(`/teams/${data.team.id}`) })}>
                   {accept.isPending ? "Joining…" : `Join ${invitation.data.team.name}`}

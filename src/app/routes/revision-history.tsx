@@ -9,7 +9,7 @@ import { useRevisions } from "@/features/derivations/api/get-revisions";
 import { circuitDifferences, resultChanged } from "@/features/history/lib/compare";
 import { Schematic } from "@/features/network-editor/components/schematic";
 import { useNetwork } from "@/features/networks/api/get-network";
-import { VerdictMark } from "@/features/review/components/verdict-control";
+import { VerdictMark } from "@/features/review/components/verdict-mark";
 import { printElementLine, type EngineNetwork } from "@/lib/engine-netlist";
 import type { Revision } from "@/types/api";
 

@@ -2,14 +2,16 @@ import { Link, useParams } from "react-router-dom";
 import { ErrorState, LoadingState } from "@/components/ui/states";
 import { AnalysisColumn } from "@/features/analysis/components/analysis-column";
 import { useMe } from "@/features/auth/api/get-me";
+import { useRevision } from "@/features/derivations/api/get-revision";
 import { Ledger } from "@/features/derivations/components/ledger";
 import { ExportMenu } from "@/features/export/components/export-menu";
 import { DrawingView } from "@/features/canvas/components/drawing-view";
 import { useNetwork } from "@/features/networks/api/get-network";
 import { useComments } from "@/features/review/api/get-comments";
-import { VerdictControl, VerdictMark } from "@/features/review/components/verdict-control";
+import { ReviewPanel } from "@/features/review/components/review-panel";
 import { useSharedRevision } from "@/features/sharing/api/get-shared-revision";
 import { ApiError } from "@/lib/api-client";
+import { shortDateTime } from "@/lib/dates";
 import { printNetlistText, type EngineNetwork } from "@/lib/engine-netlist";
 import { ResultCard } from "@/features/derivations/components/result-card";
 
@@ -26,6 +28,8 @@ export function SharedViewRoute() {
   const role = network.data?.role ?? null;
   const canReview = role === "owner" || role === "editor" || role === "reviewer";
   const comments = useComments(revision?.networkId ?? "", revision?.k ?? 0, member);
+  // Members read the revision as the team sees it too: with its count of open notes.
+  const memberRevision = useRevision(member ? (revision?.networkId ?? "") : "", member ? (revision?.k ?? null) : null);
   const here = `/s/${token}`;
 
   if (shared.isLoading) return <LoadingState label="Opening the shared revision…" />;
@@ -62,12 +66,11 @@ export function SharedViewRoute() {
           <p className="mt-0.5 text-xs text-ink/70">
             Derivation revision {revision.k}
             {revision.author ? ` · solved by ${revision.author}` : ""}
-            {revision.createdAt ? ` · ${new Date(revision.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""} · review:{" "}
-            <VerdictMark verdict={revision.verdict.verdict} />
+            {revision.createdAt ? ` · ${shortDateTime(revision.createdAt)}` : ""}
           </p>
+          <ReviewPanel revision={memberRevision.data ?? revision} member={member} canReview={canReview} currentUserId={me.data?.user.id ?? null} />
         </div>
         <div className="flex flex-wrap items-center gap-2 print:hidden">
-          {member && canReview && <VerdictControl networkId={revision.networkId} k={revision.k} verdict={revision.verdict.verdict} canSet />}
           {member && (
             <Link to={`/networks/${revision.networkId}/r/${revision.k}`} className="rounded border border-rule px-3 py-1.5 text-sm hover:border-ink/40">
               Open in the workbench
@@ -102,7 +105,7 @@ export function SharedViewRoute() {
             Ledger
           </h2>
           <div className="mt-2">
-            <Ledger revision={revision} comments={comments.data ?? []} review={{ networkId: revision.networkId, k: revision.k, canComment: member && canReview, currentUserId: me.data?.user.id ?? null, commentPath }} />
+            <Ledger revision={revision} comments={comments.data ?? []} review={{ networkId: revision.networkId, k: revision.k, canComment: member && canReview, currentUserId: me.data?.user.id ?? null, revisionAuthorId: revision.authorId, isOwner: role === "owner", commentPath }} />
           </div>
         </section>
         <section aria-label="Values, Limits and Sweep" className="min-w-0">

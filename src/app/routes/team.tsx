@@ -10,6 +10,7 @@ import { ImportNetworkDialog } from "@/features/networks/components/import-netwo
 import { NetworksTable } from "@/features/networks/components/networks-table";
 import { CreateTeamForm } from "@/features/teams/components/create-team-form";
 import { InviteMemberForm } from "@/features/teams/components/invite-member-form";
+import { RequiredApprovals } from "@/features/teams/components/required-approvals";
 import { TeamMembers } from "@/features/teams/components/team-members";
 
 export function TeamRoute() {
@@ -58,6 +59,14 @@ export function TeamRoute() {
                   <InviteMemberForm teamId={team.id} />
                 </div>
               )}
+            </section>
+            <section className="mt-10 border-t border-rule pt-4" aria-labelledby="review-heading">
+              <h2 id="review-heading" className="text-sm font-semibold">
+                Review
+              </h2>
+              <div className="mt-2">
+                <RequiredApprovals teamId={team.id} isOwner={team.role === "owner"} />
+              </div>
             </section>
             <section className="mt-10 border-t border-rule pt-4" aria-labelledby="cells-heading">
               <h2 id="cells-heading" className="text-sm font-semibold">

@@ -24,7 +24,7 @@ import { useNetwork } from "@/features/networks/api/get-network";
 import { useNetworkBySlug } from "@/features/networks/api/get-network-by-slug";
 import { useUpdateNetwork, type UpdateNetworkInput } from "@/features/networks/api/update-network";
 import { useComments } from "@/features/review/api/get-comments";
-import { VerdictControl } from "@/features/review/components/verdict-control";
+import { ReviewPanel } from "@/features/review/components/review-panel";
 import { ShareDialog } from "@/features/sharing/components/share-dialog";
 import type { Me, Network } from "@/types/api";
 
@@ -150,9 +150,9 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
               {network.author ? ` · network by ${network.author}` : ""} · your role: {role}
             </p>
           </NetworkHeading>
+          {k && revision.data && <ReviewPanel revision={revision.data} member canReview={canReview} currentUserId={me.user.id} />}
         </div>
         <div className="flex flex-wrap items-center gap-2 print:hidden">
-          {k && revision.data && <VerdictControl networkId={network.id} k={k} verdict={revision.data.verdict.verdict} canSet={canReview} />}
           {latest && latest > 0 && (
             <Link to={`/networks/${network.id}/history`} className="rounded border border-rule px-3 py-1.5 text-sm hover:border-ink/40">
               History
@@ -218,7 +218,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
               <Ledger
                 revision={revision.data}
                 comments={comments.data ?? []}
-                review={{ networkId: network.id, k: revision.data.k, canComment: canReview, currentUserId: me.user.id }}
+                review={{ networkId: network.id, k: revision.data.k, canComment: canReview, currentUserId: me.user.id, revisionAuthorId: revision.data.authorId, isOwner: role === "owner" }}
               />
             ) : null}
           </div>

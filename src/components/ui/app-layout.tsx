@@ -32,9 +32,12 @@ function AccountNav() {
           {team.name}
         </NavLink>
       ))}
-      <span className="text-ink/60" title={me.data.user.email}>
+      <NavLink to="/reviews/awaiting" className={({ isActive }) => (isActive ? "text-copper" : "hover:text-copper")}>
+        Reviews
+      </NavLink>
+      <NavLink to="/account" className={({ isActive }) => (isActive ? "text-copper" : "text-ink/60 hover:text-copper")} title={`${me.data.user.email} · account settings`}>
         {me.data.user.name}
-      </span>
+      </NavLink>
       <button
         type="button"
         className="hover:text-copper"

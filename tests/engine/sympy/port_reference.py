@@ -13,7 +13,8 @@ element semantics of the interchange format (not from Portfold's matrix):
   * Isc: a 0 V source across the port (not the node merge Portfold uses).
 
 It solves each system by Cramer's rule with sympy's DomainMatrix determinants over the
-polynomial ring (each equation's denominators cleared first) and checks that
+polynomial ring (fraction-free elimination; each equation's denominators cleared first),
+brings the quotient to lowest terms with the ring's own gcd, and checks that
 cancel(ours - theirs) == 0. Prints a JSON list of {"id", "checks": {name: verdict}, "theirs"}.
 """
 
@@ -196,7 +197,11 @@ def solve_port(network, mode):
         cols = [db if k == j else dA.extract(list(range(len(unknowns))), [k]) for k in range(len(unknowns))]
         replaced = cols[0].hstack(*cols[1:])
         num += sign * replaced.det()
-    return sp.cancel(domain.to_sympy(num) / domain.to_sympy(det))
+    # Lowest terms inside the polynomial ring (its own gcd), not on expression trees.
+    if gens:
+        num, det = num.cancel(det)
+        return domain.to_sympy(num) / domain.to_sympy(det)
+    return sp.Rational(domain.to_sympy(num), domain.to_sympy(det))
 
 
 def main():

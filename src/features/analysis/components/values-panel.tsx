@@ -3,6 +3,7 @@ import { MathTex } from "@/components/ui/math";
 import { formatSI, RationalFunction } from "@/lib/engine";
 import type { ResultName } from "@/types/api";
 import { readTypedValues, type ExactResults } from "../lib/exact-results";
+import { ApproximationControl } from "./approximation-control";
 import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultMeaning, resultTex, symbolLabel, symbolUnit } from "../lib/quantities";
 
 export type TypedValues = Record<string, string>;
@@ -120,6 +121,7 @@ export function ValuesPanel({
           </div>
         ))}
       </dl>
+      <ApproximationControl exact={exact} point={parsed.exact} />
     </div>
   );
 }

@@ -1,6 +1,8 @@
-import type { ResultForm, Results, Revision, Step, Verdict } from "@/types/api";
+import type { ResultChecks, ResultForm, Results, ReviewState, Revision, Step, Verdict } from "@/types/api";
 
 type Loose = Record<string, unknown>;
+
+const bool = (v: unknown) => (typeof v === "boolean" ? v : null);
 
 const asString = (v: unknown): string | null => (typeof v === "string" ? v : null);
 const nameOf = (v: unknown): string | null =>
@@ -28,7 +30,6 @@ function normaliseResults(raw: Loose): Results {
   const statements = Array.isArray(raw.statements) ? (raw.statements as Results["statements"]) : [];
   const form = (name: string) => normaliseForm(raw[name], compact[name], tex[name]);
   const agree = typeof raw.agree === "boolean" ? raw.agree : null;
-  const bool = (v: unknown) => (typeof v === "boolean" ? v : null);
   return {
     vth: form("vth"),
     isc: form("isc"),
@@ -36,13 +37,21 @@ function normaliseResults(raw: Loose): Results {
     rthFromVocIsc: form("rthFromVocIsc"),
     agree,
     statements,
-    checks: {
-      testSource: bool(checks.testSource) ?? (raw.rth != null ? true : null),
-      vocIsc: bool(checks.vocIsc) ?? agree,
-      numeric: bool(checks.numeric) ?? bool((raw.numericCheck as Loose | null | undefined)?.agree),
-    },
+    checks: normaliseChecks(checks, agree, raw.numericCheck as Loose | null | undefined),
     quantities: (dims.quantities ?? raw.quantities ?? {}) as Results["quantities"],
     dimensionChecks: (dims.checks ?? {}) as Results["dimensionChecks"],
+  };
+}
+
+// Before each mark said what it did, the test-source mark only said that Rth existed: it is shown as not checked.
+function normaliseChecks(checks: Loose, agree: boolean | null, numericCheck: Loose | null | undefined): ResultChecks {
+  const details = checks.details && typeof checks.details === "object" ? (checks.details as ResultChecks["details"]) : null;
+  return {
+    testSource: details ? bool(checks.testSource) : null,
+    vocIsc: bool(checks.vocIsc) ?? agree,
+    numeric: bool(checks.numeric) ?? bool(numericCheck?.agree),
+    exactPoint: bool(checks.exactPoint),
+    details,
   };
 }
 
@@ -77,10 +86,21 @@ export function normaliseRevision(body: unknown): Revision {
     results: normaliseResults((raw.results ?? {}) as Loose),
     diagnostics: (raw.diagnostics ?? []) as Revision["diagnostics"],
     steps,
-    verdict: {
-      verdict: ((typeof raw.verdict === "string" ? raw.verdict : verdict.verdict) ?? "open") as Verdict,
-      by: nameOf(verdict.by),
-      at: asString(verdict.at),
-    },
+    authorId: asString((raw.createdBy as Loose | null)?.id),
+    verdict: normaliseReviewState(typeof raw.verdict === "string" ? { verdict: raw.verdict } : verdict),
+    approvedBefore: raw.approvedBefore
+      ? { k: Number((raw.approvedBefore as Loose).number), by: nameOf((raw.approvedBefore as Loose).by), at: asString((raw.approvedBefore as Loose).at) }
+      : null,
+    openNotes: typeof raw.openNotes === "number" ? raw.openNotes : null,
+  };
+}
+
+export function normaliseReviewState(raw: Loose): ReviewState {
+  return {
+    verdict: (asString(raw.verdict) ?? "open") as Verdict,
+    by: nameOf(raw.by),
+    at: asString(raw.at),
+    approvals: Number(raw.approvals ?? 0),
+    requiredApprovals: Number(raw.requiredApprovals ?? 1),
   };
 }

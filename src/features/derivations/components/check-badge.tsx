@@ -1,27 +1,77 @@
+import { Link } from "react-router-dom";
 import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultsInS } from "@/features/analysis/lib/quantities";
-import type { ResultName, Results } from "@/types/api";
+import type { CheckMark, ResultName, Results } from "@/types/api";
+
+/** The page that explains every check and every outside reference. */
+export const HOW_CHECKED_PATH = "/how-results-are-checked";
+
+const MARKS: { key: CheckMark; label: string; none: string }[] = [
+  { key: "testSource", label: "test source", none: "no test-source check for this port" },
+  { key: "vocIsc", label: "Voc/Isc", none: "only one form of Rth exists for this port" },
+  { key: "numeric", label: "numeric", none: "no numeric check was recorded" },
+  { key: "exactPoint", label: "exact point", none: "no exact-point check was recorded" },
+];
+
+function signOf(state: boolean | null): string {
+  return state === true ? "✓" : state === false ? "✗" : "–";
+}
 
 function Mark({ label, state, detail }: { label: string; state: boolean | null; detail: string }) {
   const tone = state === true ? "border-verdigris/50 text-verdigris" : state === false ? "border-signal/50 text-signal" : "border-rule text-ink/50";
-  const sign = state === true ? "✓" : state === false ? "✗" : "–";
   return (
-    <li className={`rounded-sm border px-1.5 py-0.5 ${tone}`} title={detail}>
-      <span aria-hidden="true">{sign}</span> {label}
+    <li className={`rounded-sm border px-1.5 py-0.5 ${tone}`} title={detail} data-mark-state={state === null ? "none" : String(state)}>
+      <span aria-hidden="true">{signOf(state)}</span> {label}
       <span className="sr-only">: {detail}</span>
     </li>
   );
 }
 
-// The check badge: three independent agreements on the result.
+// The check badge: four independent tests the result can fail, each saying what it did.
 export function CheckBadge({ results }: { results: Results }) {
-  const { testSource, vocIsc, numeric } = results.checks;
-  const word = (state: boolean | null, yes: string, no: string, none: string) => (state === true ? yes : state === false ? no : none);
+  const { checks } = results;
+  const details = checks.details;
+  const tooltip = (key: CheckMark, none: string) => {
+    const d = details?.[key];
+    if (!d) return checks[key] === null ? `${none} (solved before this check existed; solve again to run it)` : none;
+    return `${d.outcome} ${d.method}`;
+  };
   return (
-    <ul aria-label="Check badge" className="flex flex-wrap items-center gap-1.5 text-xs">
-      <Mark label="test source" state={testSource} detail={word(testSource, "Rth found with a test source, independent sources zeroed", "the test-source solve failed", "no test-source Rth for this port")} />
-      <Mark label="Voc/Isc" state={vocIsc} detail={word(vocIsc, "Voc/Isc equals the test-source Rth exactly", "Voc/Isc differs from the test-source Rth", "only one form of Rth exists for this port")} />
-      <Mark label="numeric" state={numeric} detail={word(numeric, "an independent numeric solve at random values agrees", "the independent numeric solve disagrees", "no numeric check was recorded")} />
-    </ul>
+    <div className="text-xs">
+      <div className="flex flex-wrap items-center gap-1.5">
+        <ul aria-label="Check badge" className="flex flex-wrap items-center gap-1.5">
+          {MARKS.map((m) => (
+            <Mark key={m.key} label={m.label} state={checks[m.key]} detail={tooltip(m.key, m.none)} />
+          ))}
+        </ul>
+        <Link to={HOW_CHECKED_PATH} className="text-copper underline">
+          How results are checked
+        </Link>
+      </div>
+      <details className="mt-1 text-ink/80">
+        <summary className="cursor-pointer select-none text-ink/60">What each check did</summary>
+        <dl aria-label="What each check did" className="mt-1 grid grid-cols-[6.5rem_minmax(0,1fr)] gap-x-2 gap-y-1">
+          {MARKS.map((m) => {
+            const d = details?.[m.key];
+            return (
+              <div key={m.key} className="contents">
+                <dt className={checks[m.key] === false ? "text-signal" : "text-ink/70"}>
+                  {signOf(checks[m.key])} {m.label}
+                </dt>
+                <dd>
+                  {d ? (
+                    <>
+                      <span className={d.agree === false ? "text-signal" : "text-ink"}>{d.outcome}</span> <span className="text-ink/60">{d.method}</span>
+                    </>
+                  ) : (
+                    <span className="text-ink/60">Not recorded with this revision: it was solved before the check said what it did. Solve again to run it.</span>
+                  )}
+                </dd>
+              </div>
+            );
+          })}
+        </dl>
+      </details>
+    </div>
   );
 }
 

@@ -3,7 +3,9 @@ import { Link, useNavigate } from "react-router-dom";
 import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { EmptyState, ErrorState, InlineError, LoadingState } from "@/components/ui/states";
-import { VerdictMark } from "@/features/review/components/verdict-control";
+import { Pager } from "@/components/ui/pager";
+import { shortDateTime } from "@/lib/dates";
+import { VerdictMark } from "@/features/review/components/verdict-mark";
 import type { NetworkSummary, Role } from "@/types/api";
 import { useDeleteNetwork } from "../api/delete-network";
 import { useDuplicateNetwork } from "../api/duplicate-network";
@@ -19,10 +21,7 @@ const COLUMNS: { key: NetworkSort; label: string }[] = [
   { key: "updatedAt", label: "Updated" },
 ];
 
-function updated(iso: string) {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? "" : date.toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" });
-}
+const updated = shortDateTime;
 
 function useDebounced<T>(value: T, ms: number): T {
   const [debounced, setDebounced] = useState(value);
@@ -85,9 +84,6 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
   };
 
   const data = networks.data;
-  const from = data && data.total > 0 ? (data.page - 1) * data.pageSize + 1 : 0;
-  const to = data ? Math.min(data.total, data.page * data.pageSize) : 0;
-  const lastPage = data ? Math.max(1, Math.ceil(data.total / data.pageSize)) : 1;
 
   return (
     <div>
@@ -160,22 +156,7 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
               </tbody>
             </table>
             </div>
-            <nav aria-label="Pages" className="mt-3 flex items-center justify-between text-sm">
-              <span className="text-ink/70">
-                {from}–{to} of {data.total}
-              </span>
-              <div className="flex gap-2">
-                <Button disabled={page <= 1} onClick={() => setPage(page - 1)}>
-                  Previous
-                </Button>
-                <span className="self-center text-xs text-ink/60">
-                  page {page} of {lastPage}
-                </span>
-                <Button disabled={page >= lastPage} onClick={() => setPage(page + 1)}>
-                  Next
-                </Button>
-              </div>
-            </nav>
+            <Pager page={data.page} pageSize={data.pageSize} total={data.total} onPage={setPage} />
           </>
         )}
       </div>

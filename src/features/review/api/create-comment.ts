@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { NoteAnchor } from "@/types/api";
 
 export interface CreateCommentInput {
   networkId: string;
@@ -7,6 +8,7 @@ export interface CreateCommentInput {
   stepId: string;
   body: string;
   parentId?: string;
+  anchor?: NoteAnchor;
 }
 
 export function createComment({ networkId, k, ...input }: CreateCommentInput) {
@@ -18,7 +20,8 @@ export function useCreateComment(onSaved?: () => void) {
   return useMutation({
     mutationFn: createComment,
     onSuccess: async (_data, { networkId, k }) => {
-      await queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k, "comments"] });
+      // The notes and the revision's count of open ones.
+      await queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k] });
       onSaved?.();
     },
   });

@@ -12,7 +12,7 @@ export function useDeleteComment() {
   return useMutation({
     mutationFn: deleteComment,
     onSuccess: async (_data, { networkId, k }) => {
-      await queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k, "comments"] });
+      await queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k] });
     },
   });
 }

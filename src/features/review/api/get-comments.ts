@@ -4,6 +4,12 @@ import type { Comment } from "@/types/api";
 
 type Loose = Record<string, unknown>;
 
+function stamp(raw: unknown): Comment["resolved"] {
+  if (!raw || typeof raw !== "object") return null;
+  const { by, at } = raw as { by?: { name?: string } | null; at?: string };
+  return { by: by?.name ?? null, at: String(at ?? "") };
+}
+
 function flatten(list: Loose[], parentId: string | null, out: Comment[]) {
   for (const raw of list) {
     const author = raw.author as { id?: string; name?: string } | null;
@@ -17,6 +23,9 @@ function flatten(list: Loose[], parentId: string | null, out: Comment[]) {
       authorId: author?.id ?? null,
       createdAt: String(raw.createdAt ?? ""),
       updatedAt: String(raw.updatedAt ?? raw.createdAt ?? ""),
+      anchor: (raw.anchor as Comment["anchor"]) ?? null,
+      resolved: stamp(raw.resolved),
+      reopened: stamp(raw.reopened),
     };
     out.push(comment);
     flatten((raw.replies as Loose[] | undefined) ?? [], comment.id, out);

@@ -13,7 +13,7 @@ export function useUpdateComment() {
   return useMutation({
     mutationFn: updateComment,
     onSuccess: async (_data, { networkId, k }) => {
-      await queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k, "comments"] });
+      await queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k] });
     },
   });
 }

@@ -2,23 +2,88 @@ import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { controlClass } from "@/components/ui/field";
 import { InlineError } from "@/components/ui/states";
-import type { Comment } from "@/types/api";
+import { MathTex } from "@/components/ui/math";
+import { shortDateTime as when } from "@/lib/dates";
+import type { Comment, NoteAnchor } from "@/types/api";
 import { useCreateComment } from "../api/create-comment";
 import { useDeleteComment } from "../api/delete-comment";
+import { useSetThreadResolved } from "../api/set-thread-resolved";
 import { useUpdateComment } from "../api/update-comment";
+import { formulaTerms } from "../lib/formula-terms";
 
 export interface ReviewContext {
   networkId: string;
   k: number;
   canComment: boolean;
   currentUserId: string | null;
+  /** Who may resolve any thread besides its author: the revision's author and team owners. */
+  revisionAuthorId?: string | null;
+  isOwner?: boolean;
   /** Shown in the margin when commenting is not possible (e.g. "Sign in to comment"). */
   commentPath?: React.ReactNode;
 }
 
-function when(iso: string) {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? "" : date.toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" });
+function AnchorQuote({ anchor }: { anchor: NoteAnchor }) {
+  if (anchor.part === "formula") {
+    return (
+      <p className="mb-0.5 text-[11px] text-ink/60">
+        on the term <span className="rounded bg-copper/10 px-0.5 text-ink/80"><MathTex tex={anchor.text} /></span> of the formula
+      </p>
+    );
+  }
+  return (
+    <p className="mb-0.5 text-[11px] text-ink/60">
+      on <q className="bg-copper/10 italic text-ink/80">{anchor.text}</q>
+    </p>
+  );
+}
+
+// A new note may point at one term of the step's formula instead of the whole step.
+function TermPicker({ formula, value, onChange }: { formula: string; value: string; onChange: (term: string) => void }) {
+  const id = useId();
+  const terms = formulaTerms(formula);
+  if (terms.length < 2) return null;
+  return (
+    <div className="mt-1">
+      <label htmlFor={id} className="text-[11px] text-ink/60">
+        On a term of the formula (optional)
+      </label>
+      <select id={id} value={value} onChange={(e) => onChange(e.target.value)} className={`${controlClass} text-xs`}>
+        <option value="">the whole step</option>
+        {terms.map((term) => (
+          <option key={term} value={term}>
+            {term.length > 60 ? `${term.slice(0, 57)}…` : term}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}
+
+function ThreadState({ comment, review }: { comment: Comment; review: ReviewContext }) {
+  const toggle = useSetThreadResolved();
+  const me = review.currentUserId;
+  const may = me !== null && (me === comment.authorId || me === review.revisionAuthorId || review.isOwner);
+  return (
+    <>
+      {comment.reopened && !comment.resolved && (
+        <span className="text-ink/50">
+          reopened by {comment.reopened.by ?? "someone"} · {when(comment.reopened.at)}
+        </span>
+      )}
+      {may && (
+        <button
+          type="button"
+          className="text-ink/60 hover:text-verdigris"
+          disabled={toggle.isPending}
+          onClick={() => toggle.mutate({ networkId: review.networkId, k: review.k, commentId: comment.id, resolved: !comment.resolved })}
+        >
+          {comment.resolved ? "Reopen" : "Resolve"}
+        </button>
+      )}
+      <InlineError error={toggle.error} />
+    </>
+  );
 }
 
 function CommentForm({ label, submitLabel, initial = "", onSubmit, onCancel, pending, error }: {
@@ -63,6 +128,34 @@ function CommentItem({ comment, replies, review, stepTitle }: { comment: Comment
   const update = useUpdateComment();
   const remove = useDeleteComment();
   const own = review.currentUserId !== null && comment.authorId === review.currentUserId;
+  const thread = comment.parentId === null;
+  if (thread && comment.resolved && mode === "read") {
+    // Resolved threads fold away, still there to open and to reopen.
+    return (
+      <li className="border-l-2 border-verdigris/40 pl-2">
+        <details>
+          <summary className="cursor-pointer text-[11px] text-ink/60">
+            Resolved by {comment.resolved.by ?? "someone"} · {when(comment.resolved.at)} · {replies.length + 1} note{replies.length ? "s" : ""}
+          </summary>
+          <div className="mt-1 space-y-1 opacity-80">
+            {comment.anchor && <AnchorQuote anchor={comment.anchor} />}
+            <p className="whitespace-pre-wrap break-words text-xs leading-snug">{comment.deleted ? <i>note deleted</i> : comment.body}</p>
+            <p className="text-[11px] text-ink/50">
+              {comment.author ?? "someone"} · {when(comment.createdAt)}
+            </p>
+            {replies.map((reply) => (
+              <p key={reply.id} className="whitespace-pre-wrap break-words border-l border-rule pl-2 text-xs">
+                {reply.deleted ? <i>note deleted</i> : reply.body} <span className="text-[11px] text-ink/50">— {reply.author ?? "someone"}</span>
+              </p>
+            ))}
+          </div>
+        </details>
+        <div className="flex gap-2 text-[11px] print:hidden">
+          <ThreadState comment={comment} review={review} />
+        </div>
+      </li>
+    );
+  }
   return (
     <li className="border-l-2 border-copper/40 pl-2">
       {mode === "edit" ? (
@@ -77,6 +170,7 @@ function CommentItem({ comment, replies, review, stepTitle }: { comment: Comment
         />
       ) : (
         <>
+          {thread && comment.anchor && <AnchorQuote anchor={comment.anchor} />}
           {/* User text: rendered as text, never as HTML. */}
           {comment.deleted ? (
             <p className="text-xs italic text-ink/50">note deleted</p>
@@ -87,6 +181,11 @@ function CommentItem({ comment, replies, review, stepTitle }: { comment: Comment
             {comment.author ?? "someone"} · {when(comment.createdAt)}
             {comment.updatedAt && comment.updatedAt !== comment.createdAt ? " · edited" : ""}
           </p>
+          {thread && (
+            <div className="flex flex-wrap gap-2 text-[11px] print:hidden">
+              <ThreadState comment={comment} review={review} />
+            </div>
+          )}
           {review.canComment && !comment.deleted && (
             <div className="flex gap-2 text-[11px] print:hidden">
               <button type="button" className="text-ink/60 hover:text-copper" onClick={() => setMode("reply")}>
@@ -135,9 +234,23 @@ function CommentItem({ comment, replies, review, stepTitle }: { comment: Comment
 }
 
 // The margin beside one step: its notes, threaded, and a way to add one.
-export function StepComments({ stepId, stepTitle, comments, review }: { stepId: string; stepTitle: string; comments: Comment[]; review: ReviewContext }) {
-  const [adding, setAdding] = useState(false);
-  const create = useCreateComment(() => setAdding(false));
+export function StepComments({ stepId, stepTitle, formula = "", comments, review, highlight, onHighlightUsed }: {
+  stepId: string;
+  stepTitle: string;
+  /** The step's TeX, whose terms a new note may point at. */
+  formula?: string;
+  comments: Comment[];
+  review: ReviewContext;
+  /** Text the reader highlighted in this step's explanation, offered as the anchor of a new note. */
+  highlight?: NoteAnchor | null;
+  onHighlightUsed?: () => void;
+}) {
+  const [adding, setAdding] = useState<false | "step" | "highlight">(false);
+  const [term, setTerm] = useState("");
+  const create = useCreateComment(() => {
+    setAdding(false);
+    onHighlightUsed?.();
+  });
   const mine = comments.filter((c) => c.stepId === stepId);
   const top = mine.filter((c) => !c.parentId);
   const repliesOf = (id: string) => mine.filter((c) => c.parentId === id);
@@ -152,18 +265,32 @@ export function StepComments({ stepId, stepTitle, comments, review }: { stepId: 
       )}
       {review.canComment ? (
         adding ? (
-          <CommentForm
-            label={`Note on ${stepTitle}`}
-            submitLabel="Add note"
-            pending={create.isPending}
-            error={create.error}
-            onCancel={() => setAdding(false)}
-            onSubmit={(body) => create.mutate({ networkId: review.networkId, k: review.k, stepId, body })}
-          />
+          <>
+            {adding === "highlight" && highlight && <AnchorQuote anchor={highlight} />}
+            {adding === "step" && formula && <TermPicker formula={formula} value={term} onChange={setTerm} />}
+            <CommentForm
+              label={`Note on ${stepTitle}`}
+              submitLabel="Add note"
+              pending={create.isPending}
+              error={create.error}
+              onCancel={() => setAdding(false)}
+              onSubmit={(body) => {
+                const anchor: NoteAnchor | undefined = adding === "highlight" && highlight ? highlight : adding === "step" && term ? { part: "formula", text: term } : undefined;
+                create.mutate({ networkId: review.networkId, k: review.k, stepId, body, ...(anchor ? { anchor } : {}) }, { onSuccess: () => setTerm("") });
+              }}
+            />
+          </>
         ) : (
-          <button type="button" onClick={() => setAdding(true)} className="mt-1 text-[11px] text-ink/50 hover:text-copper print:hidden" aria-label={`Add a note on ${stepTitle}`}>
-            + note
-          </button>
+          <div className="flex flex-col items-start">
+            <button type="button" onClick={() => setAdding("step")} className="mt-1 text-[11px] text-ink/50 hover:text-copper print:hidden" aria-label={`Add a note on ${stepTitle}`}>
+              + note
+            </button>
+            {highlight && (
+              <button type="button" onClick={() => setAdding("highlight")} className="mt-1 text-left text-[11px] text-copper hover:underline print:hidden" aria-label={`Add a note on the highlighted text of ${stepTitle}`}>
+                + note on the highlighted text
+              </button>
+            )}
+          </div>
         )
       ) : (
         top.length === 0 && review.commentPath ? <div className="print:hidden">{review.commentPath}</div> : null

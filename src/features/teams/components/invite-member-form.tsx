@@ -15,6 +15,7 @@ export function InviteMemberForm({ teamId }: { teamId: string }) {
       className="flex flex-wrap items-end gap-2"
       onSubmit={(event) => {
         event.preventDefault();
+        if (role === "owner" && !window.confirm(`Invite ${email} as an owner of this team?`)) return;
         invite.mutate({ teamId, email, role }, { onSuccess: () => setEmail("") });
       }}
     >
@@ -25,6 +26,11 @@ export function InviteMemberForm({ teamId }: { teamId: string }) {
         <option value="editor">editor</option>
         <option value="owner">owner</option>
       </SelectField>
+      {role === "owner" && (
+        <p className="w-full rounded border border-copper/50 bg-copper/5 px-2 py-1 text-xs" role="alert">
+          An owner can change every member's role, remove anyone, invite others and delete the team. Invite as owner only someone you would hand the team to.
+        </p>
+      )}
       <Button type="submit" disabled={invite.isPending}>
         {invite.isPending ? "Sending…" : "Send invitation"}
       </Button>

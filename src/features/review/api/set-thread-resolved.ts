@@ -1,0 +1,15 @@
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+
+export function setThreadResolved({ networkId, k, commentId, resolved }: { networkId: string; k: number; commentId: string; resolved: boolean }) {
+  return api<unknown>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/comments/${encodeURIComponent(commentId)}/${resolved ? "resolve" : "reopen"}`, { method: "POST" });
+}
+
+export function useSetThreadResolved() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: setThreadResolved,
+    // The thread and the revision's count of open notes.
+    onSuccess: (_data, { networkId, k }) => queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k] }),
+  });
+}

@@ -1,0 +1,12 @@
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+import { refreshAfterVerdict } from "./give-verdict";
+
+export function withdrawVerdict({ networkId, k, verdictId }: { networkId: string; k: number; verdictId: string }) {
+  return api<unknown>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/verdicts/${encodeURIComponent(verdictId)}/withdraw`, { method: "POST" });
+}
+
+export function useWithdrawVerdict() {
+  const queryClient = useQueryClient();
+  return useMutation({ mutationFn: withdrawVerdict, onSuccess: (_data, { networkId, k }) => refreshAfterVerdict(queryClient, networkId, k) });
+}

@@ -1,0 +1,44 @@
+// A revision's stored size has a bound in bytes: past it, the largest optional parts are left out
+// with a statement saying so; the share page's preview text stays a line or two.
+import { randomBytes } from "node:crypto";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { ApiClient } from "../support/api.js";
+import { signedInPerson, type Person } from "../support/fixtures.js";
+import { resistorChain } from "../support/networks.js";
+import { clientShellDir, startTestServer, type TestServer } from "../support/server.js";
+
+describe("revision size bound and share previews", () => {
+  let server: TestServer;
+  let editor: Person;
+  let teamId: string;
+  const run = randomBytes(3).toString("hex");
+  beforeAll(async () => {
+    server = await startTestServer({ clientDir: clientShellDir(), solve: { maxRevisionBytes: 60_000 } });
+    editor = await signedInPerson(server, "sizer");
+    teamId = (await editor.client.post("/api/teams", { name: "Size bench" })).body.id;
+  });
+  afterAll(async () => {
+    await server.close();
+  });
+
+  it("leaves out the largest optional parts past REVISION_MAX_BYTES, and says so", async () => {
+    // Sixteen links with two symbols each: the sensitivities to 33 symbols dwarf the equivalents.
+    const circuit = resistorChain(16, (i) => `Ra${run}${i} + Rb${run}${i}`);
+    const networkId = (await editor.client.post(`/api/teams/${teamId}/networks`, { title: "Wide chain", circuit })).body.id;
+    const solved = await editor.client.post(`/api/networks/${networkId}/solve`);
+    expect(solved.status, JSON.stringify(solved.body).slice(0, 300)).toBe(201);
+    const { results, steps, circuit: stored, diagnostics } = solved.body;
+    expect(Buffer.byteLength(JSON.stringify({ results, steps, stored, diagnostics }))).toBeLessThanOrEqual(60_000 + 2_000);
+    expect(results.omitted.length).toBeGreaterThan(0);
+    expect(results.omitted[0]).toMatchObject({ bytes: expect.any(Number), reason: expect.stringContaining("REVISION_MAX_BYTES") });
+    for (const kept of ["vth", "rth", "isc"]) expect(results[kept]).toBeTruthy();
+
+    // The share page's description is a preview, not the result.
+    const share = await editor.client.post(`/api/networks/${networkId}/revisions/1/share`, {});
+    const page = await new ApiClient(server.url).get(`/s/${share.body.token}`);
+    expect(page.status).toBe(200);
+    const description = /<meta name="description" content="([^"]*)"/.exec(page.body as string)![1];
+    expect(description.length).toBeLessThanOrEqual(300 + 50);
+    expect((page.body as string).length).toBeLessThan(20_000);
+  });
+});
