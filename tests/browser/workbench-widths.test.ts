@@ -84,7 +84,7 @@ describe("the workbench at every width", () => {
     const steps = solved.body.steps as { id: string }[];
     notedStep = steps[2].id;
     expect((await api.post(`/api/networks/${networkId}/revisions/1/comments`, { stepId: steps[2].id, body: "Does the third shunt arm include the gauge's lead resistance?" })).status).toBe(201);
-    expect((await api.put(`/api/networks/${networkId}/revisions/1/verdict`, { verdict: "needs_changes" })).status).toBe(200);
+    expect((await api.put(`/api/networks/${networkId}/revisions/1/verdict`, { verdict: "needs_changes", note: "Name the lead resistance in the third shunt arm." })).status).toBe(200);
     const share = await api.post(`/api/networks/${networkId}/revisions/1/share`, {});
     expect(share.status).toBe(201);
     shareUrl = new URL(share.body.url).pathname;
