@@ -68,10 +68,18 @@ export function createQueuedMailer(boss: PgBoss, settings: MailQueueSettings, lo
 }
 
 // The worker hands each job to the SMTP mailer; a failed delivery throws, so pg-boss retries it.
-export async function startMailWorker(boss: PgBoss, settings: MailQueueSettings, smtp: Mailer, options: { pollingIntervalSeconds?: number } = {}): Promise<string> {
-  return boss.work<OutgoingMail>(settings.queue, { pollingIntervalSeconds: options.pollingIntervalSeconds ?? 2, batchSize: 1 }, async ([job]) => {
-    if (!(await smtp.send(job.data))) throw new Error(`SMTP delivery of "${job.data.subject}" failed`);
-  });
+// A few subscriptions deliver side by side, so one slow SMTP exchange does not hold up the rest.
+export async function startMailWorker(
+  boss: PgBoss,
+  settings: MailQueueSettings,
+  smtp: Mailer,
+  options: { pollingIntervalSeconds?: number; concurrency?: number } = {},
+): Promise<void> {
+  for (let i = 0; i < (options.concurrency ?? 3); i++) {
+    await boss.work<OutgoingMail>(settings.queue, { pollingIntervalSeconds: options.pollingIntervalSeconds ?? 2, batchSize: 1 }, async ([job]) => {
+      if (!(await smtp.send(job.data))) throw new Error(`SMTP delivery of "${job.data.subject}" failed`);
+    });
+  }
 }
 
 export interface QueuedMail {

@@ -129,9 +129,11 @@ describe("a mail whose SMTP target refuses every delivery", () => {
 });
 
 describe("the same mail enqueued twice with one key", () => {
+  const queue = "mail-one-key-test";
   let server: TestServer;
   beforeAll(async () => {
-    server = await startTestServer();
+    await emptyQueues(queue, `${queue}-dead`);
+    server = await startTestServer({ mailQueue: { queue } });
   });
   afterAll(async () => {
     await server.close();
@@ -145,8 +147,8 @@ describe("the same mail enqueued twice with one key", () => {
     expect(await server.mailer.send({ ...mail, key: "sensor-front-end-r3-notice-again" })).toBe(true);
     await waitForMail(server.db, to, { timeoutMs: 15_000 });
     // Wait until nothing for this address is left in the queue, then count what arrived.
-    await until(async () => (await jobsTo(server, "mail", to)).every((row) => row.state === "completed"));
-    expect((await jobsTo(server, "mail", to)).length).toBe(2);
+    await until(async () => (await jobsTo(server, queue, to)).every((row) => row.state === "completed"));
+    expect((await jobsTo(server, queue, to)).length).toBe(2);
     await until(async () => (await mailCount(server.db, to)) === 2);
     expect(await mailCount(server.db, to)).toBe(2);
   });
