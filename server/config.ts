@@ -1,5 +1,6 @@
 // Every setting the server reads, with its default, in one place (documented in README.md).
 import { availableParallelism, hostname } from "node:os";
+import type { MailQueueSettings } from "./mail/queue.js";
 import { DEFAULT_EXPRESSION_BOUNDS, type ExpressionBounds } from "../shared/engine/algebra/expression-bounds.js";
 
 const env = process.env;
@@ -51,6 +52,10 @@ export const config = {
     smtpPassword: env.SMTP_PASSWORD ?? "",
     from: env.MAIL_FROM ?? "Portfold <no-reply@portfold.local>",
     capturePort: numberFrom("MAIL_CAPTURE_PORT", 2525),
+    // Each server process delivers queued mail unless MAIL_WORKER=false (then run `npm run mail:worker`).
+    worker: env.MAIL_WORKER !== "false",
+    retryLimit: numberFrom("MAIL_RETRY_LIMIT", 5),
+    retryDelaySeconds: numberFrom("MAIL_RETRY_DELAY_SECONDS", 30),
   },
   limits: {
     loginFailuresPer15Min: numberFrom("RATE_LIMIT_LOGIN", 10),
@@ -104,6 +109,7 @@ export interface AppSettings {
   jsonBodyBytes: number;
   solve: SolveSettings;
   expressions: ExpressionBounds;
+  mailQueue: MailQueueSettings;
 }
 
 export function defaultSettings(): AppSettings {
@@ -118,5 +124,6 @@ export function defaultSettings(): AppSettings {
     jsonBodyBytes: config.jsonBodyBytes,
     solve: { ...config.solve },
     expressions: { ...config.expressions },
+    mailQueue: { queue: "mail", retryLimit: config.mail.retryLimit, retryDelaySeconds: config.mail.retryDelaySeconds, retryBackoff: true },
   };
 }

@@ -238,6 +238,7 @@ const cases: Case[] = [
   // ---- development and health ----
   { method: "GET", route: "/api/dev/mail", expect: everyone(200), path: () => "/api/dev/mail?limit=1" },
   { method: "GET", route: "/dev/mailbox", expect: everyone(200), path: () => "/dev/mailbox?limit=1" },
+  { method: "GET", route: "/api/dev/mail-queue", expect: everyone(200), path: () => "/api/dev/mail-queue" },
   { method: "GET", route: "/dev/mailbox.css", expect: everyone(200), path: () => "/dev/mailbox.css" },
   { method: "GET", route: "/api/health", expect: everyone(200), path: () => "/api/health" },
 ];

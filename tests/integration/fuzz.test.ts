@@ -227,6 +227,7 @@ const routesFor = (world: World): Route[] => [
   { method: "DELETE", path: "/api/networks/:networkId/value-sets/:setId", destructive: true },
   { method: "GET", path: "/api/dev/mail?limit=:page", anonymous: true },
   { method: "GET", path: "/dev/mailbox?limit=:page", anonymous: true },
+  { method: "GET", path: "/api/dev/mail-queue", anonymous: true },
   { method: "GET", path: "/dev/mailbox.css", anonymous: true },
   { method: "GET", path: "/s/:token", anonymous: true },
   { method: "GET", path: "/api/health", anonymous: true },
