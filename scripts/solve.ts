@@ -128,7 +128,7 @@ function run(argv: string[]): void {
 // `npm run solve` starts from a startup snapshot of this file (scripts/build-solve.mjs): the engine is
 // loaded and warmed once at build time, and a run from the snapshot gets its arguments after node alone.
 if (startupSnapshot.isBuildingSnapshot()) {
-  solveNetwork("port out 0\nSensor vsource emf 0 = Vs\nWinding resistor emf out = Rs\n");
+  solveNetwork("port out 0\nSensor voltage emf 0 = Vs\nWinding resistor emf out = Rs\n");
   startupSnapshot.setDeserializeMainFunction(() => run(process.argv.slice(1)));
 } else {
   run(process.argv.slice(2));
