@@ -1,6 +1,5 @@
 import { Link } from "react-router-dom";
-import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultsInS } from "@/features/analysis/lib/quantities";
-import type { CheckMark, ResultName, Results } from "@/types/api";
+import type { CheckMark, Results } from "@/types/api";
 
 /** The page that explains every check and every outside reference. */
 export const HOW_CHECKED_PATH = "/how-results-are-checked";
@@ -76,18 +75,13 @@ export function CheckBadge({ results }: { results: Results }) {
 }
 
 export function DimensionCheck({ results }: { results: Results }) {
-  // Only results the port has: no "Isc in A" for a port without a Norton form.
-  const entries = (Object.entries(results.dimensionChecks) as [ResultName, Results["dimensionChecks"][ResultName]][]).filter(([name]) => results[name] !== null);
+  const entries = Object.entries(results.dimensionChecks);
   if (entries.length === 0) return null;
   const allOk = entries.every(([, c]) => c?.status === "ok");
-  const inS = resultsInS(results);
-  const summary = RESULT_NAMES.filter((name) => entries.some(([n]) => n === name))
-    .map((name) => `${resultLabel(name, inS)} in ${RESULT_UNIT[name]}`)
-    .join(", ");
   return (
-    <div className="text-xs" data-dimension-check="">
+    <div className="text-xs">
       <p className={allOk ? "text-verdigris" : "text-copper"}>
-        {allOk ? `✓ Dimension check: ${summary}.` : "Dimension check:"}
+        {allOk ? "✓ Dimension check: Vth in V, Rth in Ω, Isc in A." : "Dimension check:"}
       </p>
       {!allOk && (
         <ul className="mt-0.5 list-disc pl-4 text-ink/80">

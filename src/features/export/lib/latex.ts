@@ -1,5 +1,4 @@
-import type { Revision, ValueSet } from "@/types/api";
-import { valueSetsLatex } from "@/features/value-sets/lib/export";
+import type { Revision } from "@/types/api";
 
 // Plain text into LaTeX text mode: every special character escaped, so titles cannot inject commands.
 export function latexText(text: string): string {
@@ -9,7 +8,7 @@ export function latexText(text: string): string {
 }
 
 /** The whole ledger as a stand-alone LaTeX document (amsmath), one subsection per step. */
-export function ledgerLatex(revision: Revision, valueSets: ValueSet[] = []): string {
+export function ledgerLatex(revision: Revision): string {
   const lines = [
     "\\documentclass[11pt]{article}",
     "\\usepackage{amsmath,amssymb}",
@@ -31,7 +30,6 @@ export function ledgerLatex(revision: Revision, valueSets: ValueSet[] = []): str
   if (vth) lines.push(`\\[ V_{\\mathrm{th}} = ${vth.compactTex} \\]`);
   if (rth) lines.push(`\\[ R_{\\mathrm{th}} = ${rth.compactTex} \\]`);
   if (isc) lines.push(`\\[ I_{\\mathrm{sc}} = ${isc.compactTex} \\]`);
-  lines.push("", ...valueSetsLatex(valueSets));
   lines.push("\\end{document}", "");
   return lines.join("\n");
 }

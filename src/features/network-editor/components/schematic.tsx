@@ -53,7 +53,7 @@ export function hasPolarity(e: Element) {
   return e.kind === "voltage";
 }
 
-function Part({ part, faulty = false }: { part: PlacedPart; faulty?: boolean }) {
+function Part({ part }: { part: PlacedPart }) {
   const { element: e, x1, y1, x2, y2, reversed } = part;
   const vertical = x1 === x2;
   const cx = (x1 + x2) / 2;
@@ -66,7 +66,7 @@ function Part({ part, faulty = false }: { part: PlacedPart; faulty?: boolean }) 
   const minusAt = at((reversed ? -1 : 1) * 6);
   const value = e.kind === "opamp" ? "" : e.value;
   return (
-    <g className={faulty ? "text-signal" : undefined} data-fault={faulty ? e.name : undefined}>
+    <g>
       <title>{`${e.name}: ${e.kind}${value ? `, ${value}` : ""}`}</title>
       {vertical ? (
         <path d={`M${x1} ${y1}V${y1 + lead}M${x2} ${y2}V${y2 - lead}`} />
@@ -99,11 +99,11 @@ function Part({ part, faulty = false }: { part: PlacedPart; faulty?: boolean }) 
   );
 }
 
-function Opamp({ opamp, faulty = false }: { opamp: PlacedOpamp; faulty?: boolean }) {
+function Opamp({ opamp }: { opamp: PlacedOpamp }) {
   const { x, y, element } = opamp;
   const base = y + 40;
   return (
-    <g className={faulty ? "text-signal" : undefined} data-fault={faulty ? element.name : undefined}>
+    <g>
       <title>{`${element.name}: ideal op-amp, + ${element.inputs[0]}, − ${element.inputs[1]}, output ${element.output}`}</title>
       <path d={`M${x} ${y}L${x + 22} ${base}H${x - 22}Z`} fill="#FAF8F3" />
       <path d={`M${x - 10} ${base}V${base + 12}M${x + 10} ${base}V${base + 12}`} />
@@ -119,8 +119,7 @@ function Opamp({ opamp, faulty = false }: { opamp: PlacedOpamp; faulty?: boolean
 }
 
 // The automatically drawn preview of what was entered: standard symbols on a faint dotted grid.
-/** `faults`: names of elements a diagnostic points at, drawn in signal red. */
-export function Schematic({ network, title = "Schematic preview", faults }: { network: EngineNetwork; title?: string; faults?: ReadonlySet<string> }) {
+export function Schematic({ network, title = "Schematic preview" }: { network: EngineNetwork; title?: string }) {
   const gridId = useId().replace(/:/g, "");
   if (network.elements.length === 0) return <p className="text-sm text-ink/60">Nothing to draw yet.</p>;
   const layout = layoutSchematic(network);
@@ -153,10 +152,10 @@ export function Schematic({ network, title = "Schematic preview", faults }: { ne
           />
         )}
         {layout.parts.map((part, i) => (
-          <Part key={i} part={part} faulty={faults?.has(part.element.name)} />
+          <Part key={i} part={part} />
         ))}
         {layout.opamps.map((opamp, i) => (
-          <Opamp key={i} opamp={opamp} faulty={faults?.has(opamp.element.name)} />
+          <Opamp key={i} opamp={opamp} />
         ))}
       </g>
       <g fill="currentColor">

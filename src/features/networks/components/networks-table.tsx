@@ -114,7 +114,6 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
           </EmptyState>
         ) : (
           <>
-            <div className="overflow-x-auto">
             <table className="w-full border-collapse text-sm">
               <caption className="sr-only">Networks of the team, sorted by {sort}</caption>
               <thead>
@@ -155,7 +154,6 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
                 ))}
               </tbody>
             </table>
-            </div>
             <Pager page={data.page} pageSize={data.pageSize} total={data.total} onPage={setPage} />
           </>
         )}
