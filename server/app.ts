@@ -3,6 +3,7 @@ import { existsSync } from "node:fs";
 import { join, resolve } from "node:path";
 import type pg from "pg";
 import type { Logger } from "pino";
+import { apiTokenAuth, unlessToken } from "./auth/api-tokens.js";
 import { createLucia } from "./auth/lucia.js";
 import { createRateLimits } from "./auth/rate-limits.js";
 import { checkOrigin, loadSession } from "./auth/session.js";
@@ -13,6 +14,7 @@ import { errorHandler, notFoundApi } from "./lib/errors.js";
 import { createLogger, requestLogger } from "./lib/logging.js";
 import { securityHeaders } from "./lib/security.js";
 import { createSmtpMailer, smtpTarget, type Mailer } from "./mail/mailer.js";
+import { apiTokensRouter } from "./routes/api-tokens.js";
 import { attachmentsRouter } from "./routes/attachments.js";
 import { authRouter } from "./routes/auth.js";
 import { cellsRouter } from "./routes/cells.js";
@@ -62,10 +64,12 @@ export function createApp(context: AppContext): Express {
   app.use(express.json({ limit: settings.jsonBodyBytes, reviver: refuseNul }));
 
   app.use("/api/health", healthRouter(context.pool));
-  app.use("/api", checkOrigin(settings.publicUrl), loadSession(services.auth));
+  // A bearer token (scripts) or the session cookie (the browser, with its origin check): never both.
+  app.use("/api", apiTokenAuth(services), unlessToken(checkOrigin(settings.publicUrl)), unlessToken(loadSession(services.auth)));
   app.use(
     "/api",
     authRouter(services, createRateLimits(settings.limits)),
+    apiTokensRouter(services),
     teamsRouter(services),
     cellsRouter(services),
     networksRouter(services),

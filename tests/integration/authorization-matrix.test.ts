@@ -1,6 +1,5 @@
 // Every route × {anonymous, non-member, viewer, reviewer, editor, owner}, with the exact status, against the real database.
 import { randomUUID } from "node:crypto";
-import type { Express } from "express";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createApp } from "../../server/app.js";
 import { createLucia, sessionCookieName } from "../../server/auth/lucia.js";
@@ -8,6 +7,7 @@ import { comments, teamMembers, teams } from "../../server/db/schema.js";
 import { ApiClient } from "../support/api.js";
 import { actors, followerCircuit, signedInPerson, teamWithEveryRole, uniqueEmail, type Actor, type Person, type TeamFixture } from "../support/fixtures.js";
 import { linkIn, waitForMail } from "../support/mail.js";
+import { mountedRoutes } from "../support/routes.js";
 import { clientShellDir, startTestServer, type TestServer } from "../support/server.js";
 
 type Statuses = Record<Actor, number>;
@@ -110,6 +110,19 @@ const cases: Case[] = [
   { method: "POST", route: "/api/auth/password-reset", expect: everyone(202), path: () => "/api/auth/password-reset", body: () => ({ email: uniqueEmail("nobody") }) },
   { method: "POST", route: "/api/auth/password-reset/confirm", expect: everyone(400), path: () => "/api/auth/password-reset/confirm", body: () => ({ token: "A".repeat(43), password: "whatever secret" }) },
   { method: "GET", route: "/api/me", expect: signedIn(200), path: () => "/api/me" },
+  // ---- API tokens (a browser session's; tokens themselves are held to their own table in api-tokens.test.ts) ----
+  { method: "GET", route: "/api/account/tokens", expect: signedIn(200), path: () => "/api/account/tokens" },
+  { method: "POST", route: "/api/account/tokens", expect: signedIn(201), path: () => "/api/account/tokens", body: () => ({ name: "Matrix script", scope: "read", teamId: null, expiresInDays: 30 }) },
+  {
+    method: "DELETE",
+    route: "/api/account/tokens/:tokenId",
+    expect: signedIn(204),
+    // Each person revokes a token of their own; the anonymous request names the owner's.
+    prepare: async (w, actor) => ({ id: (await w.team.clients[actor === "anonymous" ? "owner" : actor].post("/api/account/tokens", { name: "Doomed", scope: "read", teamId: null, expiresInDays: 1 })).body.token.id }),
+    path: (_w, p) => `/api/account/tokens/${p.id}`,
+  },
+  // Only a request with a token has a current token.
+  { method: "GET", route: "/api/account/tokens/current", expect: statuses(401, 400, 400, 400, 400, 400), path: () => "/api/account/tokens/current" },
   // ---- teams ----
   { method: "POST", route: "/api/teams", expect: signedIn(201), path: () => "/api/teams", body: () => ({ name: "Matrix team" }) },
   { method: "GET", route: "/api/teams/:teamId", expect: members(200), path: (w) => `/api/teams/${w.team.teamId}` },
@@ -188,27 +201,6 @@ const cases: Case[] = [
   { method: "GET", route: "/dev/mailbox.css", expect: everyone(200), path: () => "/dev/mailbox.css" },
   { method: "GET", route: "/api/health", expect: everyone(200), path: () => "/api/health" },
 ];
-
-interface RouterLayer {
-  rawPath?: unknown;
-  route?: { path: unknown; methods: Record<string, boolean> };
-  handle?: { stack?: RouterLayer[] };
-}
-
-// Reads the routes off Express's own router, so a route added without a matrix row fails the test.
-function mountedRoutes(app: Express): string[] {
-  const walk = (stack: RouterLayer[], prefix: string): string[] =>
-    stack.flatMap((layer) => {
-      // The client's catch-all shell (a regular expression) is not a route of the API.
-      if (layer.route && typeof layer.route.path === "string") {
-        const path = `${prefix}${layer.route.path}`.replace(/(.)\/$/, "$1");
-        return Object.keys(layer.route.methods).filter((m) => m !== "_all").map((m) => `${m.toUpperCase()} ${path}`);
-      }
-      if (layer.handle?.stack && typeof layer.rawPath === "string") return walk(layer.handle.stack, layer.rawPath === "/" ? prefix : `${prefix}${layer.rawPath}`);
-      return [];
-    });
-  return walk((app as unknown as { router: { stack: RouterLayer[] } }).router.stack, "");
-}
 
 describe("authorization matrix", () => {
   const world = {} as World;
