@@ -32,9 +32,9 @@ function AccountNav() {
           {team.name}
         </NavLink>
       ))}
-      <span className="text-ink/60" title={me.data.user.email}>
+      <NavLink to="/account" title={me.data.user.email} className={({ isActive }) => (isActive ? "text-copper" : "text-ink/60 hover:text-copper")}>
         {me.data.user.name}
-      </span>
+      </NavLink>
       <button
         type="button"
         className="hover:text-copper"
