@@ -21,6 +21,7 @@ import { cellsRouter } from "./routes/cells.js";
 import { devMailRouter } from "./routes/dev-mail.js";
 import { healthRouter } from "./routes/health.js";
 import { networksRouter } from "./routes/networks.js";
+import { openApiRouter } from "./routes/openapi.js";
 import { reviewsRouter } from "./routes/reviews.js";
 import { revisionsRouter } from "./routes/revisions.js";
 import { sharePageRouter } from "./routes/share-page.js";
@@ -64,6 +65,7 @@ export function createApp(context: AppContext): Express {
   app.use(express.json({ limit: settings.jsonBodyBytes, reviver: refuseNul }));
 
   app.use("/api/health", healthRouter(context.pool));
+  app.use("/api/openapi.json", openApiRouter());
   // A bearer token (scripts) or the session cookie (the browser, with its origin check): never both.
   app.use("/api", apiTokenAuth(services), unlessToken(checkOrigin(settings.publicUrl)), unlessToken(loadSession(services.auth)));
   app.use(

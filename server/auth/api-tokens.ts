@@ -1,6 +1,7 @@
 // Bearer tokens for scripts: who is calling, and which routes a token of that scope and team may reach.
 import type { RequestHandler } from "express";
 import { verifyRequestOrigin } from "lucia";
+import { endpoints } from "../../shared/api/routes.js";
 import type { TokenScope } from "../../shared/api/tokens.js";
 import { authenticateApiToken, teamOfNetwork, type TokenCaller } from "../domain/api-tokens.js";
 import type { Services } from "../domain/services.js";
@@ -16,32 +17,29 @@ declare global {
   }
 }
 
-const uuid = "[0-9a-fA-F]{8}-[0-9a-fA-F]{4}-[0-9a-fA-F]{4}-[0-9a-fA-F]{4}-[0-9a-fA-F]{12}";
-
 type TeamFrom = "team" | "network" | "slug" | null;
 
-// Every route a token reaches; anything else (token management, accounts, teams, reviews, shares) needs a browser session.
-export const tokenRoutes: { method: string; path: RegExp; scope: TokenScope; team: TeamFrom; route: string }[] = [
-  { method: "GET", path: /^\/account\/tokens\/current$/, scope: "read", team: null, route: "/account/tokens/current" },
-  { method: "GET", path: new RegExp(`^/teams/(${uuid})$`), scope: "read", team: "team", route: "/teams/:teamId" },
-  { method: "GET", path: new RegExp(`^/teams/(${uuid})/members$`), scope: "read", team: "team", route: "/teams/:teamId/members" },
-  { method: "GET", path: new RegExp(`^/teams/(${uuid})/networks$`), scope: "read", team: "team", route: "/teams/:teamId/networks" },
-  { method: "GET", path: new RegExp(`^/teams/(${uuid})/cells$`), scope: "read", team: "team", route: "/teams/:teamId/cells" },
-  { method: "GET", path: /^\/networks\/by-slug\/([a-z0-9-]{1,80})$/, scope: "read", team: "slug", route: "/networks/by-slug/:slug" },
-  { method: "GET", path: new RegExp(`^/networks/(${uuid})$`), scope: "read", team: "network", route: "/networks/:networkId" },
-  { method: "GET", path: new RegExp(`^/networks/(${uuid})/revisions$`), scope: "read", team: "network", route: "/networks/:networkId/revisions" },
-  { method: "GET", path: new RegExp(`^/networks/(${uuid})/revisions/[^/]+$`), scope: "read", team: "network", route: "/networks/:networkId/revisions/:number" },
-  { method: "GET", path: new RegExp(`^/networks/(${uuid})/revisions/[^/]+/compare/[^/]+$`), scope: "read", team: "network", route: "/networks/:networkId/revisions/:from/compare/:to" },
-  { method: "GET", path: new RegExp(`^/networks/(${uuid})/solve-jobs/[^/]+$`), scope: "read", team: "network", route: "/networks/:networkId/solve-jobs/:jobId" },
-  { method: "POST", path: new RegExp(`^/teams/(${uuid})/networks$`), scope: "solve", team: "team", route: "/teams/:teamId/networks" },
-  { method: "POST", path: new RegExp(`^/teams/(${uuid})/networks/import$`), scope: "solve", team: "team", route: "/teams/:teamId/networks/import" },
-  { method: "PATCH", path: new RegExp(`^/networks/(${uuid})$`), scope: "solve", team: "network", route: "/networks/:networkId" },
-  { method: "POST", path: new RegExp(`^/networks/(${uuid})/solve$`), scope: "solve", team: "network", route: "/networks/:networkId/solve" },
-];
+// Every route a token reaches, from the contract's table; anything else (token management, accounts,
+// teams, reviews, shares) needs a browser session.
+export const tokenRoutes = endpoints
+  .filter((endpoint) => endpoint.token !== undefined)
+  .map((endpoint) => {
+    const route = endpoint.path.replace(/^\/api/, "");
+    const first = /:([a-zA-Z]+)/.exec(route)?.[1];
+    const team: TeamFrom = first === "teamId" ? "team" : first === "networkId" ? "network" : first === "slug" ? "slug" : null;
+    // The first parameter is captured (it names the team or network); the rest only have to be one path segment.
+    let captured = false;
+    const pattern = route.replace(/:[a-zA-Z]+/g, () => (captured ? "[^/]+" : ((captured = true), "([^/]+)")));
+    return { method: endpoint.method, path: new RegExp(`^${pattern}$`), scope: endpoint.token!, team, route };
+  });
 
 const scopeCovers = (granted: TokenScope, needed: TokenScope) => granted === "solve" || needed === "read";
 
+const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
 async function teamOfRequest(services: Services, from: TeamFrom, key: string): Promise<string | null> {
+  // An id that cannot exist is left to the route, which answers 404.
+  if ((from === "team" || from === "network") && !uuidPattern.test(key)) return null;
   if (from === "team") return key.toLowerCase();
   if (from === "network") return teamOfNetwork(services.db, { id: key.toLowerCase() });
   if (from === "slug") return teamOfNetwork(services.db, { slug: key });

@@ -1,4 +1,5 @@
 // Networks: a team's circuits with their port and declared quantities.
+import type { networkSorts } from "../../shared/api/networks.js";
 import { randomBytes } from "node:crypto";
 import { and, asc, count, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import type { Database } from "../db/client.js";
@@ -72,8 +73,6 @@ async function loadView(db: Database, row: NetworkRow, role: Role): Promise<Netw
     .where(eq(networks.id, row.id));
   return view(row, role, row.authorId && extra?.authorName ? { id: row.authorId, name: extra.authorName } : null, extra?.latest ?? null);
 }
-
-export const networkSorts = ["title", "author", "lastRevision", "verdict", "updatedAt", "createdAt"] as const;
 
 export interface NetworkListQuery {
   q?: string;

@@ -40,8 +40,4 @@ export function tokenParam(value: unknown, what = "That link"): string {
   return value;
 }
 
-// Text that reaches PostgreSQL from a query string or form field: no U+0000, which it cannot store.
-export const plainText = (max: number) => z.string().trim().max(max).refine((text) => !text.includes("\u0000"), { error: "Contains a NUL character." });
-
-export const emailField = z.string().trim().toLowerCase().pipe(z.email({ error: "Enter a valid e-mail address." })).pipe(z.string().max(254));
-export const tokenField = z.string().regex(/^[A-Za-z0-9_-]{43}$/, { error: "This link is malformed." });
+export { emailField, plainText, tokenField } from "../../shared/api/common.js";

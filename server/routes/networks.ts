@@ -1,5 +1,5 @@
 import { Router } from "express";
-import { z } from "zod";
+import { createNetworkRequest as createBody, duplicateNetworkRequest as duplicateBody, networkListQuery as listQuery, patchNetworkRequest as patchBody } from "../../shared/api/networks.js";
 import { signedInUser } from "../auth/session.js";
 import { requireTeamRole } from "../domain/access.js";
 import { readCircuit } from "../domain/engine.js";
@@ -11,31 +11,12 @@ import {
   importNetwork,
   listNetworks,
   networkIdForSlug,
-  networkSorts,
   updateNetwork,
 } from "../domain/networks.js";
 import type { Services } from "../domain/services.js";
 import { notFound } from "../lib/errors.js";
 import { readUpload } from "../lib/uploads.js";
 import { idParam, parseBody, parseQuery, plainText } from "../lib/validate.js";
-
-const title = z.string().trim().min(1, { error: "Give the network a title." }).max(200);
-const description = z.string().max(5_000);
-// The circuit's shape is the engine's to judge (readCircuit); here it only has to be an object.
-const circuit = z.record(z.string(), z.unknown(), { error: "The circuit is a JSON object in Portfold's network format." });
-
-const createBody = z.object({ title, description: description.optional(), circuit });
-const patchBody = z
-  .object({ title: title.optional(), description: description.optional(), circuit: circuit.optional(), expectedUpdatedAt: z.iso.datetime({ offset: true }).optional() })
-  .refine((body) => body.title !== undefined || body.description !== undefined || body.circuit !== undefined, { error: "Change at least one of title, description, circuit." });
-const duplicateBody = z.object({ title: title.optional() });
-const listQuery = z.object({
-  q: plainText(200).optional(),
-  sort: z.enum(networkSorts).default("updatedAt"),
-  order: z.enum(["asc", "desc"]).optional(),
-  page: z.coerce.number().int().min(1).max(1_000_000).default(1),
-  pageSize: z.coerce.number().int().min(1).max(100).default(20),
-});
 
 export function networksRouter(services: Services): Router {
   const router = Router();

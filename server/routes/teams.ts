@@ -1,7 +1,6 @@
 import { Router } from "express";
-import { z } from "zod";
+import { invitationRequest as invitationBody, roleRequest as roleBody, teamRequest as teamBody } from "../../shared/api/teams.js";
 import { signedInUser } from "../auth/session.js";
-import { roles } from "../db/schema.js";
 import type { Services } from "../domain/services.js";
 import {
   acceptInvitation,
@@ -17,12 +16,7 @@ import {
   teamDetail,
 } from "../domain/teams.js";
 import { notFound } from "../lib/errors.js";
-import { emailField, idParam, parseBody, tokenParam } from "../lib/validate.js";
-
-const teamName = z.string().trim().min(1, { error: "Give the team a name." }).max(100);
-const teamBody = z.object({ name: teamName });
-const roleBody = z.object({ role: z.enum(roles) });
-const invitationBody = z.object({ email: emailField, role: z.enum(roles) });
+import { idParam, parseBody, tokenParam } from "../lib/validate.js";
 
 // A member id is a user id: lucia's base32 ids or the seed's readable ones.
 function userIdParam(value: unknown): string {

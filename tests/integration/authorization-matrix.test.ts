@@ -200,6 +200,7 @@ const cases: Case[] = [
   { method: "GET", route: "/dev/mailbox", expect: everyone(200), path: () => "/dev/mailbox?limit=1" },
   { method: "GET", route: "/dev/mailbox.css", expect: everyone(200), path: () => "/dev/mailbox.css" },
   { method: "GET", route: "/api/health", expect: everyone(200), path: () => "/api/health" },
+  { method: "GET", route: "/api/openapi.json", expect: everyone(200), path: () => "/api/openapi.json" },
 ];
 
 describe("authorization matrix", () => {
