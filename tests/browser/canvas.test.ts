@@ -96,12 +96,12 @@ describe("schematic canvas in chromium", () => {
     // The amplifier, standing at x = 10: a voltage source whose value names its control.
     await palette.getByRole("button", { name: "voltage by across", exact: true }).click();
     await click(page, 10, 0);
-    await setPart(page, "voltage2", { Name: "Amp" });
+    await setPart(page, "voltage1", { Name: "Amp" });
     await setPart(page, "Amp", { Value: "mu * across(in, out)" });
     // The output resistance, lying from (13, -6) to (19, -6).
     await palette.getByRole("button", { name: "resistor", exact: true }).click();
     await click(page, 16, -6);
-    await setPart(page, "resistor1", { Name: "R0", Value: "R0" });
+    await setPart(page, "resistor1", { Name: "Rout", Value: "R0" });
 
     const tools = page.getByRole("toolbar", { name: "Drawing tools" });
     await tools.getByRole("button", { name: /^Ground/ }).click();
@@ -142,7 +142,7 @@ describe("schematic canvas in chromium", () => {
     expect(text).toMatch(/^Vs voltage in 0 = Vs$/m);
     const amp = /^Amp voltage (\w+) 0 = mu \* across\(in, out\)$/m.exec(text);
     expect(amp).not.toBeNull();
-    expect(text).toMatch(new RegExp(`^R0 resistor ${amp![1]} out = R0$`, "m"));
+    expect(text).toMatch(new RegExp(`^Rout resistor ${amp![1]} out = R0$`, "m"));
   });
 
   it("keeps the help sheet of our own keys", async () => {
@@ -157,7 +157,7 @@ describe("schematic canvas in chromium", () => {
   });
 
   it("turns a part a quarter with Q, and Ctrl+Z puts it back, Ctrl+Shift+Z turns it again", async () => {
-    const body = page.locator('[data-part="R0"] > g[transform]').first();
+    const body = page.locator('[data-part="Rout"] > g[transform]').first();
     const lying = await body.getAttribute("transform");
     expect(lying).toMatch(/rotate\(0\)/);
     await click(page, 16, -6); // selects R0
