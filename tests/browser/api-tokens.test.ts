@@ -26,7 +26,7 @@ describe("API tokens on the account page", () => {
     const problems: string[] = [];
     const page = watchPage(await browser.context.newPage(), problems);
     await signInThroughForm(page, server.url, { email: person.user.email, password: fixturePassword });
-    await page.getByRole("link", { name: person.user.name }).click();
+    await page.getByRole("link", { name: person.user.name, exact: true }).click();
     await page.waitForURL(/\/account$/);
     await page.getByLabel("Name").fill("line-driver CI");
     await page.getByLabel("Scope").selectOption("solve");
