@@ -14,6 +14,7 @@ import { errorHandler, notFoundApi } from "./lib/errors.js";
 import { createLogger, requestLogger } from "./lib/logging.js";
 import { securityHeaders } from "./lib/security.js";
 import { createSmtpMailer, smtpTarget, type Mailer } from "./mail/mailer.js";
+import { valueSetsRouter } from "./routes/value-sets.js";
 import { attachmentsRouter } from "./routes/attachments.js";
 import { authRouter } from "./routes/auth.js";
 import { cellsRouter } from "./routes/cells.js";
@@ -77,6 +78,7 @@ export function createApp(context: AppContext): Express {
     reviewsRouter(services),
     sharesRouter(services),
     attachmentsRouter(services),
+    valueSetsRouter(services),
   );
   app.use(devMailRouter(services));
   app.use("/api", notFoundApi);

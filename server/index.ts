@@ -6,6 +6,7 @@ import { demoReviewer, demoShareToken, demoUser } from "./db/demo-data.js";
 import { users } from "./db/schema.js";
 import { startCaptureServerNear, type CaptureServer } from "./mail/capture-server.js";
 import { createSmtpMailer, smtpTarget } from "./mail/mailer.js";
+import { createQueuedMailer, startMailBoss, startMailWorker, stopMailBoss } from "./mail/queue.js";
 import { createLogger } from "./lib/logging.js";
 import { createSolver } from "./solver/pool.js";
 import { failInterruptedJobs } from "./domain/solve-jobs.js";
@@ -13,7 +14,7 @@ import { failInterruptedJobs } from "./domain/solve-jobs.js";
 const log = createLogger(config.logLevel);
 const pool = createPool(config.databaseUrl, config.dbPoolSize);
 const db = createDatabase(pool);
-const ownUrl = `http://${config.host === "0.0.0.0" ? "localhost" : config.host}:${config.port}`;
+const ownUrl = config.servedUrl;
 
 // Without SMTP_HOST, mail goes over real SMTP to a capture server on loopback that keeps it in PostgreSQL.
 let capture: CaptureServer | null = null;
@@ -27,7 +28,11 @@ if (interrupted > 0) log.warn({ interrupted }, "solve jobs left unfinished by th
 const solver = createSolver(defaultSettings().solve);
 // Threads start now, so the first solve does not wait for the engine to load.
 solver.warm();
-const app = createApp({ pool, db, logger: log, solver, mailer: createSmtpMailer(smtpTarget(capture?.port), config.mail.from, log) });
+// Requests only enqueue mail; this process's worker (unless MAIL_WORKER=false) delivers it over SMTP.
+const mailQueue = defaultSettings().mailQueue;
+const boss = await startMailBoss(config.databaseUrl, mailQueue, log);
+if (config.mail.worker) await startMailWorker(boss, mailQueue, createSmtpMailer(smtpTarget(capture?.port), config.mail.from, log));
+const app = createApp({ pool, db, logger: log, solver, mailer: createQueuedMailer(boss, mailQueue, log) });
 
 const server = app.listen(config.port, config.host, async () => {
   console.log(`[portfold] serving on ${ownUrl}`);
@@ -39,7 +44,7 @@ const server = app.listen(config.port, config.host, async () => {
 });
 
 function shutdown() {
-  server.close(() => void Promise.all([pool.end(), capture?.close(), solver.close()]).then(() => process.exit(0)));
+  server.close(() => void stopMailBoss(boss).then(() => Promise.all([pool.end(), capture?.close(), solver.close()])).then(() => process.exit(0)));
 }
 process.on("SIGINT", shutdown);
 process.on("SIGTERM", shutdown);

@@ -120,6 +120,8 @@ export const networks = pgTable(
     description: text("description").notNull().default(""),
     // The engine's JSON interchange format: port and declared symbol quantities included.
     circuit: jsonb("circuit").notNull(),
+    // The Portfold netlist exactly as typed (comments, blank lines, order); null for networks made from JSON.
+    netlist: text("netlist"),
     authorId: text("author_id").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
@@ -242,6 +244,21 @@ export const shareLinks = pgTable(
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
   },
   (table) => [index("share_links_revision_idx").on(table.revisionId)],
+);
+
+// Named sets of numbers for a network's symbols, as typed in the Values panel (e.g. "nominal", "worst case").
+export const valueSets = pgTable(
+  "value_sets",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    networkId: uuid("network_id").notNull().references(() => networks.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    values: jsonb("values").$type<Record<string, string>>().notNull(),
+    createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [unique("value_sets_network_name_unique").on(table.networkId, table.name)],
 );
 
 // ---- uploads ----

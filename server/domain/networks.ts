@@ -18,6 +18,8 @@ export interface NetworkView {
   title: string;
   description: string;
   circuit: Network;
+  /** The netlist text as typed, or null for a network made from JSON. */
+  netlist: string | null;
   port: Network["port"];
   quantities: Record<string, string>;
   author: { id: string; name: string } | null;
@@ -46,6 +48,7 @@ function view(row: NetworkRow, role: Role, author: { id: string; name: string } 
     title: row.title,
     description: row.description,
     circuit,
+    netlist: row.netlist ?? null,
     port: circuit.port,
     quantities: circuit.quantities ?? {},
     author,
@@ -149,12 +152,12 @@ export async function createNetwork(
   db: Database,
   teamId: string,
   userId: string,
-  input: { title: string; description?: string; circuit: Network },
+  input: { title: string; description?: string; circuit: Network; netlist?: string | null },
 ): Promise<NetworkView> {
   const role = await requireTeamRole(db, teamId, userId, "editor");
   const [row] = await db
     .insert(networks)
-    .values({ teamId, slug: slugFor(input.title), title: input.title, description: input.description ?? "", circuit: input.circuit, authorId: userId })
+    .values({ teamId, slug: slugFor(input.title), title: input.title, description: input.description ?? "", circuit: input.circuit, netlist: input.netlist ?? null, authorId: userId })
     .returning();
   return loadView(db, row, role);
 }
@@ -178,7 +181,7 @@ export async function updateNetwork(
   db: Database,
   networkId: string,
   userId: string,
-  patch: { title?: string; description?: string; circuit?: Network; expectedUpdatedAt?: string },
+  patch: { title?: string; description?: string; circuit?: Network; netlist?: string | null; expectedUpdatedAt?: string },
 ): Promise<NetworkView> {
   const { role } = await requireNetworkRole(db, networkId, userId, "editor");
   const conditions: SQL[] = [eq(networks.id, networkId)];
@@ -190,11 +193,13 @@ export async function updateNetwork(
       ...(patch.title !== undefined ? { title: patch.title } : {}),
       ...(patch.description !== undefined ? { description: patch.description } : {}),
       ...(patch.circuit !== undefined ? { circuit: patch.circuit } : {}),
+      // A circuit sent without its text came from JSON (or the table): the old text no longer describes it.
+      ...(patch.netlist !== undefined ? { netlist: patch.netlist } : patch.circuit !== undefined ? { netlist: null } : {}),
       updatedAt: new Date(),
     })
     .where(and(...conditions))
     .returning();
-  if (!row) throw new HttpError(409, "stale", "The network changed since you loaded it; reload and apply your edit again.");
+  if (!row) throw new HttpError(409, "stale", "The network changed since you loaded it: someone saved it after you opened it. Keep your version, take theirs, or copy yours out first.");
   return loadView(db, row, role);
 }
 
@@ -209,6 +214,7 @@ export async function duplicateNetwork(db: Database, networkId: string, userId: 
     title: title ?? `${network.title} (copy)`,
     description: network.description,
     circuit: network.circuit as Network,
+    netlist: network.netlist,
   });
 }
 
@@ -240,6 +246,6 @@ export async function importNetwork(
   if (text.includes("\u0000")) throw new HttpError(415, "unsupported_type", "The file is not UTF-8 text.", { file: "binary content" });
   const { network, format } = await readNetworkFile(services, text);
   const base = withoutControls(dot > 0 ? filename.slice(0, dot) : filename).slice(0, networkTitleMax).trim();
-  const created = await createNetwork(services.db, teamId, userId, { title: title || base || "Imported network", circuit: network });
+  const created = await createNetwork(services.db, teamId, userId, { title: title || base || "Imported network", circuit: network, netlist: format === "text" ? text : null });
   return { ...created, importedFrom: format };
 }

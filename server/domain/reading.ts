@@ -43,6 +43,22 @@ export async function readCircuit(services: Services, input: Record<string, unkn
   return network;
 }
 
+/**
+ * A circuit and/or its netlist text from a request. Text that is sent must read without errors;
+ * the circuit is taken from the text when only the text is sent. Null text: made from JSON.
+ */
+export async function readCircuitAndText(services: Services, body: { circuit?: Record<string, unknown>; netlist?: string | null }): Promise<{ circuit: Network; netlist: string | null | undefined }> {
+  if (typeof body.netlist === "string") {
+    const read = await readNetwork(services, body.netlist);
+    if (!read.network || read.format !== "text") {
+      throw new HttpError(400, "invalid_netlist", "The netlist text has errors; each one names its line and column.", { netlist: read.diagnostics[0]?.message ?? "not a Portfold netlist" }, read.diagnostics);
+    }
+    return { circuit: body.circuit !== undefined ? await readCircuit(services, body.circuit) : read.network, netlist: body.netlist };
+  }
+  if (body.circuit === undefined) throw new HttpError(400, "invalid_circuit", "Send the circuit with its text set to null.", { circuit: "missing" });
+  return { circuit: await readCircuit(services, body.circuit), netlist: body.netlist };
+}
+
 // An uploaded file: our JSON or our text netlist (the engine tells them apart); errors carry line and column.
 export async function readNetworkFile(services: Services, text: string): Promise<{ network: Network; format: "json" | "text" }> {
   const { network, diagnostics, format } = await readNetwork(services, text);

@@ -7,6 +7,7 @@ import { hashToken, newToken } from "../lib/tokens.js";
 import { roleAtLeast } from "./access.js";
 import { requireRevision, revisionView } from "./revisions.js";
 import { link, type Services } from "./services.js";
+import { valueSetsOf } from "./value-sets.js";
 
 type ShareRow = typeof shareLinks.$inferSelect;
 
@@ -104,6 +105,8 @@ export async function sharedRevision(db: Database, token: string) {
     readOnly: true as const,
     network: { title: row.network.title, description: row.network.description, slug: row.network.slug },
     revision,
+    // The network's value sets, so the reviewer reads the same numbers the designer chose.
+    valueSets: await valueSetsOf(db, row.network.id),
     expiresAt: row.share.expiresAt?.toISOString() ?? null,
   };
 }

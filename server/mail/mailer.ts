@@ -7,6 +7,8 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html: string;
+  // Two sends with one key are one mail (the queue's idempotency key); without, the content is the key.
+  key?: string;
 }
 
 // A mail that cannot be delivered is logged, never turned into a failed request.
@@ -20,6 +22,8 @@ export interface SmtpTarget {
   secure?: boolean;
   user?: string;
   password?: string;
+  // How long a connection, the greeting and each reply may take; a silent server fails the delivery.
+  timeoutMs?: number;
 }
 
 // Where mail goes: the provider when SMTP_HOST is set, else the local capture server on loopback.
@@ -36,12 +40,15 @@ export function createSmtpMailer(target: SmtpTarget, from: string, log?: Logger)
     port: target.port,
     secure: target.secure ?? false,
     auth: target.user ? { user: target.user, pass: target.password ?? "" } : undefined,
-    connectionTimeout: 10_000,
+    connectionTimeout: target.timeoutMs ?? 10_000,
+    greetingTimeout: target.timeoutMs ?? 10_000,
+    socketTimeout: target.timeoutMs ?? 10_000,
   });
   return {
     async send(mail) {
       try {
-        await transport.sendMail({ from, ...mail });
+        const { key: _key, ...letter } = mail;
+        await transport.sendMail({ from, ...letter });
         return true;
       } catch (error) {
         log?.error({ err: error, subject: mail.subject }, "mail not delivered");

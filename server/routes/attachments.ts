@@ -1,7 +1,7 @@
 import { Router } from "express";
 import { signedInUser } from "../auth/session.js";
 import { requireNetworkRole } from "../domain/access.js";
-import { addAttachment, attachmentContent, deleteAttachment, listAttachments } from "../domain/attachments.js";
+import { addAttachment, attachmentContent, attachmentTypes, deleteAttachment, listAttachments } from "../domain/attachments.js";
 import type { Services } from "../domain/services.js";
 import { readUpload } from "../lib/uploads.js";
 import { idParam } from "../lib/validate.js";
@@ -22,7 +22,9 @@ export function attachmentsRouter(services: Services): Router {
 
   router.get(path, async (req, res) => {
     const user = signedInUser(res);
-    res.json({ attachments: await listAttachments(db, idParam(req.params.networkId, "That network"), user.id) });
+    const list = await listAttachments(db, idParam(req.params.networkId, "That network"), user.id);
+    // The limits travel with the list, so the page states them before anyone tries an upload.
+    res.json({ attachments: list, limits: { maxBytes: services.settings.limits.attachmentBytes, types: attachmentTypes } });
   });
 
   router.get(`${path}/:attachmentId`, async (req, res) => {

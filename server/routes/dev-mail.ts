@@ -5,6 +5,7 @@ import { onLoopback } from "../auth/hosts.js";
 import { capturedMail } from "../domain/mailbox.js";
 import type { Services } from "../domain/services.js";
 import { notFound } from "../lib/errors.js";
+import { mailQueueReport } from "../mail/queue.js";
 import { escapeHtml } from "../lib/html.js";
 import { parseQuery, plainText } from "../lib/validate.js";
 
@@ -46,6 +47,7 @@ function mailboxPage(messages: Awaited<ReturnType<typeof capturedMail>>): string
 <link rel="stylesheet" href="/dev/mailbox.css">
 </head>
 <body>
+<p><a href="/">← Back to Portfold</a></p>
 <h1>Mailbox</h1>
 <p>Every message Portfold sent while running without <code>SMTP_HOST</code>, newest first. This page does not exist in production.</p>
 ${items || "<p>No mail yet.</p>"}
@@ -61,6 +63,11 @@ export function devMailRouter(services: Services): Router {
   router.get("/api/dev/mail", developmentOnly, async (req, res) => {
     const query = parseQuery(mailQuery, req.query);
     res.json({ messages: await capturedMail(services.db, query) });
+  });
+
+  // Queued mail and the dead-letter queue (mail that failed its last retry); production: the SQL in README.md.
+  router.get("/api/dev/mail-queue", developmentOnly, async (_req, res) => {
+    res.set("Cache-Control", "no-store").json(await mailQueueReport(services.db, services.settings.mailQueue));
   });
 
   router.get("/dev/mailbox.css", developmentOnly, (_req, res) => {

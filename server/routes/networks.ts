@@ -14,7 +14,7 @@ import {
   networkTitleMax,
   updateNetwork,
 } from "../domain/networks.js";
-import { readCircuit } from "../domain/reading.js";
+import { readCircuitAndText } from "../domain/reading.js";
 import type { Services } from "../domain/services.js";
 import { notFound } from "../lib/errors.js";
 import { readUpload } from "../lib/uploads.js";
@@ -25,10 +25,16 @@ const description = z.string().max(5_000);
 // The circuit's shape is the engine's to judge (readCircuit); here it only has to be an object.
 const circuit = z.record(z.string(), z.unknown(), { error: "The circuit is a JSON object in Portfold's network format." });
 
-const createBody = z.object({ title, description: description.optional(), circuit });
+// The netlist text as typed, kept beside the circuit it reads as; null for a network made from JSON.
+const netlist = z.string().max(256 * 1024).nullable();
+const createBody = z.object({ title, description: description.optional(), circuit: circuit.optional(), netlist: netlist.optional() }).refine((body) => body.circuit !== undefined || typeof body.netlist === "string", {
+  error: "Send the circuit, its netlist text, or both.",
+});
 const patchBody = z
-  .object({ title: title.optional(), description: description.optional(), circuit: circuit.optional(), expectedUpdatedAt: z.iso.datetime({ offset: true }).optional() })
-  .refine((body) => body.title !== undefined || body.description !== undefined || body.circuit !== undefined, { error: "Change at least one of title, description, circuit." });
+  .object({ title: title.optional(), description: description.optional(), circuit: circuit.optional(), netlist: netlist.optional(), expectedUpdatedAt: z.iso.datetime({ offset: true }).optional() })
+  .refine((body) => body.title !== undefined || body.description !== undefined || body.circuit !== undefined || body.netlist !== undefined, {
+    error: "Change at least one of title, description, circuit, netlist.",
+  });
 const duplicateBody = z.object({ title: title.optional() });
 const importFields = z.object({ title: title.optional() });
 const listQuery = z.object({
@@ -54,7 +60,7 @@ export function networksRouter(services: Services): Router {
     const user = signedInUser(res);
     const teamId = idParam(req.params.teamId, "That team");
     const body = parseBody(createBody, req.body);
-    res.status(201).json(await createNetwork(db, teamId, user.id, { ...body, circuit: await readCircuit(services, body.circuit) }));
+    res.status(201).json(await createNetwork(db, teamId, user.id, { ...body, ...(await readCircuitAndText(services, body)) }));
   });
 
   router.post("/teams/:teamId/networks/import", async (req, res) => {
@@ -84,7 +90,7 @@ export function networksRouter(services: Services): Router {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
     const body = parseBody(patchBody, req.body);
-    const patch = { ...body, circuit: body.circuit === undefined ? undefined : await readCircuit(services, body.circuit) };
+    const patch = { ...body, ...(body.circuit !== undefined || body.netlist !== undefined ? await readCircuitAndText(services, body) : { circuit: undefined }) };
     res.json(await updateNetwork(db, networkId, user.id, patch));
   });
 

@@ -68,6 +68,19 @@ export function solveNetworkExact(input: string | NetworkInput | Network): { net
 
 export type { ExactPort };
 
+/**
+ * Everything a solve would refuse the network for, without solving: reading, cells, names,
+ * values, controls and topology (floating nodes, source loops and cutsets). For live checking.
+ */
+export function checkNetworkInput(input: string | NetworkInput | Network): Diagnostic[] {
+  const parsed = parseNetwork(input);
+  if (!parsed.network) return parsed.diagnostics;
+  const expanded = expandCells(normalizeNetwork(parsed.network), parsed.positions);
+  if (expanded.network === null) return [...parsed.diagnostics, ...expanded.diagnostics];
+  const checked = checkNetwork(expanded.network, expanded.positions);
+  return [...parsed.diagnostics, ...attributeToCells(checked.diagnostics, expanded.origin, parsed.network.cells)];
+}
+
 // JSON.parse does not always say where; find the offset ourselves and turn it into a line and column.
 function jsonErrorPosition(text: string): { line?: number; column?: number } {
   const at = jsonErrorOffset(text);

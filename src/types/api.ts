@@ -58,6 +58,8 @@ export interface Network {
   title: string;
   description: string;
   circuit: Circuit;
+  /** The netlist exactly as typed; null for a network made from JSON. */
+  netlist: string | null;
   quantities: Record<string, string>;
   author: string | null;
   authorId: string | null;
@@ -228,4 +230,22 @@ export interface ShareLink {
   createdAt: string;
   expiresAt: string | null;
   revokedAt: string | null;
+}
+
+/** Named numbers for a network's symbols, as typed in Values. */
+export interface ValueSet {
+  id: string;
+  name: string;
+  values: Record<string, string>;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface Attachment {
+  id: string;
+  filename: string;
+  contentType: string;
+  size: number;
+  uploadedBy: string | null;
+  createdAt: string;
 }

@@ -72,9 +72,10 @@ describe("workbench tools in chromium", () => {
     await editor.fill(text.replace("Gauge resistor b 0 = Rd", "Gauge resistr b 0 = Rd"));
     const diagnostics = page.getByRole("list", { name: "Netlist diagnostics" });
     await diagnostics.waitFor();
-    // The stored network prints as ground, port, then the elements in order: "Gauge ..." is line 7.
-    expect(text.split("\n")[6]).toBe("Gauge resistor b 0 = Rd");
-    await expect(diagnostics.textContent()).resolves.toMatch(/^Line 7, column 7: /);
+    // The imported file is kept exactly as typed: its comment is line 1, so "Gauge ..." is line 8.
+    expect(text).toBe(BRIDGE);
+    expect(text.split("\n")[7]).toBe("Gauge resistor b 0 = Rd");
+    await expect(diagnostics.textContent()).resolves.toMatch(/^Line 8, column 7: /);
     expect(await page.getByText("(last version that read without errors)").isVisible()).toBe(true);
     expect(await page.getByRole("button", { name: "Solve", exact: true }).isDisabled()).toBe(true);
     await shot(page, "workbench-diagnostic");

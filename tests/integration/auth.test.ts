@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { emailTokens, sessions, users } from "../../server/db/schema.js";
 import { ApiClient } from "../support/api.js";
 import { uniqueEmail } from "../support/fixtures.js";
-import { linkIn, mailCount, waitForMail } from "../support/mail.js";
+import { linkIn, mailCount, waitForMail, waitForMailQueue } from "../support/mail.js";
 import { startTestServer, type TestServer } from "../support/server.js";
 
 describe("sign-up, sign-in, sign-out and password reset", () => {
@@ -142,7 +142,8 @@ describe("sign-up, sign-in, sign-out and password reset", () => {
     const email = uniqueEmail("ghost");
     const response = await new ApiClient(server.url).post("/api/auth/password-reset", { email });
     expect(response.status).toBe(202);
-    await new Promise((resolve) => setTimeout(resolve, 200));
+    // Mail is queued: once the queue is empty, anything sent would be in the mailbox.
+    await waitForMailQueue(server.db);
     expect(await mailCount(server.db, email)).toBe(0);
   });
 
@@ -175,5 +176,6 @@ describe("in production", () => {
     expect(response.headers.getSetCookie().find((c) => c.startsWith("portfold_session="))).toMatch(/;\s*Secure/i);
     expect((await fetch(`${server.url}/api/dev/mail`)).status).toBe(404);
     expect((await fetch(`${server.url}/dev/mailbox`)).status).toBe(404);
+    expect((await fetch(`${server.url}/api/dev/mail-queue`)).status).toBe(404);
   });
 });

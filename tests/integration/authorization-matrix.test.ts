@@ -225,9 +225,20 @@ const cases: Case[] = [
     prepare: async (w) => ({ id: (await w.team.clients.owner.upload(`${net(w)}/attachments`, { name: "doomed.png", type: "image/png", content: png })).body.id }),
     path: (w, p) => `${net(w)}/attachments/${p.id}`,
   },
+  // ---- value sets ----
+  { method: "POST", route: "/api/networks/:networkId/value-sets", expect: editorsUp(201), path: (w) => `${net(w)}/value-sets`, body: () => ({ name: "nominal", values: { Rs: "4.7k" } }) },
+  { method: "GET", route: "/api/networks/:networkId/value-sets", expect: members(200), path: (w) => `${net(w)}/value-sets` },
+  {
+    method: "DELETE",
+    route: "/api/networks/:networkId/value-sets/:setId",
+    expect: editorsUp(204),
+    prepare: async (w) => ({ id: (await w.team.clients.owner.post(`${net(w)}/value-sets`, { name: `doomed-${Math.random()}`, values: { A: "1e5" } })).body.id }),
+    path: (w, p) => `${net(w)}/value-sets/${p.id}`,
+  },
   // ---- development and health ----
   { method: "GET", route: "/api/dev/mail", expect: everyone(200), path: () => "/api/dev/mail?limit=1" },
   { method: "GET", route: "/dev/mailbox", expect: everyone(200), path: () => "/dev/mailbox?limit=1" },
+  { method: "GET", route: "/api/dev/mail-queue", expect: everyone(200), path: () => "/api/dev/mail-queue" },
   { method: "GET", route: "/dev/mailbox.css", expect: everyone(200), path: () => "/dev/mailbox.css" },
   { method: "GET", route: "/api/health", expect: everyone(200), path: () => "/api/health" },
 ];

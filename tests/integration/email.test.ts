@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { invitations } from "../../server/db/schema.js";
 import { ApiClient } from "../support/api.js";
 import { signedInPerson, uniqueEmail } from "../support/fixtures.js";
-import { linkIn, mailCount, waitForMail } from "../support/mail.js";
+import { linkIn, mailCount, waitForMail, waitForMailQueue } from "../support/mail.js";
 import { clientShellDir, startTestServer, type TestServer } from "../support/server.js";
 
 describe("e-mail through the SMTP capture server", () => {
@@ -109,6 +109,7 @@ describe("e-mail through the SMTP capture server", () => {
     const refused = await unconfirmed.client.post(`/api/teams/${ownTeam.body.id}/invitations`, { email: target, role: "viewer" });
     expect(refused.status).toBe(403);
     expect(refused.body.error.code).toBe("email_unverified");
+    await waitForMailQueue(server.db);
     expect(await mailCount(server.db, target)).toBe(0);
   });
 

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { invitations, teamMembers } from "../../server/db/schema.js";
 import { followerCircuit, signedInPerson, teamWithEveryRole, uniqueEmail, type Person, type TeamFixture } from "../support/fixtures.js";
 import { formulaTerms } from "../../src/features/review/lib/formula-terms.js";
-import { linkIn, mailCount, waitForMail } from "../support/mail.js";
+import { linkIn, mailCount, waitForMail, waitForMailQueue } from "../support/mail.js";
 import { startTestServer, type TestServer } from "../support/server.js";
 
 describe("review sign-off", () => {
@@ -145,6 +145,8 @@ describe("review sign-off", () => {
     await team.clients.owner.post(`${rev(1)}/comments`, { stepId: steps[1].id, body: "Owner was here.", parentId: thread.id });
 
     const counts = async () => Object.fromEntries(await Promise.all([team.people.reviewer, second, author, team.people.owner, team.people.viewer].map(async (p) => [p.user.id, await mailCount(server.db, p.user.email)])));
+    // Mail is queued: the earlier replies' mails are delivered before counting.
+    await waitForMailQueue(server.db);
     const before = await counts();
     const since = new Date();
     await author.client.post(`${rev(1)}/comments`, { stepId: steps[1].id, body: "Typical value, 75 ohm.", parentId: thread.id });
@@ -152,7 +154,7 @@ describe("review sign-off", () => {
       const mail = await waitForMail(server.db, person.user.email, { since, subject: /New reply/ });
       expect(mail.text).toContain("Typical value, 75 ohm.");
     }
-    await new Promise((resolve) => setTimeout(resolve, 300));
+    await waitForMailQueue(server.db);
     const after = await counts();
     expect(after[team.people.reviewer.user.id]).toBe(before[team.people.reviewer.user.id] + 1);
     expect(after[second.user.id]).toBe(before[second.user.id] + 1);

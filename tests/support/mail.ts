@@ -31,3 +31,17 @@ export function linkIn(mail: CapturedMail, path: string): URL {
   if (!match) throw new Error(`no ${path} link in mail "${mail.subject}":\n${mail.text}`);
   return new URL(match[0]);
 }
+
+// Mail is delivered by the queue's worker after the request: wait until the queue holds nothing
+// still to deliver, so counts taken next include every mail of the requests made so far.
+export async function waitForMailQueue(db: Database, options: { queue?: string; timeoutMs?: number } = {}): Promise<void> {
+  const deadline = Date.now() + (options.timeoutMs ?? 10_000);
+  for (;;) {
+    const { rows } = await db.execute<{ n: number }>(
+      sql`select count(*)::int as n from pgboss.job where name = ${options.queue ?? "mail"} and state::text in ('created', 'retry', 'active')`,
+    );
+    if (rows[0].n === 0) return;
+    if (Date.now() > deadline) throw new Error(`the ${options.queue ?? "mail"} queue still holds ${rows[0].n} mail`);
+    await new Promise((resolve) => setTimeout(resolve, 50));
+  }
+}

@@ -10,7 +10,8 @@ import { createApp } from "../../server/app.js";
 import { defaultSettings, type AppSettings } from "../../server/config.js";
 import { createDatabase, createPool } from "../../server/db/client.js";
 import { startCaptureServer, type CaptureServer } from "../../server/mail/capture-server.js";
-import { createSmtpMailer } from "../../server/mail/mailer.js";
+import { createSmtpMailer, type Mailer, type SmtpTarget } from "../../server/mail/mailer.js";
+import { createQueuedMailer, startMailBoss, startMailWorker, stopMailBoss, type MailQueueSettings } from "../../server/mail/queue.js";
 import { createSolver, type Solver } from "../../server/solver/pool.js";
 
 export interface TestServer {
@@ -19,6 +20,8 @@ export interface TestServer {
   db: ReturnType<typeof createDatabase>;
   capture: CaptureServer;
   solver: Solver;
+  // The queued mailer the app uses (requests enqueue; this server's worker delivers).
+  mailer: Mailer;
   close(): Promise<void>;
 }
 
@@ -31,7 +34,13 @@ export interface TestServerOptions {
   logger?: Logger;
   // Another database than the shared test database (the fault tests bring their own cluster).
   databaseUrl?: string;
+  // Where this server's mail worker delivers (default: its capture server) and its own queue.
+  smtp?: SmtpTarget;
+  mailQueue?: Partial<MailQueueSettings>;
 }
+
+// Quick retries, so a failing delivery reaches the dead-letter queue within a test.
+const testMailQueue: MailQueueSettings = { queue: "mail", retryLimit: 5, retryDelaySeconds: 1, retryBackoff: false };
 
 // Generous by default: only the rate-limit tests want to hit the limits.
 const testLimits: Partial<AppSettings["limits"]> = { loginFailuresPer15Min: 1_000, passwordResetsPer15Min: 1_000, signupsPerHour: 1_000 };
@@ -62,7 +71,13 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     limits: { ...defaultSettings().limits, ...testLimits, ...options.limits },
     solve: { ...defaultSettings().solve, ...testSolve, ...options.solve },
   };
-  const mailer = createSmtpMailer({ host: capture.host, port: capture.port }, "Portfold tests <tests@portfold.local>");
+  const mailQueue = { ...testMailQueue, ...options.mailQueue };
+  settings.mailQueue = mailQueue;
+  // A database that is away (the fault tests) leaves the server without a queue: mail is then not sent.
+  const boss = await startMailBoss(options.databaseUrl ?? testDatabaseUrl(), mailQueue).catch(() => null);
+  const smtp = createSmtpMailer(options.smtp ?? { host: capture.host, port: capture.port }, "Portfold tests <tests@portfold.local>");
+  if (boss) await startMailWorker(boss, mailQueue, smtp, { pollingIntervalSeconds: 0.5 });
+  const mailer: Mailer = boss ? createQueuedMailer(boss, mailQueue) : { send: async () => false };
   const solver = createSolver(settings.solve!);
   // As server/index.ts does: the thread loads the engine now, not during the first solve.
   solver.warm();
@@ -73,10 +88,12 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     db,
     capture,
     solver,
+    mailer,
     close: async () => {
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await solver.close();
+      if (boss) await stopMailBoss(boss);
       await capture.close();
       await pool.end();
     },

@@ -61,6 +61,7 @@ function Comparison({ networkId, from, to }: { networkId: string; from: number; 
           Results: {changedResults.length === 0 ? "the same." : `${changedResults.map((n) => ({ vth: "Vth", rth: "Rth", isc: "Isc" })[n]).join(", ")} changed (marked in copper).`}
         </p>
         {diff.elements.length > 0 && (
+          <div className="overflow-x-auto">
           <table className="mt-2 w-full font-mono text-xs">
             <caption className="sr-only">Elements that differ</caption>
             <thead>
@@ -78,6 +79,7 @@ function Comparison({ networkId, from, to }: { networkId: string; from: number; 
               ))}
             </tbody>
           </table>
+          </div>
         )}
       </div>
       <div className="mt-4 grid gap-6 md:grid-cols-2">
@@ -118,6 +120,7 @@ export function RevisionHistoryRoute() {
             ) : (
               <>
                 <p className="text-sm text-ink/70">Tick two revisions to compare their circuits and results side by side.</p>
+                <div className="overflow-x-auto">
                 <table className="mt-2 w-full text-sm">
                   <caption className="sr-only">Derivation revisions, newest first</caption>
                   <thead>
@@ -153,6 +156,7 @@ export function RevisionHistoryRoute() {
                     ))}
                   </tbody>
                 </table>
+                </div>
                 <Button
                   className="mt-3"
                   variant="primary"

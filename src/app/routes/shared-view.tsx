@@ -12,7 +12,8 @@ import { ReviewPanel } from "@/features/review/components/review-panel";
 import { useSharedRevision } from "@/features/sharing/api/get-shared-revision";
 import { ApiError } from "@/lib/api-client";
 import { shortDateTime } from "@/lib/dates";
-import { printElementLine, type EngineNetwork } from "@/lib/engine-netlist";
+import { printNetlistText, type EngineNetwork } from "@/lib/engine-netlist";
+import { ResultCard } from "@/features/derivations/components/result-card";
 
 // The page behind a share link: one revision, read-only, no account needed. Team members who
 // sign in see the review notes and may add their own.
@@ -59,9 +60,9 @@ export function SharedViewRoute() {
   return (
     <div>
       <div className="flex flex-wrap items-end justify-between gap-3 border-b border-rule pb-3">
-        <div className="min-w-0 flex-1">
+        <div className="min-w-0 flex-1 basis-72">
           <p className="text-xs text-ink/60">Shared revision · read-only</p>
-          <h1 className="truncate text-2xl font-semibold tracking-tight">{revision.title}</h1>
+          <h1 className="break-words text-2xl font-semibold tracking-tight">{revision.title}</h1>
           <p className="mt-0.5 text-xs text-ink/70">
             Derivation revision {revision.k}
             {revision.author ? ` · solved by ${revision.author}` : ""}
@@ -80,10 +81,13 @@ export function SharedViewRoute() {
               Sign in to comment
             </Link>
           )}
-          <ExportMenu revision={revision} />
+          <ExportMenu revision={revision} valueSets={revision.valueSets} />
         </div>
       </div>
-      <div className="mt-4 grid grid-cols-1 gap-6 lg:grid-cols-[minmax(16rem,21rem)_minmax(0,1fr)_18rem] print:block">
+      <div className="mt-3">
+        <ResultCard results={revision.results} portLabel={`${revision.circuit.port.plus}–${revision.circuit.port.minus}`} />
+      </div>
+      <div className="mt-4 grid grid-cols-1 gap-6 min-[1100px]:grid-cols-[minmax(15rem,18rem)_minmax(0,1fr)_15rem] min-[1440px]:grid-cols-[minmax(16rem,21rem)_minmax(0,1fr)_18rem] print:block">
         <section aria-labelledby="shared-network-heading" className="min-w-0 print:hidden">
           <h2 id="shared-network-heading" className="mb-1 text-sm font-semibold">
             Network
@@ -91,16 +95,10 @@ export function SharedViewRoute() {
           <div className="rounded border border-rule bg-white/40 p-1">
             <DrawingView network={{ ground: "0", ...revision.circuit } as EngineNetwork} layout={revision.circuit.layout} readOnly height={300} />
           </div>
-          <ul className="mt-2 space-y-0.5 font-mono text-[11px] text-ink/80" aria-label="Elements">
-            {revision.circuit.elements.map((e) => (
-              <li key={e.name}>
-                {printElementLine(e)}
-              </li>
-            ))}
-            <li>
-              port {revision.circuit.port.plus} {revision.circuit.port.minus}
-            </li>
-          </ul>
+          {/* The netlist exactly as the engine prints it, so copying it out pastes back as a valid netlist. */}
+          <pre className="mt-2 overflow-x-auto whitespace-pre rounded-sm bg-white/60 p-2 font-mono text-[11px] text-ink/80" aria-label="Netlist">
+            {printNetlistText({ ground: "0", ...revision.circuit } as EngineNetwork)}
+          </pre>
         </section>
         <section aria-labelledby="ledger-heading" className="min-w-0">
           <h2 id="ledger-heading" className="text-sm font-semibold tracking-tight">
@@ -111,7 +109,7 @@ export function SharedViewRoute() {
           </div>
         </section>
         <section aria-label="Values, Limits and Sweep" className="min-w-0">
-          <AnalysisColumn results={revision.results} />
+          <AnalysisColumn results={revision.results} valueSets={revision.valueSets} />
         </section>
       </div>
     </div>

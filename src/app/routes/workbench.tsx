@@ -1,4 +1,5 @@
-import { useEffect, useMemo, useState } from "react";
+import { useQueryClient } from "@tanstack/react-query";
+import { useEffect, useState } from "react";
 import { Link, Navigate, useNavigate, useParams } from "react-router-dom";
 import { Button } from "@/components/ui/button";
 import { EmptyState, ErrorState, LoadingState } from "@/components/ui/states";
@@ -7,28 +8,43 @@ import { RequireAccount } from "@/features/auth/components/require-account";
 import { useRevision } from "@/features/derivations/api/get-revision";
 import { useSolveNetwork, type SolveProgress } from "@/features/derivations/api/solve-network";
 import { Ledger } from "@/features/derivations/components/ledger";
+import { ResultCard } from "@/features/derivations/components/result-card";
+import { useValueSets } from "@/features/value-sets/api/get-value-sets";
+import { AttachmentsSection } from "@/features/attachments/components/attachments-section";
+import { SaveConflict } from "@/features/network-editor/components/save-conflict";
+import { NetworkHeading } from "@/features/networks/components/network-heading";
+import { networkQueryOptions } from "@/features/networks/api/get-network";
+import { ApiError } from "@/lib/api-client";
+import { errorMessage } from "@/components/ui/states";
 import { ExportMenu } from "@/features/export/components/export-menu";
 import { layoutFor } from "@/features/canvas/model/sync";
 import { NetworkPanel, type NetworkTab } from "@/features/network-editor/components/network-panel";
 import { circuitOf, netlistOf, readNetlist } from "@/features/network-editor/lib/netlist";
 import { useNetwork } from "@/features/networks/api/get-network";
 import { useNetworkBySlug } from "@/features/networks/api/get-network-by-slug";
-import { useUpdateNetwork } from "@/features/networks/api/update-network";
+import { useUpdateNetwork, type UpdateNetworkInput } from "@/features/networks/api/update-network";
 import { useComments } from "@/features/review/api/get-comments";
 import { ReviewPanel } from "@/features/review/components/review-panel";
 import { ShareDialog } from "@/features/sharing/components/share-dialog";
 import type { Me, Network } from "@/types/api";
 
+// The text the network is edited as: what was typed, or the printed form of a network made from JSON.
+const textOf = (network: Network) => network.netlist ?? netlistOf(network.circuit);
+const layoutKey = (layout: unknown) => JSON.stringify(layout ?? null);
+
 function Workbench({ me, network, k }: { me: Me; network: Network; k: number | null }) {
   const navigate = useNavigate();
-  const [text, setText] = useState(() => netlistOf(network.circuit));
+  const queryClient = useQueryClient();
+  const [text, setText] = useState(() => textOf(network));
   // The drawing's layout as edited here; the stored one until the drawing changes.
   const [layout, setLayout] = useState<unknown>(() => network.circuit.layout);
+  // What was last saved from (or loaded into) this page, and the copy's time stamp for the stale check.
+  const [saved, setSaved] = useState(() => ({ text: textOf(network), layout: layoutKey(network.circuit.layout), updatedAt: network.updatedAt }));
+  const [conflict, setConflict] = useState<Network | null>(null);
   const [tab, setTab] = useState<NetworkTab>("text");
   const [sharing, setSharing] = useState(false);
   const [solveProgress, setSolveProgress] = useState<SolveProgress>("sending");
-  const saved = useMemo(() => netlistOf(network.circuit), [network.circuit]);
-  const dirty = text !== saved || layout !== network.circuit.layout;
+  const dirty = text !== saved.text || layoutKey(layout) !== saved.layout;
   const update = useUpdateNetwork();
   const solve = useSolveNetwork();
   const revision = useRevision(network.id, k);
@@ -36,6 +52,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
   const canEdit = role === "owner" || role === "editor";
   const canReview = canEdit || role === "reviewer";
   const comments = useComments(network.id, k ?? 0, k !== null);
+  const valueSets = useValueSets(network.id);
 
   // Leaving with unsaved edits asks first (the browser's own prompt).
   useEffect(() => {
@@ -45,11 +62,29 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
     return () => window.removeEventListener("beforeunload", warn);
   }, [dirty]);
 
-  const save = async () => {
+  // Every save names the copy it was made from; a 409 "stale" opens the conflict panel instead of losing either side.
+  const patch = async (changes: Omit<UpdateNetworkInput, "networkId" | "expectedUpdatedAt">, expectedUpdatedAt = saved.updatedAt) => {
+    try {
+      const next = await update.mutateAsync({ networkId: network.id, ...changes, expectedUpdatedAt });
+      setSaved((current) => ({ ...current, updatedAt: next.updatedAt }));
+      return next;
+    } catch (error) {
+      if (error instanceof ApiError && error.code === "stale") {
+        setConflict(await queryClient.fetchQuery({ ...networkQueryOptions(network.id), staleTime: 0 }));
+        update.reset();
+      }
+      throw error;
+    }
+  };
+  const save = async (expectedUpdatedAt?: string) => {
     const read = readNetlist(text);
     if (!read.network) return false;
     // The drawing is saved in step with the text (parts added in the text get their automatic place).
-    await update.mutateAsync({ networkId: network.id, circuit: circuitOf({ ...read.network, layout: layoutFor(read.network, layout) }) });
+    const circuit = circuitOf({ ...read.network, layout: layoutFor(read.network, layout) });
+    const sent = { text, layout: layoutKey(layout) };
+    await patch({ circuit, netlist: text }, expectedUpdatedAt);
+    setSaved((current) => ({ ...current, ...sent }));
+    setConflict(null);
     return true;
   };
   const runSolve = async () => {
@@ -59,56 +94,71 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
       const created = await solve.mutateAsync({ networkId: network.id, onProgress: setSolveProgress });
       navigate(`/networks/${network.id}/r/${created.k}`);
     } catch {
-      // The error is shown beside the netlist by the mutation's state.
+      // The error is shown beside the netlist and on the result card by the mutation's state.
     }
+  };
+  const takeTheirs = (theirs: Network) => {
+    setText(textOf(theirs));
+    setLayout(theirs.circuit.layout);
+    setSaved({ text: textOf(theirs), layout: layoutKey(theirs.circuit.layout), updatedAt: theirs.updatedAt });
+    setConflict(null);
   };
 
   // Compared in the printed (canonical) form, so layout and comments do not count as changes.
   const current = readNetlist(text).network;
   const stale = revision.data && current && netlistOf(current) !== netlistOf(revision.data.circuit);
   const latest = network.latestRevision;
+  const olderNote =
+    solve.error != null ? (
+      <>
+        <span className="font-medium">The last Solve failed: {errorMessage(solve.error)}</span> This card shows revision {k}, from before it; see the messages beside the netlist.
+      </>
+    ) : stale ? (
+      <>The netlist has changed since revision {k}: {canEdit ? "Solve to bring this result up to date." : "this is the stored revision."}</>
+    ) : undefined;
 
   return (
     <div>
-      <div className="flex items-end justify-between gap-3 border-b border-rule pb-3 print:border-0">
-        <div className="min-w-0 flex-1">
+      <div className="flex flex-col gap-3 border-b border-rule pb-3 sm:flex-row sm:flex-wrap sm:items-end sm:justify-between print:border-0">
+        <div className="min-w-0 flex-1 sm:basis-72">
           <p className="text-xs text-ink/60 print:hidden">
             <Link to={`/teams/${network.teamId}`} className="hover:text-copper">
               {me.teams.find((t) => t.id === network.teamId)?.name ?? "Team"}
             </Link>{" "}
             / network
           </p>
-          <h1 className="truncate text-2xl font-semibold tracking-tight">{network.title}</h1>
-          <p className="mt-0.5 text-xs text-ink/70">
-            {k ? (
-              <>
-                Derivation revision {k}
-                {latest && latest !== k ? ` of ${latest}` : ""}
-                {revision.data?.author ? ` · solved by ${revision.data.author}` : ""}
-                {revision.data?.createdAt ? ` · ${new Date(revision.data.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""}
-                {revision.data?.permalink && (
-                  <>
-                    {" · "}
-                    <Link to={revision.data.permalink} className="font-mono text-ink/60 hover:text-copper">
-                      {revision.data.permalink}
-                    </Link>
-                  </>
-                )}
-              </>
-            ) : (
-              "Not solved yet"
-            )}
-            {network.author ? ` · network by ${network.author}` : ""} · your role: {role}
-          </p>
+          <NetworkHeading title={network.title} description={network.description} canEdit={canEdit} onSave={(changes) => patch(changes)}>
+            <p className="mt-0.5 break-words text-xs text-ink/70">
+              {k ? (
+                <>
+                  Derivation revision {k}
+                  {latest && latest !== k ? ` of ${latest}` : ""}
+                  {revision.data?.author ? ` · solved by ${revision.data.author}` : ""}
+                  {revision.data?.createdAt ? ` · ${new Date(revision.data.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""}
+                  {revision.data?.permalink && (
+                    <>
+                      {" · "}
+                      <Link to={revision.data.permalink} className="break-all font-mono text-ink/60 hover:text-copper">
+                        {revision.data.permalink}
+                      </Link>
+                    </>
+                  )}
+                </>
+              ) : (
+                "Not solved yet"
+              )}
+              {network.author ? ` · network by ${network.author}` : ""} · your role: {role}
+            </p>
+          </NetworkHeading>
           {k && revision.data && <ReviewPanel revision={revision.data} member canReview={canReview} currentUserId={me.user.id} />}
         </div>
-        <div className="flex shrink-0 flex-wrap items-center justify-end gap-2 print:hidden">
+        <div className="flex flex-wrap items-center gap-2 print:hidden">
           {latest && latest > 0 && (
             <Link to={`/networks/${network.id}/history`} className="rounded border border-rule px-3 py-1.5 text-sm hover:border-ink/40">
               History
             </Link>
           )}
-          {revision.data && <ExportMenu revision={revision.data} />}
+          {revision.data && <ExportMenu revision={revision.data} valueSets={valueSets.data} />}
           {k && canEdit && (
             <Button onClick={() => setSharing(true)} variant="secondary">
               Share
@@ -117,8 +167,22 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
         </div>
       </div>
 
-      <div className={`mt-4 grid grid-cols-1 gap-6 ${tab === "drawing" ? "lg:grid-cols-[minmax(30rem,1.25fr)_minmax(0,1fr)_16rem]" : "lg:grid-cols-[minmax(18rem,23rem)_minmax(0,1fr)_18rem]"} print:block`}>
-        <section aria-label="Network" className="min-w-0 print:mb-4 print:max-w-md">
+      {revision.data && (
+        <div className="mt-3">
+          <ResultCard results={revision.data.results} portLabel={`${revision.data.circuit.port.plus}–${revision.data.circuit.port.minus}`} older={olderNote} />
+        </div>
+      )}
+      {conflict && (
+        <div className="mt-3">
+          <SaveConflict mine={text} theirs={textOf(conflict)} onKeepMine={() => void save(conflict.updatedAt).catch(() => undefined)} onTakeTheirs={() => takeTheirs(conflict)} />
+        </div>
+      )}
+
+      {/* Three columns from ~1100 px; below, the network and the analysis stack above and below the ledger. */}
+      <div
+        className={`mt-4 grid grid-cols-1 gap-6 ${tab === "drawing" ? "min-[1100px]:grid-cols-[minmax(24rem,1.1fr)_minmax(0,1fr)_15rem] min-[1440px]:grid-cols-[minmax(30rem,1.25fr)_minmax(0,1fr)_16rem]" : "min-[1100px]:grid-cols-[minmax(17rem,20rem)_minmax(0,1fr)_15rem] min-[1440px]:grid-cols-[minmax(18rem,23rem)_minmax(0,1fr)_18rem]"} print:block`}
+      >
+        <section aria-label="Network" className="min-w-0 space-y-5 print:mb-4 print:max-w-md">
           <NetworkPanel
             text={text}
             onTextChange={setText}
@@ -137,18 +201,12 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
             onTabChange={setTab}
             teamId={network.teamId}
           />
+          <AttachmentsSection networkId={network.id} canEdit={canEdit} />
         </section>
         <section aria-labelledby="ledger-heading" className="min-w-0">
-          <div className="flex items-baseline justify-between">
-            <h2 id="ledger-heading" className="text-sm font-semibold tracking-tight">
-              Ledger
-            </h2>
-            {stale && (
-              <p className="text-xs text-copper print:hidden">
-                The netlist differs from revision {k}: {canEdit ? "Solve to record a new revision." : "this ledger shows the stored revision."}
-              </p>
-            )}
-          </div>
+          <h2 id="ledger-heading" className="text-sm font-semibold tracking-tight">
+            Ledger
+          </h2>
           <div className="mt-2">
             {k === null ? (
               <EmptyState title="No derivation yet.">{canEdit ? "Check the netlist and the port, then press Solve." : "An editor of the team has not solved this network yet."}</EmptyState>
@@ -167,7 +225,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
         </section>
         <section aria-label="Values, Limits and Sweep" className="min-w-0">
           {revision.data ? (
-            <AnalysisColumn key={`${network.id}-${revision.data.k}`} results={revision.data.results} />
+            <AnalysisColumn key={`${network.id}-${revision.data.k}`} results={revision.data.results} networkId={network.id} canSaveValues={canEdit} />
           ) : (
             <p className="text-sm text-ink/60 print:hidden">Values, Limits and Sweep work on a solved revision.</p>
           )}

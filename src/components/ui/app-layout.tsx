@@ -60,22 +60,22 @@ export function AppLayout() {
         Skip to content
       </a>
       <header className="border-b border-rule print:hidden">
-        <div className={`mx-auto flex ${width} items-center justify-between gap-4 px-6 py-3`}>
+        <div className={`mx-auto flex ${width} flex-wrap items-center justify-between gap-x-4 gap-y-1 px-3 py-3 sm:px-6`}>
           <Link to="/" className="flex items-center gap-2 text-lg font-semibold tracking-tight">
             <PortMark />
             Portfold
           </Link>
-          <nav aria-label="Account" className="flex flex-wrap items-center justify-end gap-4 text-sm">
+          <nav aria-label="Account" className="flex min-w-0 flex-wrap items-center justify-end gap-x-4 gap-y-1 text-sm">
             <AccountNav />
           </nav>
         </div>
       </header>
       <VerifyEmailBanner />
-      <main id="main" className={`mx-auto w-full ${width} flex-1 px-6 ${wide ? "py-4" : "py-8"}`}>
+      <main id="main" className={`mx-auto w-full min-w-0 ${width} flex-1 px-3 sm:px-6 ${wide ? "py-4" : "py-8"}`}>
         <Outlet />
       </main>
       <footer className="border-t border-rule">
-        <div className={`mx-auto ${width} px-6 py-4 text-xs text-ink/70`}>
+        <div className={`mx-auto ${width} px-3 py-4 text-xs text-ink/70 sm:px-6`}>
           <p className="font-medium text-ink">Portfold</p>
           <p className="mt-1 max-w-3xl">
             Results are linear, small-signal idealisations. Verify them against measurement, component ratings and the

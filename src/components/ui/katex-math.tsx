@@ -8,12 +8,13 @@ const settings = {
   throwOnError: false,
   strict: "ignore" as const,
   maxSize: 10,
-  maxExpand: 200,
+  // Results of hundreds of terms expand \, and \mathrm thousands of times; the TeX is the engine's own, never user macros.
+  maxExpand: 100_000,
   output: "htmlAndMathml" as const,
 };
 
 export default function KatexMath({ tex, block = false }: { tex: string; block?: boolean }) {
   const html = useMemo(() => katex.renderToString(tex, { ...settings, displayMode: block }), [tex, block]);
   // KaTeX's own escaped output, never user text.
-  return <span className={block ? "block overflow-x-auto py-1" : ""} dangerouslySetInnerHTML={{ __html: html }} />;
+  return <span className={block ? "block py-1" : ""} dangerouslySetInnerHTML={{ __html: html }} />;
 }

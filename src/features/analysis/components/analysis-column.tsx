@@ -1,6 +1,8 @@
 import { useMemo, useState, type ReactNode } from "react";
 import { Caution } from "@/components/ui/caution";
-import type { Results } from "@/types/api";
+import type { Results, ValueSet } from "@/types/api";
+import { useValueSets } from "@/features/value-sets/api/get-value-sets";
+import { ValueSetsBar } from "@/features/value-sets/components/value-sets-bar";
 import { readExactResults, symbolsOf } from "../lib/exact-results";
 import { LimitsPanel } from "./limits-panel";
 import { SweepPanel } from "./sweep-panel";
@@ -21,14 +23,18 @@ function Panel({ title, children }: { title: string; children: ReactNode }) {
 }
 
 // The narrow right column: Values, Limits and Sweep, all computed in the browser from the stored exact result.
-export function AnalysisColumn({ results }: { results: Results }) {
+export function AnalysisColumn({ results, networkId, canSaveValues = false, valueSets }: { results: Results; networkId?: string; canSaveValues?: boolean; valueSets?: ValueSet[] }) {
   const exact = useMemo(() => readExactResults(results), [results]);
   const symbols = useMemo(() => symbolsOf(exact), [exact]);
   const [values, setValues] = useState<TypedValues>({});
+  // The network's saved sets: fetched for members, given by the share page otherwise.
+  const fetched = useValueSets(valueSets ? undefined : networkId);
+  const sets = valueSets ?? fetched.data ?? [];
   const gain = symbols.find((s) => results.quantities[s] === "dimensionless" || results.quantities[s] === "transconductance");
   return (
     <div className="print:hidden">
       <Panel title="Values">
+        <ValueSetsBar networkId={networkId} sets={sets} canSave={canSaveValues} values={values} onChoose={(chosen) => setValues(Object.fromEntries(symbols.map((s) => [s, chosen[s] ?? ""])))} />
         <ValuesPanel exact={exact} symbols={symbols} quantities={results.quantities} values={values} onChange={setValues} />
         <DesignSolve exact={exact} symbols={symbols} quantities={results.quantities} values={values} />
       </Panel>
@@ -39,7 +45,7 @@ export function AnalysisColumn({ results }: { results: Results }) {
         </Panel>
       )}
       <Panel title="Limits">
-        <LimitsPanel exact={exact} symbols={symbols} initialSymbol={gain} />
+        <LimitsPanel exact={exact} symbols={symbols} initialSymbol={gain} quantities={results.quantities} />
       </Panel>
       <Panel title="Sweep">
         <SweepPanel exact={exact} symbols={symbols} quantities={results.quantities} values={values} initialSymbol={gain} />

@@ -3,7 +3,8 @@ import { MathTex } from "@/components/ui/math";
 import { RationalFunction, type Limit } from "@/lib/engine";
 import type { ResultName } from "@/types/api";
 import type { ExactResults } from "../lib/exact-results";
-import { RESULT_LABEL, RESULT_NAMES, RESULT_TEX } from "../lib/quantities";
+import { limitWithSigns, positiveSymbols } from "../lib/limit-sign";
+import { RESULT_NAMES, resultLabel, resultTex } from "../lib/quantities";
 
 type Point = "inf" | "zero";
 
@@ -22,7 +23,9 @@ interface LimitRow {
 }
 
 // Limits: one symbol to infinity or to zero; the exact limit and the leading-order form of each result.
-export function LimitsPanel({ exact, symbols, initialSymbol }: { exact: ExactResults; symbols: string[]; initialSymbol?: string }) {
+export function LimitsPanel({ exact, symbols, initialSymbol, quantities = {} }: { exact: ExactResults; symbols: string[]; initialSymbol?: string; quantities?: Record<string, string | null> }) {
+  const inS = symbols.includes("s");
+  const positive = useMemo(() => positiveSymbols(quantities), [quantities]);
   const selectId = useId();
   const [symbol, setSymbol] = useState(initialSymbol && symbols.includes(initialSymbol) ? initialSymbol : (symbols[0] ?? ""));
   const [to, setTo] = useState<Point>("inf");
@@ -32,12 +35,12 @@ export function LimitsPanel({ exact, symbols, initialSymbol }: { exact: ExactRes
         const rf = exact[name]!;
         if (!symbol) return { name, limit: null, leading: null, error: null };
         try {
-          return { name, limit: rf.limit(symbol, to), leading: rf.leadingOrder(symbol, to), error: null };
+          return { name, limit: limitWithSigns(rf, symbol, to, positive), leading: rf.leadingOrder(symbol, to), error: null };
         } catch (error) {
           return { name, limit: null, leading: null, error: error instanceof Error ? error.message : "no limit" };
         }
       }),
-    [exact, symbol, to],
+    [exact, symbol, to, positive],
   );
   if (symbols.length === 0) return <p className="text-sm text-ink/60">No symbols to take a limit in.</p>;
   const symbolTex = symbol ? RationalFunction.variable(symbol).toTex() : "";
@@ -70,21 +73,21 @@ export function LimitsPanel({ exact, symbols, initialSymbol }: { exact: ExactRes
       <dl className="mt-3 space-y-2.5" aria-live="polite" aria-label={`Limits as ${symbol} goes to ${to === "inf" ? "infinity" : "zero"}`}>
         {rows.map((row) => (
           <div key={row.name} data-limit={row.name}>
-            <dt className="text-xs text-ink/60">{RESULT_LABEL[row.name]}</dt>
+            <dt className="text-xs text-ink/60">{resultLabel(row.name, inS)}</dt>
             <dd className="overflow-x-auto text-sm">
               {row.error ? (
                 <span className="text-xs text-signal">{row.error}</span>
               ) : row.limit ? (
                 <>
-                  <MathTex tex={`\\lim_{${symbolTex} \\to ${pointTex}} ${RESULT_TEX[row.name]} = ${limitTex(row.limit)}`} />
+                  <MathTex tex={`\\lim_{${symbolTex} \\to ${pointTex}} ${resultTex(row.name, inS)} = ${limitTex(row.limit)}`} />
                   {row.limit.kind === "infinite" && (
                     <span className="block text-[11px] text-ink/60">
-                      {row.limit.sign === 0 ? "unbounded; its sign is set by the other symbols" : "unbounded"}
+                      {row.limit.sign === 0 ? "unbounded; its sign is set by symbols whose sign is not known (gains, sources)" : "unbounded"}
                     </span>
                   )}
                   {row.leading && (
                     <div className="text-xs text-ink/70">
-                      leading order: <MathTex tex={`${RESULT_TEX[row.name]} \\sim ${row.leading.compactTex()}`} />
+                      leading order: <MathTex tex={`${resultTex(row.name, inS)} \\sim ${row.leading.compactTex()}`} />
                       <code className="mt-0.5 block font-mono text-[10px] text-ink/50" data-leading-infix>
                         {row.leading.compactInfix()}
                       </code>

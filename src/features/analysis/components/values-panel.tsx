@@ -4,7 +4,7 @@ import { formatSI, RationalFunction } from "@/lib/engine";
 import type { ResultName } from "@/types/api";
 import { readTypedValues, type ExactResults } from "../lib/exact-results";
 import { ApproximationControl } from "./approximation-control";
-import { RESULT_LABEL, RESULT_MEANING, RESULT_NAMES, RESULT_TEX, RESULT_UNIT, symbolLabel, symbolUnit } from "../lib/quantities";
+import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultMeaning, resultTex, symbolLabel, symbolUnit } from "../lib/quantities";
 
 export type TypedValues = Record<string, string>;
 
@@ -68,6 +68,7 @@ export function ValuesPanel({
   values: TypedValues;
   onChange: (values: TypedValues) => void;
 }) {
+  const inS = symbols.includes("s");
   const deferred = useDeferredValue(values);
   const parsed = useMemo(() => readTypedValues(deferred), [deferred]);
   const evaluated = useMemo<Evaluated[]>(
@@ -102,7 +103,7 @@ export function ValuesPanel({
         {evaluated.map((r) => (
           <div key={r.name} data-result={r.name}>
             <dt className="text-xs text-ink/60">
-              {RESULT_LABEL[r.name]} <span className="text-ink/40">({RESULT_MEANING[r.name]})</span>
+              {resultLabel(r.name, inS)} <span className="text-ink/40">({resultMeaning(r.name, inS)})</span>
             </dt>
             <dd className="min-w-0">
               {r.number !== null ? (
@@ -111,7 +112,7 @@ export function ValuesPanel({
                 </span>
               ) : r.remaining ? (
                 <div className="overflow-x-auto text-sm">
-                  <MathTex tex={`${RESULT_TEX[r.name]} = ${r.remaining.compactTex()}`} />
+                  <MathTex tex={`${resultTex(r.name, inS)} = ${r.remaining.compactTex()}`} />
                 </div>
               ) : (
                 <span className="text-xs text-signal">cannot be evaluated at these values (a denominator is zero)</span>

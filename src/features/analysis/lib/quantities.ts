@@ -46,3 +46,24 @@ export const RESULT_MEANING: Record<ResultName, string> = {
   rth: "Thevenin resistance",
   isc: "short-circuit current",
 };
+
+// With L or C in the network the results are functions of s: the port then has an impedance Zth(s), not a resistance.
+const IMPEDANCE = { label: "Zth(s)", tex: "Z_{\\mathrm{th}}(s)", meaning: "Thevenin impedance" };
+
+/** A result's name, plain text, as the network implies: Zth(s) when the results depend on s. */
+export function resultLabel(name: ResultName, inS: boolean): string {
+  return name === "rth" && inS ? IMPEDANCE.label : inS ? `${RESULT_LABEL[name]}(s)` : RESULT_LABEL[name];
+}
+
+export function resultTex(name: ResultName, inS: boolean): string {
+  return name === "rth" && inS ? IMPEDANCE.tex : inS ? `${RESULT_TEX[name]}(s)` : RESULT_TEX[name];
+}
+
+export function resultMeaning(name: ResultName, inS: boolean): string {
+  return name === "rth" && inS ? IMPEDANCE.meaning : RESULT_MEANING[name];
+}
+
+/** Whether stored results depend on the Laplace variable s (read from their printed form). */
+export function resultsInS(results: { vth: { infix: string } | null; rth: { infix: string } | null; isc: { infix: string } | null }): boolean {
+  return [results.vth, results.rth, results.isc].some((r) => r !== null && /(^|[^A-Za-z0-9_])s([^A-Za-z0-9_(]|$)/.test(r.infix));
+}

@@ -1,5 +1,6 @@
 import { Link } from "react-router-dom";
-import type { CheckMark, Results } from "@/types/api";
+import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultsInS } from "@/features/analysis/lib/quantities";
+import type { CheckMark, ResultName, Results } from "@/types/api";
 
 /** The page that explains every check and every outside reference. */
 export const HOW_CHECKED_PATH = "/how-results-are-checked";
@@ -75,13 +76,18 @@ export function CheckBadge({ results }: { results: Results }) {
 }
 
 export function DimensionCheck({ results }: { results: Results }) {
-  const entries = Object.entries(results.dimensionChecks);
+  // Only results the port has: no "Isc in A" for a port without a Norton form.
+  const entries = (Object.entries(results.dimensionChecks) as [ResultName, Results["dimensionChecks"][ResultName]][]).filter(([name]) => results[name] !== null);
   if (entries.length === 0) return null;
   const allOk = entries.every(([, c]) => c?.status === "ok");
+  const inS = resultsInS(results);
+  const summary = RESULT_NAMES.filter((name) => entries.some(([n]) => n === name))
+    .map((name) => `${resultLabel(name, inS)} in ${RESULT_UNIT[name]}`)
+    .join(", ");
   return (
-    <div className="text-xs">
+    <div className="text-xs" data-dimension-check="">
       <p className={allOk ? "text-verdigris" : "text-copper"}>
-        {allOk ? "✓ Dimension check: Vth in V, Rth in Ω, Isc in A." : "Dimension check:"}
+        {allOk ? `✓ Dimension check: ${summary}.` : "Dimension check:"}
       </p>
       {!allOk && (
         <ul className="mt-0.5 list-disc pl-4 text-ink/80">

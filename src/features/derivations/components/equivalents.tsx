@@ -1,4 +1,5 @@
-import { MathTex } from "@/components/ui/math";
+import { Formula } from "@/components/ui/formula";
+import { resultTex, resultsInS } from "@/features/analysis/lib/quantities";
 import type { Results } from "@/types/api";
 
 const stroke = { fill: "none", stroke: "currentColor", strokeWidth: 1.4, strokeLinecap: "round" as const, strokeLinejoin: "round" as const };
@@ -54,32 +55,31 @@ function NortonSymbol() {
 // The final equivalents, each drawn small with its expressions beside it.
 export function Equivalents({ results }: { results: Results }) {
   const { vth, rth, isc } = results;
+  const inS = resultsInS(results);
   return (
-    <div className="grid gap-4 sm:grid-cols-2">
-      <figure className="flex items-start gap-3 rounded border border-rule bg-white/50 p-3">
+    <div className="grid gap-4 min-[1700px]:grid-cols-2">
+      <figure className="flex min-w-0 flex-col items-start gap-3 rounded border border-rule bg-white/50 p-3 sm:flex-row">
         <TheveninSymbol />
-        <figcaption className="min-w-0 text-sm">
+        <figcaption className="w-full min-w-0 text-sm">
           <p className="font-medium">Thevenin equivalent</p>
           {vth && rth ? (
-            <div className="mt-1 space-y-1 overflow-x-auto">
-              <MathTex tex={`V_{\\mathrm{th}} = ${vth.compactTex}`} />
-              <br />
-              <MathTex tex={`R_{\\mathrm{th}} = ${rth.compactTex}`} />
+            <div className="mt-1 space-y-1">
+              <Formula lhs={resultTex("vth", inS)} tex={vth.compactTex} />
+              <Formula lhs={resultTex("rth", inS)} tex={rth.compactTex} />
             </div>
           ) : (
             <p className="mt-1 text-ink/70">No Thevenin form: {rth ? "" : "the port is an ideal current source (Rth unbounded)."}</p>
           )}
         </figcaption>
       </figure>
-      <figure className="flex items-start gap-3 rounded border border-rule bg-white/50 p-3">
+      <figure className="flex min-w-0 flex-col items-start gap-3 rounded border border-rule bg-white/50 p-3 sm:flex-row">
         <NortonSymbol />
-        <figcaption className="min-w-0 text-sm">
+        <figcaption className="w-full min-w-0 text-sm">
           <p className="font-medium">Norton equivalent</p>
           {isc && rth ? (
-            <div className="mt-1 space-y-1 overflow-x-auto">
-              <MathTex tex={`I_{\\mathrm{sc}} = ${isc.compactTex}`} />
-              <br />
-              <MathTex tex={`R_{\\mathrm{th}} = ${rth.compactTex}`} />
+            <div className="mt-1 space-y-1">
+              <Formula lhs={resultTex("isc", inS)} tex={isc.compactTex} />
+              <Formula lhs={resultTex("rth", inS)} tex={rth.compactTex} />
             </div>
           ) : (
             <p className="mt-1 text-ink/70">No Norton form: {isc ? "" : "the port is an ideal voltage source (Rth = 0)."}</p>

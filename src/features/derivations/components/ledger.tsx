@@ -1,10 +1,9 @@
 import { Caution } from "@/components/ui/caution";
-import { MathTex } from "@/components/ui/math";
+import { Formula } from "@/components/ui/formula";
 import { EmptyState } from "@/components/ui/states";
 import { StepComments, type ReviewContext } from "@/features/review/components/step-comments";
 import { useState } from "react";
 import type { Comment, NoteAnchor, Revision } from "@/types/api";
-import { CheckBadge, DimensionCheck } from "./check-badge";
 import { Equivalents } from "./equivalents";
 
 // The ledger: every stored step, numbered and typeset, with its review notes in the margin.
@@ -18,10 +17,6 @@ export function Ledger({ revision, comments, review }: { revision: Revision; com
   };
   return (
     <div>
-      <div className="flex flex-wrap items-center justify-between gap-2 border-b border-rule pb-2">
-        <CheckBadge results={results} />
-        <DimensionCheck results={results} />
-      </div>
       {results.statements.length > 0 && (
         <ul className="mt-2 space-y-0.5 text-sm" aria-label="Statements about the port">
           {results.statements.map((s) => (
@@ -42,7 +37,8 @@ export function Ledger({ revision, comments, review }: { revision: Revision; com
               key={step.id}
               id={`step-${step.id}`}
               data-step-kind={step.kind}
-              className="grid grid-cols-[1.75rem_minmax(0,1fr)_11rem] gap-x-3 border-b border-rule/70 py-3 print:break-inside-avoid"
+              // Notes sit in a margin beside the step on wide screens and fold under it below ~1400 px.
+              className="grid grid-cols-[1.5rem_minmax(0,1fr)] gap-x-3 border-b border-rule/70 py-3 min-[1400px]:grid-cols-[1.75rem_minmax(0,1fr)_11rem] print:break-inside-avoid"
             >
               <span className="pt-0.5 text-right font-mono text-xs text-ink/50">{index + 1}</span>
               <div className="min-w-0">
@@ -52,13 +48,9 @@ export function Ledger({ revision, comments, review }: { revision: Revision; com
                     {step.explanation}
                   </p>
                 )}
-                {step.tex && (
-                  <div className="ledger-tex mt-1.5 overflow-x-auto text-[0.88rem]">
-                    <MathTex tex={step.tex} block />
-                  </div>
-                )}
+                {step.tex && <Formula tex={step.tex} label={`Step ${index + 1}`} className="ledger-tex mt-1.5 text-[0.88rem]" />}
               </div>
-              <div className="border-l border-dashed border-rule pl-3">
+              <div className="col-start-2 mt-2 min-w-0 border-t border-dashed border-rule pt-1 empty:hidden min-[1400px]:col-start-3 min-[1400px]:mt-0 min-[1400px]:border-l min-[1400px]:border-t-0 min-[1400px]:pl-3 min-[1400px]:pt-0">
                 <StepComments
                   stepId={step.id}
                   stepTitle={`step ${index + 1}, ${step.title}`}

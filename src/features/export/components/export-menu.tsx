@@ -1,11 +1,12 @@
 import { useEffect, useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { NETLIST_EXTENSION, printNetlistText, type EngineNetwork } from "@/lib/engine-netlist";
-import type { Revision } from "@/types/api";
+import type { Revision, ValueSet } from "@/types/api";
+import { valueSetsCsv } from "@/features/value-sets/lib/export";
 import { downloadText, fileSafe, ledgerLatex } from "../lib/latex";
 
 // Export of one revision: the ledger as LaTeX, the network as our JSON and as our text, and print.
-export function ExportMenu({ revision }: { revision: Revision }) {
+export function ExportMenu({ revision, valueSets = [] }: { revision: Revision; valueSets?: ValueSet[] }) {
   const [open, setOpen] = useState(false);
   const menu = useRef<HTMLDivElement>(null);
   useEffect(() => {
@@ -34,9 +35,14 @@ export function ExportMenu({ revision }: { revision: Revision }) {
       </Button>
       {open && (
         <div role="menu" className="absolute right-0 z-20 mt-1 w-64 rounded border border-rule bg-paper py-1 shadow-lg">
-          <button role="menuitem" type="button" className={item} onClick={choose(() => downloadText(`${base}.tex`, ledgerLatex(revision), "application/x-tex"))}>
-            Ledger as LaTeX (.tex)
+          <button role="menuitem" type="button" className={item} onClick={choose(() => downloadText(`${base}.tex`, ledgerLatex(revision, valueSets), "application/x-tex"))}>
+            Ledger as LaTeX (.tex){valueSets.length > 0 ? ", with the value sets" : ""}
           </button>
+          {valueSets.length > 0 && (
+            <button role="menuitem" type="button" className={item} onClick={choose(() => downloadText(`${base}-value-sets.csv`, valueSetsCsv(valueSets), "text/csv"))}>
+              Value sets as CSV (.csv)
+            </button>
+          )}
           <button role="menuitem" type="button" className={item} onClick={choose(() => downloadText(`${base}.json`, `${JSON.stringify(revision.circuit, null, 2)}\n`, "application/json"))}>
             Network as JSON (.json)
           </button>

@@ -1,4 +1,5 @@
-import type { Revision } from "@/types/api";
+import type { Revision, ValueSet } from "@/types/api";
+import { valueSetsLatex } from "@/features/value-sets/lib/export";
 
 // Plain text into LaTeX text mode: every special character escaped, so titles cannot inject commands.
 export function latexText(text: string): string {
@@ -8,7 +9,7 @@ export function latexText(text: string): string {
 }
 
 /** The whole ledger as a stand-alone LaTeX document (amsmath), one subsection per step. */
-export function ledgerLatex(revision: Revision): string {
+export function ledgerLatex(revision: Revision, valueSets: ValueSet[] = []): string {
   const lines = [
     "\\documentclass[11pt]{article}",
     "\\usepackage{amsmath,amssymb}",
@@ -30,6 +31,7 @@ export function ledgerLatex(revision: Revision): string {
   if (vth) lines.push(`\\[ V_{\\mathrm{th}} = ${vth.compactTex} \\]`);
   if (rth) lines.push(`\\[ R_{\\mathrm{th}} = ${rth.compactTex} \\]`);
   if (isc) lines.push(`\\[ I_{\\mathrm{sc}} = ${isc.compactTex} \\]`);
+  lines.push("", ...valueSetsLatex(valueSets));
   lines.push("\\end{document}", "");
   return lines.join("\n");
 }

@@ -1,5 +1,7 @@
-import { useId, useRef } from "react";
+import { useId, useRef, useState } from "react";
 import type { Diagnostic } from "@/types/api";
+import { entryForDiagnostic } from "../lib/syntax-entries";
+import { SyntaxReference } from "./syntax-reference";
 
 const LINE_HEIGHT = 20; // px; gutter, text and diagnostic bands share it so they stay aligned
 
@@ -8,13 +10,15 @@ export interface EditorDiagnostic {
   column?: number;
   message: string;
   severity: "error" | "warning";
+  /** The syntax reference entry that explains it. */
+  entry?: string;
 }
 
 export function editorDiagnostics(diagnostics: readonly Diagnostic[]): EditorDiagnostic[] {
   return diagnostics
     .filter((d) => typeof d.line === "number")
     // The position is shown by the editor itself, so a "line 3, column 7:" lead-in is not repeated.
-    .map((d) => ({ line: d.line!, column: d.column, message: d.message.replace(/^line \d+(, column \d+)?:\s*/i, ""), severity: d.severity === "warning" ? "warning" : "error" }));
+    .map((d) => ({ line: d.line!, column: d.column, message: d.message.replace(/^line \d+(, column \d+)?:\s*/i, ""), severity: d.severity === "warning" ? "warning" : "error", entry: entryForDiagnostic(d.code, d.message) }));
 }
 
 // A plain textarea with a line-numbered gutter; each diagnostic is shown on the line it names.
@@ -33,6 +37,7 @@ export function NetlistEditor({
 }) {
   const id = useId();
   const textarea = useRef<HTMLTextAreaElement>(null);
+  const [help, setHelp] = useState<{ entry?: string } | null>(null);
   const lines = value.split("\n");
   const lineCount = Math.max(lines.length, 8);
   const byLine = new Map<number, EditorDiagnostic>();
@@ -48,9 +53,15 @@ export function NetlistEditor({
 
   return (
     <div>
-      <label htmlFor={id} className="block text-sm font-medium">
-        {label}
-      </label>
+      <div className="flex items-baseline justify-between gap-2">
+        <label htmlFor={id} className="block text-sm font-medium">
+          {label}
+        </label>
+        <button type="button" className="text-xs text-copper hover:underline" onClick={() => setHelp({})}>
+          Syntax reference
+        </button>
+      </div>
+      <SyntaxReference open={help !== null} onClose={() => setHelp(null)} entry={help?.entry} />
       <div className="mt-1 flex overflow-x-auto rounded border border-rule bg-white font-mono text-[13px]" style={{ lineHeight: `${LINE_HEIGHT}px` }}>
         <div aria-hidden="true" className="select-none border-r border-rule bg-paper px-2 py-2 text-right text-ink/40">
           {Array.from({ length: lineCount }, (_, i) => {
@@ -68,10 +79,9 @@ export function NetlistEditor({
             {[...byLine.values()].map((d) => (
               <div
                 key={d.line}
-                className={`absolute inset-x-0 flex justify-end pr-2 text-[11px] ${d.severity === "error" ? "bg-signal/10 text-signal" : "bg-copper/10 text-copper"}`}
+                className={`absolute inset-x-0 ${d.severity === "error" ? "bg-signal/10" : "bg-copper/10"}`}
                 style={{ top: 8 + (d.line - 1) * LINE_HEIGHT, height: LINE_HEIGHT }}
               >
-                <span className="truncate pl-40">{d.message}</span>
               </div>
             ))}
           </div>
@@ -112,11 +122,16 @@ export function NetlistEditor({
       {diagnostics.length > 0 && (
         <ul className="mt-2 space-y-1 text-xs" aria-label="Netlist diagnostics">
           {diagnostics.map((d, i) => (
-            <li key={i}>
+            <li key={i} data-diagnostic-line={d.line}>
               <button type="button" onClick={() => goTo(d)} className={`text-left hover:underline ${d.severity === "error" ? "text-signal" : "text-copper"}`}>
                 Line {d.line}
                 {d.column ? `, column ${d.column}` : ""}: {d.message}
               </button>
+              {d.entry && (
+                <button type="button" className="ml-1.5 text-ink/60 underline decoration-dotted hover:text-copper" onClick={() => setHelp({ entry: d.entry })}>
+                  syntax help
+                </button>
+              )}
             </li>
           ))}
         </ul>

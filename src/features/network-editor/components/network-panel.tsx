@@ -4,8 +4,10 @@ import { ErrorState, Progress } from "@/components/ui/states";
 import { ApiError } from "@/lib/api-client";
 import type { EngineNetwork } from "@/lib/engine-netlist";
 import type { Diagnostic } from "@/types/api";
-import { printNetlistText } from "@/lib/engine-netlist";
+import { parseNetlistText } from "@/lib/engine-netlist";
+import { keepTypedLines } from "../lib/keep-lines";
 import { nodesOf, readNetlist, withPort } from "../lib/netlist";
+import { mergeDiagnostics, useLiveCheck } from "../lib/use-live-check";
 import { ElementTable } from "./element-table";
 import { NetlistEditor, editorDiagnostics } from "./netlist-editor";
 import { PortPicker } from "./port-picker";
@@ -68,10 +70,17 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
   const [lastGood, setLastGood] = useState<EngineNetwork | null>(read.network);
   if (read.network && read.network !== lastGood) setLastGood(read.network);
   const network = read.network ?? lastGood;
-  const errors = read.diagnostics.filter((d) => d.severity === "error");
+  // Everything a Solve would refuse, checked as the designer types (the engine runs in the browser too).
+  const cellDefinitions = useMemo(() => teamCells.data?.map((cell) => cell.definition), [teamCells.data]);
+  const live = useLiveCheck(text, read.network !== null, cellDefinitions);
+  const local = mergeDiagnostics(read.diagnostics, placeDiagnostics(live?.diagnostics ?? [], text));
+  const errors = local.filter((d) => d.severity === "error");
   const serverDiagnostics = [solveError, saveError].flatMap((e) => (e instanceof ApiError && e.diagnostics ? e.diagnostics : []));
-  const shown = editorDiagnostics([...read.diagnostics, ...placeDiagnostics(serverDiagnostics, text)]);
-  const unplaced = [...read.diagnostics, ...serverDiagnostics].filter((d) => d.line === undefined && !d.elements?.length);
+  const shown = editorDiagnostics(mergeDiagnostics(local, placeDiagnostics(serverDiagnostics, text)));
+  const unplaced = mergeDiagnostics(local, serverDiagnostics).filter((d) => d.line === undefined && !d.elements?.length);
+  const faults = faultsOf(mergeDiagnostics(local, serverDiagnostics));
+  // An edit made in the table or the drawing rewrites only the lines of the elements it touched.
+  const editElsewhere = (next: EngineNetwork) => onTextChange(keepTypedLines(text, next));
   const nodes = nodesOf(read.network);
 
   const tabButton = (value: Tab, label: string) => (
@@ -118,10 +127,12 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
                   layout={layout}
                   teamCells={teamCells.data?.map((cell) => cell.definition)}
                   readOnly={!canEdit}
-                  faults={faultsOf([...read.diagnostics, ...serverDiagnostics])}
+                  faults={faults}
                   onEdit={(nextText, nextLayout) => {
                     onLayoutChange?.(nextLayout);
-                    onTextChange(nextText);
+                    const next = parseNetlistText(nextText).network;
+                    if (next) editElsewhere(next);
+                    else onTextChange(nextText);
                   }}
                 />
               </>
@@ -129,7 +140,7 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
               <p className="text-sm text-ink/60">Fix the netlist to see the drawing.</p>
             )
           ) : (
-            <ElementTable network={read.network} readOnly={!canEdit} onChange={(next) => onTextChange(printNetlistText(next))} />
+            <ElementTable network={read.network} readOnly={!canEdit} onChange={editElsewhere} />
           )}
         </div>
         {unplaced.map((d, i) => (
@@ -155,7 +166,7 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
         <h2 id="schematic-heading" className="mb-1 text-sm font-medium">
           Schematic preview {!read.network && network && <span className="font-normal text-ink/50">(last version that read without errors)</span>}
         </h2>
-        <div className="rounded border border-rule bg-white/40 p-1">{network ? <Schematic network={network} /> : <p className="p-3 text-sm text-ink/60">Fix the netlist to see the drawing.</p>}</div>
+        <div className="rounded border border-rule bg-white/40 p-1">{network ? <Schematic network={network} faults={new Set(faults.keys())} /> : <p className="p-3 text-sm text-ink/60">Fix the netlist to see the drawing.</p>}</div>
       </section>
 
       {canEdit && (

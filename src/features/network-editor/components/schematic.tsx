@@ -53,7 +53,7 @@ export function hasPolarity(e: Element) {
   return e.kind === "voltage";
 }
 
-function Part({ part }: { part: PlacedPart }) {
+function Part({ part, faulty = false }: { part: PlacedPart; faulty?: boolean }) {
   const { element: e, x1, y1, x2, y2, reversed } = part;
   const vertical = x1 === x2;
   const cx = (x1 + x2) / 2;
@@ -66,7 +66,7 @@ function Part({ part }: { part: PlacedPart }) {
   const minusAt = at((reversed ? -1 : 1) * 6);
   const value = e.kind === "opamp" ? "" : e.value;
   return (
-    <g>
+    <g className={faulty ? "text-signal" : undefined} data-fault={faulty ? e.name : undefined}>
       <title>{`${e.name}: ${e.kind}${value ? `, ${value}` : ""}`}</title>
       {vertical ? (
         <path d={`M${x1} ${y1}V${y1 + lead}M${x2} ${y2}V${y2 - lead}`} />
@@ -99,11 +99,11 @@ function Part({ part }: { part: PlacedPart }) {
   );
 }
 
-function Opamp({ opamp }: { opamp: PlacedOpamp }) {
+function Opamp({ opamp, faulty = false }: { opamp: PlacedOpamp; faulty?: boolean }) {
   const { x, y, element } = opamp;
   const base = y + 40;
   return (
-    <g>
+    <g className={faulty ? "text-signal" : undefined} data-fault={faulty ? element.name : undefined}>
       <title>{`${element.name}: ideal op-amp, + ${element.inputs[0]}, − ${element.inputs[1]}, output ${element.output}`}</title>
       <path d={`M${x} ${y}L${x + 22} ${base}H${x - 22}Z`} fill="#FAF8F3" />
       <path d={`M${x - 10} ${base}V${base + 12}M${x + 10} ${base}V${base + 12}`} />
@@ -119,7 +119,8 @@ function Opamp({ opamp }: { opamp: PlacedOpamp }) {
 }
 
 // The automatically drawn preview of what was entered: standard symbols on a faint dotted grid.
-export function Schematic({ network, title = "Schematic preview" }: { network: EngineNetwork; title?: string }) {
+/** `faults`: names of elements a diagnostic points at, drawn in signal red. */
+export function Schematic({ network, title = "Schematic preview", faults }: { network: EngineNetwork; title?: string; faults?: ReadonlySet<string> }) {
   const gridId = useId().replace(/:/g, "");
   if (network.elements.length === 0) return <p className="text-sm text-ink/60">Nothing to draw yet.</p>;
   const layout = layoutSchematic(network);
@@ -152,10 +153,10 @@ export function Schematic({ network, title = "Schematic preview" }: { network: E
           />
         )}
         {layout.parts.map((part, i) => (
-          <Part key={i} part={part} />
+          <Part key={i} part={part} faulty={faults?.has(part.element.name)} />
         ))}
         {layout.opamps.map((opamp, i) => (
-          <Opamp key={i} opamp={opamp} />
+          <Opamp key={i} opamp={opamp} faulty={faults?.has(opamp.element.name)} />
         ))}
       </g>
       <g fill="currentColor">

@@ -7,6 +7,8 @@ export interface CreateNetworkInput {
   title: string;
   description?: string;
   circuit: Circuit;
+  /** The text as typed, when the network was written as a netlist. */
+  netlist?: string | null;
 }
 
 export function createNetwork({ teamId, ...input }: CreateNetworkInput) {

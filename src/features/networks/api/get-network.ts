@@ -13,6 +13,7 @@ export function normaliseNetwork(raw: Loose): Network {
     title: String(raw.title ?? ""),
     description: String(raw.description ?? ""),
     circuit: (raw.circuit ?? { port: { plus: "", minus: "0" }, elements: [] }) as Network["circuit"],
+    netlist: typeof raw.netlist === "string" ? raw.netlist : null,
     quantities: (raw.quantities ?? {}) as Record<string, string>,
     author: typeof author === "string" ? author : (author?.name ?? null),
     authorId: typeof author === "object" && author ? (author.id ?? null) : null,

@@ -19,6 +19,8 @@ export function ImportNetworkDialog({ teamId, open, onClose }: { teamId: string;
   const tooLarge = file ? file.size > MAX_BYTES : false;
   const error = importNetwork.error;
   const lines = error instanceof ApiError && error.fields ? Object.entries(error.fields) : [];
+  // Each diagnostic the server read in the file, with its line and column.
+  const diagnostics = error instanceof ApiError ? (error.diagnostics ?? []) : [];
   return (
     <Dialog open={open} onClose={onClose} title="Import a network from a file">
       <form
@@ -39,7 +41,17 @@ export function ImportNetworkDialog({ teamId, open, onClose }: { teamId: string;
         <TextField label="Title (optional; taken from the file otherwise)" value={title} onChange={(e) => setTitle(e.target.value)} />
         {error && (
           <ErrorState error={error} title="The file could not be imported">
-            {lines.length > 0 && (
+            {diagnostics.length > 0 && (
+              <ul className="mt-1 max-h-48 space-y-0.5 overflow-y-auto text-xs" aria-label="Problems in the file">
+                {diagnostics.map((d, i) => (
+                  <li key={i} className="font-mono">
+                    {d.line !== undefined ? `line ${d.line}${d.column !== undefined ? `, column ${d.column}` : ""}: ` : d.path ? `${d.path.join(".")}: ` : ""}
+                    <span className="font-sans">{d.message.replace(/^line \d+(, column \d+)?:\s*/i, "")}</span>
+                  </li>
+                ))}
+              </ul>
+            )}
+            {diagnostics.length === 0 && lines.length > 0 && (
               <ul className="mt-1 list-disc pl-4 text-xs">
                 {lines.map(([where, message]) => (
                   <li key={where}>

@@ -114,6 +114,7 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
           </EmptyState>
         ) : (
           <>
+            <div className="overflow-x-auto">
             <table className="w-full border-collapse text-sm">
               <caption className="sr-only">Networks of the team, sorted by {sort}</caption>
               <thead>
@@ -154,6 +155,7 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
                 ))}
               </tbody>
             </table>
+            </div>
             <Pager page={data.page} pageSize={data.pageSize} total={data.total} onPage={setPage} />
           </>
         )}

@@ -11,13 +11,22 @@ export function CreateTeamForm() {
   const [name, setName] = useState("");
   return (
     <form
-      className="flex items-end gap-2"
+      className="flex flex-wrap items-end gap-2"
       onSubmit={(event) => {
         event.preventDefault();
-        create.mutate({ name: name.trim() }, { onSuccess: (team) => navigate(`/teams/${team.id}`) });
+        create.mutate(
+          { name: name.trim() },
+          {
+            onSuccess: (team) => {
+              // The field empties, so coming back to this page does not offer the same team again.
+              setName("");
+              navigate(`/teams/${team.id}`);
+            },
+          },
+        );
       }}
     >
-      <TextField label="New team" required value={name} onChange={(e) => setName(e.target.value)} className="w-64" placeholder="e.g. Power stage reviews" />
+      <TextField label="New team" required value={name} onChange={(e) => setName(e.target.value)} className="w-full max-w-64" placeholder="e.g. Power stage reviews" />
       <Button type="submit" disabled={create.isPending || !name.trim()}>
         {create.isPending ? "Creating…" : "Create team"}
       </Button>

@@ -15,6 +15,7 @@ export function TeamMembers({ teamId, isOwner, currentUserId }: { teamId: string
   if (members.isError) return <ErrorState error={members.error} title="The members could not be loaded" />;
   return (
     <div>
+      <div className="overflow-x-auto">
       <table className="w-full max-w-2xl text-sm">
         <caption className="sr-only">Members of the team</caption>
         <thead>
@@ -67,6 +68,7 @@ export function TeamMembers({ teamId, isOwner, currentUserId }: { teamId: string
           ))}
         </tbody>
       </table>
+      </div>
       <InlineError error={change.error ?? remove.error} />
     </div>
   );
