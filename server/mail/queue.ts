@@ -105,6 +105,12 @@ export async function mailQueueReport(db: Database, settings: Pick<MailQueueSett
   return { pending: await list(settings.queue, ["created", "retry", "active"]), dead: await list(deadLetterQueue(settings), ["created", "retry", "active", "failed"]) };
 }
 
+// Drops a queue and its dead-letter queue with every job in them (a throwaway queue's end).
+export async function deleteMailQueues(boss: PgBoss, settings: Pick<MailQueueSettings, "queue">): Promise<void> {
+  await boss.deleteQueue(settings.queue);
+  await boss.deleteQueue(deadLetterQueue(settings));
+}
+
 export async function stopMailBoss(boss: PgBoss): Promise<void> {
   // Graceful: an active delivery may finish (bounded by the SMTP timeouts), then the pool closes.
   await boss.stop({ graceful: true, wait: true, timeout: 5_000 });

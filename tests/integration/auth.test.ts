@@ -143,7 +143,7 @@ describe("sign-up, sign-in, sign-out and password reset", () => {
     const response = await new ApiClient(server.url).post("/api/auth/password-reset", { email });
     expect(response.status).toBe(202);
     // Mail is queued: once the queue is empty, anything sent would be in the mailbox.
-    await waitForMailQueue(server.db);
+    await waitForMailQueue(server);
     expect(await mailCount(server.db, email)).toBe(0);
   });
 

@@ -109,7 +109,7 @@ describe("e-mail through the SMTP capture server", () => {
     const refused = await unconfirmed.client.post(`/api/teams/${ownTeam.body.id}/invitations`, { email: target, role: "viewer" });
     expect(refused.status).toBe(403);
     expect(refused.body.error.code).toBe("email_unverified");
-    await waitForMailQueue(server.db);
+    await waitForMailQueue(server);
     expect(await mailCount(server.db, target)).toBe(0);
   });
 

@@ -146,7 +146,7 @@ describe("review sign-off", () => {
 
     const counts = async () => Object.fromEntries(await Promise.all([team.people.reviewer, second, author, team.people.owner, team.people.viewer].map(async (p) => [p.user.id, await mailCount(server.db, p.user.email)])));
     // Mail is queued: the earlier replies' mails are delivered before counting.
-    await waitForMailQueue(server.db);
+    await waitForMailQueue(server);
     const before = await counts();
     const since = new Date();
     await author.client.post(`${rev(1)}/comments`, { stepId: steps[1].id, body: "Typical value, 75 ohm.", parentId: thread.id });
@@ -154,7 +154,7 @@ describe("review sign-off", () => {
       const mail = await waitForMail(server.db, person.user.email, { since, subject: /New reply/ });
       expect(mail.text).toContain("Typical value, 75 ohm.");
     }
-    await waitForMailQueue(server.db);
+    await waitForMailQueue(server);
     const after = await counts();
     expect(after[team.people.reviewer.user.id]).toBe(before[team.people.reviewer.user.id] + 1);
     expect(after[second.user.id]).toBe(before[second.user.id] + 1);

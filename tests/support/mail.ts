@@ -34,14 +34,14 @@ export function linkIn(mail: CapturedMail, path: string): URL {
 
 // Mail is delivered by the queue's worker after the request: wait until the queue holds nothing
 // still to deliver, so counts taken next include every mail of the requests made so far.
-export async function waitForMailQueue(db: Database, options: { queue?: string; timeoutMs?: number } = {}): Promise<void> {
+export async function waitForMailQueue(server: { db: Database; mailQueue: string }, options: { timeoutMs?: number } = {}): Promise<void> {
   const deadline = Date.now() + (options.timeoutMs ?? 10_000);
   for (;;) {
-    const { rows } = await db.execute<{ n: number }>(
-      sql`select count(*)::int as n from pgboss.job where name = ${options.queue ?? "mail"} and state::text in ('created', 'retry', 'active')`,
+    const { rows } = await server.db.execute<{ n: number }>(
+      sql`select count(*)::int as n from pgboss.job where name = ${server.mailQueue} and state::text in ('created', 'retry', 'active')`,
     );
     if (rows[0].n === 0) return;
-    if (Date.now() > deadline) throw new Error(`the ${options.queue ?? "mail"} queue still holds ${rows[0].n} mail`);
+    if (Date.now() > deadline) throw new Error(`the ${server.mailQueue} queue still holds ${rows[0].n} mail`);
     await new Promise((resolve) => setTimeout(resolve, 50));
   }
 }

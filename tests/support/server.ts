@@ -1,5 +1,6 @@
 // Starts the real Express app on an ephemeral loopback port against the test database,
 // with the SMTP capture server in-process on its own ephemeral port.
+import { randomUUID } from "node:crypto";
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { createServer, type Server } from "node:http";
 import { tmpdir } from "node:os";
@@ -11,7 +12,7 @@ import { defaultSettings, type AppSettings } from "../../server/config.js";
 import { createDatabase, createPool } from "../../server/db/client.js";
 import { startCaptureServer, type CaptureServer } from "../../server/mail/capture-server.js";
 import { createSmtpMailer, type Mailer, type SmtpTarget } from "../../server/mail/mailer.js";
-import { createQueuedMailer, startMailBoss, startMailWorker, stopMailBoss, type MailQueueSettings } from "../../server/mail/queue.js";
+import { createQueuedMailer, deleteMailQueues, startMailBoss, startMailWorker, stopMailBoss, type MailQueueSettings } from "../../server/mail/queue.js";
 import { createSolver, type Solver } from "../../server/solver/pool.js";
 
 export interface TestServer {
@@ -22,6 +23,8 @@ export interface TestServer {
   solver: Solver;
   // The queued mailer the app uses (requests enqueue; this server's worker delivers).
   mailer: Mailer;
+  // This server's own mail queue: what other test servers left queued never holds up its waits.
+  mailQueue: string;
   close(): Promise<void>;
 }
 
@@ -40,7 +43,7 @@ export interface TestServerOptions {
 }
 
 // Quick retries, so a failing delivery reaches the dead-letter queue within a test.
-const testMailQueue: MailQueueSettings = { queue: "mail", retryLimit: 5, retryDelaySeconds: 1, retryBackoff: false };
+const testMailQueue: Omit<MailQueueSettings, "queue"> = { retryLimit: 5, retryDelaySeconds: 1, retryBackoff: false };
 
 // Generous by default: only the rate-limit tests want to hit the limits.
 const testLimits: Partial<AppSettings["limits"]> = { loginFailuresPer15Min: 1_000, passwordResetsPer15Min: 1_000, signupsPerHour: 1_000 };
@@ -71,7 +74,8 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     limits: { ...defaultSettings().limits, ...testLimits, ...options.limits },
     solve: { ...defaultSettings().solve, ...testSolve, ...options.solve },
   };
-  const mailQueue = { ...testMailQueue, ...options.mailQueue };
+  const ownQueue = !options.mailQueue?.queue;
+  const mailQueue: MailQueueSettings = { queue: `mail-test-${randomUUID().slice(0, 8)}`, ...testMailQueue, ...options.mailQueue };
   settings.mailQueue = mailQueue;
   // A database that is away (the fault tests) leaves the server without a queue: mail is then not sent.
   const boss = await startMailBoss(options.databaseUrl ?? testDatabaseUrl(), mailQueue).catch(() => null);
@@ -89,11 +93,16 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     capture,
     solver,
     mailer,
+    mailQueue: mailQueue.queue,
     close: async () => {
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await solver.close();
-      if (boss) await stopMailBoss(boss);
+      if (boss) {
+        // A queue made for this server alone goes with it (pg-boss keeps a table per queue).
+        if (ownQueue) await deleteMailQueues(boss, mailQueue).catch(() => undefined);
+        await stopMailBoss(boss);
+      }
       await capture.close();
       await pool.end();
     },
