@@ -27,6 +27,7 @@ import { sharePageRouter } from "./routes/share-page.js";
 import { sharesRouter } from "./routes/shares.js";
 import { teamsRouter } from "./routes/teams.js";
 import { createSolver, type Solver } from "./solver/pool.js";
+import type { SolveQueue } from "./domain/solve-queue.js";
 
 export { redactTokens } from "./lib/logging.js";
 
@@ -40,6 +41,8 @@ export interface AppContext {
   // The solver threads; the caller that passes them closes them. Without, the app makes its own
   // (threads start on the first solve).
   solver?: Solver;
+  // The solve queue requests send to (server/domain/solve-queue.ts); without, a solve the cache cannot answer is 503.
+  solveQueue?: SolveQueue;
 }
 
 // PostgreSQL text and jsonb cannot hold U+0000; refusing it while parsing makes it a 400, not a database error.
@@ -53,7 +56,7 @@ export function createApp(context: AppContext): Express {
   const log = context.logger ?? createLogger(settings.logLevel);
   const mailer = context.mailer ?? createSmtpMailer(smtpTarget(), settings.mailFrom, log);
   const solver = context.solver ?? createSolver(settings.solve);
-  const services: Services = { db: context.db, auth: createLucia(context.db, { secureCookie: settings.production }), mailer, solver, settings, log };
+  const services: Services = { db: context.db, auth: createLucia(context.db, { secureCookie: settings.production }), mailer, solver, solveQueue: context.solveQueue ?? null, settings, log };
 
   const app = express();
   app.disable("x-powered-by");

@@ -52,7 +52,7 @@ export const config = {
     smtpPassword: env.SMTP_PASSWORD ?? "",
     from: env.MAIL_FROM ?? "Portfold <no-reply@portfold.local>",
     capturePort: numberFrom("MAIL_CAPTURE_PORT", 2525),
-    // Each server process delivers queued mail unless MAIL_WORKER=false (then run `npm run mail:worker`).
+    // Each server process delivers queued mail unless MAIL_WORKER=false (then run `npm run worker`).
     worker: env.MAIL_WORKER !== "false",
     retryLimit: numberFrom("MAIL_RETRY_LIMIT", 5),
     retryDelaySeconds: numberFrom("MAIL_RETRY_DELAY_SECONDS", 30),
@@ -78,8 +78,11 @@ export const config = {
     // Bytes of steps each process keeps in memory for repeated reads of the same revisions.
     stepCacheBytes: numberFrom("STEP_CACHE_MB", 64) * 1024 * 1024,
     waitMs: numberFrom("SOLVE_WAIT_MS", 2_000),
+    // Each server process runs queued solves unless SOLVE_WORKER=false (then run `npm run worker`).
+    worker: env.SOLVE_WORKER !== "false",
+    // Solves waiting to start, over every process; beyond, 503.
     queueMax: numberFrom("SOLVE_QUEUE_MAX", 32),
-    // Solves queued or running at once for one person and for one team (per process); beyond, 429.
+    // Solves queued or running at once for one person and for one team, over every process; beyond, 429.
     maxPerUser: numberFrom("SOLVE_MAX_PER_USER", 4),
     maxPerTeam: numberFrom("SOLVE_MAX_PER_TEAM", 8),
   },

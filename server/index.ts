@@ -1,15 +1,12 @@
 import { eq } from "drizzle-orm";
 import { createApp } from "./app.js";
-import { config, defaultSettings, isProduction } from "./config.js";
+import { config, isProduction } from "./config.js";
 import { createDatabase, createPool } from "./db/client.js";
 import { demoReviewer, demoShareToken, demoUser } from "./db/demo-data.js";
 import { users } from "./db/schema.js";
 import { startCaptureServerNear, type CaptureServer } from "./mail/capture-server.js";
-import { createSmtpMailer, smtpTarget } from "./mail/mailer.js";
-import { createQueuedMailer, startMailBoss, startMailWorker, stopMailBoss } from "./mail/queue.js";
+import { startProcessJobs } from "./jobs/start.js";
 import { createLogger } from "./lib/logging.js";
-import { createSolver } from "./solver/pool.js";
-import { failInterruptedJobs } from "./domain/solve-jobs.js";
 
 const log = createLogger(config.logLevel);
 const pool = createPool(config.databaseUrl, config.dbPoolSize);
@@ -22,17 +19,10 @@ if (!config.mail.smtpHost) {
   capture = await startCaptureServerNear(db, config.mail.capturePort);
   console.log(`[portfold] mail capture (SMTP) on ${capture.host}:${capture.port}${isProduction ? "" : `; read it at ${ownUrl}/dev/mailbox`}`);
 }
-// Jobs this process left unfinished when it last stopped are failed now, not after the staleness wait.
-const interrupted = await failInterruptedJobs(db, config.instanceName).catch(() => 0);
-if (interrupted > 0) log.warn({ interrupted }, "solve jobs left unfinished by the previous run were marked failed");
-const solver = createSolver(defaultSettings().solve);
-// Threads start now, so the first solve does not wait for the engine to load.
-solver.warm();
-// Requests only enqueue mail; this process's worker (unless MAIL_WORKER=false) delivers it over SMTP.
-const mailQueue = defaultSettings().mailQueue;
-const boss = await startMailBoss(config.databaseUrl, mailQueue, log);
-if (config.mail.worker) await startMailWorker(boss, mailQueue, createSmtpMailer(smtpTarget(capture?.port), config.mail.from, log));
-const app = createApp({ pool, db, logger: log, solver, mailer: createQueuedMailer(boss, mailQueue, log) });
+// Requests only enqueue mail and solves; this process's workers (unless MAIL_WORKER / SOLVE_WORKER are
+// false) deliver the mail over SMTP and run the solves on its threads.
+const { solver, jobs } = await startProcessJobs(db, log, { deliverMail: config.mail.worker, solve: config.solve.worker, capturePort: capture?.port });
+const app = createApp({ pool, db, logger: log, solver, mailer: jobs.mailer, solveQueue: jobs.solveQueue });
 
 const server = app.listen(config.port, config.host, async () => {
   console.log(`[portfold] serving on ${ownUrl}`);
@@ -44,7 +34,7 @@ const server = app.listen(config.port, config.host, async () => {
 });
 
 function shutdown() {
-  server.close(() => void stopMailBoss(boss).then(() => Promise.all([pool.end(), capture?.close(), solver.close()])).then(() => process.exit(0)));
+  server.close(() => void jobs.stop().then(() => Promise.all([pool.end(), capture?.close(), solver.close()])).then(() => process.exit(0)));
 }
 process.on("SIGINT", shutdown);
 process.on("SIGTERM", shutdown);

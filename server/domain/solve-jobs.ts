@@ -1,6 +1,6 @@
-// Solve jobs: a solve that outlives the request's wait becomes a row the client polls
-// (queued → solving → done | failed). Rows live in PostgreSQL, so any server can answer the poll.
-import { and, eq, inArray, lt } from "drizzle-orm";
+// Solve jobs: every solve the cache cannot answer is a row (queued → solving → done | failed) and a
+// pg-boss job (server/domain/solve-queue.ts). Rows live in PostgreSQL, so any server can answer the poll.
+import { and, eq, inArray, lt, sql } from "drizzle-orm";
 import type { SolveSettings } from "../config.js";
 import type { Database } from "../db/client.js";
 import { networks, solveJobs, type SolveJobStatus } from "../db/schema.js";
@@ -53,74 +53,113 @@ function view(id: string, networkId: string, slug: string, progress: Progress): 
 const dayMs = 24 * 60 * 60 * 1000;
 let lastPrune = 0;
 
+export type SolveJobRow = typeof solveJobs.$inferSelect;
+
+/** The one channel a finished job is announced on (payload: its id), for the requests waiting on it. */
+export const solveJobChannel = "portfold_solve_jobs";
+
+export function solveJobView(row: SolveJobRow, slug: string): SolveJobView {
+  return view(row.id, row.networkId, slug, { ...row, error: row.error as Record<string, unknown> | null });
+}
+
+export interface SolveAdmission {
+  job: SolveJobRow;
+  // pg-boss priority (higher first): minus the team's solves already queued or running, so a free
+  // worker takes the next solve of the team with the fewest in hand (fair order between teams).
+  priority: number;
+}
+
 /**
- * Follows one solve in memory and writes it to solve_jobs only once `persist` is called (when the
- * request stops waiting), so a solve answered within the wait leaves no job row behind.
+ * Admits one solve as a queued job row, or refuses it per person and per team (queued plus running,
+ * over every process; the queue as a whole is the solve queue's own count). The counts and the insert run in
+ * one transaction under advisory locks on the person and the team, so concurrent requests cannot both
+ * take the last place. Rows older than the staleness bound no longer count (their server is gone).
  */
-export class SolveJobRecorder {
-  private progress: Progress = { status: "queued", cacheHit: null, revisionNumber: null, error: null, createdAt: new Date(), startedAt: null, finishedAt: null };
-  private id: Promise<string> | null = null;
-  // Writes run one after another, each with the latest progress, so the row never goes backwards.
-  private writes: Promise<unknown> = Promise.resolve();
+export async function admitSolveJob(
+  db: Database,
+  settings: SolveSettings,
+  owner: { userId: string; teamId: string; networkId: string },
+): Promise<SolveAdmission> {
+  const since = new Date(Date.now() - staleAfterMs(settings));
+  const admission = await db.transaction(async (tx) => {
+    await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${`solve-user:${owner.userId}`}))`);
+    await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${`solve-team:${owner.teamId}`}))`);
+    const { rows } = await tx.execute<{ mine: number; ours: number }>(sql`
+      select count(*) filter (where j.requested_by = ${owner.userId})::int as mine,
+             count(*) filter (where n.team_id = ${owner.teamId})::int as ours
+        from ${solveJobs} j join ${networks} n on n.id = j.network_id
+       where j.status in ('queued', 'solving') and coalesce(j.started_at, j.created_at) > ${since.toISOString()}`);
+    const { mine, ours } = rows[0];
+    if (mine >= settings.maxPerUser) return new SolveLimitError("user", mine, settings.maxPerUser);
+    if (ours >= settings.maxPerTeam) return new SolveLimitError("team", ours, settings.maxPerTeam);
+    const [job] = await tx.insert(solveJobs).values({ networkId: owner.networkId, requestedBy: owner.userId, status: "queued" }).returning();
+    return { job, priority: -ours };
+  });
+  if (admission instanceof Error) throw admission;
+  if (Date.now() - lastPrune > 60 * 60 * 1000) {
+    lastPrune = Date.now();
+    // Finished jobs matter only while a client polls; a day later they are history nobody reads.
+    void db.delete(solveJobs).where(lt(solveJobs.finishedAt, new Date(Date.now() - dayMs))).catch(() => undefined);
+  }
+  return admission;
+}
 
+/** One person or one team already has as many solves queued or running as it may. */
+export class SolveLimitError extends Error {
   constructor(
-    private readonly db: Database,
-    private readonly network: { id: string; slug: string },
-    private readonly userId: string,
-    private readonly runner: string,
-  ) {}
-
-  started(): void {
-    if (this.progress.status !== "queued") return;
-    this.progress = { ...this.progress, status: "solving", startedAt: new Date() };
-    this.writeThrough();
+    readonly scope: "user" | "team",
+    readonly count: number,
+    readonly limit: number,
+  ) {
+    super(`${scope} solve limit reached`);
   }
+}
 
-  finished(revisionNumber: number, cacheHit: boolean): void {
-    const now = new Date();
-    this.progress = { ...this.progress, status: "done", revisionNumber, cacheHit, startedAt: this.progress.startedAt ?? now, finishedAt: now };
-    this.writeThrough();
-  }
+/** A solve the cache answered, as the finished job a client that asked for the job at once (wait 0) polls. */
+export async function recordAnsweredJob(db: Database, owner: { userId: string; networkId: string; runner: string }, revisionNumber: number): Promise<SolveJobRow> {
+  const now = new Date();
+  const [job] = await db
+    .insert(solveJobs)
+    .values({ networkId: owner.networkId, requestedBy: owner.userId, runner: owner.runner, status: "done", cacheHit: true, revisionNumber, startedAt: now, finishedAt: now })
+    .returning();
+  return job;
+}
 
-  failed(error: Record<string, unknown>): void {
-    this.progress = { ...this.progress, status: "failed", error, finishedAt: new Date() };
-    this.writeThrough();
-  }
+/** A worker takes a queued job: it names itself the runner; false when the job is no longer queued. */
+export async function takeSolveJob(db: Database, id: string, runner: string): Promise<boolean> {
+  const taken = await db.update(solveJobs).set({ runner }).where(and(eq(solveJobs.id, id), eq(solveJobs.status, "queued"))).returning({ id: solveJobs.id });
+  return taken.length === 1;
+}
 
-  async persist(): Promise<SolveJobView> {
-    this.id ??= this.insert();
-    return view(await this.id, this.network.id, this.network.slug, this.progress);
-  }
+export async function markSolving(db: Database, id: string): Promise<void> {
+  await db.update(solveJobs).set({ status: "solving", startedAt: new Date() }).where(and(eq(solveJobs.id, id), eq(solveJobs.status, "queued")));
+}
 
-  private async insert(): Promise<string> {
-    const [row] = await this.db
-      .insert(solveJobs)
-      .values({ networkId: this.network.id, requestedBy: this.userId, runner: this.runner, ...this.progress })
-      .returning({ id: solveJobs.id });
-    if (Date.now() - lastPrune > 60 * 60 * 1000) {
-      lastPrune = Date.now();
-      // Finished jobs matter only while a client polls; a day later they are history nobody reads.
-      void this.db.delete(solveJobs).where(lt(solveJobs.finishedAt, new Date(Date.now() - dayMs))).catch(() => undefined);
-    }
-    return row.id;
-  }
+/** Done or failed, announced to whoever waits on the job. */
+export async function finishSolveJob(db: Database, id: string, outcome: { revisionNumber: number; cacheHit: boolean } | { error: Record<string, unknown> }): Promise<void> {
+  const now = new Date();
+  const changes = "error" in outcome
+    ? { status: "failed" as const, error: outcome.error, finishedAt: now }
+    : { status: "done" as const, revisionNumber: outcome.revisionNumber, cacheHit: outcome.cacheHit, finishedAt: now };
+  await db.transaction(async (tx) => {
+    await tx.update(solveJobs).set({ ...changes, startedAt: sql`coalesce(${solveJobs.startedAt}, now())` }).where(eq(solveJobs.id, id));
+    await tx.execute(sql`select pg_notify(${solveJobChannel}, ${id})`);
+  });
+}
 
-  private writeThrough(): void {
-    const id = this.id;
-    if (!id) return;
-    this.writes = this.writes
-      .then(async () => {
-        const { createdAt: _created, ...changes } = this.progress;
-        await this.db.update(solveJobs).set(changes).where(eq(solveJobs.id, await id));
-      })
-      // A lost update (database briefly away) leaves the job to the staleness rule below.
-      .catch(() => undefined);
-  }
+/** A job whose end the request answered itself: nobody will poll it, so it leaves no row behind. */
+export async function forgetSolveJob(db: Database, id: string): Promise<void> {
+  await db.delete(solveJobs).where(eq(solveJobs.id, id));
+}
+
+export async function readSolveJob(db: Database, id: string): Promise<SolveJobRow | null> {
+  const [row] = await db.select().from(solveJobs).where(eq(solveJobs.id, id));
+  return row ?? null;
 }
 
 const interrupted = { code: "solve_interrupted", message: "The server running this solve stopped before it finished; solve the network again." };
 
-/** At start-up: the jobs this process left queued or solving when it stopped can never finish; say so at once. */
+/** At start-up: the jobs this process had taken (queued on its threads or solving) when it stopped can never finish; say so at once. */
 export async function failInterruptedJobs(db: Database, runner: string): Promise<number> {
   const failed = await db
     .update(solveJobs)

@@ -1,17 +1,31 @@
-// Solving a network: caps first, then the cache, then a solver thread; the revision and its steps
-// are stored in one transaction. A solve that outlives the request's wait becomes a polled job.
+// Solving a network: caps first, then the cache, then a job on the solve queue that a worker runs on
+// its solver threads; the revision and its steps are stored in one transaction. A solve that outlives
+// the request's wait is answered as the job to poll.
+import { and, eq } from "drizzle-orm";
+import { revisions } from "../db/schema.js";
 import { HttpError } from "../lib/errors.js";
 import { breachMessage, resultBreach, sizeBreach, type CapBreach } from "../solver/caps.js";
 import { cachedDerivation, noteCacheHit, solveKey, storeDerivation } from "../solver/cache.js";
 import { deriveOutcome, type Derivation, type SolveOutcome } from "../solver/derive.js";
-import { SolveLimitError, SolverBusyError } from "../solver/pool.js";
 import { requireNetworkRole } from "./access.js";
 import { withTeamCells } from "./cells.js";
 import type { Network, SolveOptions } from "./engine.js";
 import { readNetwork } from "./reading.js";
 import { revisionView, storeRevision, type RevisionView } from "./revisions.js";
 import type { Services } from "./services.js";
-import { SolveJobRecorder, type SolveJobView } from "./solve-jobs.js";
+import {
+  admitSolveJob,
+  finishSolveJob,
+  forgetSolveJob,
+  markSolving,
+  readSolveJob,
+  recordAnsweredJob,
+  SolveLimitError,
+  solveJobView,
+  takeSolveJob,
+  type SolveJobView,
+} from "./solve-jobs.js";
+import type { SolveJobData } from "./solve-queue.js";
 
 export function capExceeded(found: CapBreach): HttpError {
   return new HttpError(422, "solve_cap_exceeded", breachMessage(found), undefined, undefined, { details: { cap: found } });
@@ -22,7 +36,7 @@ function illPosed(diagnostics: unknown[]): HttpError {
 }
 
 const solverBusy = () =>
-  new HttpError(503, "solver_busy", "Every solver is busy and the queue is full; try again in a few seconds.", undefined, undefined, {
+  new HttpError(503, "solver_busy", "Every solver is busy and the solve queue is full (SOLVE_QUEUE_MAX); try again in a few seconds.", undefined, undefined, {
     headers: { "Retry-After": "5" },
   });
 
@@ -56,8 +70,34 @@ export function derive(circuit: Network): Derivation {
 
 export type SolveAnswer = { kind: "revision"; revision: RevisionView; cacheHit: boolean } | { kind: "job"; job: SolveJobView };
 
+const noQueue = () =>
+  new HttpError(503, "solver_unavailable", "This server has no solve queue right now; try again in a few seconds.", undefined, undefined, { headers: { "Retry-After": "5" } });
+
+// What a failed job kept is the answer the request would have had.
+function storedError(error: unknown): HttpError {
+  const { status, code, message, fields, diagnostics, ...details } = (error ?? {}) as Record<string, unknown>;
+  return new HttpError(
+    typeof status === "number" ? status : 500,
+    typeof code === "string" ? code : "internal",
+    typeof message === "string" ? message : "The solve failed on the server.",
+    fields as Record<string, string> | undefined,
+    diagnostics as unknown[] | undefined,
+    { details },
+  );
+}
+
+async function revisionAnswer(db: Services["db"], network: Parameters<typeof revisionView>[1], number: number, cacheHit: boolean): Promise<SolveAnswer> {
+  const [revision] = await db.select().from(revisions).where(and(eq(revisions.networkId, network.id), eq(revisions.number, number)));
+  return { kind: "revision", revision: await revisionView(db, network, revision), cacheHit };
+}
+
+/**
+ * A solve: the cache answers at once; otherwise the solve is admitted as a job (limits per person,
+ * team and queue), sent to the solve queue, and the request waits up to `waitMs` for a worker to
+ * finish it before answering with the job to poll.
+ */
 export async function solve(services: Services, networkId: string, userId: string, waitMs: number): Promise<SolveAnswer> {
-  const { db, solver, settings } = services;
+  const { db, settings, solveQueue } = services;
   const { network } = await requireNetworkRole(db, networkId, userId, "editor");
   const parsed = await readNetwork(services, network.circuit);
   if (!parsed.network) throw illPosed(parsed.diagnostics);
@@ -68,53 +108,76 @@ export async function solve(services: Services, networkId: string, userId: strin
 
   const options: SolveOptions = {};
   const key = solveKey(circuit, options);
-  const recorder = new SolveJobRecorder(db, network, userId, settings.instanceName);
-  const owner = { userId, teamId: network.teamId };
-  let release: () => void;
-  try {
-    release = solver.reserve(owner);
-  } catch (error) {
-    throw error instanceof SolveLimitError ? solveLimited(error) : error;
+  const cached = await cachedDerivation(db, key);
+  if (cached) {
+    // The cache is shared by servers whose caps may differ: a cached result still has to fit this one's.
+    const tooLargeHere = resultBreach(cached.results, settings.solve.maxResultTerms);
+    if (tooLargeHere) throw capExceeded(tooLargeHere);
+    await noteCacheHit(db, key);
+    const revision = await storeRevision(db, network.id, userId, cached);
+    if (waitMs <= 0) {
+      const job = await recordAnsweredJob(db, { userId, networkId: network.id, runner: settings.instanceName }, revision.number);
+      return { kind: "job", job: solveJobView(job, network.slug) };
+    }
+    return { kind: "revision", revision: await revisionView(db, network, revision), cacheHit: true };
   }
-  const fresh = async () => {
-    const outcome = await solver.solve(circuit, options, key, owner, { onStart: () => recorder.started() }).catch((error: unknown) => {
-      throw error instanceof SolverBusyError ? solverBusy() : error;
-    });
-    if (outcome.kind === "engine_failed") services.log.error({ networkId: network.id, engineError: outcome.message }, "the engine failed on a network");
-    const derivation = derivationOf(outcome);
-    await storeDerivation(db, key, derivation);
-    return derivation;
-  };
-  const work = (async () => {
-    const cached = await cachedDerivation(db, key);
+
+  if (!solveQueue) throw noQueue();
+  // Solves waiting to start, over every process: a full queue is refused before it grows (503).
+  if ((await solveQueue.waiting()) >= settings.solve.queueMax) throw solverBusy();
+  const admission = await admitSolveJob(db, settings.solve, { userId, teamId: network.teamId, networkId: network.id }).catch((error: unknown) => {
+    if (error instanceof SolveLimitError) throw solveLimited(error);
+    throw error;
+  });
+  const { job } = admission;
+  try {
+    await solveQueue.send({ jobId: job.id, networkId: network.id, userId, teamId: network.teamId, circuit, options, key }, admission.priority);
+  } catch (error) {
+    services.log.error({ err: error, networkId: network.id }, "solve not queued");
+    await finishSolveJob(db, job.id, { error: { status: 503, ...noQueue().body() } }).catch(() => undefined);
+    throw noQueue();
+  }
+  // wait 0: the client wants the job at once, to show queued → solving → done itself.
+  const done = waitMs <= 0 ? null : await solveQueue.waitFor(job.id, waitMs);
+  if (!done) return { kind: "job", job: solveJobView((await readSolveJob(db, job.id)) ?? job, network.slug) };
+  await forgetSolveJob(db, job.id);
+  if (done.status === "failed") throw storedError(done.error);
+  return revisionAnswer(db, network, done.revisionNumber!, done.cacheHit ?? false);
+}
+
+type WorkerServices = Pick<Services, "db" | "solver" | "settings" | "log">;
+
+async function solveOnThread(services: WorkerServices, data: SolveJobData): Promise<Derivation> {
+  const { db, solver, log } = services;
+  const owner = { userId: data.userId, teamId: data.teamId };
+  const outcome = await solver.solve(data.circuit, data.options, data.key, owner, { onStart: () => void markSolving(db, data.jobId).catch(() => undefined) });
+  if (outcome.kind === "engine_failed") log.error({ networkId: data.networkId, engineError: outcome.message }, "the engine failed on a network");
+  const derivation = derivationOf(outcome);
+  await storeDerivation(db, data.key, derivation);
+  return derivation;
+}
+
+/**
+ * What a solve worker does with one job: take it (naming itself the runner), solve it on a thread
+ * under the caps (another job may have filled the cache meanwhile), store the revision, and record
+ * done or failed. It never throws for the solve's own failure: the job row carries the answer.
+ */
+export async function runSolveJob(services: WorkerServices, data: SolveJobData): Promise<void> {
+  const { db, settings, log } = services;
+  if (!(await takeSolveJob(db, data.jobId, settings.instanceName))) return;
+  try {
+    const cached = await cachedDerivation(db, data.key);
     if (cached) {
-      // The cache is shared by servers whose caps may differ: a cached result still has to fit this one's.
       const tooLargeHere = resultBreach(cached.results, settings.solve.maxResultTerms);
       if (tooLargeHere) throw capExceeded(tooLargeHere);
-      await noteCacheHit(db, key);
+      await noteCacheHit(db, data.key);
     }
-    const revision = await storeRevision(db, network.id, userId, cached ?? (await fresh()));
-    return { revision, cacheHit: cached !== null };
-  })();
-  const settled = work.finally(release).then(
-    (done) => {
-      recorder.finished(done.revision.number, done.cacheHit);
-      return { done };
-    },
-    (error: unknown) => {
-      recorder.failed(error instanceof HttpError ? { status: error.status, ...error.body() } : { status: 500, code: "internal", message: "The solve failed on the server." });
-      return { error };
-    },
-  );
-
-  // wait 0: the client wants the job at once, to show queued → solving → done itself.
-  let timer: NodeJS.Timeout | undefined;
-  const waited = new Promise<null>((resolve) => {
-    timer = setTimeout(() => resolve(null), waitMs);
-  });
-  const first = waitMs <= 0 ? null : await Promise.race([settled, waited]);
-  clearTimeout(timer);
-  if (first === null) return { kind: "job", job: await recorder.persist() };
-  if ("error" in first) throw first.error;
-  return { kind: "revision", revision: await revisionView(db, network, first.done.revision), cacheHit: first.done.cacheHit };
+    const derivation = cached ?? (await solveOnThread(services, data));
+    const revision = await storeRevision(db, data.networkId, data.userId, derivation);
+    await finishSolveJob(db, data.jobId, { revisionNumber: revision.number, cacheHit: cached !== null });
+  } catch (error) {
+    if (!(error instanceof HttpError)) log.error({ err: error, networkId: data.networkId }, "a solve job failed on the server");
+    const body = error instanceof HttpError ? { status: error.status, ...error.body() } : { status: 500, code: "internal", message: "The solve failed on the server." };
+    await finishSolveJob(db, data.jobId, { error: body }).catch((lost: unknown) => log.error({ err: lost }, "a solve job's end was not recorded"));
+  }
 }

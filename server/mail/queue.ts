@@ -1,9 +1,10 @@
 // Mail leaves the request path: requests enqueue a pg-boss job in the same PostgreSQL (schema
-// `pgboss`) and a worker, in the server process or on its own (`npm run mail:worker`), delivers it.
+// `pgboss`) and a worker, in the server process or on its own (`npm run worker`), delivers it.
 import { createHash } from "node:crypto";
 import PgBoss from "pg-boss";
 import { sql } from "drizzle-orm";
 import type { Logger } from "pino";
+import { jobSchema } from "../jobs/boss.js";
 import type { Database } from "../db/client.js";
 import type { Mailer, OutgoingMail } from "./mailer.js";
 
@@ -20,17 +21,10 @@ export function deadLetterQueue(settings: Pick<MailQueueSettings, "queue">): str
   return `${settings.queue}-dead`;
 }
 
-export const mailQueueSchema = "pgboss";
-
-// Starting pg-boss creates (or upgrades) its schema; the migrate step and the test set-up rely on that.
-export async function startMailBoss(databaseUrl: string, settings: MailQueueSettings, log?: Logger): Promise<PgBoss> {
-  const boss = new PgBoss({ connectionString: databaseUrl, schema: mailQueueSchema, max: 2, application_name: "portfold-mail" });
-  // A lost database connection is logged and retried by pg-boss, never an unhandled 'error' that ends the process.
-  boss.on("error", (error) => log?.error({ err: error }, "mail queue error"));
-  await boss.start();
+// The mail queue and its dead-letter queue, made once per process on its job engine.
+export async function createMailQueues(boss: PgBoss, settings: MailQueueSettings): Promise<void> {
   await boss.createQueue(deadLetterQueue(settings));
   await boss.createQueue(settings.queue, { name: settings.queue, deadLetter: deadLetterQueue(settings) });
-  return boss;
 }
 
 // One mail, one job: the same key (given, or the mail's own content) never queues it twice.
@@ -93,12 +87,12 @@ export interface QueuedMail {
 
 // What the queue holds now, and what gave up (the dead-letter queue), newest first; empty before pg-boss ever started.
 export async function mailQueueReport(db: Database, settings: Pick<MailQueueSettings, "queue">, limit = 100): Promise<{ pending: QueuedMail[]; dead: QueuedMail[] }> {
-  const exists = await db.execute<{ table: string | null }>(sql`select to_regclass(${`${mailQueueSchema}.job`})::text as "table"`);
+  const exists = await db.execute<{ table: string | null }>(sql`select to_regclass(${`${jobSchema}.job`})::text as "table"`);
   if (!exists.rows[0]?.table) return { pending: [], dead: [] };
   const list = async (name: string, states: string[]) => {
     const { rows } = await db.execute<{ id: string; to: string; subject: string; state: string; retry_count: number; created_on: string }>(
       sql`select id, data->>'to' as "to", data->>'subject' as subject, state::text as state, retry_count, created_on
-            from ${sql.identifier(mailQueueSchema)}.job where name = ${name} and state::text in ${states} order by created_on desc limit ${limit}`,
+            from ${sql.identifier(jobSchema)}.job where name = ${name} and state::text in ${states} order by created_on desc limit ${limit}`,
     );
     return rows.map((row) => ({ id: row.id, to: row.to, subject: row.subject, state: row.state, retryCount: row.retry_count, createdOn: new Date(row.created_on).toISOString() }));
   };
@@ -109,9 +103,4 @@ export async function mailQueueReport(db: Database, settings: Pick<MailQueueSett
 export async function deleteMailQueues(boss: PgBoss, settings: Pick<MailQueueSettings, "queue">): Promise<void> {
   await boss.deleteQueue(settings.queue);
   await boss.deleteQueue(deadLetterQueue(settings));
-}
-
-export async function stopMailBoss(boss: PgBoss): Promise<void> {
-  // Graceful: an active delivery may finish (bounded by the SMTP timeouts), then the pool closes.
-  await boss.stop({ graceful: true, wait: true, timeout: 5_000 });
 }

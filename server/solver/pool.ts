@@ -25,7 +25,7 @@ export interface SolveHooks {
   onStart?: () => void;
 }
 
-/** Who asked for a solve: the per-person and per-team limits count queued and running solves by it. */
+/** Who asked for a solve: a free thread takes the next solve of the team served longest ago. */
 export interface SolveOwner {
   userId: string;
   teamId: string;
@@ -33,33 +33,11 @@ export interface SolveOwner {
 
 export interface Solver {
   solve(circuit: Network, options: SolveOptions, key: string, owner: SolveOwner, hooks?: SolveHooks): Promise<SolveOutcome>;
-  /**
-   * Counts one solve against its person's and team's limits until the returned release is called;
-   * throws SolveLimitError when either is reached. Taken before a request's first await on the solve.
-   */
-  reserve(owner: SolveOwner): () => void;
   /** The engine's reader on a thread of its own, under the same time and memory caps; null when capped. */
   read(kind: ReadTask["kind"], input: unknown): Promise<ReadOutcome | { kind: "capped"; breach: CapBreach }>;
   stats(): SolverStats;
   warm(): void;
   close(): Promise<void>;
-}
-
-export class SolverBusyError extends Error {
-  constructor() {
-    super("solver queue is full");
-  }
-}
-
-/** One person or one team already has as many solves queued or running as it may. */
-export class SolveLimitError extends Error {
-  constructor(
-    readonly scope: "user" | "team",
-    readonly count: number,
-    readonly limit: number,
-  ) {
-    super(`${scope} solve limit reached`);
-  }
 }
 
 const workerFile = new URL("./worker.mjs", import.meta.url);
@@ -78,7 +56,7 @@ function threadPool(settings: SolveSettings, threads: number): Threads {
     minThreads: threads,
     maxThreads: threads,
     idleTimeout: Infinity,
-    // The queue is bounded below, in solve(): piscina does not count tasks that carry an abort signal.
+    // The queue is bounded by admission (server/domain/solve-jobs.ts) and the workers' concurrency.
     // The thread loads tsx itself (worker.mjs); whatever loader the parent runs under stays out.
     execArgv: [],
     resourceLimits: { maxOldGenerationSizeMb: settings.memoryMb },
@@ -135,13 +113,6 @@ export function createSolver(settings: SolveSettings): Solver {
   let reader: Threads | null = null;
   const flights = new Map<string, { flight: Flight; outcome: Promise<SolveOutcome> }>();
   const counts = { started: 0, finished: 0, terminated: 0, running: 0 };
-  const perUser = new Map<string, number>();
-  const perTeam = new Map<string, number>();
-  const bump = (map: Map<string, number>, key: string, by: number) => {
-    const next = (map.get(key) ?? 0) + by;
-    if (next > 0) map.set(key, next);
-    else map.delete(key);
-  };
   // Fair order: solves wait per team, and a free thread takes the next solve of the team served
   // longest ago (a team never served goes first), so a quiet team never waits behind a busy one's queue.
   const waiting = new Map<string, (() => void)[]>();
@@ -209,7 +180,6 @@ export function createSolver(settings: SolveSettings): Solver {
     solve(circuit, options, key, owner, hooks = {}) {
       let entry = flights.get(key);
       if (!entry) {
-        if (flights.size >= settings.threads + settings.queueMax) return Promise.reject(new SolverBusyError());
         const flight: Flight = { started: false, listeners: [] };
         const outcome = inTurn(owner.teamId, () => runOnThread(circuit, options, flight)).finally(() => flights.delete(key));
         entry = { flight, outcome };
@@ -220,21 +190,6 @@ export function createSolver(settings: SolveSettings): Solver {
         else entry.flight.listeners.push(hooks.onStart);
       }
       return entry.outcome;
-    },
-    reserve(owner) {
-      const mine = perUser.get(owner.userId) ?? 0;
-      if (mine >= settings.maxPerUser) throw new SolveLimitError("user", mine, settings.maxPerUser);
-      const ours = perTeam.get(owner.teamId) ?? 0;
-      if (ours >= settings.maxPerTeam) throw new SolveLimitError("team", ours, settings.maxPerTeam);
-      bump(perUser, owner.userId, 1);
-      bump(perTeam, owner.teamId, 1);
-      let released = false;
-      return () => {
-        if (released) return;
-        released = true;
-        bump(perUser, owner.userId, -1);
-        bump(perTeam, owner.teamId, -1);
-      };
     },
     read: (kind, input) => runCapped<ReadOutcome>(settings, readerThread(), { kind, input }, "runReadTask", () => undefined, terminated),
     stats: () => ({ ...counts, queued: flights.size - counts.running, threads: pool?.threads.length ?? 0 }),

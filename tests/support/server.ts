@@ -12,7 +12,9 @@ import { defaultSettings, type AppSettings } from "../../server/config.js";
 import { createDatabase, createPool } from "../../server/db/client.js";
 import { startCaptureServer, type CaptureServer } from "../../server/mail/capture-server.js";
 import { createSmtpMailer, type Mailer, type SmtpTarget } from "../../server/mail/mailer.js";
-import { createQueuedMailer, deleteMailQueues, startMailBoss, startMailWorker, stopMailBoss, type MailQueueSettings } from "../../server/mail/queue.js";
+import { startJobs, type Jobs } from "../../server/jobs/start.js";
+import { createLogger } from "../../server/lib/logging.js";
+import { deleteMailQueues, type MailQueueSettings } from "../../server/mail/queue.js";
 import { createSolver, type Solver } from "../../server/solver/pool.js";
 
 export interface TestServer {
@@ -25,6 +27,8 @@ export interface TestServer {
   mailer: Mailer;
   // This server's own mail queue: what other test servers left queued never holds up its waits.
   mailQueue: string;
+  // Its own solve queue, likewise (unless a test gives several servers one queue).
+  solveQueue: string;
   close(): Promise<void>;
 }
 
@@ -40,6 +44,9 @@ export interface TestServerOptions {
   // Where this server's mail worker delivers (default: its capture server) and its own queue.
   smtp?: SmtpTarget;
   mailQueue?: Partial<MailQueueSettings>;
+  // A solve queue shared with other test servers, and whether this one runs solves (default: yes).
+  solveQueue?: string;
+  solveWorker?: boolean;
 }
 
 // Quick retries, so a failing delivery reaches the dead-letter queue within a test.
@@ -77,15 +84,24 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
   const ownQueue = !options.mailQueue?.queue;
   const mailQueue: MailQueueSettings = { queue: `mail-test-${randomUUID().slice(0, 8)}`, ...testMailQueue, ...options.mailQueue };
   settings.mailQueue = mailQueue;
-  // A database that is away (the fault tests) leaves the server without a queue: mail is then not sent.
-  const boss = await startMailBoss(options.databaseUrl ?? testDatabaseUrl(), mailQueue).catch(() => null);
+  const ownSolveQueue = !options.solveQueue;
+  const solveQueue = options.solveQueue ?? `solve-test-${randomUUID().slice(0, 8)}`;
   const smtp = createSmtpMailer(options.smtp ?? { host: capture.host, port: capture.port }, "Portfold tests <tests@portfold.local>");
-  if (boss) await startMailWorker(boss, mailQueue, smtp, { pollingIntervalSeconds: 0.5 });
-  const mailer: Mailer = boss ? createQueuedMailer(boss, mailQueue) : { send: async () => false };
   const solver = createSolver(settings.solve!);
   // As server/index.ts does: the thread loads the engine now, not during the first solve.
   solver.warm();
-  server.on("request", createApp({ pool, db, mailer, settings, solver, clientDir: options.clientDir, logger: options.logger }));
+  // A database that is away (the fault tests) leaves the server without queues: mail is then not sent, solves 503.
+  const jobs: Jobs | null = await startJobs({
+    databaseUrl: options.databaseUrl ?? testDatabaseUrl(),
+    db,
+    settings: { ...defaultSettings(), ...settings } as AppSettings,
+    solveQueueName: solveQueue,
+    log: options.logger ?? createLogger("silent"),
+    deliverMail: { smtp, pollingIntervalSeconds: 0.5 },
+    solveOn: options.solveWorker === false ? undefined : solver,
+  }).catch(() => null);
+  const mailer: Mailer = jobs?.mailer ?? { send: async () => false };
+  server.on("request", createApp({ pool, db, mailer, settings, solver, solveQueue: jobs?.solveQueue, clientDir: options.clientDir, logger: options.logger }));
   return {
     url,
     pool,
@@ -94,14 +110,16 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     solver,
     mailer,
     mailQueue: mailQueue.queue,
+    solveQueue,
     close: async () => {
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await solver.close();
-      if (boss) {
-        // A queue made for this server alone goes with it (pg-boss keeps a table per queue).
-        if (ownQueue) await deleteMailQueues(boss, mailQueue).catch(() => undefined);
-        await stopMailBoss(boss);
+      if (jobs) {
+        // Queues made for this server alone go with it (pg-boss keeps a table per queue).
+        if (ownQueue) await deleteMailQueues(jobs.boss, mailQueue).catch(() => undefined);
+        if (ownSolveQueue) await jobs.boss.deleteQueue(solveQueue).catch(() => undefined);
+        await jobs.stop();
       }
       await capture.close();
       await pool.end();
