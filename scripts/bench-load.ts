@@ -13,6 +13,10 @@
 //   3. Hostile mix: one account floods solves (40 at once, again and again) while 8 connections read
 //      the largest revision the bounds allow (a wide symbolic chain, trimmed to REVISION_MAX_BYTES);
 //      health p99 beside the quiet reference of 2; target ≤ 3 × the reference.
+//   4. Scaling out: 2 web processes (SOLVE_WORKER=false) and 2 worker processes (`npm run worker`, one
+//      solver thread each) on the same database take 24 heavy solves sent to both web processes;
+//      solves per second and the oldest wait in the queue, beside the same solves on the one server
+//      of 1.–3. (its own threads) in the same run. Skipped with BENCH_URL.
 // BENCH_SECONDS scales both durations (default 20 for the first, half that for the second).
 import { spawn, type ChildProcess } from "node:child_process";
 import { randomBytes } from "node:crypto";
@@ -44,12 +48,12 @@ async function freePort(): Promise<number> {
   });
 }
 
-async function startServer(): Promise<{ url: string; child: ChildProcess }> {
+async function startServer(env: Record<string, string> = {}): Promise<{ url: string; child: ChildProcess }> {
   const [port, mailPort] = [await freePort(), await freePort()];
   const url = `http://127.0.0.1:${port}`;
   const child = spawn(`${root}node_modules/.bin/tsx`, ["server/index.ts"], {
     cwd: root,
-    env: { ...process.env, PORT: String(port), MAIL_CAPTURE_PORT: String(mailPort), PUBLIC_URL: url, NODE_ENV: process.env.NODE_ENV ?? "development" },
+    env: { ...process.env, PORT: String(port), MAIL_CAPTURE_PORT: String(mailPort), PUBLIC_URL: url, NODE_ENV: process.env.NODE_ENV ?? "development", ...env },
     stdio: ["ignore", "ignore", "inherit"],
   });
   for (let attempt = 0; attempt < 150; attempt++) {
@@ -88,6 +92,47 @@ function heavyCircuit(tag: string) {
     for (let j = i + 1; j < nodes.length; j++) elements.push({ name: `leg_${i}_${j}`, kind: "resistor", nodes: [nodes[i], nodes[j]], value: `g${++count}_${tag}` });
   }
   return { ground: "0", port: { plus: nodes[nodes.length - 1], minus: "0" }, elements };
+}
+
+interface Batch {
+  asked: number;
+  solved: number;
+  seconds: number;
+  oldestWaitMs: number;
+}
+
+// `count` heavy solves sent at once, round robin over `urls` (one session works on every process),
+// each followed to its end; the queue wait is a job's startedAt − createdAt.
+async function solveBatch(urls: string[], cookie: string, teamId: string, count: number): Promise<Batch> {
+  const started = Date.now();
+  let solved = 0;
+  let oldestWaitMs = 0;
+  await Promise.all(
+    Array.from({ length: count }, async (_, i) => {
+      const url = urls[i % urls.length];
+      const headers = { Origin: url, "Content-Type": "application/json", Cookie: cookie };
+      const tag = randomBytes(3).toString("hex");
+      const created = await fetch(`${url}/api/teams/${teamId}/networks`, { method: "POST", headers, body: JSON.stringify({ title: `Spread ${tag}`, circuit: heavyCircuit(tag) }) });
+      const { id } = (await created.json()) as { id: string };
+      type Job = { status: string; poll: string; createdAt: string; startedAt: string | null };
+      let job: Job | undefined;
+      // At the person's solve limit (429), ask again a little later, as a script would.
+      for (const deadline = Date.now() + 15 * 60_000; Date.now() < deadline && !job; ) {
+        const answer = await fetch(`${url}/api/networks/${id}/solve?wait=0`, { method: "POST", headers });
+        if (answer.status === 429) await new Promise((resolve) => setTimeout(resolve, 250));
+        else job = ((await answer.json()) as { job?: Job }).job;
+        if (answer.status !== 429 && !job) break;
+      }
+      while (job && job.status !== "done" && job.status !== "failed") {
+        await new Promise((resolve) => setTimeout(resolve, 200));
+        job = (await (await fetch(`${url}${job.poll}`, { headers: { Cookie: cookie } })).json()) as Job;
+      }
+      if (!job) return;
+      solved += 1;
+      if (job.startedAt) oldestWaitMs = Math.max(oldestWaitMs, Date.parse(job.startedAt) - Date.parse(job.createdAt));
+    }),
+  );
+  return { asked: count, solved, seconds: (Date.now() - started) / 1000, oldestWaitMs };
 }
 
 async function main() {
@@ -178,6 +223,26 @@ async function main() {
     if (read) console.log(line(`GET the largest revision (${Math.round(largestBytes / 1024)} kB), 8 readers`, read));
     else console.log(`  the widest chain did not store a revision (${wideAnswer.status}); readers skipped`);
     console.log(`  → ${hostile.p99 <= 3 * Math.max(1, idle.p99) ? "within target" : "OUTSIDE target"}; flood answers by status: ${JSON.stringify(floodAnswers)}`);
+    if (!given) {
+      console.log("\n4. scaling out: 2 web + 2 worker processes, 24 heavy solves");
+      const single = await solveBatch([url], cookie, benchTeam, 24);
+      server.child?.kill("SIGTERM");
+      await new Promise((resolve) => server.child?.once("exit", resolve));
+      const webs = [await startServer({ SOLVE_WORKER: "false", MAIL_WORKER: "false" }), await startServer({ SOLVE_WORKER: "false", MAIL_WORKER: "false" })];
+      const workers = [1, 2].map((n) =>
+        spawn(`${root}node_modules/.bin/tsx`, ["server/worker.ts"], { cwd: root, env: { ...process.env, INSTANCE_NAME: `bench-worker-${n}`, SOLVE_THREADS: "1" }, stdio: ["ignore", "ignore", "inherit"] }),
+      );
+      try {
+        await new Promise((resolve) => setTimeout(resolve, 3_000));
+        const spread = await solveBatch(webs.map((web) => web.url), cookie, benchTeam, 24);
+        const rate = (batch: Batch) => `${(batch.solved / batch.seconds).toFixed(2)} solves/s, oldest wait in the queue ${batch.oldestWaitMs} ms, ${batch.solved}/${batch.asked} solved`;
+        console.log(`  one server, its own ${config.solve.threads} thread(s) (reference)`.padEnd(48) + rate(single));
+        console.log(`  2 web + 2 workers (1 thread each)`.padEnd(48) + rate(spread));
+        console.log(`  → ${(spread.solved / spread.seconds / (single.solved / single.seconds)).toFixed(2)} × the reference's rate`);
+      } finally {
+        for (const child of [...webs.map((web) => web.child), ...workers]) child.kill("SIGTERM");
+      }
+    }
   } finally {
     if (benchTeam) await fetch(`${url}/api/teams/${benchTeam}`, { method: "DELETE", headers: { Origin: url, Cookie: cookie } }).catch(() => undefined);
     server.child?.kill("SIGTERM");
