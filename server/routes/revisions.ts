@@ -6,6 +6,7 @@ import { getRevision, listRevisions } from "../domain/revisions.js";
 import type { Services } from "../domain/services.js";
 import { getSolveJob } from "../domain/solve-jobs.js";
 import { solve } from "../domain/solve.js";
+import { sendRevisionJson } from "../lib/json-stream.js";
 import { idParam, parseQuery, revisionNumberParam } from "../lib/validate.js";
 
 // How long the request may wait for the solve, in ms; never longer than SOLVE_WAIT_MS.
@@ -45,7 +46,8 @@ export function revisionsRouter(services: Services): Router {
   router.get("/networks/:networkId/revisions/:number", async (req, res) => {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
-    res.json(await getRevision(db, networkId, revisionNumberParam(req.params.number), user.id));
+    const revision = await getRevision(db, networkId, revisionNumberParam(req.params.number), user.id);
+    await sendRevisionJson(res, revision, revision.steps);
   });
 
   router.get("/networks/:networkId/revisions/:from/compare/:to", async (req, res) => {

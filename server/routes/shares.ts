@@ -3,6 +3,7 @@ import { z } from "zod";
 import { signedInUser } from "../auth/session.js";
 import type { Services } from "../domain/services.js";
 import { createShare, listShares, revokeShare, revokeShareByToken, sharedRevision } from "../domain/shares.js";
+import { sendRevisionJson } from "../lib/json-stream.js";
 import { idParam, parseBody, revisionNumberParam, tokenParam } from "../lib/validate.js";
 
 const shareBody = z.object({ expiresAt: z.iso.datetime({ offset: true }).nullable().optional() });
@@ -38,7 +39,8 @@ export function sharesRouter(services: Services): Router {
   // The link itself: no account needed to read; revoking by token needs an editor of its team.
   router.get("/share/:token", async (req, res) => {
     res.set("Cache-Control", "no-store");
-    res.json(await sharedRevision(db, tokenParam(req.params.token)));
+    const shared = await sharedRevision(db, tokenParam(req.params.token));
+    await sendRevisionJson(res, shared, shared.revision.steps);
   });
 
   router.delete("/share/:token", async (req, res) => {

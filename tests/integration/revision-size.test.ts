@@ -2,6 +2,7 @@
 // with a statement saying so; the share page's preview text stays a line or two.
 import { randomBytes } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { streamAbove } from "../../server/lib/json-stream.js";
 import { ApiClient } from "../support/api.js";
 import { signedInPerson, type Person } from "../support/fixtures.js";
 import { resistorChain } from "../support/networks.js";
@@ -40,5 +41,20 @@ describe("revision size bound and share previews", () => {
     const description = /<meta name="description" content="([^"]*)"/.exec(page.body as string)![1];
     expect(description.length).toBeLessThanOrEqual(300 + 50);
     expect((page.body as string).length).toBeLessThan(20_000);
+
+    // A ledger this size is written as a stream of chunks (no Content-Length; the event loop runs
+    // between chunks), and reads back as the same revision the solve answered, signed in and shared.
+    const ledgerChars = steps.reduce((sum: number, step: { tex: string; explanation: string }) => sum + step.tex.length + step.explanation.length, 0);
+    expect(ledgerChars).toBeGreaterThan(streamAbove);
+    for (const [path, client] of [[`/api/networks/${networkId}/revisions/1`, editor.client], [`/api/share/${share.body.token}`, new ApiClient(server.url)]] as const) {
+      const read = await fetch(`${server.url}${path}`, { headers: client.cookie ? { Cookie: client.cookie } : {} });
+      expect(read.status).toBe(200);
+      expect(read.headers.get("content-type")).toMatch(/^application\/json/);
+      expect(read.headers.get("content-length")).toBeNull();
+      const body = await read.json();
+      const revision = path.startsWith("/api/share") ? body.revision : body;
+      expect(revision.steps).toEqual(steps);
+      expect(revision.results).toEqual(results);
+    }
   });
 });
