@@ -48,7 +48,7 @@ export async function createSolveQueue(boss: PgBoss, db: Database, options: { da
 
   const listen = () =>
     (listening ??= (async () => {
-      const client = new pg.Client({ connectionString: options.databaseUrl, application_name: "portfold-solve-waits" });
+      const client = new pg.Client({ connectionString: options.databaseUrl, application_name: "portfold-solve-waits", connectionTimeoutMillis: 5_000 });
       client.on("notification", (message) => {
         for (const wake of waiters.get(message.payload ?? "") ?? []) wake();
       });
