@@ -1,11 +1,24 @@
 // The account page in chromium: a token is made, shown once, works as a bearer secret, and is revoked; the API reference renders.
 import { mkdirSync } from "node:fs";
+import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, screenshotDir, type TestBrowser } from "../support/browser.js";
 import { fixturePassword, signedInPerson, type Person } from "../support/fixtures.js";
 import { startTestServer, type TestServer } from "../support/server.js";
 import { shot, signInThroughForm } from "./page-steps.js";
 import { watchPage } from "./page-watch.js";
+
+// At a phone's width and a laptop's: a picture of each, and nothing wider than the window (common practice: no sideways scrolling of the page).
+async function atWidths(page: Page, name: string): Promise<string[]> {
+  const overflows: string[] = [];
+  for (const width of [390, 1280]) {
+    await page.setViewportSize({ width, height: 900 });
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    if (overflow > 0) overflows.push(`${name} at ${width} px: ${overflow} px wider than the window`);
+    await shot(page, `${name}-${width}`);
+  }
+  return overflows;
+}
 
 describe("API tokens on the account page", () => {
   let server: TestServer;
@@ -34,7 +47,7 @@ describe("API tokens on the account page", () => {
     const secret = (await page.getByLabel("New token").textContent())!.trim();
     expect(secret).toMatch(/^pft_[A-Za-z0-9_-]{43}$/);
     await expect(page.getByRole("row", { name: /line-driver CI/ }).textContent()).resolves.toContain("read + solve");
-    await shot(page, "account-api-tokens");
+    expect(await atWidths(page, "account-api-tokens")).toEqual([]);
 
     // The secret works as a bearer token for a script.
     const me = await fetch(`${server.url}/api/account/tokens/current`, { headers: { Authorization: `Bearer ${secret}` } });
@@ -61,7 +74,7 @@ describe("API tokens on the account page", () => {
     await page.getByRole("heading", { name: "Schemas" }).waitFor();
     await expect(page.locator("code", { hasText: "/api/account/tokens/current" }).count()).resolves.toBeGreaterThan(0);
     await expect(page.locator("#schema-CreateTokenRequest").textContent()).resolves.toContain("expiresInDays");
-    await shot(page, "api-reference");
+    expect(await atWidths(page, "api-reference")).toEqual([]);
     expect(problems).toEqual([]);
   });
 });

@@ -7,6 +7,8 @@ import { teamWithEveryRole, type TeamFixture } from "../support/fixtures.js";
 import { clientShellDir, startTestServer, type TestServer } from "../support/server.js";
 
 const run = promisify(execFile);
+// The command line as the README gives it: `npm run -s solve -- FILE ...` (the compiled CLI, scripts/solve.sh).
+const solve = (args: string[], env?: NodeJS.ProcessEnv) => run("npm", ["run", "-s", "solve", "--", ...args], { env, timeout: 120_000 });
 
 // The fenced blocks of one README section, in order, with their language.
 function sectionBlocks(heading: string): { lang: string; code: string }[] {
@@ -59,9 +61,9 @@ describe("scripting against a real server", () => {
 
   it("stores and solves from the command line with --server, printing the same JSON plus the permanent link", async () => {
     const file = "fixtures/sensor-buffer.pfn";
-    const local = JSON.parse((await run(process.execPath, ["--import", "tsx", "scripts/solve.ts", file, "--set", "Ro=4.7k,A=99", "--no-steps"], { timeout: 120_000 })).stdout);
+    const local = JSON.parse((await solve([file, "--set", "Ro=4.7k,A=99", "--no-steps"])).stdout);
     const teamName = (await team.clients.editor.get(`/api/teams/${team.teamId}`)).body.name;
-    const remote = JSON.parse((await run(process.execPath, ["--import", "tsx", "scripts/solve.ts", file, "--set", "Ro=4.7k,A=99", "--no-steps", "--server", server.url, "--team", teamName], { env, timeout: 120_000 })).stdout);
+    const remote = JSON.parse((await solve([file, "--set", "Ro=4.7k,A=99", "--no-steps", "--server", server.url, "--team", teamName], env)).stdout);
     const { link, stored, ...rest } = remote;
     expect(rest).toEqual(local);
     expect(stored.teamId).toBe(team.teamId);
@@ -69,12 +71,12 @@ describe("scripting against a real server", () => {
     expect(link).toBe(`${server.url}${revision.permalink}`);
     expect(revision.results.rth.infix).toMatch(followerRth);
     // Without --team the token's own team is used.
-    const again = JSON.parse((await run(process.execPath, ["--import", "tsx", "scripts/solve.ts", file, "--no-steps", "--compact", "--server", server.url], { env, timeout: 120_000 })).stdout);
+    const again = JSON.parse((await solve([file, "--no-steps", "--compact", "--server", server.url], env)).stdout);
     expect(again.stored.teamId).toBe(team.teamId);
   }, 360_000);
 
   it("says why when the server refuses, and exits 1", async () => {
-    const failed = await run(process.execPath, ["--import", "tsx", "scripts/solve.ts", "fixtures/sensor-buffer.pfn", "--server", server.url], { env: { ...env, PORTFOLD_TOKEN: `pft_${"z".repeat(43)}` }, timeout: 120_000 }).catch((error) => error);
+    const failed = await solve(["fixtures/sensor-buffer.pfn", "--server", server.url], { ...env, PORTFOLD_TOKEN: `pft_${"z".repeat(43)}` }).catch((error) => error);
     expect(failed.code).toBe(1);
     expect(failed.stderr).toContain("invalid_token");
     expect(failed.stdout).toBe("");

@@ -42,10 +42,10 @@ function OperationView({ entry }: { entry: Entry }) {
     <article className="border-b border-rule py-3" id={`${method}-${path}`}>
       <h3 className="flex flex-wrap items-baseline gap-2">
         <span className="w-14 font-mono text-xs font-semibold uppercase text-copper">{method}</span>
-        <code className="font-mono text-sm">{path}</code>
+        <code className="break-all font-mono text-sm">{path}</code>
         <span className="text-sm text-ink/80">{operation.summary}</span>
       </h3>
-      <div className="ml-16 mt-1 space-y-2">
+      <div className="mt-1 space-y-2 sm:ml-16">
         <Access operation={operation} />
         {query.length > 0 && (
           <div>
@@ -88,7 +88,7 @@ export function ApiReference() {
   const groups = byTag(doc);
   const schemas = Object.entries(doc.components?.schemas ?? {}).sort(([a], [b]) => a.localeCompare(b));
   return (
-    <div className="grid gap-8 lg:grid-cols-[12rem_1fr]">
+    <div className="grid grid-cols-[minmax(0,1fr)] gap-8 lg:grid-cols-[12rem_minmax(0,1fr)]">
       <nav aria-label="Resources" className="text-sm lg:sticky lg:top-4 lg:self-start">
         <ul className="space-y-1">
           {groups.map(([tag]) => (

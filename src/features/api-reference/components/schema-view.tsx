@@ -31,19 +31,19 @@ export function SchemaView({ schema }: { schema: JsonSchema | undefined }) {
       </a>
     );
   }
-  if (!schema?.properties) return <code className="font-mono text-xs">{typeLabel(schema)}</code>;
+  if (!schema?.properties) return <code className="break-words font-mono text-xs">{typeLabel(schema)}</code>;
   const required = new Set(schema.required ?? []);
   return (
     <table className="w-full text-xs">
       <tbody>
         {Object.entries(schema.properties).map(([name, member]) => (
           <tr key={name} className="border-b border-rule align-top last:border-0">
-            <td className="w-48 py-0.5 pr-3 font-mono">
+            <td className="w-1/3 break-all py-0.5 pr-3 font-mono sm:w-48">
               {name}
               {!required.has(name) && <span className="text-ink/50">?</span>}
             </td>
             <td className="py-0.5">
-              {member.$ref ? <SchemaView schema={member} /> : <code className="font-mono">{typeLabel(member)}</code>}
+              {member.$ref ? <SchemaView schema={member} /> : <code className="break-words font-mono">{typeLabel(member)}</code>}
               {member.default !== undefined && <span className="text-ink/60"> · default {JSON.stringify(member.default)}</span>}
             </td>
           </tr>
