@@ -4,6 +4,7 @@ import type { z } from "zod";
 import * as accounts from "./accounts.js";
 import * as attachments from "./attachments.js";
 import * as cells from "./cells.js";
+import { revisionState } from "./common.js";
 import * as devMail from "./dev-mail.js";
 import * as networks from "./networks.js";
 import * as operations from "./operations.js";
@@ -13,7 +14,6 @@ import * as shares from "./shares.js";
 import * as teams from "./teams.js";
 import * as tokens from "./tokens.js";
 import * as valueSets from "./value-sets.js";
-import { revisionState } from "./common.js";
 
 export type Method = "GET" | "POST" | "PATCH" | "PUT" | "DELETE";
 
