@@ -2,17 +2,18 @@
 //
 //   npm run -s solve -- FILE [--limit SYMBOL=inf|0]... [--set NAME=VALUE,...]... [--float]
 //                            [--solve-for SYMBOL:RESULT=VALUE]... [--quantity SYMBOL=QUANTITY]...
-//                            [--no-steps] [--compact]
+//                            [--no-steps] [--compact] [--server URL [--team TEAM]]
 //
 // Exit status: 0 solved (degenerate ports included), 2 invalid input (diagnostics printed), 1 otherwise.
 
 import { readFileSync } from "node:fs";
 import { startupSnapshot } from "node:v8";
 import { QUANTITIES, solveNetwork, toSolveOutput, type Quantity, type ResultName, type SolveOptions } from "../shared/engine";
+import { ServerError, storeOnServer, type ServerTarget } from "./solve-remote";
 
 const USAGE = `usage: npm run -s solve -- FILE [--limit SYMBOL=inf|0] [--set NAME=VALUE,...] [--float]
        [--solve-for SYMBOL:RESULT=VALUE] [--quantity SYMBOL=QUANTITY] [--assume "PRODUCT>>1"]
-       [--no-steps] [--compact]
+       [--no-steps] [--compact] [--server URL [--team TEAM]]
   FILE       a network as JSON or as a Portfold netlist (.pfn)
   --limit    take every result to the limit SYMBOL -> inf or SYMBOL -> 0 (repeatable)
   --set      give symbols values, exact, SI prefixes allowed: --set R0=4.7k,mu=1e5
@@ -21,12 +22,18 @@ const USAGE = `usage: npm run -s solve -- FILE [--limit SYMBOL=inf|0] [--set NAM
   --quantity declare a symbol's quantity (${QUANTITIES.join(", ")})
   --assume   also give each result with its dominant terms only: --assume "gm*ro>>1" (repeatable)
   --no-steps leave the derivation steps out
-  --compact  print the JSON on one line`;
+  --compact  print the JSON on one line
+  --server   also store the network and its revision on that Portfold server (API token in
+             PORTFOLD_TOKEN) and add the revision's permanent link to the JSON
+  --team     the team to store it in (id or exact name); default: the token's own team, else
+             your personal team`;
 
 class UsageError extends Error {}
 
-function parseArgs(argv: string[]): { file: string; options: SolveOptions; compact: boolean } {
+function parseArgs(argv: string[]): { file: string; options: SolveOptions; compact: boolean; server: ServerTarget | null } {
   let file: string | null = null;
+  let server: ServerTarget | null = null;
+  let team: string | null = null;
   const options: SolveOptions = { limits: [], values: {}, solveFor: [], quantities: {}, assume: [] };
   let compact = false;
   const take = (i: number, flag: string): string => {
@@ -81,6 +88,15 @@ function parseArgs(argv: string[]): { file: string; options: SolveOptions; compa
       case "--compact":
         compact = true;
         break;
+      case "--server": {
+        const url = value();
+        if (!/^https?:\/\/[^/]/.test(url)) throw new UsageError(`--server ${url}: write the server's address, e.g. http://127.0.0.1:4317`);
+        server = { url, token: process.env.PORTFOLD_TOKEN ?? "", team: null };
+        break;
+      }
+      case "--team":
+        team = value();
+        break;
       case "--help":
       case "-h":
         throw new UsageError("");
@@ -91,10 +107,12 @@ function parseArgs(argv: string[]): { file: string; options: SolveOptions; compa
     }
   }
   if (file === null) throw new UsageError("FILE is missing");
-  return { file, options, compact };
+  if (team !== null && server === null) throw new UsageError("--team needs --server");
+  if (server !== null) server = { ...server, team };
+  return { file, options, compact, server };
 }
 
-function main(argv: string[]): number {
+async function main(argv: string[]): Promise<number> {
   let args: ReturnType<typeof parseArgs>;
   try {
     args = parseArgs(argv);
@@ -112,17 +130,29 @@ function main(argv: string[]): number {
     return 1;
   }
   const result = solveNetwork(text, args.options);
-  process.stdout.write(JSON.stringify(toSolveOutput(result), null, args.compact ? undefined : 2) + "\n");
+  let output: object = toSolveOutput(result);
+  // Invalid input never reaches the server: the diagnostics above are the answer.
+  if (args.server && result.ok) {
+    try {
+      output = { ...output, ...(await storeOnServer(args.server, args.file, text)) };
+    } catch (e) {
+      if (!(e instanceof ServerError)) throw e;
+      process.stderr.write(`solve: ${e.message}\n`);
+      return 1;
+    }
+  }
+  process.stdout.write(JSON.stringify(output, null, args.compact ? undefined : 2) + "\n");
   return result.ok ? 0 : 2;
 }
 
 function run(argv: string[]): void {
-  try {
-    process.exitCode = main(argv);
-  } catch (e) {
-    process.stderr.write(`solve: internal error: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`);
-    process.exitCode = 1;
-  }
+  main(argv).then(
+    (code) => (process.exitCode = code),
+    (e) => {
+      process.stderr.write(`solve: internal error: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`);
+      process.exitCode = 1;
+    },
+  );
 }
 
 // `npm run solve` starts from a startup snapshot of this file (scripts/build-solve.mjs): the engine is

@@ -3,6 +3,7 @@ import { existsSync } from "node:fs";
 import { join, resolve } from "node:path";
 import type pg from "pg";
 import type { Logger } from "pino";
+import { apiTokenAuth, unlessToken } from "./auth/api-tokens.js";
 import { checkHost } from "./auth/hosts.js";
 import { createLucia } from "./auth/lucia.js";
 import { createRateLimits } from "./auth/rate-limits.js";
@@ -14,18 +15,20 @@ import { errorHandler, notFoundApi } from "./lib/errors.js";
 import { createLogger, requestLogger } from "./lib/logging.js";
 import { securityHeaders } from "./lib/security.js";
 import { createSmtpMailer, smtpTarget, type Mailer } from "./mail/mailer.js";
-import { valueSetsRouter } from "./routes/value-sets.js";
+import { apiTokensRouter } from "./routes/api-tokens.js";
 import { attachmentsRouter } from "./routes/attachments.js";
 import { authRouter } from "./routes/auth.js";
 import { cellsRouter } from "./routes/cells.js";
 import { devMailRouter } from "./routes/dev-mail.js";
 import { healthRouter } from "./routes/health.js";
 import { networksRouter } from "./routes/networks.js";
+import { openApiRouter } from "./routes/openapi.js";
 import { reviewsRouter } from "./routes/reviews.js";
 import { revisionsRouter } from "./routes/revisions.js";
 import { sharePageRouter } from "./routes/share-page.js";
 import { sharesRouter } from "./routes/shares.js";
 import { teamsRouter } from "./routes/teams.js";
+import { valueSetsRouter } from "./routes/value-sets.js";
 import { createSolver, type Solver } from "./solver/pool.js";
 import type { SolveQueue } from "./domain/solve-queue.js";
 
@@ -70,10 +73,13 @@ export function createApp(context: AppContext): Express {
   // Health stays open to any name: balancers probe by address.
   app.use("/api/health", healthRouter(context.pool));
   app.use(checkHost(settings.publicUrl));
-  app.use("/api", checkOrigin(settings.publicUrl), loadSession(services.auth));
+  app.use("/api/openapi.json", openApiRouter());
+  // A bearer token (scripts) or the session cookie (the browser, with its origin check): never both.
+  app.use("/api", apiTokenAuth(services), unlessToken(checkOrigin(settings.publicUrl)), unlessToken(loadSession(services.auth)));
   app.use(
     "/api",
     authRouter(services, createRateLimits(settings.limits)),
+    apiTokensRouter(services),
     teamsRouter(services),
     cellsRouter(services),
     networksRouter(services),

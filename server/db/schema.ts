@@ -12,6 +12,7 @@ import {
   unique,
   uuid,
 } from "drizzle-orm/pg-core";
+import { tokenScopes } from "../../shared/api/tokens.js";
 
 // Attachments live in PostgreSQL, so one backup holds everything.
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({
@@ -349,4 +350,26 @@ export const teamCells = pgTable(
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (table) => [unique("cells_team_slug_unique").on(table.teamId, table.slug)],
+);
+
+// ---- personal API tokens ----
+
+// A person's tokens for scripts: only the SHA-256 of the secret is stored; team_id null reaches every team of the person.
+export const apiTokens = pgTable(
+  "api_tokens",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: text("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    tokenHash: text("token_hash").notNull().unique(),
+    // The secret's last four characters, so a person can tell tokens apart in the list.
+    hint: text("hint").notNull(),
+    scope: text("scope", { enum: tokenScopes }).notNull(),
+    teamId: uuid("team_id").references(() => teams.id, { onDelete: "cascade" }),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    lastUsedAt: timestamp("last_used_at", { withTimezone: true }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (table) => [index("api_tokens_user_id_idx").on(table.userId)],
 );

@@ -1,5 +1,6 @@
 // Networks: a team's circuits with their port and declared quantities.
 import { randomBytes } from "node:crypto";
+import { networkTitleMax, type networkSorts } from "../../shared/api/networks.js";
 import { and, asc, count, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { networks, teamMembers, users, type Role } from "../db/schema.js";
@@ -81,8 +82,6 @@ async function loadView(db: Database, row: NetworkRow, role: Role): Promise<Netw
     .where(eq(networks.id, row.id));
   return view(row, role, row.authorId && extra?.authorName ? { id: row.authorId, name: extra.authorName } : null, extra?.latest ?? null);
 }
-
-export const networkSorts = ["title", "author", "lastRevision", "verdict", "updatedAt", "createdAt"] as const;
 
 export interface NetworkListQuery {
   q?: string;
@@ -217,8 +216,6 @@ export async function duplicateNetwork(db: Database, networkId: string, userId: 
     netlist: network.netlist,
   });
 }
-
-export const networkTitleMax = 200;
 
 const importExtensions = [".json", NETLIST_EXTENSION];
 const importTypes = ["application/json", "text/plain"];

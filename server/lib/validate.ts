@@ -40,20 +40,4 @@ export function tokenParam(value: unknown, what = "That link"): string {
   return value;
 }
 
-// C0/C1 controls and the bidirectional overrides and isolates, which can make a name read as something else.
-const controlsAndBidi = /[\u0000-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g;
-
-/** A one-line name as people see it: without control or bidi characters, trimmed. */
-export function withoutControls(text: string): string {
-  return text.replace(controlsAndBidi, "").trim();
-}
-
-/** A name or title field: control and bidi characters dropped, then required and bounded. */
-export const nameText = (max: number, required: string) =>
-  z.string().transform(withoutControls).pipe(z.string().min(1, { error: required }).max(max, { error: `Use at most ${max} characters.` }));
-
-// Text that reaches PostgreSQL from a query string or form field: no U+0000, which it cannot store.
-export const plainText = (max: number) => z.string().trim().max(max).refine((text) => !text.includes("\u0000"), { error: "Contains a NUL character." });
-
-export const emailField = z.string().trim().toLowerCase().pipe(z.email({ error: "Enter a valid e-mail address." })).pipe(z.string().max(254));
-export const tokenField = z.string().regex(/^[A-Za-z0-9_-]{43}$/, { error: "This link is malformed." });
+export { emailField, nameText, plainText, tokenField, withoutControls } from "../../shared/api/common.js";

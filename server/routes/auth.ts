@@ -1,5 +1,12 @@
 import { Router } from "express";
-import { z } from "zod";
+import {
+  emailLinkRequest as tokenBody,
+  loginRequest as loginBody,
+  passwordResetConfirmRequest as resetBody,
+  passwordResetRequest as resetRequestBody,
+  settingsRequest as settingsBody,
+  signupRequest as signupBody,
+} from "../../shared/api/accounts.js";
 import type { RateLimits } from "../auth/rate-limits.js";
 import { clearSessionCookie, setSessionCookie, signedInUser } from "../auth/session.js";
 import {
@@ -14,18 +21,7 @@ import {
   verifyEmail,
 } from "../domain/accounts.js";
 import type { Services } from "../domain/services.js";
-import { emailField, parseBody, tokenField } from "../lib/validate.js";
-
-// NIST SP 800-63B: at least 8 characters, allow at least 64; longer is cut off to bound hashing cost.
-const password = z.string().min(8, { error: "Use at least 8 characters." }).max(256, { error: "Use at most 256 characters." });
-const name = z.string().trim().min(1, { error: "Enter your name." }).max(100);
-
-const signupBody = z.object({ email: emailField, password, name });
-const loginBody = z.object({ email: emailField, password: z.string().min(1).max(256) });
-const tokenBody = z.object({ token: tokenField });
-const resetRequestBody = z.object({ email: emailField });
-const resetBody = z.object({ token: tokenField, password });
-const settingsBody = z.object({ reviewMail: z.boolean() });
+import { parseBody } from "../lib/validate.js";
 
 export function authRouter(services: Services, limits: RateLimits): Router {
   const router = Router();

@@ -1,13 +1,10 @@
 import { Router } from "express";
-import { z } from "zod";
+import { createCellRequest as createBody } from "../../shared/api/cells.js";
 import { signedInUser } from "../auth/session.js";
 import { createCell, deleteCell, listCells } from "../domain/cells.js";
 import type { Services } from "../domain/services.js";
 import { notFound } from "../lib/errors.js";
 import { idParam, parseBody } from "../lib/validate.js";
-
-// The definition's shape is the engine's to judge (readCellDefinition); here it only has to be an object.
-const createBody = z.object({ definition: z.record(z.string(), z.unknown(), { error: "The definition is a JSON object in Portfold's cell format." }) });
 
 // A cell id as the engine spells it: letters, digits, underscore and hyphen.
 function cellIdParam(value: unknown): string {

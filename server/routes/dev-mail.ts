@@ -1,18 +1,13 @@
 // The development mailbox: JSON for tests and tools, a plain page for people. 404 in production.
 import { Router, type RequestHandler } from "express";
-import { z } from "zod";
+import { mailQuery } from "../../shared/api/dev-mail.js";
 import { onLoopback } from "../auth/hosts.js";
 import { capturedMail } from "../domain/mailbox.js";
 import type { Services } from "../domain/services.js";
 import { notFound } from "../lib/errors.js";
 import { mailQueueReport } from "../mail/queue.js";
 import { escapeHtml } from "../lib/html.js";
-import { parseQuery, plainText } from "../lib/validate.js";
-
-const mailQuery = z.object({
-  to: plainText(254).optional(),
-  limit: z.coerce.number().int().min(1).max(500).default(100),
-});
+import { parseQuery } from "../lib/validate.js";
 
 // Links become clickable after escaping; only the already-escaped text is ever emitted.
 function linkify(escaped: string): string {

@@ -1,5 +1,11 @@
 import { Router } from "express";
-import { z } from "zod";
+import {
+  createNetworkRequest as createBody,
+  duplicateNetworkRequest as duplicateBody,
+  importFields,
+  networkListQuery as listQuery,
+  patchNetworkRequest as patchBody,
+} from "../../shared/api/networks.js";
 import { signedInUser } from "../auth/session.js";
 import { requireTeamRole } from "../domain/access.js";
 import {
@@ -10,40 +16,13 @@ import {
   importNetwork,
   listNetworks,
   networkIdForSlug,
-  networkSorts,
-  networkTitleMax,
   updateNetwork,
 } from "../domain/networks.js";
 import { readCircuitAndText } from "../domain/reading.js";
 import type { Services } from "../domain/services.js";
 import { notFound } from "../lib/errors.js";
 import { readUpload } from "../lib/uploads.js";
-import { idParam, nameText, parseBody, parseQuery, plainText } from "../lib/validate.js";
-
-const title = nameText(networkTitleMax, "Give the network a title.");
-const description = z.string().max(5_000);
-// The circuit's shape is the engine's to judge (readCircuit); here it only has to be an object.
-const circuit = z.record(z.string(), z.unknown(), { error: "The circuit is a JSON object in Portfold's network format." });
-
-// The netlist text as typed, kept beside the circuit it reads as; null for a network made from JSON.
-const netlist = z.string().max(256 * 1024).nullable();
-const createBody = z.object({ title, description: description.optional(), circuit: circuit.optional(), netlist: netlist.optional() }).refine((body) => body.circuit !== undefined || typeof body.netlist === "string", {
-  error: "Send the circuit, its netlist text, or both.",
-});
-const patchBody = z
-  .object({ title: title.optional(), description: description.optional(), circuit: circuit.optional(), netlist: netlist.optional(), expectedUpdatedAt: z.iso.datetime({ offset: true }).optional() })
-  .refine((body) => body.title !== undefined || body.description !== undefined || body.circuit !== undefined || body.netlist !== undefined, {
-    error: "Change at least one of title, description, circuit, netlist.",
-  });
-const duplicateBody = z.object({ title: title.optional() });
-const importFields = z.object({ title: title.optional() });
-const listQuery = z.object({
-  q: plainText(200).optional(),
-  sort: z.enum(networkSorts).default("updatedAt"),
-  order: z.enum(["asc", "desc"]).optional(),
-  page: z.coerce.number().int().min(1).max(1_000_000).default(1),
-  pageSize: z.coerce.number().int().min(1).max(100).default(20),
-});
+import { idParam, parseBody, parseQuery } from "../lib/validate.js";
 
 export function networksRouter(services: Services): Router {
   const router = Router();

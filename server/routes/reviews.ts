@@ -1,25 +1,17 @@
 import { Router } from "express";
-import { z } from "zod";
+import {
+  commentRequest as commentBody,
+  editCommentRequest as editBody,
+  legacyVerdictRequest as legacyVerdictBody,
+  pageQuery,
+  verdictRequest as verdictBody,
+} from "../../shared/api/reviews.js";
 import { signedInUser } from "../auth/session.js";
 import { awaitingMyReview, myRevisionsInReview } from "../domain/review-queue.js";
 import { addComment, deleteComment, editComment, listComments, setThreadResolved } from "../domain/reviews.js";
 import type { Services } from "../domain/services.js";
 import { giveVerdict, listVerdicts, withdrawVerdict } from "../domain/verdicts.js";
 import { idParam, parseBody, parseQuery, revisionNumberParam } from "../lib/validate.js";
-
-const body = z.string().trim().min(1, { error: "Write something first." }).max(10_000);
-const anchor = z.object({
-  part: z.enum(["explanation", "formula"]),
-  text: z.string().min(1, { error: "Highlight some text." }).max(2_000),
-  start: z.number().int().min(0).max(1_000_000).optional(),
-});
-const commentBody = z.object({ stepId: z.string().min(1).max(200), body, parentId: z.uuid().optional(), anchor: anchor.optional() });
-const editBody = z.object({ body });
-const note = z.string().trim().max(10_000).optional();
-const verdictBody = z.object({ verdict: z.enum(["approved", "needs_changes"]), note });
-// The original verdict route: "open" withdraws the caller's standing verdict.
-const legacyVerdictBody = z.object({ verdict: z.enum(["open", "approved", "needs_changes"]), note });
-const pageQuery = z.object({ page: z.coerce.number().int().min(1).max(100_000).default(1), pageSize: z.coerce.number().int().min(1).max(100).default(20) });
 
 export function reviewsRouter(services: Services): Router {
   const router = Router();

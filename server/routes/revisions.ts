@@ -1,5 +1,5 @@
 import { Router } from "express";
-import { z } from "zod";
+import { solveQuery } from "../../shared/api/revisions.js";
 import { signedInUser } from "../auth/session.js";
 import { compareRevisions } from "../domain/compare.js";
 import { getRevision, listRevisions } from "../domain/revisions.js";
@@ -8,9 +8,6 @@ import { getSolveJob } from "../domain/solve-jobs.js";
 import { solve } from "../domain/solve.js";
 import { sendRevisionJson } from "../lib/json-stream.js";
 import { idParam, parseQuery, revisionNumberParam } from "../lib/validate.js";
-
-// How long the request may wait for the solve, in ms; never longer than SOLVE_WAIT_MS.
-const solveQuery = z.object({ wait: z.coerce.number().int().min(0).max(3_600_000).optional() });
 
 export function revisionsRouter(services: Services): Router {
   const router = Router();

@@ -1,12 +1,10 @@
 import { Router } from "express";
-import { z } from "zod";
+import { shareRequest as shareBody } from "../../shared/api/shares.js";
 import { signedInUser } from "../auth/session.js";
 import type { Services } from "../domain/services.js";
 import { createShare, listShares, revokeShare, revokeShareByToken, sharedRevision } from "../domain/shares.js";
 import { sendRevisionJson } from "../lib/json-stream.js";
 import { idParam, parseBody, revisionNumberParam, tokenParam } from "../lib/validate.js";
-
-const shareBody = z.object({ expiresAt: z.iso.datetime({ offset: true }).nullable().optional() });
 
 export function sharesRouter(services: Services): Router {
   const router = Router();

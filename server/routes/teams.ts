@@ -1,7 +1,6 @@
 import { Router } from "express";
-import { z } from "zod";
+import { invitationRequest as invitationBody, roleRequest as roleBody, teamChangesRequest as teamChanges, teamRequest as teamBody } from "../../shared/api/teams.js";
 import { signedInUser } from "../auth/session.js";
-import { roles } from "../db/schema.js";
 import type { Services } from "../domain/services.js";
 import {
   acceptInvitation,
@@ -17,15 +16,7 @@ import {
   updateTeam,
 } from "../domain/teams.js";
 import { notFound } from "../lib/errors.js";
-import { emailField, idParam, nameText, parseBody, tokenParam } from "../lib/validate.js";
-
-const teamName = nameText(100, "Give the team a name.");
-const teamBody = z.object({ name: teamName });
-const teamChanges = z
-  .object({ name: teamName.optional(), requiredApprovals: z.number().int().min(1, { error: "At least one approval." }).max(10, { error: "At most 10 approvals." }).optional() })
-  .refine((changes) => changes.name !== undefined || changes.requiredApprovals !== undefined, { error: "Give a name or a number of required approvals." });
-const roleBody = z.object({ role: z.enum(roles) });
-const invitationBody = z.object({ email: emailField, role: z.enum(roles) });
+import { idParam, parseBody, tokenParam } from "../lib/validate.js";
 
 // A member id is a user id: lucia's base32 ids or the seed's readable ones.
 function userIdParam(value: unknown): string {

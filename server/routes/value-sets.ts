@@ -1,16 +1,9 @@
 import { Router } from "express";
-import { z } from "zod";
+import { saveValueSetRequest as saveBody } from "../../shared/api/value-sets.js";
 import { signedInUser } from "../auth/session.js";
 import type { Services } from "../domain/services.js";
 import { deleteValueSet, listValueSets, saveValueSet } from "../domain/value-sets.js";
-import { idParam, parseBody, plainText } from "../lib/validate.js";
-
-// A symbol name as the engine writes it, and a value as typed (SI prefixes allowed); the client checks the syntax live.
-const symbol = z.string().regex(/^[A-Za-z][A-Za-z0-9_]{0,63}$/, { error: "A symbol is a letter followed by letters, digits or _." });
-const saveBody = z.object({
-  name: plainText(80).pipe(z.string().trim().min(1, { error: "Give the value set a name." })),
-  values: z.record(symbol, z.string().trim().min(1).max(200)).refine((v) => Object.keys(v).length <= 200, { error: "At most 200 symbols in one set." }),
-});
+import { idParam, parseBody } from "../lib/validate.js";
 
 export function valueSetsRouter(services: Services): Router {
   const router = Router();

@@ -29,6 +29,7 @@ const router = createBrowserRouter([
       { path: "/reset-password", element: <ResetPasswordRoute /> },
       { path: "/verify-email", element: <VerifyEmailRoute /> },
       { path: "/invitations/accept", element: <AcceptInvitationRoute /> },
+      { path: "/api-reference", lazy: async () => ({ Component: (await import("./routes/api-reference")).ApiReferenceRoute }) },
       { path: "/account", lazy: async () => ({ Component: (await import("./routes/account")).AccountRoute }) },
       { path: "/reviews/awaiting", lazy: async () => ({ Component: (await import("./routes/reviews")).AwaitingReviewRoute }) },
       { path: "/reviews/mine", lazy: async () => ({ Component: (await import("./routes/reviews")).MyRevisionsInReviewRoute }) },

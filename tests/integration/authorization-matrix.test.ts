@@ -1,11 +1,13 @@
 // Every route × {anonymous, non-member, viewer, reviewer, editor, owner}, with the exact status, against the real database.
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { z } from "zod";
 import { createApp } from "../../server/app.js";
 import { createLucia, createSessionToken, sessionCookieName } from "../../server/auth/lucia.js";
 import { comments, invitations, teamMembers, teams, type Role } from "../../server/db/schema.js";
 import { newToken } from "../../server/lib/tokens.js";
 import { ApiClient } from "../support/api.js";
+import { endpoints } from "../../shared/api/routes.js";
 import { mountedRoutes } from "../support/routes.js";
 import { actors, followerCircuit, signedInPerson, teamWithEveryRole, uniqueEmail, type Actor, type Person, type TeamFixture } from "../support/fixtures.js";
 import { linkIn, waitForMail } from "../support/mail.js";
@@ -124,6 +126,19 @@ const cases: Case[] = [
   { method: "POST", route: "/api/auth/password-reset/confirm", expect: everyone(400), path: () => "/api/auth/password-reset/confirm", body: () => ({ token: "A".repeat(43), password: "whatever secret" }) },
   { method: "GET", route: "/api/me", expect: signedIn(200), path: () => "/api/me" },
   { method: "PATCH", route: "/api/me/settings", expect: signedIn(200), path: () => "/api/me/settings", body: () => ({ reviewMail: true }) },
+  // ---- API tokens (a browser session's; tokens themselves are held to their own table in api-tokens.test.ts) ----
+  { method: "GET", route: "/api/account/tokens", expect: signedIn(200), path: () => "/api/account/tokens" },
+  { method: "POST", route: "/api/account/tokens", expect: signedIn(201), path: () => "/api/account/tokens", body: () => ({ name: "Matrix script", scope: "read", teamId: null, expiresInDays: 30 }) },
+  {
+    method: "DELETE",
+    route: "/api/account/tokens/:tokenId",
+    expect: signedIn(204),
+    // Each person revokes a token of their own; the anonymous request names the owner's.
+    prepare: async (w, actor) => ({ id: (await w.team.clients[actor === "anonymous" ? "owner" : actor].post("/api/account/tokens", { name: "Doomed", scope: "read", teamId: null, expiresInDays: 1 })).body.token.id }),
+    path: (_w, p) => `/api/account/tokens/${p.id}`,
+  },
+  // Only a request with a token has a current token.
+  { method: "GET", route: "/api/account/tokens/current", expect: statuses(401, 400, 400, 400, 400, 400), path: () => "/api/account/tokens/current" },
   // ---- teams ----
   { method: "POST", route: "/api/teams", expect: signedIn(201), path: () => "/api/teams", body: () => ({ name: "Matrix team" }) },
   { method: "GET", route: "/api/teams/:teamId", expect: members(200), path: (w) => `/api/teams/${w.team.teamId}` },
@@ -241,7 +256,15 @@ const cases: Case[] = [
   { method: "GET", route: "/api/dev/mail-queue", expect: everyone(200), path: () => "/api/dev/mail-queue" },
   { method: "GET", route: "/dev/mailbox.css", expect: everyone(200), path: () => "/dev/mailbox.css" },
   { method: "GET", route: "/api/health", expect: everyone(200), path: () => "/api/health" },
+  { method: "GET", route: "/api/openapi.json", expect: everyone(200), path: () => "/api/openapi.json" },
 ];
+
+// The zod schema of a JSON answer in the contract's table (shared/api/routes.ts), if it names one.
+function answerSchema(testCase: Case, status: number): z.ZodType | null {
+  const endpoint = endpoints.find((e) => e.method === testCase.method && e.path === testCase.route);
+  const answer = endpoint?.answers[status];
+  return answer && !("contentType" in answer && typeof answer.contentType === "string") ? (answer as z.ZodType) : null;
+}
 
 describe("authorization matrix", () => {
   const world = {} as World;
@@ -288,6 +311,13 @@ describe("authorization matrix", () => {
         const client = await clientFor(actor, testCase.ownSession ?? false);
         const response = await client.request(testCase.method, testCase.path(world, prepared), testCase.body?.(world, prepared) ?? (testCase.method === "GET" || testCase.method === "DELETE" ? undefined : {}));
         actual[actor] = response.status;
+        // A success is the answer the contract names: every field it lists, of its type, and none it does not.
+        const answer = answerSchema(testCase, response.status);
+        if (answer) {
+          const parsed = answer.safeParse(response.body);
+          expect(parsed.error?.issues ?? [], `${actor}: answer ${response.status} fits the contract`).toEqual([]);
+          expect(parsed.data, `${actor}: answer ${response.status} has no field the contract leaves out`).toEqual(response.body);
+        }
         if (response.status >= 400 && (response.headers.get("content-type") ?? "").includes("json")) {
           expect(response.body.error, `${actor}: error shape`).toEqual(expect.objectContaining({ code: expect.any(String), message: expect.any(String) }));
         }

@@ -171,6 +171,10 @@ const routesFor = (world: World): Route[] => [
   // Anonymous: signing the fixture owner out would turn every later case into a 401.
   { method: "POST", path: "/api/auth/logout", anonymous: true },
   { method: "GET", path: "/api/me" },
+  { method: "GET", path: "/api/account/tokens" },
+  { method: "POST", path: "/api/account/tokens", body: shaped({ name: text, scope: fc.constantFrom("read", "solve", "admin"), teamId: fc.oneof(fc.constant(null), fc.constant(world.team.teamId), fc.uuid(), text), expiresInDays: fc.oneof(fc.integer({ min: -5, max: 400 }), fc.double()) }) },
+  { method: "DELETE", path: "/api/account/tokens/:tokenId", destructive: true },
+  { method: "GET", path: "/api/account/tokens/current" },
   { method: "POST", path: "/api/teams", body: shaped({ name: text }) },
   { method: "GET", path: "/api/teams/:teamId" },
   { method: "PATCH", path: "/api/teams/:teamId", body: shaped({ name: text }) },
@@ -231,6 +235,7 @@ const routesFor = (world: World): Route[] => [
   { method: "GET", path: "/dev/mailbox.css", anonymous: true },
   { method: "GET", path: "/s/:token", anonymous: true },
   { method: "GET", path: "/api/health", anonymous: true },
+  { method: "GET", path: "/api/openapi.json", anonymous: true },
 ];
 
 // A team cell in the engine's own words: a resistor between its two terminals.
@@ -375,6 +380,7 @@ describe("fuzzing", () => {
         setId: world.commentId,
         jobId: world.jobId,
         cellId: world.cellId,
+        tokenId: world.commentId,
         q: "Fuzz",
         sort: "title",
         page: "1",

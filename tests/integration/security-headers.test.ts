@@ -118,7 +118,8 @@ describe("logs", () => {
       create trigger refuse_secret_team before insert on teams for each row execute function refuse_secret_team();`);
     try {
       const person = await signedInPerson(server, "logged");
-      const failed = await person.client.post("/api/teams", { name: secretName }, { Authorization: "Bearer bearer-secret-value" });
+      // A proxy's credentials pass beside the session; a Bearer header would be taken as an API token.
+      const failed = await person.client.post("/api/teams", { name: secretName }, { Authorization: "Basic bearer-secret-value" });
       expect(failed.status).toBe(500);
       expect(JSON.stringify(failed.body)).not.toMatch(/injected|insert into|\bat\b.*\.ts/);
       logger.info({ req: { headers: { cookie: "portfold_session=cookie-secret", authorization: "Basic basic-secret" } }, body: { password: "password-secret", token: "token-secret" } }, "direct");

@@ -1,4 +1,6 @@
+import { Link } from "react-router-dom";
 import { InlineError } from "@/components/ui/states";
+import { ApiTokens } from "@/features/account/components/api-tokens";
 import { useUpdateAccountSettings } from "@/features/account/api/update-account-settings";
 import { RequireAccount } from "@/features/auth/components/require-account";
 
@@ -7,13 +9,13 @@ export function AccountRoute() {
   return (
     <RequireAccount>
       {(me) => (
-        <section className="max-w-xl">
+        <section className="max-w-4xl">
           <h1 className="text-2xl font-semibold tracking-tight">Account settings</h1>
           <p className="mt-1 text-sm text-ink/70">
             {me.user.name} · {me.user.email}
           </p>
           <h2 className="mt-6 text-sm font-semibold">Review mail</h2>
-          <label className="mt-2 flex items-start gap-2 text-sm">
+          <label className="mt-2 flex max-w-xl items-start gap-2 text-sm">
             <input
               type="checkbox"
               className="mt-0.5 accent-copper"
@@ -27,6 +29,17 @@ export function AccountRoute() {
             </span>
           </label>
           <InlineError error={update.error} />
+          <h2 className="mt-8 text-sm font-semibold">API tokens</h2>
+          <p className="mt-1 max-w-3xl text-sm text-ink/70">
+            For scripts and CI jobs: a token acts with your roles in its teams and never signs in to this page. See the{" "}
+            <Link to="/api-reference" className="text-copper hover:underline">
+              API reference
+            </Link>
+            .
+          </p>
+          <div className="mt-4">
+            <ApiTokens me={me} />
+          </div>
         </section>
       )}
     </RequireAccount>

@@ -1,0 +1,52 @@
+// What every resource of the API shares: roles, verdicts, the error shape, and the text fields that reach PostgreSQL.
+import { z } from "zod";
+
+export const roles = ["owner", "editor", "reviewer", "viewer"] as const;
+export type Role = (typeof roles)[number];
+
+export const verdicts = ["open", "approved", "needs_changes"] as const;
+export type Verdict = (typeof verdicts)[number];
+
+export const isoTime = z.iso.datetime({ offset: true });
+export const person = z.object({ id: z.string(), name: z.string() }).meta({ id: "Person" });
+
+// C0/C1 controls and the bidirectional overrides and isolates, which can make a name read as something else.
+const controlsAndBidi = /[\u0000-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g;
+
+/** A one-line name as people see it: without control or bidi characters, trimmed. */
+export function withoutControls(text: string): string {
+  return text.replace(controlsAndBidi, "").trim();
+}
+
+/** A name or title field: control and bidi characters dropped, then required and bounded. */
+export const nameText = (max: number, required: string) =>
+  z.string().transform(withoutControls).pipe(z.string().min(1, { error: required }).max(max, { error: `Use at most ${max} characters.` }));
+
+// Text that reaches PostgreSQL from a query string or form field: no U+0000, which it cannot store.
+export const plainText = (max: number) => z.string().trim().max(max).refine((text) => !text.includes("\u0000"), { error: "Contains a NUL character." });
+
+export const emailField = z.string().trim().toLowerCase().pipe(z.email({ error: "Enter a valid e-mail address." })).pipe(z.string().max(254));
+// E-mailed link tokens are 32 random bytes in base64url: exactly 43 characters.
+export const tokenField = z.string().regex(/^[A-Za-z0-9_-]{43}$/, { error: "This link is malformed." });
+
+// The one error shape of the API.
+export const errorBody = z
+  .object({
+    error: z
+      .object({
+        code: z.string(),
+        message: z.string(),
+        fields: z.record(z.string(), z.string()).optional(),
+        diagnostics: z.array(z.unknown()).optional(),
+      })
+      .loose(),
+  })
+  .meta({ id: "Error" });
+export type ErrorBody = z.infer<typeof errorBody>;
+
+// A revision's review state, derived from its verdict history: who decided it and when (the latest change request,
+// or the approval that completed the count), and how many of the team's required approvals stand.
+export const revisionState = z
+  .object({ verdict: z.enum(verdicts), by: person.nullable(), at: isoTime.nullable(), approvals: z.number().int(), requiredApprovals: z.number().int() })
+  .meta({ id: "RevisionState" });
+export type RevisionState = z.infer<typeof revisionState>;
