@@ -49,6 +49,12 @@ function RootList({ label, roots }: { label: string; roots: SRoot[] }) {
 
 const noCursor = () => {};
 
+// A limit is drawn dashed only where the magnitude axis can show it (above zero).
+function limitText(which: string, value: number | null, unit: string): string {
+  if (value === null) return `${which} limit: unbounded`;
+  return `${which} limit (${formatSI(value, unit)}): ${value > 0 ? "dashed" : "not drawn"}`;
+}
+
 // Over frequency: the open-circuit transfer from the independent source (or Vth, said as such) and
 // Zth(jω), magnitude in dB or linear and phase in degrees over a range the designer sets, with the
 // exact DC and high-frequency limits, the poles and zeros, a readout at one frequency and a CSV.
@@ -187,8 +193,7 @@ export function FrequencyPanel({ exact, values, circuit }: { exact: ExactResults
                 <Chart x={plot.f} series={plot.ph} logX logY={false} yInDegrees xLabel="frequency (Hz)" yLabel="phase (°)" onCursor={noCursor} keyboardIndex={null} />
               </Suspense>
               <figcaption className="mt-1 text-[11px] text-ink/60">
-                {magnitudeName(fn).replace(/\|$/, "(j2πf)|")} {db ? `in ${fn.dbUnit} (20·log₁₀)` : `in ${fn.unit}`} and its phase. Dashed: the exact DC limit{plot.dc !== null ? ` (${formatSI(plot.dc, fn.unit)})` : " (unbounded)"} and the high-frequency limit
-                {plot.hf !== null ? ` (${formatSI(plot.hf, fn.unit)})` : " (unbounded)"}.
+                {magnitudeName(fn).replace(/\|$/, "(j2πf)|")} {db ? `in ${fn.dbUnit} (20·log₁₀)` : `in ${fn.unit}`} and its phase. Exact {limitText("DC", plot.dc, fn.unit)}; {limitText("high-frequency", plot.hf, fn.unit)}.
               </figcaption>
             </figure>
             <div className="flex flex-wrap items-end gap-2">
