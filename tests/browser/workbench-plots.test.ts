@@ -194,6 +194,12 @@ describe("sweep, frequency panel and editor notes in chromium", () => {
       await sweep.screenshot({ path: `${screenshotDir}/sweep-panel-linear-${width}.png` });
     }
     await page.setViewportSize({ width: 1440, height: 900 });
+    // Back above zero: the reasons go, and log can be ticked again.
+    await sweep.getByLabel("From", { exact: true }).fill("1");
+    await axes.waitFor({ state: "detached" });
+    await sweep.getByLabel("log R").check();
+    await sweep.getByLabel("log Zth(s)").check();
+    await expect.poll(() => ticks(chart, "x")).toBe("1 10 100 1k 10k 100k 1M");
   });
 
   it("puts each diagnostic beside its own line, never over the text, marks the element, and drops it the moment it is fixed", async () => {
@@ -239,6 +245,11 @@ describe("sweep, frequency panel and editor notes in chromium", () => {
       expect(note.x).toBeGreaterThanOrEqual(area.x + area.width - 0.5);
     }
     await page.setViewportSize({ width: 1440, height: 900 });
+    // A warning names its elements too: they are drawn in copper.
+    await editor.fill(`${typed}Cc capacitor adc x = Cx\nRx resistor x y = R2\nCy capacitor y 0 = C2\n`);
+    await page.locator('svg[aria-label^="Schematic preview"] [data-caution="Cy"]').waitFor();
+    await expect(page.locator('svg[aria-label^="Schematic preview"] [data-caution="Cc"]').count()).resolves.toBe(1);
+    await expect(page.locator(`[data-diagnostic-line="${lines.length}"]`).textContent()).resolves.toContain("reach ground only through capacitors");
     // Fixed: gone at once, with no wait for the next check.
     await editor.fill(typed);
     await expect(page.locator("[data-diagnostic-line]").count()).resolves.toBe(0);

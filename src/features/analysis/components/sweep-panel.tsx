@@ -62,7 +62,7 @@ export function SweepPanel({
     if (logX && notLogX) {
       setLogX(false);
       setAxisNotes((n) => ({ ...n, x: `${notLogX} Log ${symbol} unticked.` }));
-    }
+    } else if (!notLogX) setAxisNotes((n) => (n.x ? { ...n, x: undefined } : n)); // the reason is gone: so is the note
   }, [logX, notLogX, symbol]);
 
   const fixed = useMemo(() => readTypedValues(values).exact, [values]);
@@ -79,7 +79,7 @@ export function SweepPanel({
     if (logY && outcome?.kind === "ok" && !positive) {
       setLogY(false);
       setAxisNotes((n) => ({ ...n, y: `${yName} is not positive over this range: a log axis cannot show it. Log ${yName} unticked.` }));
-    }
+    } else if (positive) setAxisNotes((n) => (n.y ? { ...n, y: undefined } : n));
   }, [logY, outcome, positive, yName]);
   const useLogY = logY && positive;
   const tick = (axis: "x" | "y", checked: boolean) => {

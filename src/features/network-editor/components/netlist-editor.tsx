@@ -1,4 +1,4 @@
-import { useId, useLayoutEffect, useRef, useState } from "react";
+import { useEffect, useId, useLayoutEffect, useRef, useState } from "react";
 import type { Diagnostic } from "@/types/api";
 import { entryForDiagnostic } from "../lib/syntax-entries";
 import { SyntaxReference } from "./syntax-reference";
@@ -6,6 +6,8 @@ import { SyntaxReference } from "./syntax-reference";
 const LINE_HEIGHT = 20; // px; gutter, text and diagnostic bands share it so they stay aligned
 const PAD = 8; // px above the first line
 const NOTE_GAP = 2; // px between two notes in the margin
+const MARGIN = "relative min-w-[8rem] flex-1 border-l border-rule bg-paper/70 font-sans text-[11px] leading-snug";
+const MARGIN_KEPT_MS = 600; // an emptied margin stays this long, so a re-check while typing does not make the text jump
 
 /**
  * Where each margin note goes: level with its own line, or just below the note above it when that
@@ -70,6 +72,17 @@ export function NetlistEditor({
     if (measured.length !== heights.length || measured.some((h, i) => h !== heights[i])) setHeights(measured);
   });
   const tops = noteTops(notes.map((d) => d.line), heights);
+  // The messages go at once; the empty margin a little later (a live check of the new text may refill it).
+  const [marginKept, setMarginKept] = useState(false);
+  useEffect(() => {
+    if (notes.length > 0) {
+      setMarginKept(true);
+      return;
+    }
+    const timer = window.setTimeout(() => setMarginKept(false), MARGIN_KEPT_MS);
+    return () => window.clearTimeout(timer);
+  }, [notes.length]);
+  const margin = notes.length > 0 || marginKept;
   const notesBottom = notes.length > 0 ? tops[tops.length - 1] + (heights[heights.length - 1] ?? LINE_HEIGHT) + PAD : 0;
   const textHeight = lineCount * LINE_HEIGHT + 2 * PAD;
   const longest = Math.max(...lines.map((l) => l.length));
@@ -106,7 +119,7 @@ export function NetlistEditor({
           })}
         </div>
         {/* With notes, the text keeps the width of its longest line (never under 55%); the margin takes the rest. */}
-        <div className="relative min-w-0 flex-1 overflow-x-auto" style={notes.length > 0 ? { flex: `0 1 calc(${longest + 1}ch + 1rem)`, minWidth: "55%" } : undefined}>
+        <div className="relative min-w-0 flex-1 overflow-x-auto" style={margin ? { flex: `0 1 calc(${longest + 1}ch + 1rem)`, minWidth: "55%" } : undefined}>
           <div aria-hidden="true" className="pointer-events-none absolute inset-0 py-2">
             {[...byLine.values()].map((d) => (
               <div
@@ -145,8 +158,9 @@ export function NetlistEditor({
             style={{ lineHeight: `${LINE_HEIGHT}px`, height: textHeight }}
           />
         </div>
+        {margin && notes.length === 0 && <div aria-hidden="true" className={MARGIN} />}
         {notes.length > 0 && (
-          <ul ref={noteList} aria-label="Netlist diagnostics" className="relative min-w-[8rem] flex-1 border-l border-rule bg-paper/70 font-sans text-[11px] leading-snug">
+          <ul ref={noteList} aria-label="Netlist diagnostics" className={MARGIN}>
             {notes.map((d, i) => (
               <li key={`${d.line}-${d.column ?? 0}-${i}`} data-diagnostic-line={d.line} className={`absolute inset-x-0 border-l-2 px-1.5 py-0.5 ${d.severity === "error" ? "border-signal" : "border-copper"}`} style={{ top: tops[i] }}>
                 <button type="button" onClick={() => goTo(d)} className={`text-left hover:underline ${d.severity === "error" ? "text-signal" : "text-copper"}`}>
