@@ -214,7 +214,9 @@ describe("sweep, frequency panel and editor notes in chromium", () => {
     const lineOf = (name: string) => lines.findIndex((l) => l.startsWith(name)) + 1;
     const count = await notes.count();
     expect(count).toBe(2);
-    const text = (await editor.boundingBox())!;
+    // The text column as shown (the textarea inside it may be wider, scrolled sideways).
+    const column = editor.locator("..");
+    const text = (await column.boundingBox())!;
     const boxes = [];
     for (let i = 0; i < count; i++) {
       const note = notes.nth(i);
@@ -241,7 +243,7 @@ describe("sweep, frequency panel and editor notes in chromium", () => {
       await panel.scrollIntoViewIfNeeded();
       await page.screenshot({ path: `${screenshotDir}/editor-diagnostic-${width}.png` });
       const note = (await stray.boundingBox())!;
-      const area = (await editor.boundingBox())!;
+      const area = (await column.boundingBox())!;
       expect(note.x).toBeGreaterThanOrEqual(area.x + area.width - 0.5);
     }
     await page.setViewportSize({ width: 1440, height: 900 });

@@ -86,6 +86,7 @@ export function NetlistEditor({
   const notesBottom = notes.length > 0 ? tops[tops.length - 1] + (heights[heights.length - 1] ?? LINE_HEIGHT) + PAD : 0;
   const textHeight = lineCount * LINE_HEIGHT + 2 * PAD;
   const longest = Math.max(...lines.map((l) => l.length));
+  const textWidth = `max(100%, calc(${longest + 1}ch + 1rem))`;
 
   const goTo = (d: EditorDiagnostic) => {
     const el = textarea.current;
@@ -118,9 +119,10 @@ export function NetlistEditor({
             );
           })}
         </div>
-        {/* With notes, the text keeps the width of its longest line (never under 55%); the margin takes the rest. */}
+        {/* With notes, the text keeps the width of its longest line (never under 55%); the margin takes the rest.
+            The textarea is as wide as its longest line, so a squeezed column scrolls sideways with a bar. */}
         <div className="relative min-w-0 flex-1 overflow-x-auto" style={margin ? { flex: `0 1 calc(${longest + 1}ch + 1rem)`, minWidth: "55%" } : undefined}>
-          <div aria-hidden="true" className="pointer-events-none absolute inset-0 py-2">
+          <div aria-hidden="true" className="pointer-events-none absolute inset-y-0 left-0 py-2" style={{ width: textWidth }}>
             {[...byLine.values()].map((d) => (
               <div
                 key={d.line}
@@ -154,8 +156,8 @@ export function NetlistEditor({
             rows={lineCount}
             aria-describedby={`${id}-help`}
             aria-invalid={diagnostics.some((d) => d.severity === "error") || undefined}
-            className="relative block w-full resize-none overflow-hidden whitespace-pre bg-transparent px-2 py-2 text-ink focus:outline-none"
-            style={{ lineHeight: `${LINE_HEIGHT}px`, height: textHeight }}
+            className="relative block resize-none overflow-hidden whitespace-pre bg-transparent px-2 py-2 text-ink focus:outline-none"
+            style={{ lineHeight: `${LINE_HEIGHT}px`, height: textHeight, width: textWidth }}
           />
         </div>
         {margin && notes.length === 0 && <div aria-hidden="true" className={MARGIN} />}
