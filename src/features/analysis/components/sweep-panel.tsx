@@ -45,7 +45,6 @@ export function SweepPanel({
   const [cursor, setCursor] = useState<number | null>(null);
   const [keyboardIndex, setKeyboardIndex] = useState<number | null>(null);
 
-  const label = (n: ResultName) => resultLabel(n, inS);
   const unit = RESULT_UNIT[result];
   const xUnit = symbolUnit(symbol, quantities[symbol]);
   const { range, rangeError } = useMemo(() => {
@@ -82,11 +81,15 @@ export function SweepPanel({
     } else if (positive) setAxisNotes((n) => (n.y ? { ...n, y: undefined } : n));
   }, [logY, outcome, positive, yName]);
   const useLogY = logY && positive;
+  // Why a log box cannot be ticked now, or null when it can.
+  const refusal = (axis: "x" | "y"): string | null => {
+    if (axis === "x") return notLogX ? `${notLogX} Log ${symbol} stays unticked.` : null;
+    return outcome?.kind === "ok" && !positive ? `${yName} is not positive over this range: log stays unticked.` : null;
+  };
   const tick = (axis: "x" | "y", checked: boolean) => {
-    const refusal = !checked ? null : axis === "x" ? (notLogX ? `${notLogX} Log ${symbol} stays unticked.` : null) : outcome?.kind === "ok" && !positive ? `${yName} is not positive over this range: log stays unticked.` : null;
-    setAxisNotes((n) => ({ ...n, [axis]: refusal ?? undefined }));
-    if (refusal) return;
-    (axis === "x" ? setLogX : setLogY)(checked);
+    const reason = checked ? refusal(axis) : null;
+    setAxisNotes((n) => ({ ...n, [axis]: reason ?? undefined }));
+    if (!reason) (axis === "x" ? setLogX : setLogY)(checked);
   };
 
   // A log axis cannot show a zero or negative asymptote.
@@ -115,7 +118,7 @@ export function SweepPanel({
           <label htmlFor={`${id}-result`} className="block text-xs font-medium">Plot</label>
           <select id={`${id}-result`} className={select} value={result} onChange={(e) => setResult(e.target.value as ResultName)}>
             {available.map((n) => (
-              <option key={n} value={n}>{label(n)} ({RESULT_UNIT[n]})</option>
+              <option key={n} value={n}>{resultLabel(n, inS)} ({RESULT_UNIT[n]})</option>
             ))}
           </select>
         </div>
@@ -147,7 +150,7 @@ export function SweepPanel({
           <input type="checkbox" checked={logX} onChange={(e) => tick("x", e.target.checked)} className="accent-copper" /> log {symbol || "x"}
         </label>
         <label className="flex items-center gap-1">
-          <input type="checkbox" checked={logY} onChange={(e) => tick("y", e.target.checked)} className="accent-copper" /> log {label(result)}
+          <input type="checkbox" checked={logY} onChange={(e) => tick("y", e.target.checked)} className="accent-copper" /> log {yName}
         </label>
       </div>
       {(axisNotes.x || axisNotes.y) && (
@@ -164,16 +167,16 @@ export function SweepPanel({
                 <code className="font-mono">{s}</code>
               </span>
             ))}{" "}
-            to sweep {label(result)} against {symbol}.
+            to sweep {yName} against {symbol}.
           </p>
         )}
         {rangeError && <p className="text-xs text-signal">{rangeError}</p>}
         {outcome?.kind === "invalid" && <p className="text-xs text-signal">{outcome.reason}</p>}
         {outcome?.kind === "ok" && (
           <>
-            <figure aria-label={`Sweep of ${label(result)} against ${symbol}`} data-testid="sweep-plot">
+            <figure aria-label={`Sweep of ${yName} against ${symbol}`} data-testid="sweep-plot">
               <Suspense fallback={<Progress label="Drawing the sweep…" />}>
-                <SweepChart x={outcome.x} series={series} logX={scale === "log"} logY={useLogY} xLabel={xUnit ? `${symbol} (${xUnit})` : symbol} yLabel={unit ? `${label(result)} (${unit})` : label(result)} onCursor={setCursor} keyboardIndex={keyboardIndex} />
+                <SweepChart x={outcome.x} series={series} logX={scale === "log"} logY={useLogY} xLabel={xUnit ? `${symbol} (${xUnit})` : symbol} yLabel={unit ? `${yName} (${unit})` : yName} onCursor={setCursor} keyboardIndex={keyboardIndex} />
               </Suspense>
               <label className="mt-1 block text-[11px] text-ink/60">
                 Read at a point (arrow keys)
@@ -193,7 +196,7 @@ export function SweepPanel({
               <figcaption className="mt-1 min-h-[2.5rem] font-mono text-[11px] text-ink/80" aria-live="polite">
                 {cursor !== null && outcome.x[cursor] !== undefined ? (
                   <>
-                    {symbol} = {formatSI(outcome.x[cursor], xUnit)}, {label(result)} = {Number.isNaN(outcome.y[cursor]) ? "not defined" : formatSI(outcome.y[cursor], unit)}
+                    {symbol} = {formatSI(outcome.x[cursor], xUnit)}, {yName} = {Number.isNaN(outcome.y[cursor]) ? "not defined" : formatSI(outcome.y[cursor], unit)}
                   </>
                 ) : (
                   <span className="font-sans text-ink/50">Point at the plot for a readout.</span>
