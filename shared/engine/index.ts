@@ -7,6 +7,7 @@ import { jsonErrorOffset } from "./circuit/json-position";
 import { parseNetlistText } from "./circuit/netlist-text";
 import { normalizeNetwork, validateNetworkJson } from "./circuit/schema";
 import { checkNetwork, emptyResult, solveParsedNetwork, solvePortExact, type ExactPort } from "./circuit/solve";
+import { independentSources, type IndependentSource } from "./circuit/sources";
 import type { Diagnostic, Network, NetworkInput, ParseResult, SolveOptions, SolveResult } from "./types";
 
 export * from "./types";
@@ -15,7 +16,7 @@ export { NETLIST_EXTENSION, parseNetlistText, printNetlistText } from "./circuit
 export { networkSchema } from "./circuit/schema";
 export { toSolveOutput, type SolveOutput } from "./circuit/output";
 export { AMPLIFIER, BJT_HYBRID_PI, BUILT_IN_CELLS, MOSFET, checkCellDefinition, expandCells, printCellLine } from "./circuit/cells";
-export { frequencyLimit, frequencyReport, frequencyResponse, frequencySpan, logFrequencies, numericCoefficientsInS, polesAndZeros, polynomialRoots } from "./circuit/frequency";
+export { frequencyLimit, frequencyReport, frequencyResponse, frequencySpan, logFrequencies, numericCoefficientsInS, openCircuitTransfer, polesAndZeros, polynomialRoots, type OpenCircuitTransfer } from "./circuit/frequency";
 export { approximate, parseAssumption, type Assumption } from "./circuit/approximations";
 export { designSolve, type DesignSolveAnswer, type DesignSolveRequest } from "./circuit/design-solve";
 
@@ -66,7 +67,15 @@ export function solveNetworkExact(input: string | NetworkInput | Network): { net
   return { network, diagnostics: attributeToCells(checked.diagnostics, expanded.origin, parsed.network.cells), port: solvePortExact(network, checked.values, checked.terms) };
 }
 
-export type { ExactPort };
+export type { ExactPort, IndependentSource };
+
+/** The independent sources of a network, its cells expanded; null when it does not read (or a cell is unknown). */
+export function independentSourcesOf(input: string | NetworkInput | Network): IndependentSource[] | null {
+  const parsed = parseNetwork(input);
+  if (!parsed.network) return null;
+  const expanded = expandCells(normalizeNetwork(parsed.network), parsed.positions);
+  return expanded.network ? independentSources(expanded.network) : null;
+}
 
 /**
  * Everything a solve would refuse the network for, without solving: reading, cells, names,

@@ -2,6 +2,7 @@
 // forms, importing a netlist file from the team home.
 import { mkdirSync } from "node:fs";
 import type { Page } from "playwright-core";
+import { afterAll, beforeAll } from "vitest";
 import { ApiClient } from "../support/api.js";
 import { launchBrowser, screenshotDir, type TestBrowser } from "../support/browser.js";
 import { startTestServer, type TestServer } from "../support/server.js";
@@ -72,5 +73,21 @@ export async function signedUpSession(person: Person): Promise<SignedUpSession> 
       await browser.close();
       await server.close();
     },
+  };
+}
+
+/** For a describe block: one signed-up session before its tests (pages wait up to 60 s), closed after them. */
+export function withSignedUpSession(person: Person): () => SignedUpSession {
+  let session: SignedUpSession | undefined;
+  beforeAll(async () => {
+    session = await signedUpSession(person);
+    session.page.setDefaultTimeout(60_000);
+  });
+  afterAll(async () => {
+    await session?.close();
+  });
+  return () => {
+    if (!session) throw new Error("the session has not started");
+    return session;
   };
 }

@@ -113,8 +113,8 @@ describe("review flow in chromium", () => {
     const sweep = page.getByRole("region", { name: "Sweep" });
     await sweep.getByLabel("Plot", { exact: true }).selectOption("rth");
     await sweep.getByLabel("Against", { exact: true }).selectOption("mu");
-    await sweep.getByLabel("From 10^").fill("0");
-    await sweep.getByLabel("To 10^").fill("6");
+    await sweep.getByLabel("From", { exact: true }).fill("1");
+    await sweep.getByLabel("To", { exact: true }).fill("1M");
     const plotArea = sweep.locator('[data-testid="sweep-plot"] .u-over');
     await plotArea.waitFor();
     await plotArea.scrollIntoViewIfNeeded();

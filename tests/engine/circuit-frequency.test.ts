@@ -4,7 +4,7 @@
 
 import { describe, expect, it } from "vitest";
 import { Rational, parseValue } from "../../shared/engine/algebra";
-import { frequencyResponse, numericCoefficientsInS, polynomialRoots, solveNetwork, toSolveOutput, type SolveResult } from "../../shared/engine";
+import { frequencyResponse, independentSourcesOf, numericCoefficientsInS, openCircuitTransfer, polynomialRoots, solveNetwork, toSolveOutput, type SolveResult } from "../../shared/engine";
 import { askSympy } from "./algebra-sympy";
 
 function solve(text: string, values?: Record<string, string>): SolveResult {
@@ -177,3 +177,34 @@ describe("Bode evaluation", () => {
 function parseRth(text: string) {
   return parseValue(text);
 }
+
+describe("open-circuit transfer from the independent source", () => {
+  it("one source: Vth/Vs of the sensor RC is 1/(1 + sR1C) (common practice: a single-pole low-pass)", () => {
+    const r = solve(RC);
+    const sources = independentSourcesOf(RC);
+    expect(sources?.map((s) => [s.name, s.kind, s.value.toInfix()])).toEqual([["Sensor", "voltage", "Vs"]]);
+    const h = openCircuitTransfer(parseValue(r.vth!.infix), sources);
+    if (h.kind !== "transfer") throw new Error(h.kind);
+    expect(askSympy([{ kind: "equal", a: h.transfer.toInfix(), b: "1/(1 + s*R1*C)" }])).toEqual([true]);
+  });
+
+  it("a current source gives a transimpedance; a controlled source with no independent part is not counted", () => {
+    // A photodiode current into a shunt RC, buffered by a VCVS: Vth/Iph = Rsh/(1 + sRshC) (common practice).
+    const text = "port out 0\nDiode current 0 n = Iph\nRsh resistor n 0 = R\nCj capacitor n 0 = C\nBuf voltage out 0 = across(n, 0)\n";
+    const sources = independentSourcesOf(text);
+    expect(sources?.map((s) => s.name)).toEqual(["Diode"]);
+    const h = openCircuitTransfer(parseValue(solve(text).vth!.infix), sources);
+    if (h.kind !== "transfer") throw new Error(h.kind);
+    expect(h.source.kind).toBe("current");
+    expect(askSympy([{ kind: "equal", a: h.transfer.toInfix(), b: "R/(1 + s*R*C)" }])).toEqual([true]);
+  });
+
+  it("several sources (a bias part in a controlled source counts) and none are said as such", () => {
+    const biased = "port out 0\nSig voltage in 0 = Vin\nR1 resistor in n = R\nBuf voltage out 0 = across(n, 0) + Voff\nCload capacitor n 0 = C\n";
+    const several = openCircuitTransfer(parseValue(solve(biased).vth!.infix), independentSourcesOf(biased));
+    expect(several.kind === "several" && several.sources.map((s) => [s.name, s.value.toInfix()])).toEqual([["Sig", "Vin"], ["Buf", "Voff"]]);
+    const passive = "port out 0\nR1 resistor out n = R\nCload capacitor n 0 = C\n";
+    expect(openCircuitTransfer(parseValue(solve(passive).vth!.infix), independentSourcesOf(passive)).kind).toBe("none");
+    expect(independentSourcesOf("port out 0\nR1 resistor out 0 = 2.2Meg\n")).toBeNull();
+  });
+});

@@ -5,6 +5,7 @@
 import findRoots from "durand-kerner";
 import type { Rational, RationalFunction } from "../algebra";
 import type { ResultName } from "../types";
+import type { IndependentSource } from "./sources";
 import { LAPLACE } from "./values";
 
 /** One result at a frequency limit: finite (value), unbounded, or absent for this port. */
@@ -44,6 +45,24 @@ export interface FrequencyReport {
 }
 
 type FrequencyResults = Partial<Record<ResultName, RationalFunction | null>>;
+
+/**
+ * What Vth(s) is a response to. With exactly one independent source, Vth divided by its value: the
+ * port's open-circuit transfer (V/V from a voltage source, V/A = Ω from a current source). With
+ * several, Vth itself (every source at its own value); with none, Vth is zero.
+ */
+export type OpenCircuitTransfer =
+  | { kind: "transfer"; source: IndependentSource; transfer: RationalFunction }
+  | { kind: "several"; sources: IndependentSource[] }
+  | { kind: "none" }
+  | { kind: "unknown" };
+
+export function openCircuitTransfer(vth: RationalFunction | null | undefined, sources: IndependentSource[] | null): OpenCircuitTransfer {
+  if (sources === null || !vth) return { kind: "unknown" };
+  if (sources.length === 0) return { kind: "none" };
+  if (sources.length > 1) return { kind: "several", sources };
+  return { kind: "transfer", source: sources[0], transfer: vth.div(sources[0].value) };
+}
 
 /** Whether any result depends on s (only then is there a frequency report). */
 export function dependsOnFrequency(results: FrequencyResults): boolean {

@@ -109,7 +109,7 @@ export function SharedViewRoute() {
           </div>
         </section>
         <section aria-label="Values, Limits and Sweep" className="min-w-0">
-          <AnalysisColumn results={revision.results} valueSets={revision.valueSets} />
+          <AnalysisColumn results={revision.results} circuit={revision.circuit} valueSets={revision.valueSets} />
         </section>
       </div>
     </div>

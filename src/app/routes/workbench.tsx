@@ -225,7 +225,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
         </section>
         <section aria-label="Values, Limits and Sweep" className="min-w-0">
           {revision.data ? (
-            <AnalysisColumn key={`${network.id}-${revision.data.k}`} results={revision.data.results} networkId={network.id} canSaveValues={canEdit} />
+            <AnalysisColumn key={`${network.id}-${revision.data.k}`} results={revision.data.results} circuit={revision.data.circuit} networkId={network.id} canSaveValues={canEdit} />
           ) : (
             <p className="text-sm text-ink/60 print:hidden">Values, Limits and Sweep work on a solved revision.</p>
           )}

@@ -1,6 +1,6 @@
 import { useMemo, useState, type ReactNode } from "react";
 import { Caution } from "@/components/ui/caution";
-import type { Results, ValueSet } from "@/types/api";
+import type { Circuit, Results, ValueSet } from "@/types/api";
 import { useValueSets } from "@/features/value-sets/api/get-value-sets";
 import { ValueSetsBar } from "@/features/value-sets/components/value-sets-bar";
 import { readExactResults, symbolsOf } from "../lib/exact-results";
@@ -23,7 +23,7 @@ function Panel({ title, children }: { title: string; children: ReactNode }) {
 }
 
 // The narrow right column: Values, Limits and Sweep, all computed in the browser from the stored exact result.
-export function AnalysisColumn({ results, networkId, canSaveValues = false, valueSets }: { results: Results; networkId?: string; canSaveValues?: boolean; valueSets?: ValueSet[] }) {
+export function AnalysisColumn({ results, circuit, networkId, canSaveValues = false, valueSets }: { results: Results; circuit?: Circuit; networkId?: string; canSaveValues?: boolean; valueSets?: ValueSet[] }) {
   const exact = useMemo(() => readExactResults(results), [results]);
   const symbols = useMemo(() => symbolsOf(exact), [exact]);
   const [values, setValues] = useState<TypedValues>({});
@@ -41,14 +41,14 @@ export function AnalysisColumn({ results, networkId, canSaveValues = false, valu
       {/* Only when a result depends on the Laplace variable s. */}
       {symbols.includes("s") && (
         <Panel title="Frequency">
-          <FrequencyPanel exact={exact} values={values} />
+          <FrequencyPanel exact={exact} values={values} circuit={circuit} />
         </Panel>
       )}
       <Panel title="Limits">
         <LimitsPanel exact={exact} symbols={symbols} initialSymbol={gain} quantities={results.quantities} />
       </Panel>
       <Panel title="Sweep">
-        <SweepPanel exact={exact} symbols={symbols} quantities={results.quantities} values={values} initialSymbol={gain} />
+        <SweepPanel exact={exact} symbols={symbols} quantities={results.quantities} values={values} initialSymbol={gain} inS={symbols.includes("s")} />
       </Panel>
       <Caution className="mt-3" />
     </div>

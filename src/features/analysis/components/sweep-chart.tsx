@@ -1,6 +1,7 @@
 import "uplot/dist/uPlot.min.css";
 import uPlot from "uplot";
 import { useEffect, useRef } from "react";
+import { DEGREE_STEPS, ONE_TWO_FIVE, engineeringTick, logTicks } from "../lib/axis-ticks";
 
 export interface ChartSeries {
   label: string;
@@ -16,15 +17,18 @@ export interface SweepChartProps {
   logY: boolean;
   xLabel: string;
   yLabel: string;
-  formatX: (v: number) => string;
-  formatY: (v: number) => string;
+  /** Phase plots step in fractions of a turn (15°, 45°, 90°); others in 1-2-5. */
+  yInDegrees?: boolean;
   onCursor: (index: number | null) => void;
   /** A point chosen from the keyboard: the plot's cursor is moved there. */
   keyboardIndex: number | null;
 }
 
+const LABEL_SPACE = { x: 30, y: 28 }; // px from one tick label to the next, at the least
+const DECADE_SPACE = { x: 30, y: 18 }; // decades are few and short: closer on a log axis
+
 // uPlot draws; React only hands it data. Recreated when the axes change, data-only updates otherwise.
-export default function SweepChart({ x, series, logX, logY, xLabel, yLabel, formatX, formatY, onCursor, keyboardIndex }: SweepChartProps) {
+export default function SweepChart({ x, series, logX, logY, xLabel, yLabel, yInDegrees = false, onCursor, keyboardIndex }: SweepChartProps) {
   const host = useRef<HTMLDivElement>(null);
   const plotRef = useRef<uPlot | null>(null);
   const cursor = useRef(onCursor);
@@ -36,14 +40,21 @@ export default function SweepChart({ x, series, logX, logY, xLabel, yLabel, form
     const width = Math.max(200, el.clientWidth);
     const font = '10px "IBM Plex Sans", sans-serif';
     const axis = { font, labelFont: '11px "IBM Plex Sans", sans-serif', stroke: "#1E2430", grid: { stroke: "#E4DED2", width: 1 }, ticks: { stroke: "#E4DED2" } };
-    // On a log axis only the decades get a tick, a label and a grid line.
-    const isDecade = (v: number) => Math.abs(Math.log10(Math.abs(v)) - Math.round(Math.log10(Math.abs(v)))) < 1e-9;
-    const onlyDecades = (_u: uPlot, splits: number[]) => splits.map((v) => (isDecade(v) ? v : null));
-    const decades = (log: boolean) =>
+    // uPlot's own axis options: log axes split at decades (1-2-5 within one), linear ones in 1-2-5 steps.
+    const ticks = (log: boolean, along: "x" | "y", steps: number[]): Partial<uPlot.Axis> =>
       log
-        ? { filter: onlyDecades, grid: { ...axis.grid, filter: onlyDecades }, ticks: { ...axis.ticks, filter: onlyDecades } }
-        : {};
-    const labels = (format: (v: number) => string) => (_u: uPlot, ticks: number[]) => ticks.map((v) => (v == null ? "" : format(v)));
+        ? {
+            splits: (u, _i, min, max) => logTicks(min, max, (along === "x" ? u.width - 60 : u.height - 50) / DECADE_SPACE[along] + 1),
+            // logTicks already spaced them: uPlot's own log filter would thin them again.
+            filter: (_u, splits) => splits,
+          }
+        : { incrs: steps, space: LABEL_SPACE[along] };
+    // The labels uPlot draws are also written on the host (data-ticks-x/-y), where a reader or a test can see them.
+    const values = (_u: uPlot, splits: number[], axisIndex: number) => {
+      const labels = splits.map((v) => (v == null ? "" : engineeringTick(v)));
+      el.dataset[axisIndex === 0 ? "ticksX" : "ticksY"] = labels.filter(Boolean).join(" ");
+      return labels;
+    };
     const opts: uPlot.Options = {
       width,
       height: 210,
@@ -51,8 +62,8 @@ export default function SweepChart({ x, series, logX, logY, xLabel, yLabel, form
       cursor: { drag: { x: false, y: false }, points: { size: 6 } },
       scales: { x: { time: false, distr: logX ? 3 : 1 }, y: { distr: logY ? 3 : 1 } },
       axes: [
-        { ...axis, ...decades(logX), label: xLabel, values: labels(formatX), size: 30, labelSize: 16 },
-        { ...axis, ...decades(logY), label: yLabel, values: labels(formatY), size: 52, labelSize: 16 },
+        { ...axis, ...ticks(logX, "x", ONE_TWO_FIVE), label: xLabel, values, size: 30, labelSize: 16 },
+        { ...axis, ...ticks(logY, "y", yInDegrees ? DEGREE_STEPS : ONE_TWO_FIVE), label: yLabel, values, size: 52, labelSize: 16 },
       ],
       series: [{ label: xLabel }, ...series.map((s) => ({ label: s.label, stroke: s.color, width: s.dash ? 1 : 1.6, dash: s.dash, points: { show: false } }))],
       hooks: { setCursor: [(u) => cursor.current(u.cursor.idx ?? null)] },
@@ -67,7 +78,7 @@ export default function SweepChart({ x, series, logX, logY, xLabel, yLabel, form
       plot.destroy();
       plotRef.current = null;
     };
-  }, [x, series, logX, logY, xLabel, yLabel, formatX, formatY]);
+  }, [x, series, logX, logY, xLabel, yLabel, yInDegrees]);
 
   useEffect(() => {
     const plot = plotRef.current;
@@ -76,5 +87,5 @@ export default function SweepChart({ x, series, logX, logY, xLabel, yLabel, form
     plot.setCursor({ left: plot.valToPos(x[keyboardIndex], "x"), top: y == null ? 0 : plot.valToPos(y, "y") });
   }, [keyboardIndex, x, series]);
 
-  return <div ref={host} className="w-full" onMouseLeave={() => cursor.current(null)} />;
+  return <div ref={host} className="w-full" data-scale-x={logX ? "log" : "linear"} data-scale-y={logY ? "log" : "linear"} onMouseLeave={() => cursor.current(null)} />;
 }

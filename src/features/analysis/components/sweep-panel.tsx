@@ -1,11 +1,13 @@
-import { lazy, Suspense, useCallback, useId, useMemo, useState } from "react";
+import { lazy, Suspense, useEffect, useId, useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Progress } from "@/components/ui/states";
 import { formatSI } from "@/lib/engine";
+import { downloadText } from "@/features/export/lib/latex";
 import type { ResultName } from "@/types/api";
 import { readTypedValues, type ExactResults } from "../lib/exact-results";
-import { RESULT_LABEL, RESULT_NAMES, RESULT_UNIT, symbolUnit } from "../lib/quantities";
-import { sweepCsv, sweepResult } from "../lib/sweep";
+import { RESULT_NAMES, RESULT_UNIT, resultLabel, symbolUnit } from "../lib/quantities";
+import { notLogRange, sweepCsv, sweepResult } from "../lib/sweep";
+import { readTypedNumber } from "../lib/typed-number";
 import type { ChartSeries } from "./sweep-chart";
 import type { TypedValues } from "./values-panel";
 
@@ -20,60 +22,91 @@ export function SweepPanel({
   quantities,
   values,
   initialSymbol,
+  inS = false,
 }: {
   exact: ExactResults;
   symbols: string[];
   quantities: Record<string, string | null>;
   values: TypedValues;
   initialSymbol?: string;
+  /** Whether the results depend on s (L or C in the network): Rth is then named Zth(s). */
+  inS?: boolean;
 }) {
   const id = useId();
   const available = RESULT_NAMES.filter((n) => exact[n]);
   const [result, setResult] = useState<ResultName>(available.includes("rth") ? "rth" : (available[0] ?? "rth"));
   const [symbol, setSymbol] = useState(initialSymbol && symbols.includes(initialSymbol) ? initialSymbol : (symbols[0] ?? ""));
-  const [fromDecade, setFromDecade] = useState("0");
-  const [toDecade, setToDecade] = useState("6");
+  const [fromText, setFromText] = useState("1");
+  const [toText, setToText] = useState("1M");
   const [logX, setLogX] = useState(true);
   const [logY, setLogY] = useState(true);
+  // Why a log box was unticked (or refused): said beside the boxes until the next change.
+  const [axisNotes, setAxisNotes] = useState<{ x?: string; y?: string }>({});
   const [cursor, setCursor] = useState<number | null>(null);
   const [keyboardIndex, setKeyboardIndex] = useState<number | null>(null);
 
-  const fixed = useMemo(() => readTypedValues(values).exact, [values]);
-  const rf = exact[result];
-  const outcome = useMemo(() => {
-    if (!rf || !symbol) return null;
-    return sweepResult(rf, { symbol, fromDecade: Number(fromDecade), toDecade: Number(toDecade), pointsPerDecade: 40 }, fixed);
-  }, [rf, symbol, fromDecade, toDecade, fixed]);
-
   const unit = RESULT_UNIT[result];
   const xUnit = symbolUnit(symbol, quantities[symbol]);
+  const { range, rangeError } = useMemo(() => {
+    const from = readTypedNumber(fromText, xUnit);
+    const to = readTypedNumber(toText, xUnit);
+    if ("error" in from) return { range: null, rangeError: `From: ${from.error}.` };
+    if ("error" in to) return { range: null, rangeError: `To: ${to.error}.` };
+    return { range: { from: from.value.toNumber(), to: to.value.toNumber() }, rangeError: null };
+  }, [fromText, toText, xUnit]);
+  const notLogX = range ? notLogRange(range.from, range.to) : null;
+
+  // A log box never stays ticked on a range a log axis cannot show.
+  useEffect(() => {
+    if (logX && notLogX) {
+      setLogX(false);
+      setAxisNotes((n) => ({ ...n, x: `${notLogX} Log ${symbol} unticked.` }));
+    } else if (!notLogX) setAxisNotes((n) => (n.x ? { ...n, x: undefined } : n)); // the reason is gone: so is the note
+  }, [logX, notLogX, symbol]);
+
+  const fixed = useMemo(() => readTypedValues(values).exact, [values]);
+  const rf = exact[result];
+  const scale = logX && !notLogX ? "log" : "linear";
+  const outcome = useMemo(() => {
+    if (!rf || !symbol || !range) return null;
+    return sweepResult(rf, { symbol, from: range.from, to: range.to, scale }, fixed);
+  }, [rf, symbol, range, scale, fixed]);
+
   const positive = outcome?.kind === "ok" && outcome.y.every((v) => Number.isNaN(v) || v > 0);
+  const yName = resultLabel(result, inS);
+  useEffect(() => {
+    if (logY && outcome?.kind === "ok" && !positive) {
+      setLogY(false);
+      setAxisNotes((n) => ({ ...n, y: `${yName} is not positive over this range: a log axis cannot show it. Log ${yName} unticked.` }));
+    } else if (positive) setAxisNotes((n) => (n.y ? { ...n, y: undefined } : n));
+  }, [logY, outcome, positive, yName]);
   const useLogY = logY && positive;
+  // Why a log box cannot be ticked now, or null when it can.
+  const refusal = (axis: "x" | "y"): string | null => {
+    if (axis === "x") return notLogX ? `${notLogX} Log ${symbol} stays unticked.` : null;
+    return outcome?.kind === "ok" && !positive ? `${yName} is not positive over this range: log stays unticked.` : null;
+  };
+  const tick = (axis: "x" | "y", checked: boolean) => {
+    const reason = checked ? refusal(axis) : null;
+    setAxisNotes((n) => ({ ...n, [axis]: reason ?? undefined }));
+    if (!reason) (axis === "x" ? setLogX : setLogY)(checked);
+  };
 
   // A log axis cannot show a zero or negative asymptote.
   const drawn = (limit: number) => !useLogY || limit > 0;
   const series = useMemo<ChartSeries[]>(() => {
     if (outcome?.kind !== "ok") return [];
-    const list: ChartSeries[] = [{ label: RESULT_LABEL[result], values: outcome.y.map((v) => (Number.isNaN(v) ? null : v)), color: "#B5562B" }];
+    const list: ChartSeries[] = [{ label: yName, values: outcome.y.map((v) => (Number.isNaN(v) ? null : v)), color: "#B5562B" }];
     if (outcome.atInfinity !== null && (!useLogY || outcome.atInfinity > 0))
       list.push({ label: `limit as ${symbol} → ∞`, values: outcome.x.map(() => outcome.atInfinity), color: "#2F7D6D", dash: [5, 4] });
     if (outcome.atZero !== null && (!useLogY || outcome.atZero > 0))
       list.push({ label: `limit as ${symbol} → 0`, values: outcome.x.map(() => outcome.atZero), color: "#1E2430", dash: [2, 3] });
     return list;
-  }, [outcome, result, symbol, useLogY]);
-
-  const formatX = useCallback((v: number) => formatSI(v, xUnit), [xUnit]);
-  const formatY = useCallback((v: number) => formatSI(v, unit), [unit]);
+  }, [outcome, yName, symbol, useLogY]);
 
   const download = () => {
     if (outcome?.kind !== "ok") return;
-    const blob = new Blob([sweepCsv(symbol, RESULT_LABEL[result], unit, outcome.x, outcome.y)], { type: "text/csv" });
-    const url = URL.createObjectURL(blob);
-    const a = document.createElement("a");
-    a.href = url;
-    a.download = `sweep-${RESULT_LABEL[result]}-${symbol}.csv`;
-    a.click();
-    URL.revokeObjectURL(url);
+    downloadText(`sweep-${yName}-${symbol}.csv`, sweepCsv(symbol, yName, unit, outcome.x, outcome.y), "text/csv");
   };
 
   if (symbols.length === 0 || available.length === 0) return <p className="text-sm text-ink/60">Nothing to sweep: the results hold no symbols.</p>;
@@ -85,7 +118,7 @@ export function SweepPanel({
           <label htmlFor={`${id}-result`} className="block text-xs font-medium">Plot</label>
           <select id={`${id}-result`} className={select} value={result} onChange={(e) => setResult(e.target.value as ResultName)}>
             {available.map((n) => (
-              <option key={n} value={n}>{RESULT_LABEL[n]} ({RESULT_UNIT[n]})</option>
+              <option key={n} value={n}>{resultLabel(n, inS)} ({RESULT_UNIT[n]})</option>
             ))}
           </select>
         </div>
@@ -98,22 +131,33 @@ export function SweepPanel({
           </select>
         </div>
         <div>
-          <label htmlFor={`${id}-from`} className="block text-xs font-medium">From 10^</label>
-          <input id={`${id}-from`} type="number" step={1} min={-15} max={15} className={select} value={fromDecade} onChange={(e) => setFromDecade(e.target.value)} />
+          <label htmlFor={`${id}-from`} className="block text-xs font-medium">From</label>
+          <span className="mt-0.5 flex items-center rounded border border-rule bg-white focus-within:border-copper">
+            <input id={`${id}-from`} value={fromText} onChange={(e) => setFromText(e.target.value)} autoComplete="off" spellCheck={false} className="w-full min-w-0 bg-transparent px-1.5 py-1 font-mono text-xs focus:outline-none" />
+            {xUnit && <span className="pr-1.5 text-xs text-ink/60">{xUnit}</span>}
+          </span>
         </div>
         <div>
-          <label htmlFor={`${id}-to`} className="block text-xs font-medium">To 10^</label>
-          <input id={`${id}-to`} type="number" step={1} min={-15} max={15} className={select} value={toDecade} onChange={(e) => setToDecade(e.target.value)} />
+          <label htmlFor={`${id}-to`} className="block text-xs font-medium">To</label>
+          <span className="mt-0.5 flex items-center rounded border border-rule bg-white focus-within:border-copper">
+            <input id={`${id}-to`} value={toText} onChange={(e) => setToText(e.target.value)} autoComplete="off" spellCheck={false} className="w-full min-w-0 bg-transparent px-1.5 py-1 font-mono text-xs focus:outline-none" />
+            {xUnit && <span className="pr-1.5 text-xs text-ink/60">{xUnit}</span>}
+          </span>
         </div>
       </div>
       <div className="mt-1.5 flex gap-3 text-xs">
         <label className="flex items-center gap-1">
-          <input type="checkbox" checked={logX} onChange={(e) => setLogX(e.target.checked)} className="accent-copper" /> log {symbol || "x"}
+          <input type="checkbox" checked={logX} onChange={(e) => tick("x", e.target.checked)} className="accent-copper" /> log {symbol || "x"}
         </label>
         <label className="flex items-center gap-1">
-          <input type="checkbox" checked={logY} onChange={(e) => setLogY(e.target.checked)} className="accent-copper" /> log {RESULT_LABEL[result]}
+          <input type="checkbox" checked={logY} onChange={(e) => tick("y", e.target.checked)} className="accent-copper" /> log {yName}
         </label>
       </div>
+      {(axisNotes.x || axisNotes.y) && (
+        <p role="status" aria-label="Sweep axes" className="mt-1 text-[11px] text-copper">
+          {[axisNotes.x, axisNotes.y].filter(Boolean).join(" ")}
+        </p>
+      )}
       <div className="mt-2">
         {outcome?.kind === "missing" && (
           <p className="text-xs text-ink/70">
@@ -123,16 +167,16 @@ export function SweepPanel({
                 <code className="font-mono">{s}</code>
               </span>
             ))}{" "}
-            to sweep {RESULT_LABEL[result]} against {symbol}.
+            to sweep {yName} against {symbol}.
           </p>
         )}
+        {rangeError && <p className="text-xs text-signal">{rangeError}</p>}
         {outcome?.kind === "invalid" && <p className="text-xs text-signal">{outcome.reason}</p>}
         {outcome?.kind === "ok" && (
           <>
-            {logY && !positive && <p className="mb-1 text-[11px] text-copper">{RESULT_LABEL[result]} is not positive over this range: linear axis shown.</p>}
-            <figure aria-label={`Sweep of ${RESULT_LABEL[result]} against ${symbol}`} data-testid="sweep-plot">
+            <figure aria-label={`Sweep of ${yName} against ${symbol}`} data-testid="sweep-plot">
               <Suspense fallback={<Progress label="Drawing the sweep…" />}>
-                <SweepChart x={outcome.x} series={series} logX={logX} logY={useLogY} xLabel={symbol} yLabel={`${RESULT_LABEL[result]} (${unit})`} formatX={formatX} formatY={formatY} onCursor={setCursor} keyboardIndex={keyboardIndex} />
+                <SweepChart x={outcome.x} series={series} logX={scale === "log"} logY={useLogY} xLabel={xUnit ? `${symbol} (${xUnit})` : symbol} yLabel={unit ? `${yName} (${unit})` : yName} onCursor={setCursor} keyboardIndex={keyboardIndex} />
               </Suspense>
               <label className="mt-1 block text-[11px] text-ink/60">
                 Read at a point (arrow keys)
@@ -152,7 +196,7 @@ export function SweepPanel({
               <figcaption className="mt-1 min-h-[2.5rem] font-mono text-[11px] text-ink/80" aria-live="polite">
                 {cursor !== null && outcome.x[cursor] !== undefined ? (
                   <>
-                    {symbol} = {formatSI(outcome.x[cursor], xUnit)}, {RESULT_LABEL[result]} = {Number.isNaN(outcome.y[cursor]) ? "not defined" : formatSI(outcome.y[cursor], unit)}
+                    {symbol} = {formatSI(outcome.x[cursor], xUnit)}, {yName} = {Number.isNaN(outcome.y[cursor]) ? "not defined" : formatSI(outcome.y[cursor], unit)}
                   </>
                 ) : (
                   <span className="font-sans text-ink/50">Point at the plot for a readout.</span>

@@ -1,7 +1,8 @@
 import { useId, useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { MathTex } from "@/components/ui/math";
-import { formatSI, parseSI, readExpression } from "@/lib/engine";
+import { formatSI, readExpression } from "@/lib/engine";
+import { readTypedNumber } from "@/features/analysis/lib/typed-number";
 import { readTypedValues, type ExactResults } from "@/features/analysis/lib/exact-results";
 import { RESULT_LABEL, RESULT_NAMES, RESULT_UNIT, symbolUnit } from "@/features/analysis/lib/quantities";
 import type { TypedValues } from "@/features/analysis/components/values-panel";
@@ -10,19 +11,6 @@ import type { ResultName } from "@/types/api";
 import { designSolve, type DesignSolveAnswer } from "../lib/frequency";
 
 const select = "mt-0.5 w-full rounded border border-rule bg-white px-1.5 py-1 text-xs";
-
-// The target is a number with an optional SI prefix and the result's unit ("50 Ω", "1.2k", "3 mA").
-function readTarget(text: string, unit: string): { value: ReturnType<typeof parseSI> } | { error: string } {
-  let t = text.trim().replace(/\s+/g, "");
-  if (unit && t.endsWith(unit)) t = t.slice(0, -unit.length);
-  if (unit === "Ω" && /ohms?$/i.test(t)) t = t.replace(/ohms?$/i, "");
-  if (t === "") return { error: "type a target value" };
-  try {
-    return { value: parseSI(t) };
-  } catch (e) {
-    return { error: e instanceof Error ? e.message : "not a number" };
-  }
-}
 
 // Design solve: which value of one symbol makes a result meet a target, the other symbols at their typed values.
 export function DesignSolve({ exact, symbols, quantities, values }: { exact: ExactResults; symbols: string[]; quantities: Record<string, string | null>; values: TypedValues }) {
@@ -40,7 +28,7 @@ export function DesignSolve({ exact, symbols, quantities, values }: { exact: Exa
   const solve = () => {
     const rf = exact[result];
     if (!rf || !symbol) return;
-    const t = readTarget(target, unit);
+    const t = readTypedNumber(target, unit);
     if ("error" in t) return setAnswer({ error: `Target: ${t.error}` });
     const quantity = (quantities[symbol] ?? null) as Quantity | null;
     const a = designSolve({ result: rf, label: RESULT_LABEL[result], symbol, target: readExpression(t.value.toString()), values: given, quantity });

@@ -6,9 +6,12 @@ export {
   frequencySpan,
   logFrequencies,
   numericCoefficientsInS,
+  openCircuitTransfer,
   polesAndZeros,
   type FrequencyLimitValue,
+  type OpenCircuitTransfer,
   type PolesZeros,
   type SRoot,
 } from "../../../../shared/engine/circuit/frequency";
 export { designSolve, type DesignSolveAnswer } from "../../../../shared/engine/circuit/design-solve";
+export { independentSourcesOf, type IndependentSource } from "../../../../shared/engine/index";

@@ -30,10 +30,10 @@ function placeDiagnostics(diagnostics: Diagnostic[], text: string): Diagnostic[]
   return diagnostics.map((d) => (d.line !== undefined ? d : { ...d, line: d.elements.map(lineOf).find((l) => l !== undefined) }));
 }
 
-// Each element a diagnostic names, with what it says, for the drawing to mark.
-function faultsOf(diagnostics: Diagnostic[]): Map<string, string> {
+// Each element an error (or a warning, asked for) names, with what it says, for the drawings to mark.
+function faultsOf(diagnostics: Diagnostic[], severity: "error" | "warning" = "error"): Map<string, string> {
   const faults = new Map<string, string>();
-  for (const d of diagnostics) for (const name of d.elements ?? []) if (d.severity === "error" && !faults.has(name)) faults.set(name, d.message);
+  for (const d of diagnostics) for (const name of d.elements ?? []) if (d.severity === severity && !faults.has(name)) faults.set(name, d.message);
   return faults;
 }
 
@@ -79,6 +79,7 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
   const shown = editorDiagnostics(mergeDiagnostics(local, placeDiagnostics(serverDiagnostics, text)));
   const unplaced = mergeDiagnostics(local, serverDiagnostics).filter((d) => d.line === undefined && !d.elements?.length);
   const faults = faultsOf(mergeDiagnostics(local, serverDiagnostics));
+  const cautions = new Set([...faultsOf(mergeDiagnostics(local, serverDiagnostics), "warning").keys()].filter((name) => !faults.has(name)));
   // An edit made in the table or the drawing rewrites only the lines of the elements it touched.
   const editElsewhere = (next: EngineNetwork) => onTextChange(keepTypedLines(text, next));
   const nodes = nodesOf(read.network);
@@ -166,7 +167,7 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
         <h2 id="schematic-heading" className="mb-1 text-sm font-medium">
           Schematic preview {!read.network && network && <span className="font-normal text-ink/50">(last version that read without errors)</span>}
         </h2>
-        <div className="rounded border border-rule bg-white/40 p-1">{network ? <Schematic network={network} faults={new Set(faults.keys())} /> : <p className="p-3 text-sm text-ink/60">Fix the netlist to see the drawing.</p>}</div>
+        <div className="rounded border border-rule bg-white/40 p-1">{network ? <Schematic network={network} faults={new Set(faults.keys())} cautions={cautions} /> : <p className="p-3 text-sm text-ink/60">Fix the netlist to see the drawing.</p>}</div>
       </section>
 
       {canEdit && (

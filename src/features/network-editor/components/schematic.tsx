@@ -53,7 +53,16 @@ export function hasPolarity(e: Element) {
   return e.kind === "voltage";
 }
 
-function Part({ part, faulty = false }: { part: PlacedPart; faulty?: boolean }) {
+type Mark = "fault" | "caution" | undefined;
+
+// An element an error names is drawn in signal red, one a warning names in copper.
+const markProps = (mark: Mark, name: string) => ({
+  className: mark === "fault" ? "text-signal" : mark === "caution" ? "text-copper" : undefined,
+  "data-fault": mark === "fault" ? name : undefined,
+  "data-caution": mark === "caution" ? name : undefined,
+});
+
+function Part({ part, mark }: { part: PlacedPart; mark?: Mark }) {
   const { element: e, x1, y1, x2, y2, reversed } = part;
   const vertical = x1 === x2;
   const cx = (x1 + x2) / 2;
@@ -66,7 +75,7 @@ function Part({ part, faulty = false }: { part: PlacedPart; faulty?: boolean }) 
   const minusAt = at((reversed ? -1 : 1) * 6);
   const value = e.kind === "opamp" ? "" : e.value;
   return (
-    <g className={faulty ? "text-signal" : undefined} data-fault={faulty ? e.name : undefined}>
+    <g {...markProps(mark, e.name)}>
       <title>{`${e.name}: ${e.kind}${value ? `, ${value}` : ""}`}</title>
       {vertical ? (
         <path d={`M${x1} ${y1}V${y1 + lead}M${x2} ${y2}V${y2 - lead}`} />
@@ -99,11 +108,11 @@ function Part({ part, faulty = false }: { part: PlacedPart; faulty?: boolean }) 
   );
 }
 
-function Opamp({ opamp, faulty = false }: { opamp: PlacedOpamp; faulty?: boolean }) {
+function Opamp({ opamp, mark }: { opamp: PlacedOpamp; mark?: Mark }) {
   const { x, y, element } = opamp;
   const base = y + 40;
   return (
-    <g className={faulty ? "text-signal" : undefined} data-fault={faulty ? element.name : undefined}>
+    <g {...markProps(mark, element.name)}>
       <title>{`${element.name}: ideal op-amp, + ${element.inputs[0]}, − ${element.inputs[1]}, output ${element.output}`}</title>
       <path d={`M${x} ${y}L${x + 22} ${base}H${x - 22}Z`} fill="#FAF8F3" />
       <path d={`M${x - 10} ${base}V${base + 12}M${x + 10} ${base}V${base + 12}`} />
@@ -119,8 +128,9 @@ function Opamp({ opamp, faulty = false }: { opamp: PlacedOpamp; faulty?: boolean
 }
 
 // The automatically drawn preview of what was entered: standard symbols on a faint dotted grid.
-/** `faults`: names of elements a diagnostic points at, drawn in signal red. */
-export function Schematic({ network, title = "Schematic preview", faults }: { network: EngineNetwork; title?: string; faults?: ReadonlySet<string> }) {
+/** `faults`: names of elements an error points at, drawn in signal red; `cautions`: those a warning points at, in copper. */
+export function Schematic({ network, title = "Schematic preview", faults, cautions }: { network: EngineNetwork; title?: string; faults?: ReadonlySet<string>; cautions?: ReadonlySet<string> }) {
+  const markOf = (name: string): Mark => (faults?.has(name) ? "fault" : cautions?.has(name) ? "caution" : undefined);
   const gridId = useId().replace(/:/g, "");
   if (network.elements.length === 0) return <p className="text-sm text-ink/60">Nothing to draw yet.</p>;
   const layout = layoutSchematic(network);
@@ -153,10 +163,10 @@ export function Schematic({ network, title = "Schematic preview", faults }: { ne
           />
         )}
         {layout.parts.map((part, i) => (
-          <Part key={i} part={part} faulty={faults?.has(part.element.name)} />
+          <Part key={i} part={part} mark={markOf(part.element.name)} />
         ))}
         {layout.opamps.map((opamp, i) => (
-          <Opamp key={i} opamp={opamp} faulty={faults?.has(opamp.element.name)} />
+          <Opamp key={i} opamp={opamp} mark={markOf(opamp.element.name)} />
         ))}
       </g>
       <g fill="currentColor">
