@@ -7,6 +7,7 @@ import type PgBoss from "pg-boss";
 import type { Logger } from "pino";
 import type { SolveSettings } from "../config.js";
 import type { Database } from "../db/client.js";
+import { workQueue, type QueueWorker } from "../jobs/boss.js";
 import type { Network, SolveOptions } from "./engine.js";
 import { readSolveJob, solveJobChannel, type SolveJobRow } from "./solve-jobs.js";
 
@@ -41,7 +42,7 @@ export async function createSolveQueue(boss: PgBoss, db: Database, options: { da
   const { name, settings, log } = options;
   await boss.createQueue(name, { name, retryLimit: 0 });
   const waiters = new Map<string, Set<() => void>>();
-  const workerIds: string[] = [];
+  const workers: QueueWorker[] = [];
   let listener: pg.Client | null = null;
   let listening: Promise<void> | null = null;
   let closed = false;
@@ -74,7 +75,7 @@ export async function createSolveQueue(boss: PgBoss, db: Database, options: { da
       const expireInSeconds = Math.ceil(settings.timeLimitMs / 1000) + 300;
       await boss.send(name, data, { id: data.jobId, priority, retryLimit: 0, expireInSeconds });
       // This process's idle workers look now rather than at their next poll.
-      for (const id of workerIds) boss.notifyWorker(id);
+      for (const worker of workers) worker.wake();
     },
     waiting: () => boss.getQueueSize(name),
     async waitFor(jobId, waitMs) {
@@ -105,18 +106,12 @@ export async function createSolveQueue(boss: PgBoss, db: Database, options: { da
       }
     },
     async work(concurrency, run) {
-      for (let i = 0; i < concurrency; i++) {
-        workerIds.push(
-          await boss.work<SolveJobData>(name, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
-            await run(job.data);
-          }),
-        );
-      }
+      workers.push(workQueue<SolveJobData>(boss, name, { concurrency, pollingIntervalSeconds: 0.5, log }, run));
     },
     async close() {
       closed = true;
       for (const set of waiters.values()) for (const wake of set) wake();
-      for (const id of workerIds.splice(0)) await boss.offWork({ id }).catch(() => undefined);
+      for (const worker of workers.splice(0)) await worker.stop();
       await listening;
       await listener?.end().catch(() => undefined);
     },

@@ -18,3 +18,71 @@ export async function stopBoss(boss: PgBoss): Promise<void> {
   // Graceful: an active job may finish (bounded by the SMTP timeouts and the solve cap), then the pool closes.
   await boss.stop({ graceful: true, wait: true, timeout: 5_000 });
 }
+
+export interface QueueWorker {
+  /** Look for a job now rather than at the next poll (a job was just sent from this process). */
+  wake(): void;
+  /** No new jobs; resolves when the jobs in hand are finished. */
+  stop(): Promise<void>;
+}
+
+/**
+ * Works a queue with `concurrency` loops, each taking one job at a time (pg-boss `fetch`), handing it
+ * to `handle` and recording the end (`complete`, or `fail` when `handle` throws, which pg-boss
+ * retries as the job's retry settings say). pg-boss's own `work` leaves the end's write unawaited,
+ * so a database blip at that moment would be an unhandled rejection that ends the process; here
+ * every write is awaited and a lost one is logged (the job then expires and is retried or failed).
+ */
+export function workQueue<T extends object>(
+  boss: PgBoss,
+  name: string,
+  options: { concurrency: number; pollingIntervalSeconds: number; log?: Logger },
+  handle: (data: T) => Promise<void>,
+): QueueWorker {
+  const { log } = options;
+  let stopping = false;
+  const sleepers = new Set<() => void>();
+  const pause = (ms: number) =>
+    new Promise<void>((resolve) => {
+      const wake = () => {
+        clearTimeout(timer);
+        sleepers.delete(wake);
+        resolve();
+      };
+      const timer = setTimeout(wake, ms);
+      sleepers.add(wake);
+    });
+  const loop = async () => {
+    while (!stopping) {
+      const job = await boss.fetch<T>(name, { batchSize: 1 }).then(
+        ([first]) => first,
+        (error: unknown) => {
+          log?.warn({ err: error, queue: name }, "could not take a job");
+          return undefined;
+        },
+      );
+      if (!job) {
+        await pause(options.pollingIntervalSeconds * 1000);
+        continue;
+      }
+      try {
+        await handle(job.data);
+        await boss.complete(name, job.id).catch((error: unknown) => log?.warn({ err: error, queue: name }, "a finished job's end was not recorded"));
+      } catch (failure) {
+        const reason = { message: failure instanceof Error ? failure.message : String(failure) };
+        await boss.fail(name, job.id, reason).catch((error: unknown) => log?.warn({ err: error, queue: name }, "a failed job's end was not recorded"));
+      }
+    }
+  };
+  const loops = Array.from({ length: options.concurrency }, loop);
+  return {
+    wake: () => {
+      for (const wake of [...sleepers]) wake();
+    },
+    stop: async () => {
+      stopping = true;
+      for (const wake of [...sleepers]) wake();
+      await Promise.all(loops);
+    },
+  };
+}

@@ -11,7 +11,7 @@ import { failInterruptedJobs } from "../domain/solve-jobs.js";
 import { createSmtpMailer, smtpTarget, type Mailer } from "../mail/mailer.js";
 import { createMailQueues, createQueuedMailer, startMailWorker } from "../mail/queue.js";
 import { createSolver, type Solver } from "../solver/pool.js";
-import { startBoss, stopBoss } from "./boss.js";
+import { startBoss, stopBoss, type QueueWorker } from "./boss.js";
 
 export interface Jobs {
   boss: PgBoss;
@@ -36,18 +36,31 @@ export interface JobsOptions {
 export async function startJobs(options: JobsOptions): Promise<Jobs> {
   const { db, settings, log } = options;
   const boss = await startBoss(options.databaseUrl, log);
-  await createMailQueues(boss, settings.mailQueue);
-  if (options.deliverMail) await startMailWorker(boss, settings.mailQueue, options.deliverMail.smtp, { pollingIntervalSeconds: options.deliverMail.pollingIntervalSeconds });
-  const solveQueue = await createSolveQueue(boss, db, { databaseUrl: options.databaseUrl, name: options.solveQueueName, settings: settings.solve, log });
-  const solver = options.solveOn;
-  // As many jobs at once as there are threads: the rest wait in the queue, where any worker may take them.
-  if (solver) await solveQueue.work(settings.solve.threads, (data) => runSolveJob({ db, solver, settings, log }, data));
+  let mailWorker: QueueWorker | null = null;
+  let solveQueue: SolveQueue | null = null;
+  try {
+    await createMailQueues(boss, settings.mailQueue);
+    if (options.deliverMail) mailWorker = startMailWorker(boss, settings.mailQueue, options.deliverMail.smtp, { pollingIntervalSeconds: options.deliverMail.pollingIntervalSeconds, log });
+    solveQueue = await createSolveQueue(boss, db, { databaseUrl: options.databaseUrl, name: options.solveQueueName, settings: settings.solve, log });
+    const solver = options.solveOn;
+    // As many jobs at once as there are threads: the rest wait in the queue, where any worker may take them.
+    if (solver) await solveQueue.work(settings.solve.threads, (data) => runSolveJob({ db, solver, settings, log }, data));
+  } catch (error) {
+    // A half-started process part leaves nothing running behind it.
+    await solveQueue?.close().catch(() => undefined);
+    await mailWorker?.stop().catch(() => undefined);
+    await stopBoss(boss).catch(() => undefined);
+    throw error;
+  }
+  const queue = solveQueue;
+  const delivery = mailWorker;
   return {
     boss,
     mailer: createQueuedMailer(boss, settings.mailQueue, log),
-    solveQueue,
+    solveQueue: queue,
     stop: async () => {
-      await solveQueue.close();
+      await queue.close();
+      await delivery?.stop();
       await stopBoss(boss);
     },
   };

@@ -4,7 +4,7 @@ import { createHash } from "node:crypto";
 import PgBoss from "pg-boss";
 import { sql } from "drizzle-orm";
 import type { Logger } from "pino";
-import { jobSchema } from "../jobs/boss.js";
+import { jobSchema, workQueue, type QueueWorker } from "../jobs/boss.js";
 import type { Database } from "../db/client.js";
 import type { Mailer, OutgoingMail } from "./mailer.js";
 
@@ -62,18 +62,16 @@ export function createQueuedMailer(boss: PgBoss, settings: MailQueueSettings, lo
 }
 
 // The worker hands each job to the SMTP mailer; a failed delivery throws, so pg-boss retries it.
-// A few subscriptions deliver side by side, so one slow SMTP exchange does not hold up the rest.
-export async function startMailWorker(
+// A few loops deliver side by side, so one slow SMTP exchange does not hold up the rest.
+export function startMailWorker(
   boss: PgBoss,
   settings: MailQueueSettings,
   smtp: Mailer,
-  options: { pollingIntervalSeconds?: number; concurrency?: number } = {},
-): Promise<void> {
-  for (let i = 0; i < (options.concurrency ?? 3); i++) {
-    await boss.work<OutgoingMail>(settings.queue, { pollingIntervalSeconds: options.pollingIntervalSeconds ?? 2, batchSize: 1 }, async ([job]) => {
-      if (!(await smtp.send(job.data))) throw new Error(`SMTP delivery of "${job.data.subject}" failed`);
-    });
-  }
+  options: { pollingIntervalSeconds?: number; concurrency?: number; log?: Logger } = {},
+): QueueWorker {
+  return workQueue<OutgoingMail>(boss, settings.queue, { concurrency: options.concurrency ?? 3, pollingIntervalSeconds: options.pollingIntervalSeconds ?? 2, log: options.log }, async (mail) => {
+    if (!(await smtp.send(mail))) throw new Error(`SMTP delivery of "${mail.subject}" failed`);
+  });
 }
 
 export interface QueuedMail {

@@ -66,6 +66,19 @@ describe("polyGcd: laws (common practice)", () => {
     );
   });
 
+  it("finds a gcd whose coefficient is half the first evaluation point (a tie in the symmetric digits)", () => {
+    // Found by the law above: (1 − y)(5x²y − z) and (−z − 1/2)(5x²y − z). Deep in the heuristic gcd
+    // this meets −12176(z − 92606085) beside (z − 92606085)(−2z − 1) evaluated at ξ = 2·92606085,
+    // where a constant image passed the division test. sympy: factor(−2z² + 185212169z + 92606085)
+    // = −(z − 92606085)(2z + 1), and gcd((1 − y)(5x²y − z), (−z − 1/2)(5x²y − z)) = x²y − z/5; sympy's
+    // own heuristic gcd answers 1 on the inner pair, which is why the starting point is never below
+    // 2·min(|f|, |g|) + 2 (Char, Geddes and Gonnet's theorem) here.
+    const g = P("5*x^2*y - z");
+    expect(polyGcd(P("-y + 1").mul(g), P("-z - 1/2").mul(g)).equals(g)).toBe(true);
+    const inner = heuristicGcd(P("-12176*z + 1127571690960"), P("-2*z^2 + 185212169*z + 92606085"));
+    expect(inner?.gcd.equals(P("z - 92606085"))).toBe(true);
+  });
+
   it("is symmetric, normalized, and gcd * lcm = a * b up to a constant", () => {
     fc.assert(
       fc.property(nonZeroPoly(4), nonZeroPoly(4), (a, b) => {

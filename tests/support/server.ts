@@ -64,6 +64,22 @@ export function testDatabaseUrl(): string {
   return url;
 }
 
+// Many test servers make and drop their queues at once (pg-boss creates a table per queue), which
+// PostgreSQL may answer with a deadlock for one of them: try again a few times before going without.
+async function startJobsRetrying(options: Parameters<typeof startJobs>[0]): Promise<Jobs | null> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await startJobs(options);
+    } catch (error) {
+      if (attempt === 3) {
+        console.error(`[test server] running without job queues: ${error instanceof Error ? error.message : String(error)}`);
+        return null;
+      }
+      await new Promise((resolve) => setTimeout(resolve, 200 * attempt));
+    }
+  }
+}
+
 export async function startTestServer(options: TestServerOptions = {}): Promise<TestServer> {
   const pool = createPool(options.databaseUrl ?? testDatabaseUrl(), 5);
   const db = createDatabase(pool);
@@ -91,7 +107,7 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
   // As server/index.ts does: the thread loads the engine now, not during the first solve.
   solver.warm();
   // A database that is away (the fault tests) leaves the server without queues: mail is then not sent, solves 503.
-  const jobs: Jobs | null = await startJobs({
+  const jobs = await startJobsRetrying({
     databaseUrl: options.databaseUrl ?? testDatabaseUrl(),
     db,
     settings: { ...defaultSettings(), ...settings } as AppSettings,
@@ -99,7 +115,7 @@ export async function startTestServer(options: TestServerOptions = {}): Promise<
     log: options.logger ?? createLogger("silent"),
     deliverMail: { smtp, pollingIntervalSeconds: 0.5 },
     solveOn: options.solveWorker === false ? undefined : solver,
-  }).catch(() => null);
+  });
   const mailer: Mailer = jobs?.mailer ?? { send: async () => false };
   server.on("request", createApp({ pool, db, mailer, settings, solver, solveQueue: jobs?.solveQueue, clientDir: options.clientDir, logger: options.logger }));
   return {

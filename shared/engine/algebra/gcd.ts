@@ -114,7 +114,8 @@ function univariateImages(p: Poly, point: Map<string, number>, testVars: readonl
     const img = new Array<number>(a.length);
     let ip = 1;
     for (let e = 0; e < a.length; e++) {
-      img[e] = ((a[e] % PRIME) * ip) % PRIME;
+      // The constant term is a difference of sums and may be negative: bring every residue into [0, PRIME).
+      img[e] = ((((a[e] % PRIME) + PRIME) % PRIME) * ip) % PRIME;
       ip = (ip * inv) % PRIME;
     }
     out.set(x, img);

@@ -84,7 +84,11 @@ function heu(a: Poly, b: Poly): HeuristicGcd | null {
   const lcRatio = (p: Poly, n: bigint) => n / bigAbs(p.coefs[0]);
   const fr = lcRatio(f, fn);
   const gr = lcRatio(g, gn);
-  let xi = bound < 99n * isqrt(bound) ? bound : 99n * isqrt(bound);
+  // Never below 2·min(|f|, |g|) + 2: only from there does a candidate that divides both prove to be
+  // the gcd (Char, Geddes and Gonnet's theorem). A smaller starting point (99·√bound, as some
+  // implementations take for speed) lets a constant image pass the division test when the true gcd
+  // is not constant, e.g. z − c with ξ = 2c, whose digit c reads as +c.
+  let xi = bound;
   const floor = 2n * (fr < gr ? fr : gr) + 2n;
   if (floor > xi) xi = floor;
   for (let attempt = 0; attempt < ATTEMPTS; attempt++) {
