@@ -140,8 +140,16 @@ describe("the workbench at every width", () => {
       const note = step.getByText("Does the third shunt arm include");
       await note.waitFor();
       await note.scrollIntoViewIfNeeded();
-      const noteBox = (await note.boundingBox())!;
-      const stepBox = (await step.boundingBox())!;
+      // Formulas typeset late move the steps: measure once the layout holds still.
+      let noteBox = (await note.boundingBox())!;
+      let stepBox = (await step.boundingBox())!;
+      for (let settled = 0; settled < 20; settled++) {
+        await page.waitForTimeout(150);
+        const [n, s] = [(await note.boundingBox())!, (await step.boundingBox())!];
+        const still = n.y === noteBox.y && s.y === stepBox.y && s.height === stepBox.height;
+        [noteBox, stepBox] = [n, s];
+        if (still) break;
+      }
       // Beside the step from ~1400 px, under its equation below that; inside the step's row either way.
       expect(noteBox.y).toBeGreaterThanOrEqual(stepBox.y);
       expect(noteBox.y + noteBox.height).toBeLessThanOrEqual(stepBox.y + stepBox.height + 1);
