@@ -2,6 +2,7 @@ import { afterEach, describe, expect, it, vi } from "vitest";
 import fc from "fast-check";
 import nerdamer from "nerdamer";
 import { Poly, Rational, RationalFunction, ValueSyntaxError, formatSI, parseSI, parseValue, readExpression } from "../../shared/engine/algebra/index";
+import { NERDAMER_TEXT_LIMIT } from "../../shared/engine/algebra/element-value";
 import { askSympy } from "./algebra-sympy";
 
 describe("parseValue: SI prefixes (SI Brochure, BIPM, 9th edition, 2019)", () => {
@@ -330,5 +331,76 @@ describe("readExpression (our reader, for engine output) and parseValue (nerdame
       }),
       { numRuns: 200, seed: 5 },
     );
+  });
+});
+
+// ---- long values: past NERDAMER_TEXT_LIMIT our grammar reads them alone ------------------
+
+/** n terms in the shape of printed results, with the productions that leave the fast path mixed in. */
+function longTerms(n: number): string[] {
+  const names = Array.from({ length: 12 }, (_, i) => (i % 2 ? `Ra_${i}` : `Rb_${i}`));
+  const terms: string[] = [];
+  for (let i = 0; i < n; i++) {
+    const picked = names.filter((_, j) => (i * 7 + j * 3) % 5 < 2);
+    const body = picked.map((v, j) => ((i + j) % 4 === 0 ? `${v}^2` : v)).join("*");
+    const shape = i % 9;
+    if (shape === 0) terms.push(`${i + 1}*${body}/3`);
+    else if (shape === 1) terms.push(`-(${body} - 2.5*${names[i % 12]})`);
+    else if (shape === 2) terms.push(`(${names[i % 12]} + 1)*${body}`);
+    else if (shape === 3) terms.push(`${body}/(${names[i % 2]} + 2)`);
+    else terms.push(`${(i % 7) + 1}*${body}`);
+  }
+  return terms;
+}
+const longText = (n: number) => longTerms(n).join(" + ");
+
+describe("parseValue on texts longer than nerdamer reads cheaply", () => {
+  afterEach(() => vi.restoreAllMocks());
+  const text = longText(300);
+
+  it("reads them with our grammar alone, to the value nerdamer's path gives term by term", () => {
+    expect(text.length).toBeGreaterThan(NERDAMER_TEXT_LIMIT);
+    const tree = treeOf();
+    const whole = parseValue(text);
+    expect(tree).not.toHaveBeenCalled();
+    // Each term alone is short, so it goes through nerdamer's parser.
+    const pieces = longTerms(300).map((t) => parseValue(t));
+    expect(tree).toHaveBeenCalledTimes(pieces.length);
+    expect(whole.equals(pieces.reduce((a, b) => a.add(b)))).toBe(true);
+    expect(whole.equals(readExpression(text))).toBe(true);
+  });
+
+  it("to what sympy reads", () => {
+    expect(askSympy([{ kind: "equal", a: parseValue(text).toInfix(), b: text }])).toEqual([true]);
+  });
+
+  it("reads a printed result of 3000 terms back to the same polynomial", () => {
+    const printed = parseValue(longText(3000)).num;
+    const again = parseValue(printed.toInfix());
+    expect(again.num.equals(printed)).toBe(true);
+    expect(again.den.isOne()).toBe(true);
+  });
+
+  it("names a syntax fault first and with its column, as for a short text", () => {
+    const tail = " + 1/0 + R0 + * 3";
+    const short = outcome(parseValue, `R1${tail}`);
+    const long = outcome(parseValue, `${text}${tail}`);
+    expect("error" in short && "error" in long).toBe(true);
+    const [a, b] = [(short as { error: ValueSyntaxError }).error, (long as { error: ValueSyntaxError }).error];
+    expect(b.message.replace(/\(column \d+\)/, "")).toBe(a.message.replace(/\(column \d+\)/, ""));
+    expect(b.column - a.column).toBe(text.length - 2);
+    // A bad character anywhere comes before a fault of the grammar or of meaning.
+    expect(() => parseValue(`1/0 + ${text} + $`)).toThrow(`unexpected character "$" (column ${text.length + 10})`);
+    expect(() => readExpression(`1/0 + ${text} + $`)).toThrow(`unexpected character "$"`);
+    expect(() => parseValue(`${text} + 1/0`)).toThrow("division by zero");
+  });
+});
+
+describe("faults of the characters come before faults of the grammar or of meaning (short texts)", () => {
+  it.each([["1/0 + $", 7], ["R0 + * 3 #", 10], ["(a + b $", 8], ["x^y + 1e", 8]])("%s", (text, column) => {
+    for (const read of [parseValue, readExpression]) {
+      const r = outcome(read, text);
+      expect("error" in r && r.error.column, `${read.name} ${text}`).toBe(column);
+    }
   });
 });

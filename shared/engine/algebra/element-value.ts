@@ -6,7 +6,7 @@
 import nerdamer from "nerdamer";
 import { Rational } from "./rational";
 import { RationalFunction } from "./rational-function";
-import { exactReading, readWith, sumPairwise, type BinaryOp, type ControlWord, type Reading, type SignOp } from "./expression";
+import { monomialReading, readCheckedExpression, readWith, type BinaryOp, type ControlWord, type Reading, type SignOp } from "./expression";
 
 /** A node of nerdamer's parse tree (nerdamer.tree): operators carry left/right, leaves a literal or name. */
 interface NerdamerNode {
@@ -70,50 +70,50 @@ class TreeMismatch extends Error {
  * so each node must meet the next item we handed over; this both finds each operator's column
  * and checks that nerdamer read exactly our tokens.
  */
-function buildFromTree(root: NerdamerNode, spelled: Spelled, exact: Reading<RationalFunction>): RationalFunction {
+function buildFromTree<T>(root: NerdamerNode, spelled: Spelled, reading: Reading<T> & Required<Pick<Reading<T>, "sum">>): T {
   let next = 0;
   const take = (node: NerdamerNode): Item => {
     const item = spelled.items[next++];
     if (!item) throw new TreeMismatch(spelled.text, `extra "${node.value}"`);
     return item;
   };
-  const walk = (node: NerdamerNode): RationalFunction => {
+  const walk = (node: NerdamerNode): T => {
     // A name that is also an Object.prototype key (toString, constructor) is typed UNIT by nerdamer's tokenizer; still a leaf.
     if ((node.type === "VARIABLE_OR_LITERAL" || node.type === "UNIT") && !node.left && !node.right) {
       const item = take(node);
       if (item.kind !== "leaf" || item.text !== node.value) throw new TreeMismatch(spelled.text, `"${node.value}" where our text has another token`);
-      if (item.control) return exact.control(item.control.word, item.control.args, item.column);
-      return item.value ? exact.number(item.value, item.column) : exact.name(item.text, item.column);
+      if (item.control) return reading.control(item.control.word, item.control.args, item.column);
+      return item.value ? reading.number(item.value, item.column) : reading.name(item.text, item.column);
     }
     if (node.type !== "OPERATOR") throw new TreeMismatch(spelled.text, `a ${node.type} node`);
     if (node.left && !node.right) {
       const item = take(node);
       if (item.kind !== "sign" || item.op !== node.value) throw new TreeMismatch(spelled.text, `prefix "${node.value}"`);
-      return exact.sign(item.op, walk(node.left), item.column);
+      return reading.sign(item.op, walk(node.left), item.column);
     }
     if (!node.left || !node.right) throw new TreeMismatch(spelled.text, `postfix "${node.value}"`);
     if (isSum(node)) return walkSum(node);
     const left = walk(node.left);
     const item = take(node);
-    if (item.kind === "power" && node.value === "^") return exact.power(left, walk(node.right), item.caretColumn, item.exponentColumn);
-    if (item.kind === "binary" && item.op === node.value) return exact.binary(item.op, left, walk(node.right), item.column);
+    if (item.kind === "power" && node.value === "^") return reading.power(left, walk(node.right), item.caretColumn, item.exponentColumn);
+    if (item.kind === "binary" && item.op === node.value) return reading.binary(item.op, left, walk(node.right), item.column);
     throw new TreeMismatch(spelled.text, `operator "${node.value}"`);
   };
   const isSum = (node: NerdamerNode) => node.type === "OPERATOR" && !!node.left && !!node.right && (node.value === "+" || node.value === "-");
-  // A long sum is a deep left spine: walked in a loop and added pairwise, so 10,000 terms cost
-  // about n log n term operations instead of n^2 and no deep recursion.
-  const walkSum = (top: NerdamerNode): RationalFunction => {
+  // A long sum is a deep left spine: walked in a loop and handed to the reading's sum at once
+  // (no deep recursion, and no polynomial addition per term).
+  const walkSum = (top: NerdamerNode): T => {
     const spine: NerdamerNode[] = [];
     let node = top;
     for (; isSum(node); node = node.left!) spine.push(node);
-    const terms = [walk(node)];
+    const first = walk(node);
+    const rest: { op: SignOp; value: T }[] = [];
     for (let i = spine.length - 1; i >= 0; i--) {
       const item = take(spine[i]);
       if (item.kind !== "binary" || item.op !== spine[i].value) throw new TreeMismatch(spelled.text, `operator "${spine[i].value}"`);
-      const right = walk(spine[i].right!);
-      terms.push(item.op === "-" ? exact.sign("-", right, item.column) : right);
+      rest.push({ op: item.op as SignOp, value: walk(spine[i].right!) });
     }
-    return sumPairwise(terms);
+    return reading.sum(first, rest);
   };
   const value = walk(root);
   if (next !== spelled.items.length) throw new TreeMismatch(spelled.text, "tokens left over");
@@ -121,10 +121,19 @@ function buildFromTree(root: NerdamerNode, spelled: Spelled, exact: Reading<Rati
 }
 
 /**
+ * Texts longer than this (a pasted result, not a typed value: about 150 terms) are read by our
+ * grammar alone, syntax checked before meaning as here. nerdamer's tokenizer and tree grow to
+ * about 0.2 s at 600,000 characters, past what a long value may cost to read.
+ */
+export const NERDAMER_TEXT_LIMIT = 10_000;
+
+/**
  * Parse an element value such as "R0", "10k", "4.7u", "gm*R0/(1 + gm*Rs)", "2^-3", exactly, through
  * nerdamer's parser. A control (across(a, b), through(x)) becomes its control symbol (controlSymbol).
  */
 export function parseValue(text: string): RationalFunction {
+  if (text.length > NERDAMER_TEXT_LIMIT) return readCheckedExpression(text);
   const spelled = readWith(text, spelling);
-  return buildFromTree(nerdamerTree(spelled.text), spelled, exactReading(text));
+  const { reading, finish } = monomialReading(text);
+  return finish(buildFromTree(nerdamerTree(spelled.text), spelled, reading));
 }

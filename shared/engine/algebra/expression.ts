@@ -6,7 +6,7 @@
 // printed results), or text for nerdamer's parser (parseValue in element-value.ts).
 
 import { Rational } from "./rational";
-import { Poly } from "./polynomial";
+import { MAX_EXPONENT, Poly, polyFromMonomials, type SparseMonomial } from "./polynomial";
 import { RationalFunction } from "./rational-function";
 
 export class ValueSyntaxError extends Error {
@@ -53,6 +53,12 @@ const isIdentStart = (c: string) => {
 };
 const isIdentChar = (c: string) => isIdentStart(c) || (c >= "0" && c <= "9");
 const isDigit = (c: string) => c >= "0" && c <= "9";
+const isIdentStartCode = (k: number) => (k >= 65 && k <= 90) || (k >= 97 && k <= 122) || k === 95;
+const isIdentCode = (k: number) => isIdentStartCode(k) || (k >= 48 && k <= 57);
+const SPACE = 32;
+const TAB = 9;
+/** The operator characters + - * / ^ ( ) by code. */
+const OPERATOR_CODES = new Set([..."+-*/^()"].map((c) => c.charCodeAt(0)));
 
 function prefixFactor(prefix: string): Rational {
   const e = SI_PREFIX_EXPONENT[prefix];
@@ -82,56 +88,81 @@ function scanDecimal(text: string, i: number): number {
   return j;
 }
 
-function tokenize(text: string): Token[] {
-  const tokens: Token[] = [];
-  let i = 0;
-  while (i < text.length) {
-    const c = text[i];
+function isIntegerText(text: string): boolean {
+  for (let i = 0; i < text.length; i++) {
+    const k = text.charCodeAt(i);
+    if (k < 48 || k > 57) return false;
+  }
+  return true;
+}
+
+/**
+ * Tokens one at a time, as the parser asks for them: a long text's tokens are garbage as soon as
+ * they are read instead of living on (in an array) until the end.
+ */
+class Lexer {
+  private i = 0;
+  private done = false;
+  constructor(private readonly text: string) {}
+
+  next(): Token {
+    const text = this.text;
+    const length = text.length;
+    let i = this.i;
+    let k = text.charCodeAt(i);
+    while (k === SPACE || k === TAB) k = text.charCodeAt(++i);
     const column = i + 1;
-    if (c === " " || c === "\t") {
-      i++;
-      continue;
+    if (i >= length) {
+      this.i = i;
+      this.done = true;
+      return { kind: "end", column: length + 1 };
     }
+    if (isIdentStartCode(k)) {
+      let j = i + 1;
+      while (j < length && isIdentCode(text.charCodeAt(j))) j++;
+      const name = text.slice(i, j);
+      if (name === "across" || name === "through") {
+        let after = j;
+        while (text[after] === " " || text[after] === "\t") after++;
+        if (text[after] === "(") {
+          const control = scanControl(text, name, column, after);
+          this.i = control.end;
+          return control.token;
+        }
+      }
+      this.i = j;
+      return { kind: "ident", name, column };
+    }
+    if (OPERATOR_CODES.has(k)) {
+      this.i = i + 1;
+      return { kind: "op", op: text[i] as "+", column };
+    }
+    const c = text[i];
     if (isDigit(c) || (c === "." && isDigit(text[i + 1] ?? ""))) {
       const end = scanDecimal(text, i);
-      let value = Rational.parseDecimal(text.slice(i, end));
+      const digits = text.slice(i, end);
+      // Plain integers (most numbers in a long text) skip the decimal grammar.
+      let value = end - i <= 15 && isIntegerText(digits) ? Rational.of(Number(digits)) : Rational.parseDecimal(digits);
       let j = end;
       const next = text[j] ?? "";
       if (next in SI_PREFIX_EXPONENT && !isIdentChar(text[j + 1] ?? "")) {
         value = value.mul(prefixFactor(next));
         j++;
       } else if (isIdentChar(next) || next === ".") {
-        throw new ValueSyntaxError(`unexpected "${next}" after the number ${text.slice(i, end)}; write a * between a number and a name`, j + 1, text);
+        throw new ValueSyntaxError(`unexpected "${next}" after the number ${digits}; write a * between a number and a name`, j + 1, text);
       }
-      tokens.push({ kind: "number", value, column, text: text.slice(i, j) });
-      i = j;
-      continue;
-    }
-    if (isIdentStart(c)) {
-      let j = i + 1;
-      while (j < text.length && isIdentChar(text[j])) j++;
-      const name = text.slice(i, j);
-      let k = j;
-      while (text[k] === " " || text[k] === "\t") k++;
-      if ((name === "across" || name === "through") && text[k] === "(") {
-        const control = scanControl(text, name, column, k);
-        tokens.push(control.token);
-        i = control.end;
-        continue;
-      }
-      tokens.push({ kind: "ident", name, column });
-      i = j;
-      continue;
-    }
-    if ("+-*/^()".includes(c)) {
-      tokens.push({ kind: "op", op: c as "+", column });
-      i++;
-      continue;
+      this.i = j;
+      return { kind: "number", value, column, text: text.slice(i, j) };
     }
     throw new ValueSyntaxError(`unexpected character "${c}"`, column, text);
   }
-  tokens.push({ kind: "end", column: text.length + 1 });
-  return tokens;
+
+  /** Every token to the end (end included). */
+  all(): Token[] {
+    const tokens: Token[] = [];
+    while (!this.done) tokens.push(this.next());
+    return tokens;
+  }
 }
 
 /** across(a, b) / through(x) starting at column, its "(" at open; names are checked here so every error has its column. */
@@ -174,14 +205,14 @@ export interface Reading<T> {
 }
 
 /** Add many terms pairwise: n log n term operations for a long sum where a left fold costs n^2. */
-export function sumPairwise(terms: RationalFunction[]): RationalFunction {
+function sumPairwise(terms: RationalFunction[]): RationalFunction {
   for (let width = 1; width < terms.length; width *= 2)
     for (let i = 0; i + width < terms.length; i += 2 * width) terms[i] = terms[i].add(terms[i + width]);
   return terms[0];
 }
 
-/** The exact meaning of each production; the nerdamer path applies the same one, so both readers agree. */
-export function exactReading(text: string): Reading<RationalFunction> {
+/** The exact meaning of each production, on values that are not (or no longer) sums of monomials. */
+function exactReading(text: string): Reading<RationalFunction> {
   const fail = (message: string, column: number): never => {
     throw new ValueSyntaxError(message, column, text);
   };
@@ -198,7 +229,6 @@ export function exactReading(text: string): Reading<RationalFunction> {
       return left.div(right);
     },
     sign: (op, operand) => (op === "-" ? operand.neg() : operand),
-    sum: (first, rest) => sumPairwise([first, ...rest.map((t) => (t.op === "-" ? t.value.neg() : t.value))]),
     power(base, exponent, caretColumn, exponentColumn) {
       const e = exponent.constantValue();
       if (e === null || !e.isInteger()) fail("an exponent must be an integer constant", exponentColumn);
@@ -208,6 +238,142 @@ export function exactReading(text: string): Reading<RationalFunction> {
       return base.pow(n);
     },
   };
+}
+
+/**
+ * A value being read fast: a bare name by its number (no allocation for the commonest token),
+ * a sum of monomials (repeats allowed) while the text stays polynomial, or else the exact value.
+ */
+export type Partial = number | Terms | RationalFunction;
+type Terms = { terms: SparseMonomial[] };
+
+/** a := a * b for two monomials, unless an exponent would leave the range (then false and a unchanged). */
+function multiplyInto(a: SparseMonomial, b: SparseMonomial): boolean {
+  const f = b.factors;
+  for (let j = 0; j < f.length; j += 2) {
+    const at = indexOfName(a, f[j]);
+    if (at >= 0 && a.factors[at + 1] + f[j + 1] > MAX_EXPONENT) return false;
+  }
+  for (let j = 0; j < f.length; j += 2) multiplyByName(a, f[j], f[j + 1]);
+  if (!b.coef.isOne()) a.coef = a.coef.mul(b.coef);
+  return true;
+}
+
+function indexOfName(a: SparseMonomial, name: number): number {
+  const f = a.factors;
+  for (let j = 0; j < f.length; j += 2) if (f[j] === name) return j;
+  return -1;
+}
+
+/** a := a * name^power, unless the exponent would leave the range (then false and a unchanged). */
+function multiplyByName(a: SparseMonomial, name: number, power: number): boolean {
+  const at = indexOfName(a, name);
+  if (at < 0) {
+    a.factors.push(name, power);
+    return true;
+  }
+  if (a.factors[at + 1] + power > MAX_EXPONENT) return false;
+  a.factors[at + 1] += power;
+  return true;
+}
+
+/**
+ * The same meaning as exactReading, built faster for long polynomial text (engine output of
+ * tens of thousands of terms): products and positive powers of monomials stay monomials and a
+ * sum of them is built once (polyFromMonomials), so reading is near-linear in the text. Anything
+ * else (a quotient by a non-constant, a product of sums, a negative power) is handed to
+ * exactReading, faults included, so both give the same value and the same errors. Each reading
+ * is consumed once, so monomials and term lists are grown in place. finish gives the value.
+ */
+export function monomialReading(text: string): { reading: Reading<Partial> & Required<Pick<Reading<Partial>, "sum">>; finish(p: Partial): RationalFunction } {
+  const exact = exactReading(text);
+  // Names are numbered as they first occur.
+  const numbers = new Map<string, number>();
+  const names: string[] = [];
+  const nameTerms = (name: number): Terms => ({ terms: [{ coef: Rational.ONE, factors: [name, 1] }] });
+  const asExact = (p: Partial): RationalFunction =>
+    p instanceof RationalFunction ? p : typeof p === "number" ? RationalFunction.variable(names[p]) : RationalFunction.fromPoly(polyFromMonomials(names, p.terms));
+  /** The value as terms (a name becomes one), or null for a rational function. */
+  const termsOf = (p: Partial): Terms | null => (p instanceof RationalFunction ? null : typeof p === "number" ? nameTerms(p) : p);
+  /** The value's one monomial, or null. */
+  const monomialOf = (p: Terms | null): SparseMonomial | null => (p && p.terms.length === 1 ? p.terms[0] : null);
+  const numbered = (name: string): number => {
+    let n = numbers.get(name);
+    if (n === undefined) {
+      n = names.length;
+      numbers.set(name, n);
+      names.push(name);
+    }
+    return n;
+  };
+  const negate = (p: Partial): Partial => {
+    const terms = termsOf(p);
+    if (!terms) return (p as RationalFunction).neg();
+    for (const t of terms.terms) t.coef = t.coef.neg();
+    return terms;
+  };
+  const product = (left: Partial, right: Partial): Terms | null => {
+    const l = termsOf(left);
+    const a = monomialOf(l);
+    if (!a) return null;
+    if (typeof right === "number") return multiplyByName(a, right, 1) ? l : null;
+    const b = monomialOf(termsOf(right));
+    return b && multiplyInto(a, b) ? l : null;
+  };
+  const reading: Reading<Partial> & Required<Pick<Reading<Partial>, "sum">> = {
+    number: (value) => ({ terms: [{ coef: value, factors: [] }] }),
+    name: numbered,
+    control: (word, args) => numbered(controlSymbol(word, args)),
+    group: (inner) => inner,
+    binary(op, left, right, column) {
+      if (op === "*") {
+        const p = product(left, right);
+        if (p) return p;
+      } else if (op === "/") {
+        const l = termsOf(left);
+        const b = monomialOf(termsOf(right));
+        if (l && b && b.factors.length === 0 && !b.coef.isZero()) {
+          const inverse = b.coef.inverse();
+          for (const t of l.terms) t.coef = t.coef.mul(inverse);
+          return l;
+        }
+      }
+      return exact.binary(op, asExact(left), asExact(right), column);
+    },
+    sign: (op, operand) => (op === "-" ? negate(operand) : operand),
+    sum(first, rest) {
+      const others: RationalFunction[] = [];
+      let terms: SparseMonomial[] = [];
+      const take = (p: Partial) => {
+        if (p instanceof RationalFunction) others.push(p);
+        else if (typeof p === "number") terms.push({ coef: Rational.ONE, factors: [p, 1] });
+        else if (terms.length === 0) terms = p.terms;
+        else for (const t of p.terms) terms.push(t);
+      };
+      take(first);
+      for (const r of rest) take(r.op === "-" ? negate(r.value) : r.value);
+      if (others.length === 0) return { terms };
+      return sumPairwise([asExact({ terms }), ...others]);
+    },
+    power(base, exponent, caretColumn, exponentColumn) {
+      const b = termsOf(base);
+      const m = monomialOf(b);
+      const e = monomialOf(termsOf(exponent));
+      if (m && e && e.factors.length === 0 && e.coef.isInteger()) {
+        const n = Number(e.coef.num);
+        const f = m.factors;
+        let fits = n >= 1 && n <= MAX_EXPONENT_MAGNITUDE;
+        for (let j = 1; j < f.length && fits; j += 2) fits = f[j] * n <= MAX_EXPONENT;
+        if (fits) {
+          for (let j = 1; j < f.length; j += 2) f[j] *= n;
+          m.coef = m.coef.pow(n);
+          return b!;
+        }
+      }
+      return exact.power(asExact(base), asExact(exponent), caretColumn, exponentColumn);
+    },
+  };
+  return { reading, finish: asExact };
 }
 
 /**
@@ -230,15 +396,24 @@ export function printValue(f: RationalFunction): string {
 }
 
 class Parser<T> {
-  private pos = 0;
-  constructor(private readonly tokens: Token[], private readonly text: string, private readonly reading: Reading<T>) {}
+  private current: Token;
+  constructor(private readonly lexer: Lexer, private readonly text: string, private readonly reading: Reading<T>) {
+    this.current = lexer.next();
+  }
 
   private peek(): Token {
-    return this.tokens[this.pos];
+    return this.current;
+  }
+
+  /** The current token, moving on to the next. */
+  private take(): Token {
+    const t = this.current;
+    this.current = this.lexer.next();
+    return t;
   }
 
   private isOp(op: string): boolean {
-    const t = this.peek();
+    const t = this.current;
     return t.kind === "op" && t.op === op;
   }
 
@@ -247,13 +422,20 @@ class Parser<T> {
   }
 
   parse(): T {
-    if (this.peek().kind === "end") this.fail("empty value", 1);
-    const value = this.expression();
-    const t = this.peek();
-    if (t.kind !== "end") {
-      this.fail(t.kind === "op" && t.op === ")" ? "unmatched )" : "expected an operator", t.column);
+    try {
+      if (this.peek().kind === "end") this.fail("empty value", 1);
+      const value = this.expression();
+      const t = this.peek();
+      if (t.kind !== "end") {
+        this.fail(t.kind === "op" && t.op === ")" ? "unmatched )" : "expected an operator", t.column);
+      }
+      return value;
+    } catch (fault) {
+      // A fault of the characters anywhere in the text comes first (the reader takes tokens as
+      // it goes, but reports as if the whole text had been split into tokens before reading).
+      this.lexer.all();
+      throw fault;
     }
-    return value;
   }
 
   private expression(): T {
@@ -261,7 +443,7 @@ class Parser<T> {
     const sum = this.reading.sum;
     const rest: Array<{ op: SignOp; value: T }> = [];
     while (this.isOp("+") || this.isOp("-")) {
-      const t = this.tokens[this.pos++] as { op: SignOp; column: number };
+      const t = this.take() as { op: SignOp; column: number };
       if (sum) rest.push({ op: t.op, value: this.term() });
       else value = this.reading.binary(t.op, value, this.term(), t.column);
     }
@@ -271,7 +453,7 @@ class Parser<T> {
   private term(): T {
     let value = this.unary();
     while (this.isOp("*") || this.isOp("/")) {
-      const t = this.tokens[this.pos++] as { op: BinaryOp; column: number };
+      const t = this.take() as { op: BinaryOp; column: number };
       value = this.reading.binary(t.op, value, this.unary(), t.column);
     }
     return value;
@@ -279,7 +461,7 @@ class Parser<T> {
 
   private unary(): T {
     if (this.isOp("-") || this.isOp("+")) {
-      const t = this.tokens[this.pos++] as { op: SignOp; column: number };
+      const t = this.take() as { op: SignOp; column: number };
       return this.reading.sign(t.op, this.unary(), t.column);
     }
     return this.power();
@@ -288,7 +470,7 @@ class Parser<T> {
   private power(): T {
     const base = this.primary();
     if (!this.isOp("^")) return base;
-    const caret = this.tokens[this.pos++];
+    const caret = this.take();
     const exponentColumn = this.peek().column;
     return this.reading.power(base, this.unary(), caret.column, exponentColumn);
   }
@@ -296,23 +478,23 @@ class Parser<T> {
   private primary(): T {
     const t = this.peek();
     if (t.kind === "number") {
-      this.pos++;
+      this.take();
       return this.reading.number(t.value, t.column);
     }
     if (t.kind === "ident") {
-      this.pos++;
+      this.take();
       if (this.isOp("(")) this.fail(`"${t.name}(" is not a value: functions are not part of value expressions (a source may name across(<node>, <node>) or through(<element>))`, this.peek().column);
       return this.reading.name(t.name, t.column);
     }
     if (t.kind === "control") {
-      this.pos++;
+      this.take();
       return this.reading.control(t.word, t.args, t.column);
     }
     if (t.kind === "op" && t.op === "(") {
-      this.pos++;
+      this.take();
       const inner = this.expression();
       if (!this.isOp(")")) this.fail("expected )", this.peek().column);
-      this.pos++;
+      this.take();
       return this.reading.group(inner);
     }
     if (t.kind === "end") this.fail("unexpected end of the value", t.column);
@@ -322,12 +504,12 @@ class Parser<T> {
 
 /** Every control a value names, in text order, without reading the rest of it (a structural look). */
 export function controlsIn(text: string): { word: ControlWord; args: string[]; column: number }[] {
-  return tokenize(text).flatMap((t) => (t.kind === "control" ? [{ word: t.word, args: t.args, column: t.column }] : []));
+  return new Lexer(text).all().flatMap((t) => (t.kind === "control" ? [{ word: t.word, args: t.args, column: t.column }] : []));
 }
 
 /** Check text against the value grammar (columns in every error) and build it with reading. */
 export function readWith<T>(text: string, reading: Reading<T>): T {
-  return new Parser(tokenize(text), text, reading).parse();
+  return new Parser(new Lexer(text), text, reading).parse();
 }
 
 /**
@@ -336,8 +518,24 @@ export function readWith<T>(text: string, reading: Reading<T>): T {
  * parseValue on every input both accept; user-typed element values go through parseValue.
  */
 export function readExpression(text: string): RationalFunction {
-  return readWith(text, exactReading(text));
+  const { reading, finish } = monomialReading(text);
+  return finish(readWith(text, reading));
 }
+
+/** Builds nothing: the grammar's syntax check alone. */
+const GRAMMAR_ONLY: Reading<null> = { number: () => null, name: () => null, control: () => null, group: () => null, binary: () => null, sign: () => null, power: () => null };
+
+/**
+ * Check text against the grammar first (every syntax fault before any fault of meaning, as
+ * parseValue reports them), then read it with our own reader: parseValue for texts too long
+ * for nerdamer's parser to be cheap.
+ */
+export function readCheckedExpression(text: string): RationalFunction {
+  new Parser<null>(new Lexer(text), text, GRAMMAR_ONLY).parse();
+  const { reading, finish } = monomialReading(text);
+  return finish(new Parser(new Lexer(text), text, reading).parse());
+}
+
 
 /** A plain number with optional SI prefix (a space before the prefix is allowed): "4.7k" -> 4700 exactly. */
 export function parseSI(text: string): Rational {

@@ -760,7 +760,67 @@ export function fromKeys(layout: Layout, keys: ArrayLike<Key>, coefs: ArrayLike<
   return buildPoly(layout.vars, exps, cs, den);
 }
 
-function fromRationalCoefs(vars: readonly string[], exps: number[], coefs: Rational[]): Poly {
+/** A monomial by its variables: coefficient and (variable number, exponent) pairs, variables distinct, in any order. */
+export interface SparseMonomial {
+  coef: Rational;
+  factors: number[];
+}
+
+/**
+ * The sum of many monomials (repeats allowed) over the variables names (numbered by position),
+ * in one pass: rows written once, repeats found by a hash of each monomial's pairs, one sort.
+ * Linear in the terms written plus the sort, where adding them one polynomial at a time costs
+ * n log n polynomial additions.
+ */
+export function polyFromMonomials(names: readonly string[], terms: readonly SparseMonomial[]): Poly {
+  const used = new Uint8Array(names.length);
+  for (const t of terms) for (let j = 0; j < t.factors.length; j += 2) used[t.factors[j]] = 1;
+  const vars = sortNames(names.filter((_, i) => used[i]));
+  const column = new Int32Array(names.length);
+  const sortedAt = new Map(vars.map((v, i) => [v, i]));
+  names.forEach((name, i) => {
+    if (used[i]) column[i] = sortedAt.get(name)!;
+  });
+  const nv = vars.length;
+  const exps = new Uint16Array(terms.length * nv);
+  const coefs: Rational[] = [];
+  // Chained hash table over the distinct rows so far: head by hash, next by row.
+  const head = new Map<number, number>();
+  const next: number[] = [];
+  for (const t of terms) {
+    const row = coefs.length;
+    const o = row * nv;
+    const f = t.factors;
+    let h = 0;
+    for (let j = 0; j < f.length; j += 2) {
+      const c = column[f[j]];
+      const e = f[j + 1];
+      if (e > MAX_EXPONENT) throw new RangeError(`exponent above ${MAX_EXPONENT}`);
+      exps[o + c] = e;
+      // Order-independent: the pairs come in the text's order.
+      h = (h + Math.imul((c * 65599 + e) ^ 0x5bd1e995, 0x9e3779b1)) | 0;
+    }
+    let same = head.get(h) ?? -1;
+    for (; same >= 0; same = next[same]) {
+      const so = same * nv;
+      let equal = true;
+      for (let v = 0; v < nv && equal; v++) equal = exps[so + v] === exps[o + v];
+      if (equal) break;
+    }
+    if (same >= 0) {
+      coefs[same] = coefs[same].add(t.coef);
+      for (let j = 0; j < f.length; j += 2) exps[o + column[f[j]]] = 0;
+      continue;
+    }
+    coefs.push(t.coef);
+    next.push(head.get(h) ?? -1);
+    head.set(h, row);
+  }
+  const n = coefs.length;
+  return fromRationalCoefs(vars, n * nv === exps.length ? exps : exps.slice(0, n * nv), coefs);
+}
+
+function fromRationalCoefs(vars: readonly string[], exps: ArrayLike<number>, coefs: Rational[]): Poly {
   let den = 1n;
   for (const c of coefs) if (c.den !== 1n) den = bigLcm(den, c.den);
   const ints = coefs.map((c) => (c.den === den ? c.num : c.num * (den / c.den)));
