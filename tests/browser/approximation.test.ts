@@ -1,6 +1,6 @@
 // The Values panel's approximation within a stated error, in chromium: a cascode current sink's
 // output resistance approaches gm·ro² (Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed.,
-// from memory) at a design point, the largest error is stated, and a dropped term can be locked in.
+// from memory) at a design point, the largest error is stated, a dropped term can be locked in and a kept one locked out.
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { readExpression } from "../../shared/engine/algebra";
@@ -33,7 +33,7 @@ describe("approximation within a stated error in chromium", () => {
     await session?.close();
   });
 
-  it("drops the small terms at the design point, states the error, and keeps a term locked in", async () => {
+  it("drops the small terms at the design point, states the error, keeps a term locked in and another locked out", async () => {
     await signInThroughForm(page, server.url, user);
     await importNetlist(page, { name: "cascode.pfn", text: CASCODE, title: "Cascode sink" });
     await page.getByRole("button", { name: "Solve", exact: true }).click();
@@ -53,6 +53,18 @@ describe("approximation within a stated error in chromium", () => {
     await approx.getByRole("group", { name: "Terms of Rth" }).getByRole("button", { name: "ro1", exact: true }).click();
     await expect.poll(async () => same(await rth.getAttribute("data-infix"), "gm2*ro1*ro2 + ro1")).toBe(true);
     await shot(page, "approximation-cascode-locked");
+    // Locking the kept gm2·ro1·ro2 out drops it whatever it costs, and the cost is stated; clicking again frees it.
+    const terms = approx.getByRole("group", { name: "Terms of Rth" });
+    const big = terms.getByRole("button", { name: "gm2*ro1*ro2", exact: true });
+    await expect.poll(() => big.getAttribute("data-lock")).toBe("free");
+    await big.click();
+    await expect.poll(() => big.getAttribute("data-lock")).toBe("out");
+    await expect.poll(async () => (await rth.getAttribute("data-infix"))?.includes("gm2")).toBe(false);
+    await expect.poll(async () => Number((await approx.getByTestId("approx-error-rth").textContent())?.match(/([\d.]+) %/)?.[1])).toBeGreaterThan(90);
+    await shot(page, "approximation-cascode-locked-out");
+    await big.click();
+    await expect.poll(() => big.getAttribute("data-lock")).toBe("free");
+    await expect.poll(async () => same(await rth.getAttribute("data-infix"), "gm2*ro1*ro2 + ro1")).toBe(true);
     expect(pageErrors).toEqual([]);
   });
 });

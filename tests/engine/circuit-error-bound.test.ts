@@ -83,6 +83,12 @@ describe("approximations within a stated error", { timeout: 120_000 }, () => {
     // A term locked out is dropped whatever it costs, and the cost is stated.
     const forced = solveNetwork(follower, { values, steps: false, approximate: { drop: ["RE*beta"] } }).boundedApproximations!.results.rth!;
     expect(forced.dropped.denominator).toContain("RE*beta");
+    expect(forced.kept.denominator).not.toContain("RE*beta");
+    // Kept and dropped together are every term of the exact form, each once.
+    const exact = readExpression(forced.exact);
+    const names = (terms: { monomial: Record<string, number> }[]) => terms.map((t) => Object.keys(t.monomial).sort().map((v) => (t.monomial[v] === 1 ? v : `${v}^${t.monomial[v]}`)).join("*") || "1").sort();
+    expect([...forced.kept.numerator, ...forced.dropped.numerator].sort()).toEqual(names(exact.num.terms()));
+    expect([...forced.kept.denominator, ...forced.dropped.denominator].sort()).toEqual(names(exact.den.terms()));
     expect(forced.maxError).toBeGreaterThan(0.05);
   });
 

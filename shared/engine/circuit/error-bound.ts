@@ -26,6 +26,8 @@ export interface BoundedApproximation {
   approximateTex: string;
   compact: string;
   dropped: { numerator: string[]; denominator: string[] };
+  /** The terms left in the approximate form, named as in `dropped`. */
+  kept: { numerator: string[]; denominator: string[] };
   /** Largest relative error |F~ − F| / |F| measured over the band and/or the tolerance box. */
   maxError: number;
   /** Where it was measured: "point", "band", "box" or "band and box". */
@@ -160,7 +162,7 @@ export function boundedApproximation(f: RationalFunction, nominal: Record<string
     best = { g, dn, dd, err };
     if (err <= epsilon || drop.size > 0) break;
   }
-  const names = (p: Poly, set: Set<number>) => p.terms().filter((_, i) => set.has(i)).map((t) => monomialName(t.monomial));
+  const names = (p: Poly, set: Set<number>, inSet = true) => p.terms().filter((_, i) => set.has(i) === inSet).map((t) => monomialName(t.monomial));
   const over = options.tolerance ? (hasS && options.band ? "band and box" : "box") : hasS && options.band ? "band" : "point";
   return {
     exact: f.toInfix(),
@@ -168,6 +170,7 @@ export function boundedApproximation(f: RationalFunction, nominal: Record<string
     approximateTex: best!.g.toTex(),
     compact: best!.g.compactInfix(),
     dropped: { numerator: names(f.num, best!.dn), denominator: names(f.den, best!.dd) },
+    kept: { numerator: names(f.num, best!.dn, false), denominator: names(f.den, best!.dd, false) },
     maxError: best!.err,
     over,
   };

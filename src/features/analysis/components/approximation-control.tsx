@@ -5,6 +5,8 @@ import type { ResultName } from "@/types/api";
 import type { ExactResults } from "../lib/exact-results";
 import { RESULT_LABEL, RESULT_NAMES, RESULT_TEX } from "../lib/quantities";
 
+type Lock = "in" | "out";
+
 const percent = (x: number) => `${(x * 100).toPrecision(3)} %`;
 
 function NumberField({ label, value, onChange, unit, placeholder }: { label: string; value: string; onChange: (v: string) => void; unit: string; placeholder?: string }) {
@@ -45,7 +47,7 @@ export function ApproximationControl({ exact, point }: { exact: ExactResults; po
   const [tolerance, setTolerance] = useState("");
   const [bandFrom, setBandFrom] = useState("");
   const [bandTo, setBandTo] = useState("");
-  const [keep, setKeep] = useState<string[]>([]);
+  const [locks, setLocks] = useState<Record<string, Lock>>({});
   const inS = RESULT_NAMES.some((n) => exact[n]?.variables().includes("s"));
   const nominal = useMemo(() => Object.fromEntries(Object.entries(point).map(([k, v]) => [k, v.toNumber()])), [point]);
   const eps = readNumber(epsilon);
@@ -58,10 +60,15 @@ export function ApproximationControl({ exact, point }: { exact: ExactResults; po
     return (["vth", "rth", "isc"] as ResultName[]).flatMap((name) => {
       const f = exact[name];
       if (!f || f.isZero()) return [];
-      const a = boundedApproximation(f, nominal, { epsilon: eps / 100, tolerance: tol ? tol / 100 : undefined, band, keep });
+      const keep = Object.keys(locks).filter((t) => locks[t] === "in");
+      const drop = Object.keys(locks).filter((t) => locks[t] === "out");
+      const a = boundedApproximation(f, nominal, { epsilon: eps / 100, tolerance: tol ? tol / 100 : undefined, band, keep, drop });
       return [{ name, a }];
     });
-  }, [on, exact, nominal, eps, tol, from, to, keep]);
+  }, [on, exact, nominal, eps, tol, from, to, locks]);
+  // A free term is locked the other way from where the bound put it; a locked term is freed again.
+  const toggle = (term: string, dropped: boolean) =>
+    setLocks(({ [term]: current, ...rest }) => (current ? rest : { ...rest, [term]: dropped ? "in" : "out" }));
   const missing = on && results.some((r) => r.a === null);
   return (
     <section aria-label="Approximate" className="mt-3 border-t border-rule pt-2">
@@ -81,7 +88,7 @@ export function ApproximationControl({ exact, point }: { exact: ExactResults; po
           )}
           {missing && <p className="text-[11px] text-ink/60">Give every symbol a value above (the design point){inS ? " and a band" : ""} to approximate.</p>}
           <dl className="space-y-2 pt-1">
-            {results.map(({ name, a }) => a && <ApproximateResult key={name} name={name} a={a} onKeep={(term) => setKeep((k) => (k.includes(term) ? k.filter((t) => t !== term) : [...k, term]))} kept={keep} />)}
+            {results.map(({ name, a }) => a && <ApproximateResult key={name} name={name} a={a} locks={locks} onToggle={toggle} />)}
           </dl>
         </div>
       )}
@@ -89,8 +96,20 @@ export function ApproximationControl({ exact, point }: { exact: ExactResults; po
   );
 }
 
-function ApproximateResult({ name, a, kept, onKeep }: { name: ResultName; a: BoundedApproximation; kept: string[]; onKeep: (term: string) => void }) {
-  const dropped = [...a.dropped.numerator, ...a.dropped.denominator];
+/** Terms listed as buttons up to this many; past it only the dropped and locked ones are. */
+const LISTED_TERMS = 40;
+
+function termTitle(lock: Lock | undefined, dropped: boolean): string {
+  if (lock === "in") return "locked in: click to free it";
+  if (lock === "out") return "locked out: click to free it";
+  return dropped ? "dropped: click to lock it in" : "kept: click to lock it out";
+}
+
+function ApproximateResult({ name, a, locks, onToggle }: { name: ResultName; a: BoundedApproximation; locks: Record<string, Lock>; onToggle: (term: string, dropped: boolean) => void }) {
+  const dropped = new Set([...a.dropped.numerator, ...a.dropped.denominator]);
+  const kept = [...new Set([...a.kept.numerator, ...a.kept.denominator])].filter((t) => !dropped.has(t));
+  const all = [...dropped, ...kept];
+  const listed = all.length <= LISTED_TERMS ? all : all.filter((t) => dropped.has(t) || locks[t]);
   const tex = useMemo(() => readExpression(a.approximate).compactTex(), [a.approximate]);
   return (
     <div data-approximation={name}>
@@ -101,21 +120,32 @@ function ApproximateResult({ name, a, kept, onKeep }: { name: ResultName; a: Bou
         <div className="overflow-x-auto text-sm" data-testid={`approx-${name}`} data-infix={a.approximate}>
           <MathTex tex={`${RESULT_TEX[name]} \\approx ${tex}`} />
         </div>
-        {(dropped.length > 0 || kept.length > 0) && (
-          <div className="mt-1 flex flex-wrap gap-1" role="group" aria-label={`Terms of ${RESULT_LABEL[name]}`}>
-            {[...new Set([...dropped, ...kept])].map((term) => (
-              <button
-                key={term}
-                type="button"
-                aria-pressed={kept.includes(term)}
-                onClick={() => onKeep(term)}
-                title={kept.includes(term) ? "locked in: click to let it be dropped" : "dropped: click to lock it in"}
-                className={`rounded border px-1.5 py-0.5 font-mono text-[11px] ${kept.includes(term) ? "border-copper bg-copper/10" : "border-rule text-ink/60 line-through"}`}
-              >
-                {term}
-              </button>
-            ))}
-          </div>
+        {listed.length > 1 && (
+          <>
+            <div className="mt-1 flex flex-wrap gap-1" role="group" aria-label={`Terms of ${RESULT_LABEL[name]}`}>
+              {listed.map((term) => {
+                const lock = locks[term];
+                const isDropped = dropped.has(term);
+                return (
+                  <button
+                    key={term}
+                    type="button"
+                    aria-pressed={lock !== undefined}
+                    data-lock={lock ?? "free"}
+                    onClick={() => onToggle(term, isDropped)}
+                    title={termTitle(lock, isDropped)}
+                    className={`rounded border px-1.5 py-0.5 font-mono text-[11px] ${isDropped ? "text-ink/60 line-through" : "text-ink"} ${lock ? "border-copper bg-copper/10 font-semibold" : "border-rule"}`}
+                  >
+                    {term}
+                  </button>
+                );
+              })}
+            </div>
+            <p className="mt-0.5 text-[10px] text-ink/50">
+              Struck-through terms are dropped. Click a term to lock it in or out; click a locked term to free it.
+              {listed.length < all.length && ` ${all.length - listed.length} kept terms are not listed.`}
+            </p>
+          </>
         )}
       </dd>
     </div>
