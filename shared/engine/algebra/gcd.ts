@@ -18,37 +18,7 @@
 import { Poly, buildPoly, makeLayout, unionVars, type Key } from "./polynomial";
 import { polyDivide, polyDivideExact } from "./division";
 import { heuristicGcd } from "./heuristic-gcd";
-
-/** A prime below 2^26: the product of two residues stays below 2^53, exact in doubles. */
-const PRIME = 67108859;
-const PRIME_BIG = BigInt(PRIME);
-
-function residue(c: bigint): number {
-  const r = c >= -9007199254740991n && c <= 9007199254740991n ? Number(c) % PRIME : Number(c % PRIME_BIG);
-  return r < 0 ? r + PRIME : r;
-}
-
-function invMod(a: number): number {
-  let [r0, r1] = [PRIME, a];
-  let [t0, t1] = [0, 1];
-  while (r1 !== 0) {
-    const q = Math.floor(r0 / r1);
-    [r0, r1] = [r1, r0 - q * r1];
-    [t0, t1] = [t1, t0 - q * t1];
-  }
-  return t0 < 0 ? t0 + PRIME : t0;
-}
-
-/** Small deterministic generator (xorshift32) so a run is reproducible. */
-function makeRandom(seed: number): () => number {
-  let s = seed | 0 || 0x9e3779b9;
-  return () => {
-    s ^= s << 13;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    return 1 + ((s >>> 0) % (PRIME - 1));
-  };
-}
+import { PRIME, invMod, makeRandom, residue } from "./modular";
 
 /**
  * Images of p in each test variable x: all other variables evaluated at the point (mod PRIME).

@@ -2,6 +2,7 @@
 
 import { Poly } from "./polynomial";
 import { matrixRankBareiss } from "./determinant";
+import { PRIME, invMod, makeRandom, powMod, residue } from "./modular";
 
 type Matrix = readonly (readonly Poly[])[];
 
@@ -26,26 +27,6 @@ export function identityMatrix(n: number): Poly[][] {
   return Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? Poly.one() : Poly.zero())));
 }
 
-// Modular images: a prime below 2^26 keeps products of residues exact in doubles.
-const PRIME = 67108859;
-const PRIME_BIG = BigInt(PRIME);
-
-function residue(c: bigint): number {
-  const r = Number(c % PRIME_BIG);
-  return r < 0 ? r + PRIME : r;
-}
-
-function powMod(b: number, e: number): number {
-  let r = 1;
-  b %= PRIME;
-  while (e > 0) {
-    if (e & 1) r = (r * b) % PRIME;
-    b = (b * b) % PRIME;
-    e >>= 1;
-  }
-  return r;
-}
-
 /** p at the point, modulo PRIME; null when the common denominator vanishes there. */
 function evalMod(p: Poly, point: Map<string, number>): number | null {
   const d = residue(p.den);
@@ -61,7 +42,7 @@ function evalMod(p: Poly, point: Map<string, number>): number | null {
     }
     s = (s + m) % PRIME;
   }
-  return (s * powMod(d, PRIME - 2)) % PRIME;
+  return (s * invMod(d)) % PRIME;
 }
 
 function rankMod(a: number[][]): number {
@@ -73,7 +54,7 @@ function rankMod(a: number[][]): number {
     while (p < rows && a[p][c] === 0) p++;
     if (p === rows) continue;
     [a[p], a[r]] = [a[r], a[p]];
-    const inv = powMod(a[r][c], PRIME - 2);
+    const inv = invMod(a[r][c]);
     for (let i = r + 1; i < rows; i++) {
       if (a[i][c] === 0) continue;
       const f = (a[i][c] * inv) % PRIME;
@@ -95,13 +76,7 @@ export function matrixRank(a: Matrix): number {
   if (rows === 0 || cols === 0) return 0;
   const vars = new Set<string>();
   for (const row of a) for (const e of row) for (const v of e.vars) vars.add(v);
-  let seed = 0x2545f491;
-  const random = () => {
-    seed ^= seed << 13;
-    seed ^= seed >>> 17;
-    seed ^= seed << 5;
-    return 1 + ((seed >>> 0) % (PRIME - 1));
-  };
+  const random = makeRandom(0x2545f491);
   let best = 0;
   for (let attempt = 0; attempt < 2; attempt++) {
     const point = new Map([...vars].map((v) => [v, random()]));
