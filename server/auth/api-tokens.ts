@@ -5,7 +5,8 @@ import { endpoints } from "../../shared/api/routes.js";
 import type { TokenScope } from "../../shared/api/tokens.js";
 import { authenticateApiToken, teamOfNetwork, type TokenCaller } from "../domain/api-tokens.js";
 import type { Services } from "../domain/services.js";
-import { HttpError, notFound } from "../lib/errors.js";
+import { notFound } from "../domain/errors.js";
+import { HttpError } from "../lib/errors.js";
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace

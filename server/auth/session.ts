@@ -1,5 +1,6 @@
 import type { RequestHandler, Response } from "express";
 import { verifyRequestOrigin, type Session, type User } from "lucia";
+import { signInRequired } from "../domain/errors.js";
 import { HttpError } from "../lib/errors.js";
 import { sessionIdOf, type Auth } from "./lucia.js";
 
@@ -49,7 +50,7 @@ export function checkOrigin(publicUrl: string): RequestHandler {
 
 export function signedInUser(res: Response): User {
   const user = res.locals.user;
-  if (!user) throw new HttpError(401, "unauthenticated", "Sign in to continue.");
+  if (!user) throw signInRequired();
   return user;
 }
 

@@ -2,7 +2,7 @@
 import { and, eq } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { networks, teamMembers, type Role } from "../db/schema.js";
-import { forbidden, notFound } from "../lib/errors.js";
+import { forbidden, notFound } from "./errors.js";
 import type { Transaction } from "./services.js";
 
 const rank: Record<Role, number> = { viewer: 0, reviewer: 1, editor: 2, owner: 3 };

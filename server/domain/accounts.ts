@@ -5,7 +5,7 @@ import { createSessionToken } from "../auth/lucia.js";
 import { hashPassword, verifyDecoy, verifyPassword } from "../auth/password.js";
 import type { Database } from "../db/client.js";
 import { emailTokens, teamMembers, teams, users, type EmailTokenPurpose, type Role } from "../db/schema.js";
-import { HttpError } from "../lib/errors.js";
+import { Conflict, Invalid, InvalidCredentials, signInRequired } from "./errors.js";
 import { hashToken, newToken } from "../lib/tokens.js";
 import { passwordResetMail, verificationMail } from "../mail/templates.js";
 import { link, type Services, type Transaction } from "./services.js";
@@ -26,7 +26,7 @@ export function publicUser(row: Pick<UserRow, "id" | "email" | "name" | "emailVe
   return { id: row.id, email: row.email, name: row.name, emailVerified: row.emailVerifiedAt !== null };
 }
 
-export const invalidToken = () => new HttpError(400, "invalid_token", "This link is invalid, already used or expired.");
+export const invalidToken = () => new Invalid("invalid_token", "This link is invalid, already used or expired.");
 
 export function personalTeamName(name: string): string {
   return `${name}'s networks`;
@@ -62,7 +62,7 @@ export async function createAccount(
     });
   } catch (error) {
     if (isUniqueViolation(error, "users_email_unique")) {
-      throw new HttpError(409, "email_taken", "An account with this e-mail address already exists.", { email: "already registered" });
+      throw new Conflict("email_taken", "An account with this e-mail address already exists.", { fields: { email: "already registered" } });
     }
     throw error;
   }
@@ -82,7 +82,7 @@ export async function sendVerification(services: Services, user: PublicUser): Pr
 export async function signIn(db: Database, email: string, password: string): Promise<PublicUser> {
   const [row] = await db.select().from(users).where(eq(users.email, email));
   const valid = row?.passwordHash ? await verifyPassword(row.passwordHash, password) : await verifyDecoy(password);
-  if (!row || !valid) throw new HttpError(401, "invalid_credentials", "That e-mail address and password do not match an account.");
+  if (!row || !valid) throw new InvalidCredentials();
   return publicUser(row);
 }
 
@@ -172,7 +172,7 @@ export interface AccountSettings {
 
 export async function accountOverview(db: Database, userId: string): Promise<{ user: PublicUser; teams: TeamMembership[]; settings: AccountSettings }> {
   const [row] = await db.select().from(users).where(eq(users.id, userId));
-  if (!row) throw new HttpError(401, "unauthenticated", "Sign in to continue.");
+  if (!row) throw signInRequired();
   const memberships = await db
     .select({ id: teams.id, name: teams.name, role: teamMembers.role, personalUserId: teams.personalUserId })
     .from(teamMembers)
@@ -188,6 +188,6 @@ export async function accountOverview(db: Database, userId: string): Promise<{ u
 
 export async function updateAccountSettings(db: Database, userId: string, changes: Partial<AccountSettings>): Promise<AccountSettings> {
   const [row] = await db.update(users).set(changes).where(eq(users.id, userId)).returning({ reviewMail: users.reviewMail });
-  if (!row) throw new HttpError(401, "unauthenticated", "Sign in to continue.");
+  if (!row) throw signInRequired();
   return { reviewMail: row.reviewMail };
 }

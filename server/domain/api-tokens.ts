@@ -4,7 +4,7 @@ import { and, desc, eq, gt, isNull, lt, or } from "drizzle-orm";
 import type { ApiToken, CreateTokenRequest, CreatedToken, CurrentToken } from "../../shared/api/tokens.js";
 import type { Database } from "../db/client.js";
 import { apiTokens, networks, teams, users } from "../db/schema.js";
-import { HttpError, notFound } from "../lib/errors.js";
+import { Unauthenticated, notFound } from "./errors.js";
 import { hashToken } from "../lib/tokens.js";
 import { accountOverview, publicUser } from "./accounts.js";
 import { requireTeamRole } from "./access.js";
@@ -82,9 +82,7 @@ export interface TokenCaller {
 }
 
 export const invalidApiToken = () =>
-  new HttpError(401, "invalid_token", "This API token is unknown, revoked or expired; create a new one on your account page.", undefined, undefined, {
-    headers: { "WWW-Authenticate": 'Bearer error="invalid_token"' },
-  });
+  new Unauthenticated("invalid_token", "This API token is unknown, revoked or expired; create a new one on your account page.", true);
 
 // The person behind a bearer secret, or a 401: unknown, revoked and expired tokens answer alike.
 export async function authenticateApiToken(db: Database, secret: string): Promise<TokenCaller> {

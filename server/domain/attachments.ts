@@ -2,7 +2,7 @@
 import { and, asc, eq } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { attachments, users } from "../db/schema.js";
-import { HttpError, notFound } from "../lib/errors.js";
+import { UnsupportedType, notFound } from "./errors.js";
 import { withoutControls } from "../lib/validate.js";
 import { requireNetworkRole } from "./access.js";
 
@@ -56,11 +56,11 @@ export async function addAttachment(
   await requireNetworkRole(db, networkId, userId, "editor");
   const contentType = sniffContentType(file.buffer);
   if (!contentType) {
-    throw new HttpError(415, "unsupported_type", "Attachments are PDF, PNG or JPEG files.", { file: "not a PDF, PNG or JPEG file" });
+    throw new UnsupportedType("unsupported_type", "Attachments are PDF, PNG or JPEG files.", { fields: { file: "not a PDF, PNG or JPEG file" } });
   }
   const declared = file.mimetype.toLowerCase();
   if (declared !== contentType && declared !== "application/octet-stream") {
-    throw new HttpError(415, "type_mismatch", `The file says it is ${declared} but its content is ${contentType}.`, { file: "content does not match its type" });
+    throw new UnsupportedType("type_mismatch", `The file says it is ${declared} but its content is ${contentType}.`, { fields: { file: "content does not match its type" } });
   }
   const [row] = await db
     .insert(attachments)

@@ -2,7 +2,7 @@
 import { and, asc, eq, inArray } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { teamCells, users } from "../db/schema.js";
-import { HttpError, notFound } from "../lib/errors.js";
+import { Conflict, Invalid, notFound } from "./errors.js";
 import { requireTeamRole } from "./access.js";
 import { BUILT_IN_CELLS, externalCellIds, type CellDefinition, type Network } from "./engine.js";
 import { readCell } from "./reading.js";
@@ -34,7 +34,7 @@ function view(row: CellRow, authorName: string | null): CellView {
 }
 
 const nameTaken = (id: string, builtIn: boolean) =>
-  new HttpError(409, "cell_name_taken", builtIn ? `"${id}" is a built-in cell; give the team's cell another id.` : `The team already has a cell "${id}".`, { "definition.id": "taken" });
+  new Conflict("cell_name_taken", builtIn ? `"${id}" is a built-in cell; give the team's cell another id.` : `The team already has a cell "${id}".`, { fields: { "definition.id": "taken" } });
 
 function isUniqueViolation(error: unknown): boolean {
   const e = error as { code?: string; cause?: { code?: string } };
@@ -56,7 +56,7 @@ export async function createCell(services: Services, teamId: string, userId: str
   const { db } = services;
   await requireTeamRole(db, teamId, userId, "editor");
   const { definition, diagnostics } = await readCell(services, input);
-  if (!definition) throw new HttpError(400, "invalid_cell", "The cell definition is not valid; see the diagnostics.", { definition: diagnostics[0]?.message ?? "invalid" }, diagnostics);
+  if (!definition) throw new Invalid("invalid_cell", "The cell definition is not valid; see the diagnostics.", { fields: { definition: diagnostics[0]?.message ?? "invalid" }, diagnostics });
   // A team cell named like a built-in one would silently replace it in every network of the team.
   if (BUILT_IN_CELLS.has(definition.id)) throw nameTaken(definition.id, true);
   try {

@@ -14,7 +14,7 @@ import {
   type SolveOptions,
   type SolveResult,
 } from "../../shared/engine/index.js";
-import { HttpError } from "../lib/errors.js";
+import { Unprocessable } from "./errors.js";
 
 export { BUILT_IN_CELLS, NETLIST_EXTENSION, solveNetwork };
 export type { CellDefinition, Diagnostic, Network, SolveOptions, SolveResult };
@@ -80,13 +80,10 @@ export function checkExpressionBounds(input: unknown, bounds: ExpressionBounds):
     const found = expressionBreach(text, bounds);
     if (!found) continue;
     const setting = boundSetting[found.bound];
-    throw new HttpError(
-      422,
+    throw new Unprocessable(
       "expression_too_large",
       `The expression at ${where} is too large to read: it has ${found.actual} ${boundWords[found.bound]}, over the bound of ${found.limit} set by ${setting}.`,
-      { [where]: `over the ${found.bound} bound of ${found.limit}` },
-      undefined,
-      { details: { bound: { ...found, setting, where } } },
+      { fields: { [where]: `over the ${found.bound} bound of ${found.limit}` }, details: { bound: { ...found, setting, where } } },
     );
   }
   return typedChars;

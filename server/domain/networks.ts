@@ -5,7 +5,7 @@ import { and, asc, count, eq, ilike, or, sql, type SQL } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { networks, teamMembers, users, type Role } from "../db/schema.js";
 import { withoutControls } from "../lib/validate.js";
-import { HttpError, notFound } from "../lib/errors.js";
+import { Conflict, UnsupportedType, notFound } from "./errors.js";
 import { requireNetworkRole, requireTeamRole, type NetworkRow } from "./access.js";
 import { revisionStateSql } from "./verdicts.js";
 import { NETLIST_EXTENSION, type Network } from "./engine.js";
@@ -198,7 +198,7 @@ export async function updateNetwork(
     })
     .where(and(...conditions))
     .returning();
-  if (!row) throw new HttpError(409, "stale", "The network changed since you loaded it: someone saved it after you opened it. Keep your version, take theirs, or copy yours out first.");
+  if (!row) throw new Conflict("stale", "The network changed since you loaded it: someone saved it after you opened it. Keep your version, take theirs, or copy yours out first.");
   return loadView(db, row, role);
 }
 
@@ -232,7 +232,7 @@ export async function importNetwork(
   const dot = filename.lastIndexOf(".");
   const extension = dot >= 0 ? filename.slice(dot).toLowerCase() : "";
   if (!importExtensions.includes(extension) && !importTypes.includes(file.mimetype.toLowerCase())) {
-    throw new HttpError(415, "unsupported_type", `Import a Portfold network as JSON (.json) or as a Portfold netlist (${NETLIST_EXTENSION}).`, { file: "not a .json or netlist file" });
+    throw new UnsupportedType("unsupported_type", `Import a Portfold network as JSON (.json) or as a Portfold netlist (${NETLIST_EXTENSION}).`, { fields: { file: "not a .json or netlist file" } });
   }
   let text: string;
   try {
@@ -240,7 +240,7 @@ export async function importNetwork(
   } catch {
     text = "\u0000";
   }
-  if (text.includes("\u0000")) throw new HttpError(415, "unsupported_type", "The file is not UTF-8 text.", { file: "binary content" });
+  if (text.includes("\u0000")) throw new UnsupportedType("unsupported_type", "The file is not UTF-8 text.", { fields: { file: "binary content" } });
   const { network, format } = await readNetworkFile(services, text);
   const base = withoutControls(dot > 0 ? filename.slice(0, dot) : filename).slice(0, networkTitleMax).trim();
   const created = await createNetwork(services.db, teamId, userId, { title: title || base || "Imported network", circuit: network, netlist: format === "text" ? text : null });

@@ -1,14 +1,14 @@
 // Reading what people type: size bounds first (no parse at all past them), then the engine's reader
 // on its own thread under the solver's caps, so no network or cell can hold up the request thread.
-import { HttpError } from "../lib/errors.js";
+import { Invalid, Unprocessable } from "./errors.js";
 import type { CapBreach } from "../solver/caps.js";
 import type { ReadOutcome } from "../solver/read-task.js";
 import { checkExpressionBounds, parseNetwork, type CellDefinition, type Diagnostic, type Network } from "./engine.js";
 import type { Services } from "./services.js";
 
-function readCapped(found: CapBreach): HttpError {
+function readCapped(found: CapBreach): Unprocessable {
   const why = found.cap === "time" ? `it took longer than the time cap of ${found.limit / 1000} s` : `it needed more memory than the cap of ${found.limit} MB`;
-  return new HttpError(422, "read_cap_exceeded", `Portfold stopped reading this input: ${why} (set by ${found.setting}); make its values smaller.`, undefined, undefined, { details: { cap: found } });
+  return new Unprocessable("read_cap_exceeded", `Portfold stopped reading this input: ${why} (set by ${found.setting}); make its values smaller.`, { details: { cap: found } });
 }
 
 // Below this many typed characters, with no cells, a network reads in well under a millisecond: inline.
@@ -38,7 +38,7 @@ export function readNetwork(services: Services, input: unknown) {
 export async function readCircuit(services: Services, input: Record<string, unknown>, field = "circuit"): Promise<Network> {
   const { network, diagnostics } = await readNetwork(services, input);
   if (!network) {
-    throw new HttpError(400, "invalid_circuit", "The circuit is not in Portfold's network format.", { [field]: diagnostics[0]?.message ?? "invalid" }, diagnostics);
+    throw new Invalid("invalid_circuit", "The circuit is not in Portfold's network format.", { fields: { [field]: diagnostics[0]?.message ?? "invalid" }, diagnostics });
   }
   return network;
 }
@@ -51,11 +51,11 @@ export async function readCircuitAndText(services: Services, body: { circuit?: R
   if (typeof body.netlist === "string") {
     const read = await readNetwork(services, body.netlist);
     if (!read.network || read.format !== "text") {
-      throw new HttpError(400, "invalid_netlist", "The netlist text has errors; each one names its line and column.", { netlist: read.diagnostics[0]?.message ?? "not a Portfold netlist" }, read.diagnostics);
+      throw new Invalid("invalid_netlist", "The netlist text has errors; each one names its line and column.", { fields: { netlist: read.diagnostics[0]?.message ?? "not a Portfold netlist" }, diagnostics: read.diagnostics });
     }
     return { circuit: body.circuit !== undefined ? await readCircuit(services, body.circuit) : read.network, netlist: body.netlist };
   }
-  if (body.circuit === undefined) throw new HttpError(400, "invalid_circuit", "Send the circuit with its text set to null.", { circuit: "missing" });
+  if (body.circuit === undefined) throw new Invalid("invalid_circuit", "Send the circuit with its text set to null.", { fields: { circuit: "missing" } });
   return { circuit: await readCircuit(services, body.circuit), netlist: body.netlist };
 }
 
@@ -64,7 +64,7 @@ export async function readNetworkFile(services: Services, text: string): Promise
   const { network, diagnostics, format } = await readNetwork(services, text);
   if (!network) {
     const message = format === "text" ? "The netlist has errors; each one names its line and column." : "The file is not a Portfold network in JSON.";
-    throw new HttpError(400, "invalid_network_file", message, undefined, diagnostics);
+    throw new Invalid("invalid_network_file", message, { diagnostics });
   }
   return { network, format };
 }

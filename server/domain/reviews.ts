@@ -4,7 +4,7 @@ import { and, asc, eq, inArray, or } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import type { Database } from "../db/client.js";
 import { comments, revisionSteps, users, type NoteAnchor } from "../db/schema.js";
-import { HttpError, forbidden, notFound } from "../lib/errors.js";
+import { Conflict, Invalid, forbidden, notFound } from "./errors.js";
 import { commentMail } from "../mail/templates.js";
 import type { PublicUser } from "./accounts.js";
 import { mailPeople } from "./review-mail.js";
@@ -98,7 +98,7 @@ function checkAnchor(anchor: NoteAnchor, step: { explanation: string; tex: strin
   const source = anchor.part === "explanation" ? step.explanation : step.tex;
   const at = anchor.start ?? source.indexOf(anchor.text);
   if (at < 0 || source.slice(at, at + anchor.text.length) !== anchor.text) {
-    throw new HttpError(400, "unknown_anchor", `The highlighted text is not in this step's ${anchor.part}.`, { anchor: `not part of the step's ${anchor.part}` });
+    throw new Invalid("unknown_anchor", `The highlighted text is not in this step's ${anchor.part}.`, { fields: { anchor: `not part of the step's ${anchor.part}` } });
   }
   return { part: anchor.part, text: anchor.text, start: at };
 }
@@ -116,14 +116,14 @@ export async function addComment(
     .select({ title: revisionSteps.title, explanation: revisionSteps.explanation, tex: revisionSteps.tex })
     .from(revisionSteps)
     .where(and(eq(revisionSteps.revisionId, revision.id), eq(revisionSteps.stepKey, input.stepId)));
-  if (!step) throw new HttpError(400, "unknown_step", "This revision has no step with that id.", { stepId: "no such step in this revision" });
+  if (!step) throw new Invalid("unknown_step", "This revision has no step with that id.", { fields: { stepId: "no such step in this revision" } });
   let parentId: string | null = null;
-  if (input.parentId && input.anchor) throw new HttpError(400, "anchor_on_reply", "A reply belongs to its thread's anchor; only a new note takes one.", { anchor: "not on a reply" });
+  if (input.parentId && input.anchor) throw new Invalid("anchor_on_reply", "A reply belongs to its thread's anchor; only a new note takes one.", { fields: { anchor: "not on a reply" } });
   const anchor = input.anchor ? checkAnchor(input.anchor, step) : null;
   if (input.parentId) {
     const [parent] = await db.select().from(comments).where(and(eq(comments.id, input.parentId), eq(comments.revisionId, revision.id)));
-    if (!parent) throw new HttpError(400, "unknown_parent", "The comment you reply to is not on this revision.", { parentId: "no such comment" });
-    if (parent.stepKey !== input.stepId) throw new HttpError(400, "step_mismatch", "A reply belongs to the same step as its thread.", { stepId: "differs from the thread's step" });
+    if (!parent) throw new Invalid("unknown_parent", "The comment you reply to is not on this revision.", { fields: { parentId: "no such comment" } });
+    if (parent.stepKey !== input.stepId) throw new Invalid("step_mismatch", "A reply belongs to the same step as its thread.", { fields: { stepId: "differs from the thread's step" } });
     // Threads are one level deep: a reply to a reply joins the thread's first comment.
     parentId = parent.parentId ?? parent.id;
   }
@@ -176,12 +176,12 @@ export async function setThreadResolved(db: Database, networkId: string, number:
   const { revision, role } = await requireRevision(db, networkId, number, actor.id, "viewer");
   const [row] = await db.select().from(comments).where(and(eq(comments.id, commentId), eq(comments.revisionId, revision.id)));
   if (!row) throw notFound("That comment");
-  if (row.parentId !== null) throw new HttpError(400, "not_a_thread", "Resolve the thread through its first note, not a reply.");
+  if (row.parentId !== null) throw new Invalid("not_a_thread", "Resolve the thread through its first note, not a reply.");
   if (row.authorId !== actor.id && revision.createdBy !== actor.id && role !== "owner") {
     throw forbidden("Only the note's author, the revision's author or a team owner can resolve or reopen this thread.");
   }
-  if (resolved && row.resolvedAt) throw new HttpError(409, "already_resolved", "This thread is resolved already.");
-  if (!resolved && !row.resolvedAt) throw new HttpError(409, "not_resolved", "This thread is open already.");
+  if (resolved && row.resolvedAt) throw new Conflict("already_resolved", "This thread is resolved already.");
+  if (!resolved && !row.resolvedAt) throw new Conflict("not_resolved", "This thread is open already.");
   const now = new Date();
   await db
     .update(comments)

@@ -3,7 +3,7 @@ import { and, asc, desc, eq, inArray, max } from "drizzle-orm";
 import { config } from "../config.js";
 import type { Database } from "../db/client.js";
 import { networks, revisionSteps, revisions, users, type Role } from "../db/schema.js";
-import { notFound } from "../lib/errors.js";
+import { notFound } from "./errors.js";
 import { requireNetworkRole, type NetworkRow } from "./access.js";
 import type { Derivation, StepRecord } from "../solver/derive.js";
 import type { Diagnostic, Network } from "./engine.js";

@@ -2,7 +2,7 @@
 import { and, asc, eq, gt, isNull, or, sql } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { networks, revisions, shareLinks, teamMembers, users } from "../db/schema.js";
-import { HttpError, notFound } from "../lib/errors.js";
+import { Invalid, forbidden, notFound } from "./errors.js";
 import { hashToken, newToken } from "../lib/tokens.js";
 import { roleAtLeast } from "./access.js";
 import { requireRevision, revisionView } from "./revisions.js";
@@ -20,7 +20,7 @@ function status(row: Pick<ShareRow, "revokedAt" | "expiresAt">): "active" | "rev
 export async function createShare(services: Services, networkId: string, number: number, userId: string, expiresAt: Date | null) {
   const { revision } = await requireRevision(services.db, networkId, number, userId, "editor");
   if (expiresAt && expiresAt.getTime() <= Date.now()) {
-    throw new HttpError(400, "invalid_body", "The expiry must be in the future.", { expiresAt: "must be in the future" });
+    throw new Invalid("invalid_body", "The expiry must be in the future.", { fields: { expiresAt: "must be in the future" } });
   }
   const { token, hash } = newToken();
   const [row] = await services.db.insert(shareLinks).values({ revisionId: revision.id, tokenHash: hash, createdBy: userId, expiresAt }).returning();
@@ -69,7 +69,7 @@ export async function revokeShareByToken(db: Database, token: string, userId: st
     .innerJoin(teamMembers, and(eq(teamMembers.teamId, networks.teamId), eq(teamMembers.userId, userId)))
     .where(eq(shareLinks.tokenHash, hashToken(token)));
   if (!row) throw notFound("That share link");
-  if (!roleAtLeast(row.role, "editor")) throw new HttpError(403, "forbidden", "Your role in this team does not allow this.");
+  if (!roleAtLeast(row.role, "editor")) throw forbidden();
   await revoke(db, row.id);
 }
 

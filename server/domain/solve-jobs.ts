@@ -4,7 +4,7 @@ import { and, eq, inArray, lt, sql } from "drizzle-orm";
 import type { SolveSettings } from "../config.js";
 import type { Database } from "../db/client.js";
 import { networks, solveJobs, type SolveJobStatus } from "../db/schema.js";
-import { notFound } from "../lib/errors.js";
+import { notFound } from "./errors.js";
 import { requireNetworkRole } from "./access.js";
 import { permalink } from "./revisions.js";
 

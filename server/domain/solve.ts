@@ -3,7 +3,8 @@
 // the request's wait is answered as the job to poll.
 import { and, eq } from "drizzle-orm";
 import { revisions } from "../db/schema.js";
-import { HttpError } from "../lib/errors.js";
+import { failureRecord } from "../lib/errors.js";
+import { DomainError, TooMany, Unavailable, Unprocessable } from "./errors.js";
 import { breachMessage, resultBreach, sizeBreach, type CapBreach } from "../solver/caps.js";
 import { cachedDerivation, noteCacheHit, solveKey, storeDerivation } from "../solver/cache.js";
 import { deriveOutcome, type Derivation, type SolveOutcome } from "../solver/derive.js";
@@ -27,34 +28,29 @@ import {
 } from "./solve-jobs.js";
 import type { SolveJobData } from "./solve-queue.js";
 
-export function capExceeded(found: CapBreach): HttpError {
-  return new HttpError(422, "solve_cap_exceeded", breachMessage(found), undefined, undefined, { details: { cap: found } });
+export function capExceeded(found: CapBreach): Unprocessable {
+  return new Unprocessable("solve_cap_exceeded", breachMessage(found), { details: { cap: found } });
 }
 
-function illPosed(diagnostics: unknown[]): HttpError {
-  return new HttpError(422, "network_ill_posed", "The network cannot be solved as it stands; see the diagnostics.", undefined, diagnostics);
+function illPosed(diagnostics: unknown[]): DomainError {
+  return new Unprocessable("network_ill_posed", "The network cannot be solved as it stands; see the diagnostics.", { diagnostics });
 }
 
 const solverBusy = () =>
-  new HttpError(503, "solver_busy", "Every solver is busy and the solve queue is full (SOLVE_QUEUE_MAX); try again in a few seconds.", undefined, undefined, {
-    headers: { "Retry-After": "5" },
-  });
+  new Unavailable("solver_busy", "Every solver is busy and the solve queue is full (SOLVE_QUEUE_MAX); try again in a few seconds.", { retryAfter: 5 });
 
-function solveLimited(error: SolveLimitError): HttpError {
+function solveLimited(error: SolveLimitError): DomainError {
   const who = error.scope === "user" ? "You already have" : "Your team already has";
   const setting = error.scope === "user" ? "SOLVE_MAX_PER_USER" : "SOLVE_MAX_PER_TEAM";
-  return new HttpError(
-    429,
+  return new TooMany(
     "solve_limit",
     `${who} ${error.count} solves queued or running, the most allowed at once (${setting}); this one starts when you ask again after one of them finishes.`,
-    undefined,
-    undefined,
-    { details: { limit: { scope: error.scope, running: error.count, limit: error.limit, setting } }, headers: { "Retry-After": "10" } },
+    { details: { limit: { scope: error.scope, running: error.count, limit: error.limit, setting } }, retryAfter: 10 },
   );
 }
 
 const engineFailed = () =>
-  new HttpError(422, "engine_failed", "Portfold's engine could not solve this network: it failed on something in it. The failure is in the server's log; try changing the network.");
+  new Unprocessable("engine_failed", "Portfold's engine could not solve this network: it failed on something in it. The failure is in the server's log; try changing the network.");
 
 export function derivationOf(outcome: SolveOutcome): Derivation {
   if (outcome.kind === "ill_posed") throw illPosed(outcome.diagnostics);
@@ -68,23 +64,14 @@ export function derive(circuit: Network): Derivation {
   return derivationOf(deriveOutcome(circuit, {}, Number.POSITIVE_INFINITY));
 }
 
-export type SolveAnswer = { kind: "revision"; revision: RevisionView; cacheHit: boolean } | { kind: "job"; job: SolveJobView };
+// "failed": the job's record of the answer the request would have had (status, code, message…).
+export type SolveAnswer =
+  | { kind: "revision"; revision: RevisionView; cacheHit: boolean }
+  | { kind: "job"; job: SolveJobView }
+  | { kind: "failed"; error: Record<string, unknown> | null };
 
 const noQueue = () =>
-  new HttpError(503, "solver_unavailable", "This server has no solve queue right now; try again in a few seconds.", undefined, undefined, { headers: { "Retry-After": "5" } });
-
-// What a failed job kept is the answer the request would have had.
-function storedError(error: unknown): HttpError {
-  const { status, code, message, fields, diagnostics, ...details } = (error ?? {}) as Record<string, unknown>;
-  return new HttpError(
-    typeof status === "number" ? status : 500,
-    typeof code === "string" ? code : "internal",
-    typeof message === "string" ? message : "The solve failed on the server.",
-    fields as Record<string, string> | undefined,
-    diagnostics as unknown[] | undefined,
-    { details },
-  );
-}
+  new Unavailable("solver_unavailable", "This server has no solve queue right now; try again in a few seconds.", { retryAfter: 5 });
 
 async function revisionAnswer(db: Services["db"], network: Parameters<typeof revisionView>[1], number: number, cacheHit: boolean): Promise<SolveAnswer> {
   const [revision] = await db.select().from(revisions).where(and(eq(revisions.networkId, network.id), eq(revisions.number, number)));
@@ -134,14 +121,14 @@ export async function solve(services: Services, networkId: string, userId: strin
     await solveQueue.send({ jobId: job.id, networkId: network.id, userId, teamId: network.teamId, circuit, options, key }, admission.priority);
   } catch (error) {
     services.log.error({ err: error, networkId: network.id }, "solve not queued");
-    await finishSolveJob(db, job.id, { error: { status: 503, ...noQueue().body() } }).catch(() => undefined);
+    await finishSolveJob(db, job.id, { error: failureRecord(noQueue())! }).catch(() => undefined);
     throw noQueue();
   }
   // wait 0: the client wants the job at once, to show queued → solving → done itself.
   const done = waitMs <= 0 ? null : await solveQueue.waitFor(job.id, waitMs);
   if (!done) return { kind: "job", job: solveJobView((await readSolveJob(db, job.id)) ?? job, network.slug) };
   await forgetSolveJob(db, job.id);
-  if (done.status === "failed") throw storedError(done.error);
+  if (done.status === "failed") return { kind: "failed", error: done.error as Record<string, unknown> | null };
   return revisionAnswer(db, network, done.revisionNumber!, done.cacheHit ?? false);
 }
 
@@ -176,8 +163,9 @@ export async function runSolveJob(services: WorkerServices, data: SolveJobData):
     const revision = await storeRevision(db, data.networkId, data.userId, derivation);
     await finishSolveJob(db, data.jobId, { revisionNumber: revision.number, cacheHit: cached !== null });
   } catch (error) {
-    if (!(error instanceof HttpError)) log.error({ err: error, networkId: data.networkId }, "a solve job failed on the server");
-    const body = error instanceof HttpError ? { status: error.status, ...error.body() } : { status: 500, code: "internal", message: "The solve failed on the server." };
+    const record = failureRecord(error);
+    if (!record) log.error({ err: error, networkId: data.networkId }, "a solve job failed on the server");
+    const body = record ?? { status: 500, code: "internal", message: "The solve failed on the server." };
     await finishSolveJob(db, data.jobId, { error: body }).catch((lost: unknown) => log.error({ err: lost }, "a solve job's end was not recorded"));
   }
 }

@@ -2,7 +2,7 @@
 import { and, asc, count, eq, gt, isNull, sql } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { invitations, teamMembers, teams, users, type Role } from "../db/schema.js";
-import { HttpError, notFound } from "../lib/errors.js";
+import { Conflict, Forbidden, notFound } from "./errors.js";
 import { hashToken, newToken } from "../lib/tokens.js";
 import { invitationMail } from "../mail/templates.js";
 import { requireTeamRole } from "./access.js";
@@ -64,7 +64,7 @@ export async function updateTeam(db: Database, teamId: string, userId: string, c
 }
 
 // A personal team belongs to one person for good: it cannot be left, given away or get another owner.
-const personalTeam = (message: string) => new HttpError(409, "personal_team", message);
+const personalTeam = (message: string) => new Conflict("personal_team", message);
 
 async function personalHolder(db: Database, teamId: string): Promise<string | null> {
   const [team] = await db.select({ personalUserId: teams.personalUserId }).from(teams).where(eq(teams.id, teamId));
@@ -80,11 +80,11 @@ function checkPersonalRole(holder: string | null, memberId: string | null, role:
 export async function deleteTeam(db: Database, teamId: string, userId: string): Promise<void> {
   await requireTeamRole(db, teamId, userId, "owner");
   const [team] = await db.select({ personalUserId: teams.personalUserId }).from(teams).where(eq(teams.id, teamId));
-  if (team.personalUserId) throw new HttpError(409, "personal_team", "A personal team cannot be deleted.");
+  if (team.personalUserId) throw new Conflict("personal_team", "A personal team cannot be deleted.");
   await db.delete(teams).where(eq(teams.id, teamId));
 }
 
-const lastOwner = () => new HttpError(409, "last_owner", "A team keeps at least one owner; make someone else owner first.");
+const lastOwner = () => new Conflict("last_owner", "A team keeps at least one owner; make someone else owner first.");
 
 /**
  * Membership changes of one team run one at a time: the team row is locked for update, then the
@@ -149,13 +149,13 @@ export async function inviteMember(services: Services, teamId: string, inviter: 
   const { db } = services;
   await requireTeamRole(db, teamId, inviter.id, "owner");
   // Mail to other people only from a confirmed address, so sign-ups cannot be used to send spam.
-  if (!inviter.emailVerified) throw new HttpError(403, "email_unverified", "Confirm your own e-mail address before inviting others.");
+  if (!inviter.emailVerified) throw new Forbidden("email_unverified", "Confirm your own e-mail address before inviting others.");
   const [existing] = await db
     .select({ id: users.id })
     .from(teamMembers)
     .innerJoin(users, eq(users.id, teamMembers.userId))
     .where(and(eq(teamMembers.teamId, teamId), eq(users.email, email)));
-  if (existing) throw new HttpError(409, "already_member", "This address already belongs to a member of the team.", { email: "already a member" });
+  if (existing) throw new Conflict("already_member", "This address already belongs to a member of the team.", { fields: { email: "already a member" } });
   checkPersonalRole(await personalHolder(db, teamId), null, role);
   const [team] = await db.select({ name: teams.name }).from(teams).where(eq(teams.id, teamId));
   const { token, hash } = newToken();
@@ -220,8 +220,7 @@ export async function acceptInvitation(db: Database, token: string, user: Public
       .returning();
     if (!invitation) throw notFound("That invitation");
     if (invitation.email.toLowerCase() !== user.email.toLowerCase() || !user.emailVerified) {
-      throw new HttpError(
-        403,
+      throw new Forbidden(
         "invitation_address",
         invitation.email.toLowerCase() !== user.email.toLowerCase()
           ? `This invitation is for ${invitation.email}. Sign in with that address to accept it; you are signed in as ${user.email}.`
@@ -233,7 +232,7 @@ export async function acceptInvitation(db: Database, token: string, user: Public
       .values({ teamId: invitation.teamId, userId, role: invitation.role })
       .onConflictDoNothing()
       .returning({ role: teamMembers.role });
-    if (joined.length === 0) throw new HttpError(409, "already_member", "You are already a member of this team.");
+    if (joined.length === 0) throw new Conflict("already_member", "You are already a member of this team.");
     const [team] = await tx.select().from(teams).where(eq(teams.id, invitation.teamId));
     return { id: team.id, name: team.name, role: invitation.role, personal: false };
   });

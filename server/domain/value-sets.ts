@@ -2,7 +2,7 @@
 import { and, asc, eq } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { valueSets } from "../db/schema.js";
-import { HttpError, notFound } from "../lib/errors.js";
+import { Conflict, notFound } from "./errors.js";
 import { requireNetworkRole } from "./access.js";
 
 export interface ValueSetView {
@@ -36,7 +36,7 @@ export async function saveValueSet(db: Database, networkId: string, userId: stri
     .values({ networkId, name: input.name, values: input.values, createdBy: userId })
     .onConflictDoUpdate({ target: [valueSets.networkId, valueSets.name], set: { values: input.values, updatedAt: new Date() } })
     .returning();
-  if (!row) throw new HttpError(409, "conflict", "The value set could not be saved.");
+  if (!row) throw new Conflict("conflict", "The value set could not be saved.");
   return view(row);
 }
 

@@ -3,7 +3,7 @@
 import { and, desc, eq, inArray, lt, sql, type SQL } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { revisionVerdicts, revisions, teams, users, type Role, type Verdict } from "../db/schema.js";
-import { HttpError, forbidden } from "../lib/errors.js";
+import { Conflict, Forbidden, Invalid, NotFound, forbidden } from "./errors.js";
 import { verdictMail } from "../mail/templates.js";
 import type { PublicUser } from "./accounts.js";
 import { mailPeople } from "./review-mail.js";
@@ -161,7 +161,7 @@ export async function listVerdicts(db: Database, networkId: string, number: numb
 }
 
 const selfApproval = () =>
-  new HttpError(403, "self_approval", "You solved this revision, so you cannot approve it; another reviewer of the team has to.");
+  new Forbidden("self_approval", "You solved this revision, so you cannot approve it; another reviewer of the team has to.");
 
 // Revision author and network author hear of every verdict, unless they gave it or turned review mail off.
 async function mailVerdict(services: Services, context: Awaited<ReturnType<typeof requireRevision>>, actor: PublicUser, entry: VerdictEntry, state: RevisionState) {
@@ -187,7 +187,7 @@ export async function giveVerdict(services: Services, networkId: string, number:
   if (input.verdict === "approved" && revision.createdBy === actor.id) throw selfApproval();
   const note = input.note?.trim() || null;
   if (input.verdict === "needs_changes" && !note)
-    throw new HttpError(400, "note_required", "Say what has to change: a change request needs a note.", { note: "required when requesting changes" });
+    throw new Invalid("note_required", "Say what has to change: a change request needs a note.", { fields: { note: "required when requesting changes" } });
   await db.insert(revisionVerdicts).values({ revisionId: revision.id, verdict: input.verdict, userId: actor.id, role, note });
   const result = await listVerdicts(db, networkId, number, actor.id);
   await mailVerdict(services, context, actor, result.verdicts[0], result.state);
@@ -202,9 +202,9 @@ export async function withdrawVerdict(services: Services, networkId: string, num
   const mine = standing(history).find((row) => row.userId === actor.id) ?? null;
   if (verdictId !== null) {
     const target = history.find((row) => row.id === verdictId && row.verdict !== "open");
-    if (!target) throw new HttpError(404, "not_found", "That verdict was not found on this revision.");
+    if (!target) throw new NotFound("not_found", "That verdict was not found on this revision.");
     if (target.userId !== actor.id) throw forbidden("Only the person who gave a verdict can withdraw it.");
-    if (mine?.id !== target.id) throw new HttpError(409, "verdict_not_standing", "That verdict was already withdrawn or replaced by a later one.");
+    if (mine?.id !== target.id) throw new Conflict("verdict_not_standing", "That verdict was already withdrawn or replaced by a later one.");
   }
   if (!mine) return null;
   await db.insert(revisionVerdicts).values({ revisionId: context.revision.id, verdict: "open", userId: actor.id, role: context.role, withdrawsId: mine.id });

@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
+import { DomainError, Unauthenticated, type DomainErrorKind } from "../domain/errors.js";
 
 const quotedMax = 40;
 const messageMax = 300;
@@ -57,8 +58,46 @@ export class HttpError extends Error {
   }
 }
 
-export const notFound = (what = "That") => new HttpError(404, "not_found", `${what} was not found.`);
-export const forbidden = (message = "Your role in this team does not allow this.") => new HttpError(403, "forbidden", message);
+const statusOfKind: Record<DomainErrorKind, number> = {
+  invalid: 400,
+  unauthenticated: 401,
+  invalid_credentials: 401,
+  forbidden: 403,
+  not_found: 404,
+  conflict: 409,
+  unsupported_type: 415,
+  unprocessable: 422,
+  too_many: 429,
+  unavailable: 503,
+};
+
+/** The HTTP answer to a domain refusal: its kind's status, its parts in the body, Retry-After and WWW-Authenticate. */
+export function httpErrorOf(error: DomainError): HttpError {
+  const { fields, diagnostics, details, retryAfter } = error.parts;
+  const headers: Record<string, string> = {};
+  if (retryAfter !== undefined) headers["Retry-After"] = String(retryAfter);
+  if (error instanceof Unauthenticated && error.bearer) headers["WWW-Authenticate"] = `Bearer error="${error.code}"`;
+  return new HttpError(statusOfKind[error.kind], error.code, error.message, fields, diagnostics, { details, headers });
+}
+
+/** What a failed solve job keeps: the status and error the request would have had; null for a fault of the server. */
+export function failureRecord(error: unknown): Record<string, unknown> | null {
+  const http = error instanceof DomainError ? httpErrorOf(error) : error instanceof HttpError ? error : null;
+  return http && { status: http.status, ...http.body() };
+}
+
+/** The answer a failed solve job's record stands for. */
+export function recordedFailure(record: unknown): HttpError {
+  const { status, code, message, fields, diagnostics, ...details } = (record ?? {}) as Record<string, unknown>;
+  return new HttpError(
+    typeof status === "number" ? status : 500,
+    typeof code === "string" ? code : "internal",
+    typeof message === "string" ? message : "The solve failed on the server.",
+    fields as Record<string, string> | undefined,
+    diagnostics as unknown[] | undefined,
+    { details },
+  );
+}
 
 export const notFoundApi: RequestHandler = (req, _res, next) => {
   next(new HttpError(404, "not_found", `No API route ${req.method} ${req.path}`));
@@ -84,9 +123,10 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
     res.end();
     return;
   }
-  if (error instanceof HttpError) {
-    res.set(error.extra.headers ?? {});
-    res.status(error.status).json({ error: error.body() });
+  const answer = error instanceof DomainError ? httpErrorOf(error) : error;
+  if (answer instanceof HttpError) {
+    res.set(answer.extra.headers ?? {});
+    res.status(answer.status).json({ error: answer.body() });
     return;
   }
   const status = typeof error?.status === "number" ? error.status : 500;

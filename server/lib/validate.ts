@@ -1,5 +1,6 @@
 import { z } from "zod";
-import { HttpError, notFound } from "./errors.js";
+import { notFound } from "../domain/errors.js";
+import { HttpError } from "./errors.js";
 
 // zod at the edge: a body that does not fit is a 400 with one message per field.
 export function parseBody<T extends z.ZodType>(schema: T, body: unknown): z.output<T> {

@@ -3,7 +3,7 @@ import { createCellRequest as createBody } from "../../shared/api/cells.js";
 import { signedInUser } from "../auth/session.js";
 import { createCell, deleteCell, listCells } from "../domain/cells.js";
 import type { Services } from "../domain/services.js";
-import { notFound } from "../lib/errors.js";
+import { notFound } from "../domain/errors.js";
 import { idParam, parseBody } from "../lib/validate.js";
 
 // A cell id as the engine spells it: letters, digits, underscore and hyphen.

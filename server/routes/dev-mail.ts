@@ -4,7 +4,7 @@ import { mailQuery } from "../../shared/api/dev-mail.js";
 import { onLoopback } from "../auth/hosts.js";
 import { capturedMail } from "../domain/mailbox.js";
 import type { Services } from "../domain/services.js";
-import { notFound } from "../lib/errors.js";
+import { notFound } from "../domain/errors.js";
 import { mailQueueReport } from "../mail/queue.js";
 import { escapeHtml } from "../lib/html.js";
 import { parseQuery } from "../lib/validate.js";

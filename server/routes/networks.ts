@@ -20,7 +20,7 @@ import {
 } from "../domain/networks.js";
 import { readCircuitAndText } from "../domain/reading.js";
 import type { Services } from "../domain/services.js";
-import { notFound } from "../lib/errors.js";
+import { notFound } from "../domain/errors.js";
 import { readUpload } from "../lib/uploads.js";
 import { idParam, parseBody, parseQuery } from "../lib/validate.js";
 

@@ -6,6 +6,7 @@ import { getRevision, listRevisions } from "../domain/revisions.js";
 import type { Services } from "../domain/services.js";
 import { getSolveJob } from "../domain/solve-jobs.js";
 import { solve } from "../domain/solve.js";
+import { recordedFailure } from "../lib/errors.js";
 import { sendRevisionJson } from "../lib/json-stream.js";
 import { idParam, parseQuery, revisionNumberParam } from "../lib/validate.js";
 
@@ -19,6 +20,7 @@ export function revisionsRouter(services: Services): Router {
     const networkId = idParam(req.params.networkId, "That network");
     const { wait } = parseQuery(solveQuery, req.query);
     const answer = await solve(services, networkId, user.id, Math.min(wait ?? services.settings.solve.waitMs, services.settings.solve.waitMs));
+    if (answer.kind === "failed") throw recordedFailure(answer.error);
     if (answer.kind === "job") {
       res.status(202).location(answer.job.poll).json({ job: answer.job });
       return;

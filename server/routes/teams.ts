@@ -15,7 +15,7 @@ import {
   teamDetail,
   updateTeam,
 } from "../domain/teams.js";
-import { notFound } from "../lib/errors.js";
+import { notFound } from "../domain/errors.js";
 import { idParam, parseBody, tokenParam } from "../lib/validate.js";
 
 // A member id is a user id: lucia's base32 ids or the seed's readable ones.
