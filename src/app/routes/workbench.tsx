@@ -147,7 +147,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
               ) : (
                 "Not solved yet"
               )}
-              {network.author ? ` · network by ${network.author}` : ""} · your role: {role}
+              {network.author ? ` · network by ${network.author.name}` : ""} · your role: {role}
             </p>
           </NetworkHeading>
           {k && revision.data && <ReviewPanel revision={revision.data} member canReview={canReview} currentUserId={me.user.id} />}
