@@ -8,6 +8,10 @@ export const verdicts = ["open", "approved", "needs_changes"] as const;
 export type Verdict = (typeof verdicts)[number];
 
 export const isoTime = z.iso.datetime({ offset: true });
+
+// A JSON value whose shape the engine owns and judges (a circuit, a solve's results, diagnostics): checked here as the
+// schema given, typed as the engine's own type for whoever reads it.
+export const engineShaped = <T>(schema: z.ZodType) => schema as unknown as z.ZodType<T>;
 export const person = z.object({ id: z.string(), name: z.string() }).meta({ id: "Person" });
 
 // C0/C1 controls and the bidirectional overrides and isolates, which can make a name read as something else.

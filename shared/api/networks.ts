@@ -1,6 +1,7 @@
 // Networks: a team's circuits in the engine's JSON format.
 import { z } from "zod";
-import { isoTime, nameText, person, plainText, roles, verdicts } from "./common.js";
+import type { NetworkInput } from "../engine/types.js";
+import { engineShaped, isoTime, nameText, person, plainText, roles, verdicts } from "./common.js";
 
 export const networkSorts = ["title", "author", "lastRevision", "verdict", "updatedAt", "createdAt"] as const;
 
@@ -42,7 +43,7 @@ export const network = z
     slug: z.string(),
     title: z.string(),
     description: z.string(),
-    circuit: z.record(z.string(), z.unknown()),
+    circuit: engineShaped<NetworkInput>(z.record(z.string(), z.unknown())),
     // The netlist text as typed; null for a network made from JSON.
     netlist: z.string().nullable(),
     port: z.unknown(),

@@ -1,6 +1,13 @@
 // Derivation revisions: immutable solves of a network, the solve jobs that outlast a request, and comparisons.
 import { z } from "zod";
-import { isoTime, person, revisionState } from "./common.js";
+import type { Diagnostic, NetworkInput, SolveChecks, SolveResult } from "../engine/types.js";
+import { engineShaped, isoTime, person, revisionState } from "./common.js";
+
+// What a revision keeps of the engine's solve (server/solver/derive.ts): everything but the network, steps and diagnostics,
+// which it holds beside. Revisions solved before each check said what it did have no check details.
+export type RevisionResults = Omit<SolveResult, "network" | "steps" | "diagnostics" | "checks"> & {
+  checks: Omit<SolveChecks, "details"> & { details?: SolveChecks["details"] };
+};
 
 // How long the request may wait for the solve, in ms; never longer than SOLVE_WAIT_MS.
 export const solveQuery = z.object({ wait: z.coerce.number().int().min(0).max(3_600_000).optional() });
@@ -16,10 +23,10 @@ export const revision = z
     number: z.number().int(),
     permalink: z.string(),
     network: z.object({ id: z.uuid(), slug: z.string(), title: z.string() }),
-    circuit: z.record(z.string(), z.unknown()),
+    circuit: engineShaped<NetworkInput>(z.record(z.string(), z.unknown())),
     // The engine's results in every form (vth, isc, rth: infix, tex, terms...).
-    results: z.record(z.string(), z.unknown()),
-    diagnostics: z.array(z.unknown()),
+    results: engineShaped<RevisionResults>(z.record(z.string(), z.unknown())),
+    diagnostics: engineShaped<Diagnostic[]>(z.array(z.unknown())),
     steps: z.array(step),
     verdict: revisionState,
     // The latest earlier revision that reads as approved, which this one is compared with.

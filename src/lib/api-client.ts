@@ -1,5 +1,5 @@
 // The one API client: JSON in and out, the server's error shape turned into ApiError.
-import type { Diagnostic } from "@/types/api";
+import type { Diagnostic } from "@/lib/api-contract";
 
 export class ApiError extends Error {
   constructor(

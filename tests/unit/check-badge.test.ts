@@ -4,28 +4,22 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { MemoryRouter } from "react-router-dom";
 import { describe, expect, it } from "vitest";
-import { normaliseRevision } from "../../src/features/derivations/api/normalise-revision";
 import { CheckBadge } from "../../src/features/derivations/components/check-badge";
-import type { CheckDetail, CheckMark, Results } from "../../src/types/api";
+import type { CheckDetail, CheckMark, RevisionResults } from "../../src/lib/api-contract";
 
 const MARKS: CheckMark[] = ["testSource", "vocIsc", "numeric", "exactPoint"];
 
-function resultsWith(agree: Record<CheckMark, boolean | null>): Results {
+// Only what the badge reads of a solve's results.
+function resultsWith(agree: Record<CheckMark, boolean | null>, details = true): RevisionResults {
   const detail = (k: CheckMark): CheckDetail => ({ agree: agree[k], method: `method of ${k}.`, outcome: `outcome of ${k}.`, points: 3, relativeError: null });
   return {
-    vth: null,
-    isc: null,
-    rth: null,
-    rthFromVocIsc: null,
     agree: null,
-    statements: [],
-    checks: { ...agree, details: Object.fromEntries(MARKS.map((k) => [k, detail(k)])) as Record<CheckMark, CheckDetail> },
-    quantities: {},
-    dimensionChecks: {},
-  };
+    numericCheck: null,
+    checks: { ...agree, ...(details ? { details: Object.fromEntries(MARKS.map((k) => [k, detail(k)])) as Record<CheckMark, CheckDetail> } : {}) },
+  } as Partial<RevisionResults> as RevisionResults;
 }
 
-const render = (results: Results) => renderToStaticMarkup(createElement(MemoryRouter, null, createElement(CheckBadge, { results })));
+const render = (results: RevisionResults) => renderToStaticMarkup(createElement(MemoryRouter, null, createElement(CheckBadge, { results })));
 
 describe("check badge", () => {
   it.each(MARKS)("a planted failure of %s shows ✗ on that mark alone, with its outcome", (failing) => {
@@ -37,9 +31,9 @@ describe("check badge", () => {
   });
 
   it("an older revision without details shows its test-source mark as not run, never ✓", () => {
-    const revision = normaliseRevision({ results: { rth: "R", checks: { testSource: true, vocIsc: true, numeric: true } } } as never);
-    expect(revision.results.checks).toMatchObject({ testSource: null, vocIsc: true, numeric: true, exactPoint: null, details: null });
-    const states = [...render(revision.results).matchAll(/data-mark-state="(\w+)"/g)].map((m) => m[1]);
+    // As such a revision was stored: three marks, no exact-point mark, no details.
+    const older = resultsWith({ testSource: true, vocIsc: true, numeric: true } as Record<CheckMark, boolean>, false);
+    const states = [...render(older).matchAll(/data-mark-state="(\w+)"/g)].map((m) => m[1]);
     expect(states).toEqual(["none", "true", "true", "none"]);
   });
 });

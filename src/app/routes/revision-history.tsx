@@ -10,8 +10,9 @@ import { circuitDifferences, resultChanged } from "@/features/history/lib/compar
 import { Schematic } from "@/features/network-editor/components/schematic";
 import { useNetwork } from "@/features/networks/api/get-network";
 import { VerdictMark } from "@/features/review/components/verdict-mark";
+import { compactTex } from "@/features/derivations/lib/printed-forms";
 import { printElementLine, type EngineNetwork } from "@/lib/engine-netlist";
-import type { Revision } from "@/types/api";
+import type { Revision } from "@/lib/api-contract";
 
 const RESULTS = [
   ["vth", "V_{\\mathrm{th}}"],
@@ -22,9 +23,9 @@ const RESULTS = [
 function RevisionSide({ revision, other }: { revision: Revision; other: Revision }) {
   return (
     <div className="min-w-0">
-      <h3 className="text-sm font-semibold">Revision {revision.k}</h3>
+      <h3 className="text-sm font-semibold">Revision {revision.number}</h3>
       <p className="text-xs text-ink/60">
-        {revision.author ?? ""} {revision.createdAt ? `· ${new Date(revision.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""}
+        {revision.createdBy?.name ?? ""} {revision.createdAt ? `· ${new Date(revision.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""}
       </p>
       <div className="mt-2 rounded border border-rule bg-white/40 p-1">
         <Schematic network={{ ground: "0", ...revision.circuit } as EngineNetwork} />
@@ -33,7 +34,7 @@ function RevisionSide({ revision, other }: { revision: Revision; other: Revision
         {RESULTS.map(([name, tex]) => (
           <div key={name} className={resultChanged(revision, other, name) ? "border-l-2 border-copper pl-2" : "pl-2.5"}>
             <dt className="sr-only">{name}</dt>
-            <dd className="overflow-x-auto">{revision.results[name] ? <MathTex tex={`${tex} = ${revision.results[name]!.compactTex}`} /> : <span className="text-ink/50">none</span>}</dd>
+            <dd className="overflow-x-auto">{revision.results[name] ? <MathTex tex={`${tex} = ${compactTex(revision.results[name]!)}`} /> : <span className="text-ink/50">none</span>}</dd>
           </div>
         ))}
       </dl>
@@ -135,19 +136,19 @@ export function RevisionHistoryRoute() {
                   </thead>
                   <tbody>
                     {revisions.data.map((r) => (
-                      <tr key={r.k} className="border-b border-rule">
+                      <tr key={r.number} className="border-b border-rule">
                         <td className="py-1">
-                          <input type="checkbox" aria-label={`Compare revision ${r.k}`} checked={picked.includes(r.k)} onChange={() => toggle(r.k)} className="accent-copper" />
+                          <input type="checkbox" aria-label={`Compare revision ${r.number}`} checked={picked.includes(r.number)} onChange={() => toggle(r.number)} className="accent-copper" />
                         </td>
                         <td className="py-1">
-                          <Link to={`/networks/${networkId}/r/${r.k}`} className="font-medium hover:text-copper">
-                            revision {r.k}
+                          <Link to={`/networks/${networkId}/r/${r.number}`} className="font-medium hover:text-copper">
+                            revision {r.number}
                           </Link>
                         </td>
                         <td className="py-1 text-xs text-ink/70">{r.createdAt ? new Date(r.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : ""}</td>
-                        <td className="py-1 text-xs">{r.author ?? "—"}</td>
+                        <td className="py-1 text-xs">{r.createdBy?.name ?? "—"}</td>
                         <td className="py-1 text-xs">
-                          <VerdictMark verdict={r.verdict} />
+                          <VerdictMark verdict={r.verdict.verdict} />
                         </td>
                         <td className="max-w-xs truncate py-1 font-mono text-xs" title={r.summary.rth ?? undefined}>
                           {r.summary.rth ?? "—"}

@@ -21,15 +21,16 @@ export function SharedViewRoute() {
   const { token = "" } = useParams();
   const shared = useSharedRevision(token);
   const me = useMe();
-  const revision = shared.data;
+  const revision = shared.data?.revision;
+  const valueSets = shared.data?.valueSets ?? [];
   // Membership is the server's to decide: reading the network succeeds only for members.
   const network = useNetwork(me.data && revision ? revision.networkId : "");
   const member = Boolean(me.data && network.data);
   const role = network.data?.role ?? null;
   const canReview = role === "owner" || role === "editor" || role === "reviewer";
-  const comments = useComments(revision?.networkId ?? "", revision?.k ?? 0, member);
+  const comments = useComments(revision?.networkId ?? "", revision?.number ?? 0, member);
   // Members read the revision as the team sees it too: with its count of open notes.
-  const memberRevision = useRevision(member ? (revision?.networkId ?? "") : "", member ? (revision?.k ?? null) : null);
+  const memberRevision = useRevision(member ? (revision?.networkId ?? "") : "", member ? (revision?.number ?? null) : null);
   const here = `/s/${token}`;
 
   if (shared.isLoading) return <LoadingState label="Opening the shared revision…" />;
@@ -62,17 +63,17 @@ export function SharedViewRoute() {
       <div className="flex flex-wrap items-end justify-between gap-3 border-b border-rule pb-3">
         <div className="min-w-0 flex-1 basis-72">
           <p className="text-xs text-ink/60">Shared revision · read-only</p>
-          <h1 className="break-words text-2xl font-semibold tracking-tight">{revision.title}</h1>
+          <h1 className="break-words text-2xl font-semibold tracking-tight">{revision.network.title}</h1>
           <p className="mt-0.5 text-xs text-ink/70">
-            Derivation revision {revision.k}
-            {revision.author ? ` · solved by ${revision.author}` : ""}
+            Derivation revision {revision.number}
+            {revision.createdBy ? ` · solved by ${revision.createdBy.name}` : ""}
             {revision.createdAt ? ` · ${shortDateTime(revision.createdAt)}` : ""}
           </p>
           <ReviewPanel revision={memberRevision.data ?? revision} member={member} canReview={canReview} currentUserId={me.data?.user.id ?? null} />
         </div>
         <div className="flex flex-wrap items-center gap-2 print:hidden">
           {member && (
-            <Link to={`/networks/${revision.networkId}/r/${revision.k}`} className="rounded border border-rule px-3 py-1.5 text-sm hover:border-ink/40">
+            <Link to={`/networks/${revision.networkId}/r/${revision.number}`} className="rounded border border-rule px-3 py-1.5 text-sm hover:border-ink/40">
               Open in the workbench
             </Link>
           )}
@@ -81,7 +82,7 @@ export function SharedViewRoute() {
               Sign in to comment
             </Link>
           )}
-          <ExportMenu revision={revision} valueSets={revision.valueSets} />
+          <ExportMenu revision={revision} valueSets={valueSets} />
         </div>
       </div>
       <div className="mt-3">
@@ -105,11 +106,11 @@ export function SharedViewRoute() {
             Ledger
           </h2>
           <div className="mt-2">
-            <Ledger revision={revision} comments={comments.data ?? []} review={{ networkId: revision.networkId, k: revision.k, canComment: member && canReview, currentUserId: me.data?.user.id ?? null, revisionAuthorId: revision.authorId, isOwner: role === "owner", commentPath }} />
+            <Ledger revision={revision} comments={comments.data ?? []} review={{ networkId: revision.networkId, k: revision.number, canComment: member && canReview, currentUserId: me.data?.user.id ?? null, revisionAuthorId: revision.createdBy?.id ?? null, isOwner: role === "owner", commentPath }} />
           </div>
         </section>
         <section aria-label="Values, Limits and Sweep" className="min-w-0">
-          <AnalysisColumn results={revision.results} circuit={revision.circuit} valueSets={revision.valueSets} />
+          <AnalysisColumn results={revision.results} circuit={revision.circuit} valueSets={valueSets} />
         </section>
       </div>
     </div>

@@ -26,7 +26,7 @@ import { useUpdateNetwork, type UpdateNetworkInput } from "@/features/networks/a
 import { useComments } from "@/features/review/api/get-comments";
 import { ReviewPanel } from "@/features/review/components/review-panel";
 import { ShareDialog } from "@/features/sharing/components/share-dialog";
-import type { Me, Network } from "@/types/api";
+import type { Me, Network } from "@/lib/api-contract";
 
 // The text the network is edited as: what was typed, or the printed form of a network made from JSON.
 const textOf = (network: Network) => network.netlist ?? netlistOf(network.circuit);
@@ -92,7 +92,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
     try {
       if (dirty && !(await save())) return;
       const created = await solve.mutateAsync({ networkId: network.id, onProgress: setSolveProgress });
-      navigate(`/networks/${network.id}/r/${created.k}`);
+      navigate(`/networks/${network.id}/r/${created.number}`);
     } catch {
       // The error is shown beside the netlist and on the result card by the mutation's state.
     }
@@ -133,7 +133,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
                 <>
                   Derivation revision {k}
                   {latest && latest !== k ? ` of ${latest}` : ""}
-                  {revision.data?.author ? ` · solved by ${revision.data.author}` : ""}
+                  {revision.data?.createdBy ? ` · solved by ${revision.data.createdBy.name}` : ""}
                   {revision.data?.createdAt ? ` · ${new Date(revision.data.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""}
                   {revision.data?.permalink && (
                     <>
@@ -147,7 +147,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
               ) : (
                 "Not solved yet"
               )}
-              {network.author ? ` · network by ${network.author}` : ""} · your role: {role}
+              {network.author ? ` · network by ${network.author.name}` : ""} · your role: {role}
             </p>
           </NetworkHeading>
           {k && revision.data && <ReviewPanel revision={revision.data} member canReview={canReview} currentUserId={me.user.id} />}
@@ -218,14 +218,14 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
               <Ledger
                 revision={revision.data}
                 comments={comments.data ?? []}
-                review={{ networkId: network.id, k: revision.data.k, canComment: canReview, currentUserId: me.user.id, revisionAuthorId: revision.data.authorId, isOwner: role === "owner" }}
+                review={{ networkId: network.id, k: revision.data.number, canComment: canReview, currentUserId: me.user.id, revisionAuthorId: revision.data.createdBy?.id ?? null, isOwner: role === "owner" }}
               />
             ) : null}
           </div>
         </section>
         <section aria-label="Values, Limits and Sweep" className="min-w-0">
           {revision.data ? (
-            <AnalysisColumn key={`${network.id}-${revision.data.k}`} results={revision.data.results} circuit={revision.data.circuit} networkId={network.id} canSaveValues={canEdit} />
+            <AnalysisColumn key={`${network.id}-${revision.data.number}`} results={revision.data.results} circuit={revision.data.circuit} networkId={network.id} canSaveValues={canEdit} />
           ) : (
             <p className="text-sm text-ink/60 print:hidden">Values, Limits and Sweep work on a solved revision.</p>
           )}

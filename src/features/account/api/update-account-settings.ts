@@ -1,9 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { AccountSettings } from "@/types/api";
+import type { SettingsAnswer, SettingsRequest } from "@/lib/api-contract";
 
-export function updateAccountSettings(settings: AccountSettings) {
-  return api<{ settings: AccountSettings }>("/me/settings", { method: "PATCH", json: settings });
+export function updateAccountSettings(settings: SettingsRequest) {
+  return api<SettingsAnswer>("/me/settings", { method: "PATCH", json: settings });
 }
 
 export function useUpdateAccountSettings() {

@@ -5,7 +5,7 @@ import { EmptyState, ErrorState, InlineError, LoadingState } from "@/components/
 import { ApiError } from "@/lib/api-client";
 import type { CreatedToken, TokenScope } from "@/lib/api-contract";
 import { shortDateTime } from "@/lib/dates";
-import type { Me } from "@/types/api";
+import type { Me } from "@/lib/api-contract";
 import { useCreateApiToken } from "../api/create-api-token";
 import { useApiTokens } from "../api/get-api-tokens";
 import { useRevokeApiToken } from "../api/revoke-api-token";

@@ -1,6 +1,6 @@
 import { useMemo, useState, type ReactNode } from "react";
 import { Caution } from "@/components/ui/caution";
-import type { Circuit, Results, ValueSet } from "@/types/api";
+import type { Circuit, RevisionResults, ValueSet } from "@/lib/api-contract";
 import { useValueSets } from "@/features/value-sets/api/get-value-sets";
 import { ValueSetsBar } from "@/features/value-sets/components/value-sets-bar";
 import { readExactResults, symbolsOf } from "../lib/exact-results";
@@ -23,20 +23,21 @@ function Panel({ title, children }: { title: string; children: ReactNode }) {
 }
 
 // The narrow right column: Values, Limits and Sweep, all computed in the browser from the stored exact result.
-export function AnalysisColumn({ results, circuit, networkId, canSaveValues = false, valueSets }: { results: Results; circuit?: Circuit; networkId?: string; canSaveValues?: boolean; valueSets?: ValueSet[] }) {
+export function AnalysisColumn({ results, circuit, networkId, canSaveValues = false, valueSets }: { results: RevisionResults; circuit?: Circuit; networkId?: string; canSaveValues?: boolean; valueSets?: ValueSet[] }) {
   const exact = useMemo(() => readExactResults(results), [results]);
   const symbols = useMemo(() => symbolsOf(exact), [exact]);
   const [values, setValues] = useState<TypedValues>({});
   // The network's saved sets: fetched for members, given by the share page otherwise.
   const fetched = useValueSets(valueSets ? undefined : networkId);
   const sets = valueSets ?? fetched.data ?? [];
-  const gain = symbols.find((s) => results.quantities[s] === "dimensionless" || results.quantities[s] === "transconductance");
+  const quantities = results.dimensions?.quantities ?? {};
+  const gain = symbols.find((s) => quantities[s] === "dimensionless" || quantities[s] === "transconductance");
   return (
     <div className="print:hidden">
       <Panel title="Values">
         <ValueSetsBar networkId={networkId} sets={sets} canSave={canSaveValues} values={values} onChoose={(chosen) => setValues(Object.fromEntries(symbols.map((s) => [s, chosen[s] ?? ""])))} />
-        <ValuesPanel exact={exact} symbols={symbols} quantities={results.quantities} values={values} onChange={setValues} />
-        <DesignSolve exact={exact} symbols={symbols} quantities={results.quantities} values={values} />
+        <ValuesPanel exact={exact} symbols={symbols} quantities={quantities} values={values} onChange={setValues} />
+        <DesignSolve exact={exact} symbols={symbols} quantities={quantities} values={values} />
       </Panel>
       {/* Only when a result depends on the Laplace variable s. */}
       {symbols.includes("s") && (
@@ -45,10 +46,10 @@ export function AnalysisColumn({ results, circuit, networkId, canSaveValues = fa
         </Panel>
       )}
       <Panel title="Limits">
-        <LimitsPanel exact={exact} symbols={symbols} initialSymbol={gain} quantities={results.quantities} />
+        <LimitsPanel exact={exact} symbols={symbols} initialSymbol={gain} quantities={quantities} />
       </Panel>
       <Panel title="Sweep">
-        <SweepPanel exact={exact} symbols={symbols} quantities={results.quantities} values={values} initialSymbol={gain} inS={symbols.includes("s")} />
+        <SweepPanel exact={exact} symbols={symbols} quantities={quantities} values={values} initialSymbol={gain} inS={symbols.includes("s")} />
       </Panel>
       <Caution className="mt-3" />
     </div>

@@ -1,7 +1,7 @@
 import { useId, useMemo, useState } from "react";
 import { MathTex } from "@/components/ui/math";
 import { boundedApproximation, parseSI, readExpression, type BoundedApproximation, type Rational } from "@/lib/engine";
-import type { ResultName } from "@/types/api";
+import type { ResultName } from "@/lib/api-contract";
 import type { ExactResults } from "../lib/exact-results";
 import { RESULT_LABEL, RESULT_NAMES, RESULT_TEX } from "../lib/quantities";
 

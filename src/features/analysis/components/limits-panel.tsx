@@ -1,7 +1,7 @@
 import { useId, useMemo, useState } from "react";
 import { MathTex } from "@/components/ui/math";
 import { RationalFunction, type Limit } from "@/lib/engine";
-import type { ResultName } from "@/types/api";
+import type { ResultName } from "@/lib/api-contract";
 import type { ExactResults } from "../lib/exact-results";
 import { limitWithSigns, positiveSymbols } from "../lib/limit-sign";
 import { RESULT_NAMES, resultLabel, resultTex } from "../lib/quantities";

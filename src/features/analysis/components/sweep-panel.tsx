@@ -3,7 +3,7 @@ import { Button } from "@/components/ui/button";
 import { Progress } from "@/components/ui/states";
 import { formatSI } from "@/lib/engine";
 import { downloadText } from "@/features/export/lib/latex";
-import type { ResultName } from "@/types/api";
+import type { ResultName } from "@/lib/api-contract";
 import { readTypedValues, type ExactResults } from "../lib/exact-results";
 import { RESULT_NAMES, RESULT_UNIT, resultLabel, symbolUnit } from "../lib/quantities";
 import { notLogRange, sweepCsv, sweepResult } from "../lib/sweep";

@@ -1,7 +1,7 @@
 import { useDeferredValue, useId, useMemo } from "react";
 import { MathTex } from "@/components/ui/math";
 import { formatSI, RationalFunction } from "@/lib/engine";
-import type { ResultName } from "@/types/api";
+import type { ResultName } from "@/lib/api-contract";
 import { readTypedValues, type ExactResults } from "../lib/exact-results";
 import { ApproximationControl } from "./approximation-control";
 import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultMeaning, resultTex, symbolLabel, symbolUnit } from "../lib/quantities";

@@ -1,11 +1,11 @@
 import { Rational, RationalFunction, parseSI, readExpression } from "@/lib/engine";
-import type { ResultName, Results } from "@/types/api";
+import type { ResultName, RevisionResults } from "@/lib/api-contract";
 import { RESULT_NAMES } from "./quantities";
 
 export type ExactResults = Partial<Record<ResultName, RationalFunction>>;
 
 // Stored results are plain infix strings; read back into exact rational functions once per revision.
-export function readExactResults(results: Results): ExactResults {
+export function readExactResults(results: RevisionResults): ExactResults {
   const exact: ExactResults = {};
   for (const name of RESULT_NAMES) {
     const form = results[name];

@@ -1,4 +1,4 @@
-import type { ResultName } from "@/types/api";
+import type { ResultName } from "@/lib/api-contract";
 
 // SI units for the engine's quantities; gains are dimensionless and carry no unit.
 const UNITS: Record<string, string> = {

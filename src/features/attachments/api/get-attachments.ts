@@ -1,15 +1,10 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { Attachment } from "@/types/api";
+import type { AttachmentList } from "@/lib/api-contract";
 
-export interface AttachmentList {
-  attachments: Attachment[];
-  limits: { maxBytes: number; types: string[] };
-}
-
-export async function getAttachments(networkId: string): Promise<AttachmentList> {
-  const raw = await api<{ attachments: (Omit<Attachment, "uploadedBy"> & { uploadedBy: { name: string } | null })[]; limits: AttachmentList["limits"] }>(`/networks/${encodeURIComponent(networkId)}/attachments`);
-  return { attachments: raw.attachments.map((a) => ({ ...a, uploadedBy: a.uploadedBy?.name ?? null })), limits: raw.limits };
+// The limits travel with the list, so the page states them before anyone tries an upload.
+export function getAttachments(networkId: string) {
+  return api<AttachmentList>(`/networks/${encodeURIComponent(networkId)}/attachments`);
 }
 
 export const attachmentsQueryOptions = (networkId: string) => queryOptions({ queryKey: ["networks", networkId, "attachments"], queryFn: () => getAttachments(networkId) });

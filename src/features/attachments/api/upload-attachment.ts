@@ -1,10 +1,11 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { Attachment } from "@/lib/api-contract";
 
 export function uploadAttachment({ networkId, file }: { networkId: string; file: File }) {
   const form = new FormData();
   form.append("file", file);
-  return api<unknown>(`/networks/${encodeURIComponent(networkId)}/attachments`, { method: "POST", body: form });
+  return api<Attachment>(`/networks/${encodeURIComponent(networkId)}/attachments`, { method: "POST", body: form });
 }
 
 export function useUploadAttachment() {

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api, ApiError } from "@/lib/api-client";
-import type { Me } from "@/types/api";
+import type { Me } from "@/lib/api-contract";
 
 // null when signed out: a 401 here is an answer, not an error.
 export async function getMe(): Promise<Me | null> {

@@ -1,8 +1,9 @@
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { PasswordResetRequest, SentAnswer } from "@/lib/api-contract";
 
-export function requestPasswordReset(input: { email: string }) {
-  return api<unknown>("/auth/password-reset", { method: "POST", json: input });
+export function requestPasswordReset(input: PasswordResetRequest) {
+  return api<SentAnswer>("/auth/password-reset", { method: "POST", json: input });
 }
 
 export function useRequestPasswordReset() {

@@ -1,8 +1,9 @@
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { SentAnswer } from "@/lib/api-contract";
 
 export function resendVerification() {
-  return api<{ sent: boolean }>("/auth/verify-email/resend", { method: "POST" });
+  return api<SentAnswer>("/auth/verify-email/resend", { method: "POST" });
 }
 
 export function useResendVerification() {

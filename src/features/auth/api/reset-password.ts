@@ -1,8 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { PasswordResetConfirmRequest, UserAnswer } from "@/lib/api-contract";
 
-export function resetPassword(input: { token: string; password: string }) {
-  return api<unknown>("/auth/password-reset/confirm", { method: "POST", json: input });
+export function resetPassword(input: PasswordResetConfirmRequest) {
+  return api<UserAnswer>("/auth/password-reset/confirm", { method: "POST", json: input });
 }
 
 // The server signs the account in with the new password, so everything cached is refetched.

@@ -1,13 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { LoginRequest, UserAnswer } from "@/lib/api-contract";
 
-export interface SignInInput {
-  email: string;
-  password: string;
-}
-
-export function signIn(input: SignInInput) {
-  return api<unknown>("/auth/login", { method: "POST", json: input });
+export function signIn(input: LoginRequest) {
+  return api<UserAnswer>("/auth/login", { method: "POST", json: input });
 }
 
 export function useSignIn() {

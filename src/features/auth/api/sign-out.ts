@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
 export function signOut() {
-  return api<unknown>("/auth/logout", { method: "POST" });
+  return api<null>("/auth/logout", { method: "POST" });
 }
 
 export function useSignOut() {

@@ -1,14 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { SignupRequest, UserAnswer } from "@/lib/api-contract";
 
-export interface SignUpInput {
-  email: string;
-  password: string;
-  name: string;
-}
-
-export function signUp(input: SignUpInput) {
-  return api<unknown>("/auth/signup", { method: "POST", json: input });
+export function signUp(input: SignupRequest) {
+  return api<UserAnswer>("/auth/signup", { method: "POST", json: input });
 }
 
 export function useSignUp() {

@@ -1,8 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { EmailLinkRequest, UserAnswer } from "@/lib/api-contract";
 
-export function verifyEmail(input: { token: string }) {
-  return api<unknown>("/auth/verify-email", { method: "POST", json: input });
+export function verifyEmail(input: EmailLinkRequest) {
+  return api<UserAnswer>("/auth/verify-email", { method: "POST", json: input });
 }
 
 export function useVerifyEmail() {

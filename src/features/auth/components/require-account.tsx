@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
 import { Navigate, useLocation } from "react-router-dom";
 import { ErrorState, LoadingState } from "@/components/ui/states";
-import type { Me } from "@/types/api";
+import type { Me } from "@/lib/api-contract";
 import { useMe } from "../api/get-me";
 
 // Screens behind an account: signed-out visitors go to sign-in and come back afterwards.

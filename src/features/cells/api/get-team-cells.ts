@@ -1,21 +1,10 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { CellDefinition } from "@/lib/engine-netlist";
+import type { CellList } from "@/lib/api-contract";
 
-export interface TeamCell {
-  /** The id a network's cell instance names. */
-  id: string;
-  teamId: string;
-  title: string;
-  definition: CellDefinition;
-  author: { id: string; name: string } | null;
-  createdAt: string;
-  updatedAt: string;
-}
-
-export async function getTeamCells(teamId: string): Promise<TeamCell[]> {
-  const body = await api<{ cells: TeamCell[] }>(`/teams/${encodeURIComponent(teamId)}/cells`);
-  return body.cells;
+// A cell's id is the one a network's cell instance names.
+export function getTeamCells(teamId: string) {
+  return api<CellList>(`/teams/${encodeURIComponent(teamId)}/cells`).then((body) => body.cells);
 }
 
 export const teamCellsQueryOptions = (teamId: string) => queryOptions({ queryKey: ["teams", teamId, "cells"], queryFn: () => getTeamCells(teamId) });

@@ -5,7 +5,7 @@ import { InlineError } from "@/components/ui/states";
 import { NetlistEditor, editorDiagnostics } from "@/features/network-editor/components/netlist-editor";
 import { ApiError } from "@/lib/api-client";
 import type { CellDefinition } from "@/lib/engine-netlist";
-import type { Diagnostic } from "@/types/api";
+import type { Diagnostic } from "@/lib/api-contract";
 import { useCreateTeamCell } from "../api/create-team-cell";
 import { lineOfDiagnostic, readCellForm, type CellFormInput } from "../lib/cell-form";
 

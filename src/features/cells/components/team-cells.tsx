@@ -1,9 +1,10 @@
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import type { Cell } from "@/lib/api-contract";
 import { EmptyState, ErrorState, InlineError, LoadingState } from "@/components/ui/states";
 import { BUILT_IN_CELLS } from "@/lib/engine-netlist";
 import { useDeleteTeamCell } from "../api/delete-team-cell";
-import { useTeamCells, type TeamCell } from "../api/get-team-cells";
+import { useTeamCells } from "../api/get-team-cells";
 
 const BUILT_IN = [...BUILT_IN_CELLS.keys()].join(", ");
 
@@ -71,7 +72,7 @@ function CellRow({
   onCancel,
   onDelete,
 }: {
-  cell: TeamCell;
+  cell: Cell;
   canEdit: boolean;
   confirming: boolean;
   deleting: boolean;

@@ -1,9 +1,9 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { normaliseRevision } from "./normalise-revision";
+import type { Revision } from "@/lib/api-contract";
 
-export async function getRevision(networkId: string, k: number) {
-  return normaliseRevision(await api<unknown>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}`));
+export function getRevision(networkId: string, k: number) {
+  return api<Revision>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}`);
 }
 
 export const revisionQueryOptions = (networkId: string, k: number) =>

@@ -1,6 +1,6 @@
 import { Link } from "react-router-dom";
 import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultsInS } from "@/features/analysis/lib/quantities";
-import type { CheckMark, ResultName, Results } from "@/types/api";
+import type { CheckMark, RevisionResults } from "@/lib/api-contract";
 
 /** The page that explains every check and every outside reference. */
 export const HOW_CHECKED_PATH = "/how-results-are-checked";
@@ -26,10 +26,22 @@ function Mark({ label, state, detail }: { label: string; state: boolean | null; 
   );
 }
 
-// The check badge: four independent tests the result can fail, each saying what it did.
-export function CheckBadge({ results }: { results: Results }) {
+// Revisions solved before each mark said what it did read as the engine wrote them then: the test-source mark only
+// said that Rth existed, so it shows as not run; a missing Voc/Isc or numeric mark is the agreement or numeric check.
+function markStates(results: RevisionResults): Record<CheckMark, boolean | null> {
   const { checks } = results;
-  const details = checks.details;
+  return {
+    testSource: checks.details ? checks.testSource : null,
+    vocIsc: checks.vocIsc ?? results.agree ?? null,
+    numeric: checks.numeric ?? results.numericCheck?.agree ?? null,
+    exactPoint: checks.exactPoint ?? null,
+  };
+}
+
+// The check badge: four independent tests the result can fail, each saying what it did.
+export function CheckBadge({ results }: { results: RevisionResults }) {
+  const checks = markStates(results);
+  const details = results.checks.details;
   const tooltip = (key: CheckMark, none: string) => {
     const d = details?.[key];
     if (!d) return checks[key] === null ? `${none} (solved before this check existed; solve again to run it)` : none;
@@ -75,9 +87,10 @@ export function CheckBadge({ results }: { results: Results }) {
   );
 }
 
-export function DimensionCheck({ results }: { results: Results }) {
+export function DimensionCheck({ results }: { results: RevisionResults }) {
   // Only results the port has: no "Isc in A" for a port without a Norton form.
-  const entries = (Object.entries(results.dimensionChecks) as [ResultName, Results["dimensionChecks"][ResultName]][]).filter(([name]) => results[name] !== null);
+  const checks = results.dimensions?.checks ?? {};
+  const entries = (Object.entries(checks) as [keyof typeof checks, (typeof checks)[keyof typeof checks]][]).filter(([name]) => results[name] !== null);
   if (entries.length === 0) return null;
   const allOk = entries.every(([, c]) => c?.status === "ok");
   const inS = resultsInS(results);

@@ -1,6 +1,7 @@
 import { Formula } from "@/components/ui/formula";
 import { resultTex, resultsInS } from "@/features/analysis/lib/quantities";
-import type { Results } from "@/types/api";
+import { compactTex } from "../lib/printed-forms";
+import type { RevisionResults } from "@/lib/api-contract";
 
 const stroke = { fill: "none", stroke: "currentColor", strokeWidth: 1.4, strokeLinecap: "round" as const, strokeLinejoin: "round" as const };
 
@@ -53,7 +54,7 @@ function NortonSymbol() {
 }
 
 // The final equivalents, each drawn small with its expressions beside it.
-export function Equivalents({ results }: { results: Results }) {
+export function Equivalents({ results }: { results: RevisionResults }) {
   const { vth, rth, isc } = results;
   const inS = resultsInS(results);
   return (
@@ -64,8 +65,8 @@ export function Equivalents({ results }: { results: Results }) {
           <p className="font-medium">Thevenin equivalent</p>
           {vth && rth ? (
             <div className="mt-1 space-y-1">
-              <Formula lhs={resultTex("vth", inS)} tex={vth.compactTex} />
-              <Formula lhs={resultTex("rth", inS)} tex={rth.compactTex} />
+              <Formula lhs={resultTex("vth", inS)} tex={compactTex(vth)} />
+              <Formula lhs={resultTex("rth", inS)} tex={compactTex(rth)} />
             </div>
           ) : (
             <p className="mt-1 text-ink/70">No Thevenin form: {rth ? "" : "the port is an ideal current source (Rth unbounded)."}</p>
@@ -78,8 +79,8 @@ export function Equivalents({ results }: { results: Results }) {
           <p className="font-medium">Norton equivalent</p>
           {isc && rth ? (
             <div className="mt-1 space-y-1">
-              <Formula lhs={resultTex("isc", inS)} tex={isc.compactTex} />
-              <Formula lhs={resultTex("rth", inS)} tex={rth.compactTex} />
+              <Formula lhs={resultTex("isc", inS)} tex={compactTex(isc)} />
+              <Formula lhs={resultTex("rth", inS)} tex={compactTex(rth)} />
             </div>
           ) : (
             <p className="mt-1 text-ink/70">No Norton form: {isc ? "" : "the port is an ideal voltage source (Rth = 0)."}</p>

@@ -3,7 +3,7 @@ import { Formula } from "@/components/ui/formula";
 import { EmptyState } from "@/components/ui/states";
 import { StepComments, type ReviewContext } from "@/features/review/components/step-comments";
 import { useState } from "react";
-import type { Comment, NoteAnchor, Revision } from "@/types/api";
+import type { Comment, NoteAnchor, Revision } from "@/lib/api-contract";
 import { Equivalents } from "./equivalents";
 
 // The ledger: every stored step, numbered and typeset, with its review notes in the margin.

@@ -1,7 +1,8 @@
 import { useState, type ReactNode } from "react";
 import { Formula } from "@/components/ui/formula";
 import { resultLabel, resultMeaning, resultTex, resultsInS } from "@/features/analysis/lib/quantities";
-import type { ResultForm, ResultName, Results } from "@/types/api";
+import type { ExactExpression, ResultName, RevisionResults } from "@/lib/api-contract";
+import { compactTex, compactText, expandedTex } from "../lib/printed-forms";
 import { CheckBadge, DimensionCheck } from "./check-badge";
 
 function CopyButton({ text, label }: { text: string; label: string }) {
@@ -27,11 +28,11 @@ function CopyButton({ text, label }: { text: string; label: string }) {
 }
 
 // One result: its compact form typeset, the expanded form on demand, copy as TeX or plain text.
-function ResultLine({ name, form, inS, expanded }: { name: ResultName; form: ResultForm; inS: boolean; expanded: boolean }) {
+function ResultLine({ name, form, inS, expanded }: { name: ResultName; form: ExactExpression; inS: boolean; expanded: boolean }) {
   const tex = resultTex(name, inS);
   const plain = resultLabel(name, inS);
-  const shownTex = expanded ? form.tex : form.compactTex;
-  const shownPlain = expanded ? form.infix : form.compact;
+  const shownTex = expanded ? expandedTex(form) : compactTex(form);
+  const shownPlain = expanded ? form.infix : compactText(form);
   return (
     <div data-result-line={name} className="min-w-0">
       <div className="flex items-baseline justify-between gap-2">
@@ -61,11 +62,11 @@ function Column({ title, children }: { title: string; children: ReactNode }) {
  * The answer first: Thevenin and Norton equivalents side by side at the top of the page, with the
  * check badge. `older` marks the card when it shows a revision from before a failed solve.
  */
-export function ResultCard({ results, portLabel, older, aside }: { results: Results; portLabel?: string; older?: ReactNode; aside?: ReactNode }) {
+export function ResultCard({ results, portLabel, older, aside }: { results: RevisionResults; portLabel?: string; older?: ReactNode; aside?: ReactNode }) {
   const [expanded, setExpanded] = useState(false);
   const inS = resultsInS(results);
   const { vth, rth, isc } = results;
-  const line = (name: ResultName, form: ResultForm | null) => form && <ResultLine name={name} form={form} inS={inS} expanded={expanded} />;
+  const line = (name: ResultName, form: ExactExpression | null) => form && <ResultLine name={name} form={form} inS={inS} expanded={expanded} />;
   return (
     <section aria-label="Result" data-result-card="" className={`rounded border ${older ? "border-copper/50 bg-copper/5" : "border-rule bg-paper"} p-3`}>
       <div className="flex flex-wrap items-center justify-between gap-2">

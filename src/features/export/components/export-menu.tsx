@@ -1,7 +1,7 @@
 import { useEffect, useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { NETLIST_EXTENSION, printNetlistText, type EngineNetwork } from "@/lib/engine-netlist";
-import type { Revision, ValueSet } from "@/types/api";
+import type { Revision, ValueSet } from "@/lib/api-contract";
 import { valueSetsCsv } from "@/features/value-sets/lib/export";
 import { downloadText, fileSafe, ledgerLatex } from "../lib/latex";
 
@@ -21,7 +21,7 @@ export function ExportMenu({ revision, valueSets = [] }: { revision: Revision; v
       document.removeEventListener("keydown", close);
     };
   }, [open]);
-  const base = `${fileSafe(revision.title)}-r${revision.k}`;
+  const base = `${fileSafe(revision.network.title)}-r${revision.number}`;
   const choose = (action: () => void) => () => {
     setOpen(false);
     action();
@@ -46,7 +46,7 @@ export function ExportMenu({ revision, valueSets = [] }: { revision: Revision; v
           <button role="menuitem" type="button" className={item} onClick={choose(() => downloadText(`${base}.json`, `${JSON.stringify(revision.circuit, null, 2)}\n`, "application/json"))}>
             Network as JSON (.json)
           </button>
-          <button role="menuitem" type="button" className={item} onClick={choose(() => downloadText(`${base}${NETLIST_EXTENSION}`, printNetlistText(network, revision.title), "text/plain"))}>
+          <button role="menuitem" type="button" className={item} onClick={choose(() => downloadText(`${base}${NETLIST_EXTENSION}`, printNetlistText(network, revision.network.title), "text/plain"))}>
             Network as Portfold netlist ({NETLIST_EXTENSION})
           </button>
           <button

@@ -1,4 +1,5 @@
-import type { Revision, ValueSet } from "@/types/api";
+import type { Revision, ValueSet } from "@/lib/api-contract";
+import { compactTex } from "@/features/derivations/lib/printed-forms";
 import { valueSetsLatex } from "@/features/value-sets/lib/export";
 
 // Plain text into LaTeX text mode: every special character escaped, so titles cannot inject commands.
@@ -14,7 +15,7 @@ export function ledgerLatex(revision: Revision, valueSets: ValueSet[] = []): str
     "\\documentclass[11pt]{article}",
     "\\usepackage{amsmath,amssymb}",
     "\\usepackage[margin=2cm]{geometry}",
-    `\\title{${latexText(revision.title)} --- derivation revision ${revision.k}}`,
+    `\\title{${latexText(revision.network.title)} --- derivation revision ${revision.number}}`,
     "\\date{}",
     "\\begin{document}",
     "\\maketitle",
@@ -28,9 +29,9 @@ export function ledgerLatex(revision: Revision, valueSets: ValueSet[] = []): str
   });
   const { vth, rth, isc } = revision.results;
   lines.push("\\subsection*{Equivalents at the port}");
-  if (vth) lines.push(`\\[ V_{\\mathrm{th}} = ${vth.compactTex} \\]`);
-  if (rth) lines.push(`\\[ R_{\\mathrm{th}} = ${rth.compactTex} \\]`);
-  if (isc) lines.push(`\\[ I_{\\mathrm{sc}} = ${isc.compactTex} \\]`);
+  if (vth) lines.push(`\\[ V_{\\mathrm{th}} = ${compactTex(vth)} \\]`);
+  if (rth) lines.push(`\\[ R_{\\mathrm{th}} = ${compactTex(rth)} \\]`);
+  if (isc) lines.push(`\\[ I_{\\mathrm{sc}} = ${compactTex(isc)} \\]`);
   lines.push("", ...valueSetsLatex(valueSets));
   lines.push("\\end{document}", "");
   return lines.join("\n");

@@ -7,7 +7,7 @@ import { readTypedValues, type ExactResults } from "@/features/analysis/lib/exac
 import { RESULT_LABEL, RESULT_NAMES, RESULT_UNIT, symbolUnit } from "@/features/analysis/lib/quantities";
 import type { TypedValues } from "@/features/analysis/components/values-panel";
 import type { Quantity } from "../../../../shared/engine/types";
-import type { ResultName } from "@/types/api";
+import type { ResultName } from "@/lib/api-contract";
 import { designSolve, type DesignSolveAnswer } from "../lib/frequency";
 
 const select = "mt-0.5 w-full rounded border border-rule bg-white px-1.5 py-1 text-xs";

@@ -3,7 +3,7 @@ import { Button } from "@/components/ui/button";
 import { MathTex } from "@/components/ui/math";
 import { Progress } from "@/components/ui/states";
 import { formatSI, readExpression } from "@/lib/engine";
-import type { Circuit } from "@/types/api";
+import type { Circuit } from "@/lib/api-contract";
 import type { ChartSeries } from "@/features/analysis/components/sweep-chart";
 import { engineeringTick } from "@/features/analysis/lib/axis-ticks";
 import { readTypedValues, type ExactResults } from "@/features/analysis/lib/exact-results";

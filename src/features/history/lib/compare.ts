@@ -1,4 +1,4 @@
-import type { Circuit, CircuitElement, Revision } from "@/types/api";
+import type { Circuit, CircuitElement, Revision } from "@/lib/api-contract";
 
 export interface ElementDifference {
   name: string;

@@ -1,5 +1,5 @@
 import { useEffect, useId, useLayoutEffect, useRef, useState } from "react";
-import type { Diagnostic } from "@/types/api";
+import type { Diagnostic } from "@/lib/api-contract";
 import { entryForDiagnostic } from "../lib/syntax-entries";
 import { SyntaxReference } from "./syntax-reference";
 

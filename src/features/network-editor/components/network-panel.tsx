@@ -3,7 +3,7 @@ import { Button } from "@/components/ui/button";
 import { ErrorState, Progress } from "@/components/ui/states";
 import { ApiError } from "@/lib/api-client";
 import type { EngineNetwork } from "@/lib/engine-netlist";
-import type { Diagnostic } from "@/types/api";
+import type { Diagnostic } from "@/lib/api-contract";
 import { parseNetlistText } from "@/lib/engine-netlist";
 import { keepTypedLines } from "../lib/keep-lines";
 import { nodesOf, readNetlist, withPort } from "../lib/netlist";

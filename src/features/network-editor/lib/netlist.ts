@@ -1,5 +1,5 @@
 import { parseNetlistText, printNetlistText, validateNetworkJson, type EngineNetwork } from "@/lib/engine-netlist";
-import type { Circuit, Diagnostic } from "@/types/api";
+import type { Circuit, Diagnostic } from "@/lib/api-contract";
 
 export interface ReadNetlist {
   network: EngineNetwork | null;

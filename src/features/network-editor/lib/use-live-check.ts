@@ -1,6 +1,6 @@
 import { useEffect, useState } from "react";
 import { parseNetlistText, type CellDefinition } from "@/lib/engine-netlist";
-import type { Diagnostic } from "@/types/api";
+import type { Diagnostic } from "@/lib/api-contract";
 
 const PAUSE_MS = 250; // after the last keystroke
 

@@ -1,18 +1,12 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { Circuit } from "@/types/api";
+import type { Circuit, CreateNetworkRequest, Network } from "@/lib/api-contract";
 
-export interface CreateNetworkInput {
-  teamId: string;
-  title: string;
-  description?: string;
-  circuit: Circuit;
-  /** The text as typed, when the network was written as a netlist. */
-  netlist?: string | null;
-}
+// The circuit is the engine's network; the netlist the text as typed, when the network was written as one.
+export type CreateNetworkInput = Omit<CreateNetworkRequest, "circuit"> & { teamId: string; circuit: Circuit };
 
 export function createNetwork({ teamId, ...input }: CreateNetworkInput) {
-  return api<{ id: string; slug?: string }>(`/teams/${encodeURIComponent(teamId)}/networks`, { method: "POST", json: input });
+  return api<Network>(`/teams/${encodeURIComponent(teamId)}/networks`, { method: "POST", json: input });
 }
 
 export function useCreateNetwork() {

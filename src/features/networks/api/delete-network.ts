@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
 export function deleteNetwork({ networkId }: { networkId: string; teamId: string }) {
-  return api<unknown>(`/networks/${encodeURIComponent(networkId)}`, { method: "DELETE" });
+  return api<null>(`/networks/${encodeURIComponent(networkId)}`, { method: "DELETE" });
 }
 
 export function useDeleteNetwork() {

@@ -1,8 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { DuplicateNetworkRequest, Network } from "@/lib/api-contract";
 
-export function duplicateNetwork({ networkId, title }: { networkId: string; teamId: string; title?: string }) {
-  return api<{ id: string }>(`/networks/${encodeURIComponent(networkId)}/duplicate`, { method: "POST", json: title ? { title } : {} });
+export function duplicateNetwork({ networkId, title }: DuplicateNetworkRequest & { networkId: string; teamId: string }) {
+  return api<Network>(`/networks/${encodeURIComponent(networkId)}/duplicate`, { method: "POST", json: title ? { title } : {} });
 }
 
 export function useDuplicateNetwork() {

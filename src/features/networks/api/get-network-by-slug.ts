@@ -1,10 +1,10 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { normaliseNetwork } from "./get-network";
+import type { Network } from "@/lib/api-contract";
 
 // The permanent, human-readable link /n/<slug>/r/<k> resolves through the slug.
-export async function getNetworkBySlug(slug: string) {
-  return normaliseNetwork(await api<Record<string, unknown>>(`/networks/by-slug/${encodeURIComponent(slug)}`));
+export function getNetworkBySlug(slug: string) {
+  return api<Network>(`/networks/by-slug/${encodeURIComponent(slug)}`);
 }
 
 export const networkBySlugQueryOptions = (slug: string) =>

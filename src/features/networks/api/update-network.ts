@@ -1,21 +1,12 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { Circuit, Network } from "@/types/api";
-import { normaliseNetwork } from "./get-network";
+import type { Circuit, Network, PatchNetworkRequest } from "@/lib/api-contract";
 
-export interface UpdateNetworkInput {
-  networkId: string;
-  title?: string;
-  description?: string;
-  circuit?: Circuit;
-  /** The netlist as typed (null: the circuit came from JSON). */
-  netlist?: string | null;
-  /** The `updatedAt` of the copy being edited: a later save by someone else answers 409 `stale`. */
-  expectedUpdatedAt?: string;
-}
+// The circuit sent is the engine's network; `expectedUpdatedAt` is the copy being edited: a later save by someone else answers 409 `stale`.
+export type UpdateNetworkInput = Omit<PatchNetworkRequest, "circuit"> & { networkId: string; circuit?: Circuit };
 
-export async function updateNetwork({ networkId, ...input }: UpdateNetworkInput): Promise<Network> {
-  return normaliseNetwork(await api<Record<string, unknown>>(`/networks/${encodeURIComponent(networkId)}`, { method: "PATCH", json: input }));
+export function updateNetwork({ networkId, ...input }: UpdateNetworkInput) {
+  return api<Network>(`/networks/${encodeURIComponent(networkId)}`, { method: "PATCH", json: input });
 }
 
 export function useUpdateNetwork() {

@@ -6,10 +6,10 @@ import { EmptyState, ErrorState, InlineError, LoadingState } from "@/components/
 import { Pager } from "@/components/ui/pager";
 import { shortDateTime } from "@/lib/dates";
 import { VerdictMark } from "@/features/review/components/verdict-mark";
-import type { NetworkSummary, Role } from "@/types/api";
+import type { NetworkSort, NetworkSummary, Role } from "@/lib/api-contract";
 import { useDeleteNetwork } from "../api/delete-network";
 import { useDuplicateNetwork } from "../api/duplicate-network";
-import { useNetworks, type NetworkSort } from "../api/get-networks";
+import { useNetworks } from "../api/get-networks";
 
 const PAGE_SIZE = 20;
 
@@ -108,7 +108,7 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
           <LoadingState label="Loading the team's networks…" />
         ) : networks.isError ? (
           <ErrorState error={networks.error} title="The networks could not be loaded" />
-        ) : !data || data.items.length === 0 ? (
+        ) : !data || data.networks.length === 0 ? (
           <EmptyState title={debouncedSearch ? `No network matches “${debouncedSearch}”.` : "No networks in this team yet."}>
             {!debouncedSearch && (canEdit ? "Create one from text or import a file to begin." : "Editors and owners of the team can create networks.")}
           </EmptyState>
@@ -135,15 +135,15 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
                 </tr>
               </thead>
               <tbody>
-                {data.items.map((n) => (
+                {data.networks.map((n) => (
                   <tr key={n.id} className="border-b border-rule">
                     <td className="py-1.5 pr-3">
                       <Link to={`/networks/${n.id}`} className="font-medium hover:text-copper hover:underline">
                         {n.title}
                       </Link>
                     </td>
-                    <td className="py-1.5 pr-3 text-ink/80">{n.author ?? "—"}</td>
-                    <td className="py-1.5 pr-3 font-mono text-xs">{n.lastRevision ? `revision ${n.lastRevision}` : <span className="font-sans text-ink/50">not solved</span>}</td>
+                    <td className="py-1.5 pr-3 text-ink/80">{n.author?.name ?? "—"}</td>
+                    <td className="py-1.5 pr-3 font-mono text-xs">{n.latestRevision ? `revision ${n.latestRevision}` : <span className="font-sans text-ink/50">not solved</span>}</td>
                     <td className="py-1.5 pr-3 text-xs">
                       <VerdictMark verdict={n.verdict} />
                     </td>

@@ -1,18 +1,11 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { NoteAnchor } from "@/types/api";
+import type { Comment, CommentRequest } from "@/lib/api-contract";
 
-export interface CreateCommentInput {
-  networkId: string;
-  k: number;
-  stepId: string;
-  body: string;
-  parentId?: string;
-  anchor?: NoteAnchor;
-}
+export type CreateCommentInput = CommentRequest & { networkId: string; k: number };
 
 export function createComment({ networkId, k, ...input }: CreateCommentInput) {
-  return api<unknown>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/comments`, { method: "POST", json: input });
+  return api<Comment>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/comments`, { method: "POST", json: input });
 }
 
 export function useCreateComment(onSaved?: () => void) {

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
 export function deleteComment({ networkId, k, commentId }: { networkId: string; k: number; commentId: string }) {
-  return api<unknown>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/comments/${encodeURIComponent(commentId)}`, {
+  return api<null>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/comments/${encodeURIComponent(commentId)}`, {
     method: "DELETE",
   });
 }

@@ -1,15 +1,11 @@
 import { useMutation, useQueryClient, type QueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { VerdictGiven, VerdictRequest } from "@/lib/api-contract";
 
-export interface GiveVerdictInput {
-  networkId: string;
-  k: number;
-  verdict: "approved" | "needs_changes";
-  note?: string;
-}
+export type GiveVerdictInput = VerdictRequest & { networkId: string; k: number };
 
 export function giveVerdict({ networkId, k, verdict, note }: GiveVerdictInput) {
-  return api<unknown>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/verdicts`, { method: "POST", json: { verdict, ...(note ? { note } : {}) } });
+  return api<VerdictGiven>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/verdicts`, { method: "POST", json: { verdict, ...(note ? { note } : {}) } });
 }
 
 // A verdict changes the revision, its history, the network's summary and both review pages.

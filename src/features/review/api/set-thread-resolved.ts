@@ -1,8 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { Comment } from "@/lib/api-contract";
 
 export function setThreadResolved({ networkId, k, commentId, resolved }: { networkId: string; k: number; commentId: string; resolved: boolean }) {
-  return api<unknown>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/comments/${encodeURIComponent(commentId)}/${resolved ? "resolve" : "reopen"}`, { method: "POST" });
+  return api<Comment>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/comments/${encodeURIComponent(commentId)}/${resolved ? "resolve" : "reopen"}`, { method: "POST" });
 }
 
 export function useSetThreadResolved() {

@@ -1,8 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { Comment, EditCommentRequest } from "@/lib/api-contract";
 
-export function updateComment({ networkId, k, commentId, body }: { networkId: string; k: number; commentId: string; body: string }) {
-  return api<unknown>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/comments/${encodeURIComponent(commentId)}`, {
+export function updateComment({ networkId, k, commentId, body }: EditCommentRequest & { networkId: string; k: number; commentId: string }) {
+  return api<Comment>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/comments/${encodeURIComponent(commentId)}`, {
     method: "PATCH",
     json: { body },
   });

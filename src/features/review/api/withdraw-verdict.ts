@@ -1,9 +1,10 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { VerdictGiven } from "@/lib/api-contract";
 import { refreshAfterVerdict } from "./give-verdict";
 
 export function withdrawVerdict({ networkId, k, verdictId }: { networkId: string; k: number; verdictId: string }) {
-  return api<unknown>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/verdicts/${encodeURIComponent(verdictId)}/withdraw`, { method: "POST" });
+  return api<VerdictGiven>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/verdicts/${encodeURIComponent(verdictId)}/withdraw`, { method: "POST" });
 }
 
 export function useWithdrawVerdict() {

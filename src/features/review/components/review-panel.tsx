@@ -1,4 +1,4 @@
-import type { Revision } from "@/types/api";
+import type { Revision } from "@/lib/api-contract";
 import { useVerdicts } from "../api/get-verdicts";
 import { ReviewStatus } from "./review-status";
 import { VerdictActions } from "./verdict-actions";
@@ -7,8 +7,8 @@ import { VerdictHistory } from "./verdict-history";
 // The top of a revision for its team: the state, the verdict actions and the kept history.
 // Outside the team (a share link) only the state shows.
 export function ReviewPanel({ revision, member, canReview, currentUserId }: { revision: Revision; member: boolean; canReview: boolean; currentUserId: string | null }) {
-  const verdicts = useVerdicts(revision.networkId, revision.k, member);
-  const entries = verdicts.data?.entries ?? [];
+  const verdicts = useVerdicts(revision.networkId, revision.number, member);
+  const entries = verdicts.data?.verdicts ?? [];
   return (
     <section aria-label="Review" className="print:hidden">
       <div className="flex flex-wrap items-start justify-between gap-2">

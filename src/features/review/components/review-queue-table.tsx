@@ -36,17 +36,17 @@ export function ReviewQueueTable({ queue, empty }: { queue: ReviewQueue; empty: 
         </thead>
         <tbody className={list.isPlaceholderData ? "opacity-60" : ""}>
           {data.items.map((item) => (
-            <tr key={`${item.networkId}-${item.k}`} className="border-b border-rule">
+            <tr key={`${item.network.id}-${item.revision}`} className="border-b border-rule">
               <td className="py-1.5 pr-3">
-                <Link to={`/networks/${item.networkId}/r/${item.k}`} className="font-medium hover:text-copper">
-                  {item.title}
+                <Link to={`/networks/${item.network.id}/r/${item.revision}`} className="font-medium hover:text-copper">
+                  {item.network.title}
                 </Link>
               </td>
-              <td className="py-1.5 pr-3 text-xs text-ink/70">{item.teamName}</td>
-              <td className="py-1.5 pr-3 text-xs">revision {item.k}</td>
+              <td className="py-1.5 pr-3 text-xs text-ink/70">{item.network.teamName}</td>
+              <td className="py-1.5 pr-3 text-xs">revision {item.revision}</td>
               <td className="py-1.5 pr-3 text-xs">
                 {queue === "awaiting" ? (
-                  (item.author ?? "—")
+                  (item.author?.name ?? "—")
                 ) : (
                   <>
                     <VerdictMark verdict={item.state.verdict} /> · {item.state.approvals} of {item.state.requiredApprovals}

@@ -4,7 +4,7 @@ import { controlClass } from "@/components/ui/field";
 import { InlineError } from "@/components/ui/states";
 import { MathTex } from "@/components/ui/math";
 import { shortDateTime as when } from "@/lib/dates";
-import type { Comment, NoteAnchor } from "@/types/api";
+import type { Comment, NoteAnchor, Reply } from "@/lib/api-contract";
 import { useCreateComment } from "../api/create-comment";
 import { useDeleteComment } from "../api/delete-comment";
 import { useSetThreadResolved } from "../api/set-thread-resolved";
@@ -60,15 +60,15 @@ function TermPicker({ formula, value, onChange }: { formula: string; value: stri
   );
 }
 
-function ThreadState({ comment, review }: { comment: Comment; review: ReviewContext }) {
+function ThreadState({ comment, review }: { comment: Reply; review: ReviewContext }) {
   const toggle = useSetThreadResolved();
   const me = review.currentUserId;
-  const may = me !== null && (me === comment.authorId || me === review.revisionAuthorId || review.isOwner);
+  const may = me !== null && (me === comment.author?.id || me === review.revisionAuthorId || review.isOwner);
   return (
     <>
       {comment.reopened && !comment.resolved && (
         <span className="text-ink/50">
-          reopened by {comment.reopened.by ?? "someone"} · {when(comment.reopened.at)}
+          reopened by {comment.reopened.by?.name ?? "someone"} · {when(comment.reopened.at)}
         </span>
       )}
       {may && (
@@ -122,12 +122,13 @@ function CommentForm({ label, submitLabel, initial = "", onSubmit, onCancel, pen
   );
 }
 
-function CommentItem({ comment, replies, review, stepTitle }: { comment: Comment; replies: Comment[]; review: ReviewContext; stepTitle: string }) {
+// A thread's first note with its replies, or one reply (which has none of its own).
+function CommentItem({ comment, replies, review, stepTitle }: { comment: Reply; replies: Reply[]; review: ReviewContext; stepTitle: string }) {
   const [mode, setMode] = useState<"read" | "edit" | "reply">("read");
   const create = useCreateComment(() => setMode("read"));
   const update = useUpdateComment();
   const remove = useDeleteComment();
-  const own = review.currentUserId !== null && comment.authorId === review.currentUserId;
+  const own = review.currentUserId !== null && comment.author?.id === review.currentUserId;
   const thread = comment.parentId === null;
   if (thread && comment.resolved && mode === "read") {
     // Resolved threads fold away, still there to open and to reopen.
@@ -135,17 +136,17 @@ function CommentItem({ comment, replies, review, stepTitle }: { comment: Comment
       <li className="border-l-2 border-verdigris/40 pl-2">
         <details>
           <summary className="cursor-pointer text-[11px] text-ink/60">
-            Resolved by {comment.resolved.by ?? "someone"} · {when(comment.resolved.at)} · {replies.length + 1} note{replies.length ? "s" : ""}
+            Resolved by {comment.resolved.by?.name ?? "someone"} · {when(comment.resolved.at)} · {replies.length + 1} note{replies.length ? "s" : ""}
           </summary>
           <div className="mt-1 space-y-1 opacity-80">
             {comment.anchor && <AnchorQuote anchor={comment.anchor} />}
             <p className="whitespace-pre-wrap break-words text-xs leading-snug">{comment.deleted ? <i>note deleted</i> : comment.body}</p>
             <p className="text-[11px] text-ink/50">
-              {comment.author ?? "someone"} · {when(comment.createdAt)}
+              {comment.author?.name ?? "someone"} · {when(comment.createdAt)}
             </p>
             {replies.map((reply) => (
               <p key={reply.id} className="whitespace-pre-wrap break-words border-l border-rule pl-2 text-xs">
-                {reply.deleted ? <i>note deleted</i> : reply.body} <span className="text-[11px] text-ink/50">— {reply.author ?? "someone"}</span>
+                {reply.deleted ? <i>note deleted</i> : reply.body} <span className="text-[11px] text-ink/50">— {reply.author?.name ?? "someone"}</span>
               </p>
             ))}
           </div>
@@ -178,7 +179,7 @@ function CommentItem({ comment, replies, review, stepTitle }: { comment: Comment
             <p className="whitespace-pre-wrap break-words text-xs leading-snug">{comment.body}</p>
           )}
           <p className="mt-0.5 text-[11px] text-ink/50">
-            {comment.author ?? "someone"} · {when(comment.createdAt)}
+            {comment.author?.name ?? "someone"} · {when(comment.createdAt)}
             {comment.updatedAt && comment.updatedAt !== comment.createdAt ? " · edited" : ""}
           </p>
           {thread && (
@@ -221,7 +222,7 @@ function CommentItem({ comment, replies, review, stepTitle }: { comment: Comment
       )}
       {mode === "reply" && (
         <CommentForm
-          label={`Reply to ${comment.author ?? "this note"}`}
+          label={`Reply to ${comment.author?.name ?? "this note"}`}
           submitLabel="Reply"
           pending={create.isPending}
           error={create.error}
@@ -251,15 +252,13 @@ export function StepComments({ stepId, stepTitle, formula = "", comments, review
     setAdding(false);
     onHighlightUsed?.();
   });
-  const mine = comments.filter((c) => c.stepId === stepId);
-  const top = mine.filter((c) => !c.parentId);
-  const repliesOf = (id: string) => mine.filter((c) => c.parentId === id);
+  const top = comments.filter((c) => c.stepId === stepId);
   return (
     <aside aria-label={`Review notes on ${stepTitle}`} className="text-xs">
       {top.length > 0 && (
         <ul className="space-y-2">
           {top.map((c) => (
-            <CommentItem key={c.id} comment={c} replies={repliesOf(c.id)} review={review} stepTitle={stepTitle} />
+            <CommentItem key={c.id} comment={c} replies={c.replies} review={review} stepTitle={stepTitle} />
           ))}
         </ul>
       )}

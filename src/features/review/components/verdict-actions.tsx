@@ -3,7 +3,7 @@ import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { controlClass } from "@/components/ui/field";
 import { InlineError } from "@/components/ui/states";
-import type { Revision, VerdictEntry } from "@/types/api";
+import type { Revision, VerdictEntry } from "@/lib/api-contract";
 import { useGiveVerdict } from "../api/give-verdict";
 import { useWithdrawVerdict } from "../api/withdraw-verdict";
 
@@ -17,9 +17,9 @@ export function VerdictActions({ revision, entries, currentUserId }: { revision:
   const noteId = useId();
   const give = useGiveVerdict();
   const withdraw = useWithdrawVerdict();
-  const latestMine = entries.find((entry) => entry.byId === currentUserId);
+  const latestMine = entries.find((entry) => entry.by?.id === currentUserId);
   const standing = latestMine && latestMine.verdict !== "open" ? latestMine : null;
-  const isAuthor = revision.authorId === currentUserId;
+  const isAuthor = revision.createdBy?.id === currentUserId;
   const openNotes = revision.openNotes ?? 0;
   const close = () => {
     setAction(null);
@@ -27,14 +27,14 @@ export function VerdictActions({ revision, entries, currentUserId }: { revision:
     give.reset();
     withdraw.reset();
   };
-  const target = { networkId: revision.networkId, k: revision.k };
+  const target = { networkId: revision.networkId, k: revision.number };
   const record = () => {
     if (action === "withdraw" && standing) withdraw.mutate({ ...target, verdictId: standing.id }, { onSuccess: close });
     if (action === "approve") give.mutate({ ...target, verdict: "approved", note: note.trim() || undefined }, { onSuccess: close });
     if (action === "request") give.mutate({ ...target, verdict: "needs_changes", note: note.trim() }, { onSuccess: close });
   };
   const pending = give.isPending || withdraw.isPending;
-  const titles: Record<Action, string> = { approve: `Approve revision ${revision.k}`, request: `Request changes on revision ${revision.k}`, withdraw: "Withdraw your verdict" };
+  const titles: Record<Action, string> = { approve: `Approve revision ${revision.number}`, request: `Request changes on revision ${revision.number}`, withdraw: "Withdraw your verdict" };
   return (
     <div className="flex flex-wrap items-center gap-2">
       {!isAuthor && (

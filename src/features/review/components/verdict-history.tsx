@@ -1,5 +1,5 @@
 import { shortDateTime } from "@/lib/dates";
-import type { VerdictEntry } from "@/types/api";
+import type { VerdictEntry } from "@/lib/api-contract";
 import { VerdictMark } from "./verdict-mark";
 
 const action = (entry: VerdictEntry) => (entry.verdict === "approved" ? "approved" : entry.verdict === "needs_changes" ? "requested changes" : "withdrew a verdict");
@@ -11,7 +11,7 @@ export function VerdictHistory({ entries }: { entries: VerdictEntry[] }) {
     <ol className="space-y-1.5 text-xs" aria-label="Verdict history">
       {entries.map((entry) => (
         <li key={entry.id} className={entry.withdrawnAt ? "text-ink/50" : ""}>
-          <span className="font-medium">{entry.by ?? "a former member"}</span>
+          <span className="font-medium">{entry.by?.name ?? "a former member"}</span>
           {entry.role ? ` (${entry.role})` : ""} {action(entry)}
           {entry.verdict !== "open" && (
             <>

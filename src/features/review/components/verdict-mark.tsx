@@ -1,4 +1,4 @@
-import type { Verdict } from "@/types/api";
+import type { Verdict } from "@/lib/api-contract";
 
 export const VERDICT_WORDS: Record<Verdict, string> = { open: "open", approved: "approved", needs_changes: "needs changes" };
 

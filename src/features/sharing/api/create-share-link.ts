@@ -1,19 +1,11 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { normaliseShareLink } from "./get-share-links";
+import type { CreatedShare, ShareRequest } from "@/lib/api-contract";
 
-export interface CreateShareLinkInput {
-  networkId: string;
-  k: number;
-  expiresAt?: string;
-}
+export type CreateShareLinkInput = ShareRequest & { networkId: string; k: number };
 
-export async function createShareLink({ networkId, k, expiresAt }: CreateShareLinkInput) {
-  const body = await api<Record<string, unknown>>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/share`, {
-    method: "POST",
-    json: expiresAt ? { expiresAt } : {},
-  });
-  return normaliseShareLink(body, k);
+export function createShareLink({ networkId, k, expiresAt }: CreateShareLinkInput) {
+  return api<CreatedShare>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/share`, { method: "POST", json: expiresAt ? { expiresAt } : {} });
 }
 
 export function useCreateShareLink() {

@@ -1,27 +1,9 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { ShareLink } from "@/types/api";
+import type { ShareList } from "@/lib/api-contract";
 
-type Loose = Record<string, unknown>;
-
-export function normaliseShareLink(raw: Loose, k: number): ShareLink {
-  const createdBy = raw.createdBy as { name?: string } | null;
-  return {
-    id: String(raw.id),
-    token: typeof raw.token === "string" ? raw.token : null,
-    url: typeof raw.url === "string" ? raw.url : null,
-    k: Number(raw.revision ?? k),
-    status: String(raw.status ?? "active"),
-    createdBy: createdBy?.name ?? null,
-    createdAt: String(raw.createdAt ?? ""),
-    expiresAt: (raw.expiresAt ?? null) as string | null,
-    revokedAt: (raw.revokedAt ?? null) as string | null,
-  };
-}
-
-export async function getShareLinks(networkId: string, k: number): Promise<ShareLink[]> {
-  const body = await api<{ shares: Loose[] }>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/share`);
-  return (body.shares ?? []).map((raw) => normaliseShareLink(raw, k));
+export function getShareLinks(networkId: string, k: number) {
+  return api<ShareList>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/share`).then((body) => body.shares);
 }
 
 export const shareLinksQueryOptions = (networkId: string, k: number) =>

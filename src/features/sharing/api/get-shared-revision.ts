@@ -1,13 +1,11 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { normaliseRevision } from "@/features/derivations/api/normalise-revision";
-import type { Revision, ValueSet } from "@/types/api";
+import type { SharedRevision } from "@/lib/api-contract";
 
-// Read-only, no account needed: the token is the whole permission.
-export async function getSharedRevision(token: string): Promise<Revision & { valueSets: ValueSet[] }> {
-  const raw = await api<{ valueSets?: ValueSet[] }>(`/share/${encodeURIComponent(token)}`);
-  // The network's saved value sets come with the link, so the reviewer reads the designer's numbers.
-  return { ...normaliseRevision(raw), valueSets: Array.isArray(raw?.valueSets) ? raw.valueSets : [] };
+// Read-only, no account needed: the token is the whole permission. The network's saved value sets come with the
+// link, so the reviewer reads the designer's numbers.
+export function getSharedRevision(token: string) {
+  return api<SharedRevision>(`/share/${encodeURIComponent(token)}`);
 }
 
 export const sharedRevisionQueryOptions = (token: string) =>

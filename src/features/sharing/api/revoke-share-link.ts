@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
 export function revokeShareLink({ networkId, k, shareId }: { networkId: string; k: number; shareId: string }) {
-  return api<unknown>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/share/${encodeURIComponent(shareId)}`, { method: "DELETE" });
+  return api<null>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/share/${encodeURIComponent(shareId)}`, { method: "DELETE" });
 }
 
 export function useRevokeShareLink() {

@@ -3,7 +3,7 @@ import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { InlineError, Progress } from "@/components/ui/states";
 import { useTeamMembers } from "@/features/teams/api/get-team-members";
-import type { ShareLink } from "@/types/api";
+import type { CreatedShare, Share } from "@/lib/api-contract";
 import { useCreateShareLink } from "../api/create-share-link";
 import { useShareLinks } from "../api/get-share-links";
 import { useRevokeShareLink } from "../api/revoke-share-link";
@@ -31,35 +31,43 @@ function CopyButton({ text }: { text: string }) {
   );
 }
 
-function LinkRow({ link, networkId, k }: { link: ShareLink; networkId: string; k: number }) {
+// A link as listed, with its address when this dialog made it (the list never carries the address); a link just
+// made shows before the list is read again.
+type LinkEntry = { id: string; listed: Share | null; made: CreatedShare | null };
+
+function LinkRow({ entry, networkId, k }: { entry: LinkEntry; networkId: string; k: number }) {
   const revoke = useRevokeShareLink();
-  const live = link.status === "active" && !link.revokedAt && !revoke.isSuccess;
+  const { listed, made } = entry;
+  const url = made?.url ?? null;
+  const expiresAt = listed?.expiresAt ?? made?.expiresAt ?? null;
+  const createdAt = listed?.createdAt ?? made?.createdAt ?? "";
+  const live = (listed ? listed.status === "active" && !listed.revokedAt : true) && !revoke.isSuccess;
   const state = !live
-    ? link.revokedAt || revoke.isSuccess
+    ? listed?.revokedAt || revoke.isSuccess
       ? "Revoked: no longer opens."
       : "Expired: no longer opens."
-    : link.expiresAt
-      ? `Opens until ${new Date(link.expiresAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}.`
+    : expiresAt
+      ? `Opens until ${new Date(expiresAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}.`
       : "Opens until revoked.";
   return (
     <li className="rounded border border-rule bg-white/60 p-2">
       <div className="flex items-center gap-2">
-        {link.url ? (
-          <input aria-label="Share link address" readOnly value={link.url} className="min-w-0 flex-1 bg-transparent font-mono text-xs" onFocus={(e) => e.target.select()} data-testid="share-url" />
+        {url ? (
+          <input aria-label="Share link address" readOnly value={url} className="min-w-0 flex-1 bg-transparent font-mono text-xs" onFocus={(e) => e.target.select()} data-testid="share-url" />
         ) : (
           <span className="min-w-0 flex-1 text-xs text-ink/70">
-            Link made {link.createdAt ? new Date(link.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : ""}
-            {link.createdBy ? ` by ${link.createdBy}` : ""} (its address was shown once, when it was made)
+            Link made {createdAt ? new Date(createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" }) : ""}
+            {listed?.createdBy ? ` by ${listed.createdBy.name}` : ""} (its address was shown once, when it was made)
           </span>
         )}
-        {live && link.url && <CopyButton text={link.url} />}
+        {live && url && <CopyButton text={url} />}
         {live && (
           <Button
             variant="quiet"
             className="px-2 py-1 text-xs hover:text-signal"
             disabled={revoke.isPending}
             onClick={() => {
-              if (window.confirm("Revoke this share link? Anyone holding it loses access at once.")) revoke.mutate({ networkId, k, shareId: link.id });
+              if (window.confirm("Revoke this share link? Anyone holding it loses access at once.")) revoke.mutate({ networkId, k, shareId: entry.id });
             }}
           >
             Revoke
@@ -80,12 +88,9 @@ export function ShareDialog({ open, onClose, networkId, teamId, k }: { open: boo
   const create = useCreateShareLink();
   const members = useTeamMembers(open ? teamId : undefined);
   // The address of a link is known only in the answer that made it; keep it for this dialog.
-  const [created, setCreated] = useState<ShareLink[]>([]);
-  const all = [...(links.data ?? [])].reverse().map((link) => {
-    const made = created.find((c) => c.id === link.id);
-    return made ? { ...link, token: made.token, url: made.url } : link;
-  });
-  for (const c of created) if (!all.some((l) => l.id === c.id)) all.unshift(c);
+  const [created, setCreated] = useState<CreatedShare[]>([]);
+  const all: LinkEntry[] = [...(links.data ?? [])].reverse().map((listed) => ({ id: listed.id, listed, made: created.find((c) => c.id === listed.id) ?? null }));
+  for (const made of created) if (!all.some((entry) => entry.id === made.id)) all.unshift({ id: made.id, listed: null, made });
 
   return (
     <Dialog open={open} onClose={onClose} title={`Share revision ${k}`} wide>
@@ -121,8 +126,8 @@ export function ShareDialog({ open, onClose, networkId, teamId, k }: { open: boo
         {links.isError && <InlineError error={links.error} />}
         {all.length > 0 ? (
           <ul className="space-y-2" aria-label="Share links of this revision">
-            {all.map((link) => (
-              <LinkRow key={link.id} link={link} networkId={networkId} k={k} />
+            {all.map((entry) => (
+              <LinkRow key={entry.id} entry={entry} networkId={networkId} k={k} />
             ))}
           </ul>
         ) : (

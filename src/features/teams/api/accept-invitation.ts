@@ -1,8 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { AcceptedInvitation } from "@/lib/api-contract";
 
 export function acceptInvitation({ token }: { token: string }) {
-  return api<{ team: { id: string; name: string; role: string } }>(`/invitations/${encodeURIComponent(token)}/accept`, { method: "POST" });
+  return api<AcceptedInvitation>(`/invitations/${encodeURIComponent(token)}/accept`, { method: "POST" });
 }
 
 export function useAcceptInvitation() {

@@ -1,9 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { Role } from "@/types/api";
+import type { MemberList, RoleRequest } from "@/lib/api-contract";
 
-export function changeMemberRole({ teamId, userId, role }: { teamId: string; userId: string; role: Role }) {
-  return api<unknown>(`/teams/${encodeURIComponent(teamId)}/members/${encodeURIComponent(userId)}`, { method: "PATCH", json: { role } });
+export function changeMemberRole({ teamId, userId, role }: RoleRequest & { teamId: string; userId: string }) {
+  return api<MemberList>(`/teams/${encodeURIComponent(teamId)}/members/${encodeURIComponent(userId)}`, { method: "PATCH", json: { role } });
 }
 
 export function useChangeMemberRole() {

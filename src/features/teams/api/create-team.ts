@@ -1,8 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { Team, TeamRequest } from "@/lib/api-contract";
 
-export function createTeam(input: { name: string }) {
-  return api<{ id: string; name: string }>("/teams", { method: "POST", json: input });
+export function createTeam(input: TeamRequest) {
+  return api<Team>("/teams", { method: "POST", json: input });
 }
 
 export function useCreateTeam() {

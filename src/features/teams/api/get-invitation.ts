@@ -1,14 +1,6 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { Role } from "@/types/api";
-
-export interface InvitationPreview {
-  team: { id: string; name: string };
-  role: Role;
-  email: string;
-  invitedBy: string | null;
-  expiresAt: string;
-}
+import type { InvitationPreview } from "@/lib/api-contract";
 
 // Readable without an account, so the invited person sees what they are joining before signing in.
 export function getInvitation(token: string) {

@@ -1,17 +1,9 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { Role } from "@/types/api";
+import type { MemberList } from "@/lib/api-contract";
 
-export interface TeamMember {
-  userId: string;
-  name: string;
-  email: string;
-  role: Role;
-}
-
-export async function getTeamMembers(teamId: string): Promise<TeamMember[]> {
-  const body = await api<TeamMember[] | { members: TeamMember[] }>(`/teams/${encodeURIComponent(teamId)}/members`);
-  return Array.isArray(body) ? body : body.members;
+export function getTeamMembers(teamId: string) {
+  return api<MemberList>(`/teams/${encodeURIComponent(teamId)}/members`).then((body) => body.members);
 }
 
 export const teamMembersQueryOptions = (teamId: string) =>

@@ -1,17 +1,9 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { Role } from "@/types/api";
-
-export interface TeamSettings {
-  id: string;
-  name: string;
-  personal: boolean;
-  role: Role;
-  requiredApprovals: number;
-}
+import type { Team } from "@/lib/api-contract";
 
 export function getTeam(teamId: string) {
-  return api<TeamSettings>(`/teams/${encodeURIComponent(teamId)}`);
+  return api<Team>(`/teams/${encodeURIComponent(teamId)}`);
 }
 
 export const teamQueryOptions = (teamId: string) => queryOptions({ queryKey: ["teams", teamId, "settings"], queryFn: () => getTeam(teamId) });

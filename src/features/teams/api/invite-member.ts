@@ -1,9 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { Role } from "@/types/api";
+import type { CreatedInvitation, InvitationRequest } from "@/lib/api-contract";
 
-export function inviteMember({ teamId, ...input }: { teamId: string; email: string; role: Role }) {
-  return api<unknown>(`/teams/${encodeURIComponent(teamId)}/invitations`, { method: "POST", json: input });
+export function inviteMember({ teamId, ...input }: InvitationRequest & { teamId: string }) {
+  return api<CreatedInvitation>(`/teams/${encodeURIComponent(teamId)}/invitations`, { method: "POST", json: input });
 }
 
 export function useInviteMember() {

@@ -1,9 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { TeamSettings } from "./get-team";
+import type { Team, TeamChangesRequest } from "@/lib/api-contract";
 
-export function updateTeam({ teamId, ...changes }: { teamId: string; name?: string; requiredApprovals?: number }) {
-  return api<TeamSettings>(`/teams/${encodeURIComponent(teamId)}`, { method: "PATCH", json: changes });
+export function updateTeam({ teamId, ...changes }: TeamChangesRequest & { teamId: string }) {
+  return api<Team>(`/teams/${encodeURIComponent(teamId)}`, { method: "PATCH", json: changes });
 }
 
 export function useUpdateTeam() {

@@ -2,7 +2,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { SelectField, TextField } from "@/components/ui/field";
 import { InlineError } from "@/components/ui/states";
-import type { Role } from "@/types/api";
+import type { Role } from "@/lib/api-contract";
 import { useInviteMember } from "../api/invite-member";
 
 // Owners invite by e-mail; the invitation link expires and joins the team with the chosen role.

@@ -1,5 +1,5 @@
 import { ErrorState, InlineError, LoadingState } from "@/components/ui/states";
-import type { Role } from "@/types/api";
+import type { Role } from "@/lib/api-contract";
 import { useChangeMemberRole } from "../api/change-member-role";
 import { useTeamMembers } from "../api/get-team-members";
 import { useRemoveMember } from "../api/remove-member";

@@ -1,9 +1,9 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { ValueSet } from "@/types/api";
+import type { ValueSetList } from "@/lib/api-contract";
 
 export function getValueSets(networkId: string) {
-  return api<{ valueSets: ValueSet[] }>(`/networks/${encodeURIComponent(networkId)}/value-sets`).then((r) => r.valueSets);
+  return api<ValueSetList>(`/networks/${encodeURIComponent(networkId)}/value-sets`).then((r) => r.valueSets);
 }
 
 export const valueSetsQueryOptions = (networkId: string) => queryOptions({ queryKey: ["networks", networkId, "value-sets"], queryFn: () => getValueSets(networkId) });

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { ValueSet } from "@/types/api";
+import type { SaveValueSetRequest, ValueSet } from "@/lib/api-contract";
 
-export function saveValueSet({ networkId, name, values }: { networkId: string; name: string; values: Record<string, string> }) {
+export function saveValueSet({ networkId, name, values }: SaveValueSetRequest & { networkId: string }) {
   return api<ValueSet>(`/networks/${encodeURIComponent(networkId)}/value-sets`, { method: "POST", json: { name, values } });
 }
 

@@ -1,7 +1,7 @@
 import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { InlineError } from "@/components/ui/states";
-import type { ValueSet } from "@/types/api";
+import type { ValueSet } from "@/lib/api-contract";
 import { useDeleteValueSet } from "../api/delete-value-set";
 import { useSaveValueSet } from "../api/save-value-set";
 
