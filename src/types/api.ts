@@ -1,6 +1,6 @@
 // Shapes of the server's JSON as the client reads them. The server owns them; the client
 // normalises what it receives in one place per resource (see features/*/api).
-import type { Diagnostic as EngineDiagnostic, Element, NetworkInput } from "../../shared/engine/types";
+import type { EngineDiagnostic, Element, NetworkInput } from "@/lib/engine-netlist";
 
 export type Role = "owner" | "editor" | "reviewer" | "viewer";
 export type Verdict = "open" | "approved" | "needs_changes";
