@@ -1,5 +1,5 @@
 // Derivation revisions: immutable solves of a network, numbered per network, steps as rows.
-import { and, asc, desc, eq, inArray, max } from "drizzle-orm";
+import { and, asc, desc, eq, max } from "drizzle-orm";
 import { config } from "../config.js";
 import type { Database } from "../db/client.js";
 import { networks, revisionSteps, revisions, users, type Role } from "../db/schema.js";

@@ -1,5 +1,5 @@
 import { createBrowserRouter, RouterProvider } from "react-router-dom";
-import { AppLayout } from "@/components/ui/app-layout";
+import { AppLayout } from "./app-layout";
 import { ErrorState } from "@/components/ui/states";
 import { AcceptInvitationRoute } from "./routes/accept-invitation";
 import { HomeRoute } from "./routes/home";

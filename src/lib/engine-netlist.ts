@@ -4,6 +4,6 @@ export { parseNetlistText, printElementLine, printNetlistText, NETLIST_EXTENSION
 export { validateNetworkJson } from "../../shared/engine/circuit/schema";
 export { ELEMENT_KINDS, QUANTITIES } from "../../shared/engine/types";
 export { elementPhrase, isControlled, sourceControls } from "../../shared/engine/circuit/elements";
-export type { Element, ElementKind, Network as EngineNetwork, ParseResult, Quantity } from "../../shared/engine/types";
-export { BUILT_IN_CELLS } from "../../shared/engine/circuit/cells";
+export type { Diagnostic as EngineDiagnostic, Element, ElementKind, Network as EngineNetwork, NetworkInput, ParseResult, Quantity } from "../../shared/engine/types";
+export { BUILT_IN_CELLS, CELL_GROUND } from "../../shared/engine/circuit/cells";
 export type { CellDefinition, CellInstance } from "../../shared/engine/types";

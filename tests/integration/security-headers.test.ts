@@ -1,7 +1,6 @@
 // Security headers and logs: a Content-Security-Policy the built client lives within (checked in
 // chromium), the JSON body limit, request ids, and logs without cookies, tokens or passwords.
-import { readFileSync, rmSync } from "node:fs";
-import { join } from "node:path";
+import { rmSync } from "node:fs";
 import { Writable } from "node:stream";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";

@@ -10,7 +10,7 @@
 // side by side in one integer), so multiplying monomials is adding keys. Keys fit in a
 // double up to 53 bits and fall back to BigInt keys beyond.
 
-import { Rational, bigAbs, bigGcd, bigLcm } from "./rational";
+import { Rational, bigGcd, bigLcm } from "./rational";
 import { compareNames, sortNames, texName } from "./names";
 import { TermTable, smallCoefficients } from "./term-table";
 

@@ -3,7 +3,7 @@
 // its unit V^a A^b s^c must multiply Rth by λ_V/λ_A, Vth by λ_V, Isc by λ_A.
 
 import { RationalFunction } from "../algebra";
-import type { Diagnostic, DimensionCheck, DimensionReport, Network, Quantity, ResultName } from "../types";
+import type { Diagnostic, DimensionReport, Network, Quantity, ResultName } from "../types";
 import { diagnostic } from "./diagnostics";
 import { gainQuantity, isOpamp, valueQuantity } from "./elements";
 import { assembleNodalSystem } from "./mna";

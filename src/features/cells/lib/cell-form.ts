@@ -1,7 +1,6 @@
 // The add-a-cell form read into the engine's cell definition: elements from netlist lines, lists from commas.
-import { parseNetlistText, type CellDefinition, type Element } from "@/lib/engine-netlist";
+import { CELL_GROUND, parseNetlistText, type CellDefinition, type Element } from "@/lib/engine-netlist";
 import type { Diagnostic } from "@/lib/api-contract";
-import { CELL_GROUND } from "../../../../shared/engine/circuit/cells";
 
 export interface CellFormInput {
   id: string;

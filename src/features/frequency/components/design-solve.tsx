@@ -6,9 +6,9 @@ import { readTypedNumber } from "@/features/analysis/lib/typed-number";
 import { readTypedValues, type ExactResults } from "@/features/analysis/lib/exact-results";
 import { RESULT_LABEL, RESULT_NAMES, RESULT_UNIT, symbolUnit } from "@/features/analysis/lib/quantities";
 import type { TypedValues } from "@/features/analysis/components/values-panel";
-import type { Quantity } from "../../../../shared/engine/types";
+import type { Quantity } from "@/lib/engine-netlist";
 import type { ResultName } from "@/lib/api-contract";
-import { designSolve, type DesignSolveAnswer } from "../lib/frequency";
+import { designSolve, type DesignSolveAnswer } from "@/lib/engine-frequency";
 
 const select = "mt-0.5 w-full rounded border border-rule bg-white px-1.5 py-1 text-xs";
 

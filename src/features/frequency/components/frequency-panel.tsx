@@ -12,7 +12,7 @@ import { readTypedNumber } from "@/features/analysis/lib/typed-number";
 import type { TypedValues } from "@/features/analysis/components/values-panel";
 import { downloadText } from "@/features/export/lib/latex";
 import { bodeCsv, bodeFunctions, magnitudeName, readFrequencyRange, toDb, type BodeFunction } from "../lib/bode";
-import { frequencyLimit, frequencyResponse, frequencySpan, independentSourcesOf, logFrequencies, numericCoefficientsInS, openCircuitTransfer, polesAndZeros, type SRoot } from "../lib/frequency";
+import { frequencyLimit, frequencyResponse, frequencySpan, independentSourcesOf, logFrequencies, numericCoefficientsInS, openCircuitTransfer, polesAndZeros, type SRoot } from "@/lib/engine-frequency";
 
 // uPlot arrives only when a Bode plot is first drawn.
 const Chart = lazy(() => import("@/features/analysis/components/sweep-chart"));

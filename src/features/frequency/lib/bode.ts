@@ -1,7 +1,7 @@
 import { formatSI, type RationalFunction } from "@/lib/engine";
 import { readTypedNumber } from "@/features/analysis/lib/typed-number";
 import { MAX_DECADES } from "@/features/analysis/lib/sweep";
-import type { OpenCircuitTransfer } from "./frequency";
+import type { OpenCircuitTransfer } from "@/lib/engine-frequency";
 
 /** One function of s the Frequency panel can draw: its name, its unit and what it is. */
 export interface BodeFunction {

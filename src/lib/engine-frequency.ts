@@ -12,6 +12,6 @@ export {
   type OpenCircuitTransfer,
   type PolesZeros,
   type SRoot,
-} from "../../../../shared/engine/circuit/frequency";
-export { designSolve, type DesignSolveAnswer } from "../../../../shared/engine/circuit/design-solve";
-export { independentSourcesOf, type IndependentSource } from "../../../../shared/engine/index";
+} from "../../shared/engine/circuit/frequency";
+export { designSolve, type DesignSolveAnswer } from "../../shared/engine/circuit/design-solve";
+export { independentSourcesOf, type IndependentSource } from "../../shared/engine/index";
