@@ -4,7 +4,7 @@ import { and, eq } from "drizzle-orm";
 import { hashPassword } from "../auth/password.js";
 import { config, isProduction } from "../config.js";
 import { personalTeamName } from "../domain/accounts.js";
-import type { Network } from "../domain/engine.js";
+import type { Network } from "../solver/engine.js";
 import { derive } from "../domain/solve.js";
 import { storeRevision } from "../domain/revisions.js";
 import { hashToken } from "../lib/tokens.js";

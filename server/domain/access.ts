@@ -5,11 +5,7 @@ import { networks, teamMembers, type Role } from "../db/schema.js";
 import { forbidden, notFound } from "./errors.js";
 import type { Transaction } from "./services.js";
 
-const rank: Record<Role, number> = { viewer: 0, reviewer: 1, editor: 2, owner: 3 };
-
-export function roleAtLeast(role: Role, minimum: Role): boolean {
-  return rank[role] >= rank[minimum];
-}
+import { roleAtLeast } from "../../shared/api/common.js";
 
 export async function memberRole(db: Database | Transaction, teamId: string, userId: string): Promise<Role | null> {
   const [row] = await db

@@ -4,7 +4,7 @@ import type { Database } from "../db/client.js";
 import { teamCells, users } from "../db/schema.js";
 import { Conflict, Invalid, notFound } from "./errors.js";
 import { requireTeamRole } from "./access.js";
-import { BUILT_IN_CELLS, externalCellIds, type CellDefinition, type Network } from "./engine.js";
+import { BUILT_IN_CELLS, externalCellIds, type CellDefinition, type Network } from "../solver/engine.js";
 import { readCell } from "./reading.js";
 import type { Services, Transaction } from "./services.js";
 

@@ -1,6 +1,6 @@
 // Comparing two revisions of a network: what changed in the circuit, which results changed.
 import type { Database } from "../db/client.js";
-import type { Network } from "./engine.js";
+import type { Network } from "../solver/engine.js";
 import { requireRevision } from "./revisions.js";
 
 type Element = Network["elements"][number];

@@ -8,7 +8,7 @@ import { withoutControls } from "../lib/validate.js";
 import { Conflict, UnsupportedType, notFound } from "./errors.js";
 import { requireNetworkRole, requireTeamRole, type NetworkRow } from "./access.js";
 import { revisionStateSql } from "./verdicts.js";
-import { NETLIST_EXTENSION, type Network } from "./engine.js";
+import { NETLIST_EXTENSION, type Network } from "../solver/engine.js";
 import { readNetworkFile } from "./reading.js";
 import type { Services } from "./services.js";
 

@@ -3,7 +3,8 @@
 import { Invalid, Unprocessable } from "./errors.js";
 import type { CapBreach } from "../solver/caps.js";
 import type { ReadOutcome } from "../solver/read-task.js";
-import { checkExpressionBounds, parseNetwork, type CellDefinition, type Diagnostic, type Network } from "./engine.js";
+import { checkExpressionBounds } from "./expression-bounds.js";
+import { parseNetwork, type CellDefinition, type Diagnostic, type Network } from "../solver/engine.js";
 import type { Services } from "./services.js";
 
 function readCapped(found: CapBreach): Unprocessable {

@@ -6,7 +6,7 @@ import { networks, revisionSteps, revisions, users, type Role } from "../db/sche
 import { notFound } from "./errors.js";
 import { requireNetworkRole, type NetworkRow } from "./access.js";
 import type { Derivation, StepRecord } from "../solver/derive.js";
-import type { Diagnostic, Network } from "./engine.js";
+import type { Diagnostic, Network } from "../solver/engine.js";
 import { openNoteCounts } from "./reviews.js";
 import { approvedBefore, revisionStates, type RevisionState } from "./verdicts.js";
 

@@ -4,7 +4,7 @@ import type { Database } from "../db/client.js";
 import { networks, revisions, shareLinks, teamMembers, users } from "../db/schema.js";
 import { Invalid, forbidden, notFound } from "./errors.js";
 import { hashToken, newToken } from "../lib/tokens.js";
-import { roleAtLeast } from "./access.js";
+import { roleAtLeast } from "../../shared/api/common.js";
 import { requireRevision, revisionView } from "./revisions.js";
 import { link, type Services } from "./services.js";
 import { valueSetsOf } from "./value-sets.js";

@@ -8,7 +8,7 @@ import type { Logger } from "pino";
 import type { SolveSettings } from "../config.js";
 import type { Database } from "../db/client.js";
 import { workQueue, type QueueWorker } from "../jobs/boss.js";
-import type { Network, SolveOptions } from "./engine.js";
+import type { Network, SolveOptions } from "../solver/engine.js";
 import { readSolveJob, solveJobChannel, type SolveJobRow } from "./solve-jobs.js";
 
 export interface SolveJobData {

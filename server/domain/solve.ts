@@ -10,7 +10,7 @@ import { cachedDerivation, noteCacheHit, solveKey, storeDerivation } from "../so
 import { deriveOutcome, type Derivation, type SolveOutcome } from "../solver/derive.js";
 import { requireNetworkRole } from "./access.js";
 import { withTeamCells } from "./cells.js";
-import type { Network, SolveOptions } from "./engine.js";
+import type { Network, SolveOptions } from "../solver/engine.js";
 import { readNetwork } from "./reading.js";
 import { revisionView, storeRevision, type RevisionView } from "./revisions.js";
 import type { Services } from "./services.js";

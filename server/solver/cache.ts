@@ -6,7 +6,7 @@ import { fileURLToPath } from "node:url";
 import { eq, sql } from "drizzle-orm";
 import type { Database } from "../db/client.js";
 import { solveCache } from "../db/schema.js";
-import type { Network, SolveOptions } from "../domain/engine.js";
+import type { Network, SolveOptions } from "./engine.js";
 import type { Derivation } from "./derive.js";
 
 /** JSON with object keys sorted at every level, so equal data always prints the same. */

@@ -1,6 +1,6 @@
 // Size and time caps of one solve: what is measured, against which setting, and how a breach is told.
 import type { SolveSettings } from "../config.js";
-import type { Network } from "../domain/engine.js";
+import type { Network } from "./engine.js";
 
 export type CapName = "elements" | "symbols" | "resultTerms" | "time" | "memory" | "revisionBytes";
 

@@ -1,5 +1,5 @@
 // One solve, as a pure function: the engine derives, the outcome is split the way a revision stores it.
-import { solveNetwork, type Diagnostic, type Network, type SolveOptions } from "../domain/engine.js";
+import { solveNetwork, type Diagnostic, type Network, type SolveOptions } from "./engine.js";
 import { breach, resultBreach, type CapBreach } from "./caps.js";
 import { boundDerivation } from "./revision-size.js";
 

@@ -3,7 +3,7 @@
 import { MessageChannel } from "node:worker_threads";
 import { Piscina } from "piscina";
 import type { SolveSettings } from "../config.js";
-import type { Network, SolveOptions } from "../domain/engine.js";
+import type { Network, SolveOptions } from "./engine.js";
 import { breach, type CapBreach } from "./caps.js";
 import type { ReadOutcome, ReadTask } from "./read-task.js";
 import type { SolveOutcome } from "./derive.js";

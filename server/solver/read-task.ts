@@ -1,7 +1,7 @@
 // What the reader thread runs: the engine's reader on a network (JSON or netlist text) or a cell
 // definition. Parsing typed values can take long on large input, so it never runs on the request thread.
 import type { MessagePort } from "node:worker_threads";
-import { parseNetwork, readCellDefinition, type CellDefinition, type Diagnostic, type Network } from "../domain/engine.js";
+import { parseNetwork, readCellDefinition, type CellDefinition, type Diagnostic, type Network } from "./engine.js";
 import { startedMessage } from "./solve-task.js";
 
 export type ReadTask = { kind: "network" | "cell"; input: unknown; progress: MessagePort };

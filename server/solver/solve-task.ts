@@ -1,6 +1,6 @@
 // What one solver thread runs per task: tell the pool the solve has started, then derive.
 import type { MessagePort } from "node:worker_threads";
-import type { Network, SolveOptions } from "../domain/engine.js";
+import type { Network, SolveOptions } from "./engine.js";
 import { deriveOutcome, type SolveOutcome } from "./derive.js";
 
 export interface SolveTask {

@@ -4,6 +4,13 @@ import { z } from "zod";
 export const roles = ["owner", "editor", "reviewer", "viewer"] as const;
 export type Role = (typeof roles)[number];
 
+const roleRank: Record<Role, number> = { viewer: 0, reviewer: 1, editor: 2, owner: 3 };
+
+/** Whether a role may do what `minimum` may: owner > editor > reviewer > viewer. The server decides; the client mirrors it. */
+export function roleAtLeast(role: Role, minimum: Role): boolean {
+  return roleRank[role] >= roleRank[minimum];
+}
+
 export const verdicts = ["open", "approved", "needs_changes"] as const;
 export type Verdict = (typeof verdicts)[number];
 

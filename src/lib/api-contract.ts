@@ -12,6 +12,8 @@ import type * as valueSets from "../../shared/api/value-sets";
 import type { ResultName as EngineResultName } from "../../shared/engine/types";
 
 export type { Role, RevisionState, Verdict } from "../../shared/api/common";
+export { roleAtLeast } from "../../shared/api/common";
+export { roles } from "../../shared/api/common";
 export type { ApiToken, CreateTokenRequest, CreatedToken, TokenList, TokenScope } from "../../shared/api/tokens";
 // What the engine owns inside the answers: a circuit, its elements, its diagnostics, one result's printed forms.
 export type { CheckDetail, Diagnostic, Element as CircuitElement, ExactExpression, NetworkInput as Circuit } from "../../shared/engine/types";

@@ -23,7 +23,7 @@ export interface SolveOutput {
   };
   steps: Step[];
   diagnostics: Diagnostic[];
-  // Extensions beyond the keys the issue fixes.
+  // Extensions beyond the fixed keys of the output format.
   ok: boolean;
   compactTex: PerResult<string | null>;
   statements: SolveResult["statements"];

@@ -6,13 +6,13 @@ import { EmptyState, ErrorState, LoadingState } from "@/components/ui/states";
 import { RequireAccount } from "@/features/auth/components/require-account";
 import { useRevision } from "@/features/derivations/api/get-revision";
 import { useRevisions } from "@/features/derivations/api/get-revisions";
-import { circuitDifferences, resultChanged } from "@/features/history/lib/compare";
+import { useRevisionComparison } from "@/features/history/api/get-revision-comparison";
 import { Schematic } from "@/features/network-editor/components/schematic";
 import { useNetwork } from "@/features/networks/api/get-network";
 import { VerdictMark } from "@/features/review/components/verdict-mark";
 import { compactTex } from "@/features/derivations/lib/printed-forms";
 import { printElementLine, type EngineNetwork } from "@/lib/engine-netlist";
-import type { Revision } from "@/lib/api-contract";
+import type { CircuitElement, Revision } from "@/lib/api-contract";
 
 const RESULTS = [
   ["vth", "V_{\\mathrm{th}}"],
@@ -20,7 +20,7 @@ const RESULTS = [
   ["isc", "I_{\\mathrm{sc}}"],
 ] as const;
 
-function RevisionSide({ revision, other }: { revision: Revision; other: Revision }) {
+function RevisionSide({ revision, changed }: { revision: Revision; changed: ReadonlySet<string> }) {
   return (
     <div className="min-w-0">
       <h3 className="text-sm font-semibold">Revision {revision.number}</h3>
@@ -32,7 +32,7 @@ function RevisionSide({ revision, other }: { revision: Revision; other: Revision
       </div>
       <dl className="mt-2 space-y-1 text-sm">
         {RESULTS.map(([name, tex]) => (
-          <div key={name} className={resultChanged(revision, other, name) ? "border-l-2 border-copper pl-2" : "pl-2.5"}>
+          <div key={name} className={changed.has(name) ? "border-l-2 border-copper pl-2" : "pl-2.5"}>
             <dt className="sr-only">{name}</dt>
             <dd className="overflow-x-auto">{revision.results[name] ? <MathTex tex={`${tex} = ${compactTex(revision.results[name]!)}`} /> : <span className="text-ink/50">none</span>}</dd>
           </div>
@@ -45,11 +45,22 @@ function RevisionSide({ revision, other }: { revision: Revision; other: Revision
 function Comparison({ networkId, from, to }: { networkId: string; from: number; to: number }) {
   const a = useRevision(networkId, from);
   const b = useRevision(networkId, to);
-  if (a.isLoading || b.isLoading) return <LoadingState label="Loading both revisions…" />;
-  if (a.isError || b.isError) return <ErrorState error={a.error ?? b.error} title="The revisions could not be compared" />;
-  if (!a.data || !b.data) return null;
-  const diff = circuitDifferences(a.data.circuit, b.data.circuit);
-  const changedResults = RESULTS.filter(([n]) => resultChanged(a.data!, b.data!, n)).map(([n]) => n);
+  const comparison = useRevisionComparison(networkId, from, to);
+  if (a.isLoading || b.isLoading || comparison.isLoading) return <LoadingState label="Loading both revisions…" />;
+  if (a.isError || b.isError || comparison.isError) return <ErrorState error={a.error ?? b.error ?? comparison.error} title="The revisions could not be compared" />;
+  if (!a.data || !b.data || !comparison.data) return null;
+  const { circuit } = comparison.data;
+  const element = (e: unknown) => e as CircuitElement;
+  const diff = {
+    elements: [
+      ...circuit.removed.map((e) => ({ name: element(e).name, before: element(e), after: null })),
+      ...circuit.changed.map((c) => ({ name: c.name, before: element(c.before), after: element(c.after) })),
+      ...circuit.added.map((e) => ({ name: element(e).name, before: null, after: element(e) })),
+    ],
+    portChanged: circuit.port !== null,
+  };
+  const changed = new Set(comparison.data.results.filter((r) => r.changed).map((r) => r.name));
+  const changedResults = RESULTS.filter(([n]) => changed.has(n)).map(([n]) => n);
   const line = (e: Parameters<typeof printElementLine>[0] | null) => (e ? printElementLine(e) : "—");
   return (
     <section aria-label={`Revision ${from} compared with ${to}`} className="mt-6">
@@ -84,8 +95,8 @@ function Comparison({ networkId, from, to }: { networkId: string; from: number; 
         )}
       </div>
       <div className="mt-4 grid gap-6 md:grid-cols-2">
-        <RevisionSide revision={a.data} other={b.data} />
-        <RevisionSide revision={b.data} other={a.data} />
+        <RevisionSide revision={a.data} changed={changed} />
+        <RevisionSide revision={b.data} changed={changed} />
       </div>
     </section>
   );
@@ -99,7 +110,7 @@ export function RevisionHistoryRoute() {
   const [picked, setPicked] = useState<number[]>([]);
   const from = Number(params.get("from")) || null;
   const to = Number(params.get("to")) || null;
-  const toggle = (k: number) => setPicked((list) => (list.includes(k) ? list.filter((x) => x !== k) : [...list, k].slice(-2)));
+  const toggle = (number: number) => setPicked((list) => (list.includes(number) ? list.filter((x) => x !== number) : [...list, number].slice(-2)));
   return (
     <RequireAccount>
       {() => (

@@ -12,6 +12,7 @@ import { ReviewPanel } from "@/features/review/components/review-panel";
 import { useSharedRevision } from "@/features/sharing/api/get-shared-revision";
 import { ApiError } from "@/lib/api-client";
 import { shortDateTime } from "@/lib/dates";
+import { roleAtLeast } from "@/lib/api-contract";
 import { printNetlistText, type EngineNetwork } from "@/lib/engine-netlist";
 import { ResultCard } from "@/features/derivations/components/result-card";
 
@@ -27,7 +28,7 @@ export function SharedViewRoute() {
   const network = useNetwork(me.data && revision ? revision.networkId : "");
   const member = Boolean(me.data && network.data);
   const role = network.data?.role ?? null;
-  const canReview = role === "owner" || role === "editor" || role === "reviewer";
+  const canReview = role !== null && roleAtLeast(role, "reviewer");
   const comments = useComments(revision?.networkId ?? "", revision?.number ?? 0, member);
   // Members read the revision as the team sees it too: with its count of open notes.
   const memberRevision = useRevision(member ? (revision?.networkId ?? "") : "", member ? (revision?.number ?? null) : null);
@@ -106,7 +107,7 @@ export function SharedViewRoute() {
             Ledger
           </h2>
           <div className="mt-2">
-            <Ledger revision={revision} comments={comments.data ?? []} review={{ networkId: revision.networkId, k: revision.number, canComment: member && canReview, currentUserId: me.data?.user.id ?? null, revisionAuthorId: revision.createdBy?.id ?? null, isOwner: role === "owner", commentPath }} />
+            <Ledger revision={revision} comments={comments.data ?? []} review={{ networkId: revision.networkId, number: revision.number, canComment: member && canReview, currentUserId: me.data?.user.id ?? null, revisionAuthorId: revision.createdBy?.id ?? null, isOwner: role === "owner", commentPath }} />
           </div>
         </section>
         <section aria-label="Values, Limits and Sweep" className="min-w-0">

@@ -2,6 +2,7 @@ import { useState } from "react";
 import { useParams } from "react-router-dom";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/states";
+import { roleAtLeast } from "@/lib/api-contract";
 import { RequireAccount } from "@/features/auth/components/require-account";
 import { AddCellForm } from "@/features/cells/components/add-cell-form";
 import { TeamCells } from "@/features/cells/components/team-cells";
@@ -24,7 +25,7 @@ export function TeamRoute() {
         if (!team) {
           return <EmptyState title="No such team, or you are not a member of it.">Ask the team's owner for an invitation.</EmptyState>;
         }
-        const canEdit = team.role === "owner" || team.role === "editor";
+        const canEdit = roleAtLeast(team.role, "editor");
         return (
           <section>
             <div className="flex flex-wrap items-end justify-between gap-3 border-b border-rule pb-3">

@@ -26,13 +26,13 @@ import { useUpdateNetwork, type UpdateNetworkInput } from "@/features/networks/a
 import { useComments } from "@/features/review/api/get-comments";
 import { ReviewPanel } from "@/features/review/components/review-panel";
 import { ShareDialog } from "@/features/sharing/components/share-dialog";
-import type { Me, Network } from "@/lib/api-contract";
+import { roleAtLeast, type Me, type Network } from "@/lib/api-contract";
 
 // The text the network is edited as: what was typed, or the printed form of a network made from JSON.
 const textOf = (network: Network) => network.netlist ?? netlistOf(network.circuit);
 const layoutKey = (layout: unknown) => JSON.stringify(layout ?? null);
 
-function Workbench({ me, network, k }: { me: Me; network: Network; k: number | null }) {
+function Workbench({ me, network, number }: { me: Me; network: Network; number: number | null }) {
   const navigate = useNavigate();
   const queryClient = useQueryClient();
   const [text, setText] = useState(() => textOf(network));
@@ -47,11 +47,11 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
   const dirty = text !== saved.text || layoutKey(layout) !== saved.layout;
   const update = useUpdateNetwork();
   const solve = useSolveNetwork();
-  const revision = useRevision(network.id, k);
+  const revision = useRevision(network.id, number);
   const role = network.role ?? me.teams.find((t) => t.id === network.teamId)?.role ?? "viewer";
-  const canEdit = role === "owner" || role === "editor";
-  const canReview = canEdit || role === "reviewer";
-  const comments = useComments(network.id, k ?? 0, k !== null);
+  const canEdit = roleAtLeast(role, "editor");
+  const canReview = roleAtLeast(role, "reviewer");
+  const comments = useComments(network.id, number ?? 0, number !== null);
   const valueSets = useValueSets(network.id);
 
   // Leaving with unsaved edits asks first (the browser's own prompt).
@@ -111,10 +111,10 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
   const olderNote =
     solve.error != null ? (
       <>
-        <span className="font-medium">The last Solve failed: {errorMessage(solve.error)}</span> This card shows revision {k}, from before it; see the messages beside the netlist.
+        <span className="font-medium">The last Solve failed: {errorMessage(solve.error)}</span> This card shows revision {number}, from before it; see the messages beside the netlist.
       </>
     ) : stale ? (
-      <>The netlist has changed since revision {k}: {canEdit ? "Solve to bring this result up to date." : "this is the stored revision."}</>
+      <>The netlist has changed since revision {number}: {canEdit ? "Solve to bring this result up to date." : "this is the stored revision."}</>
     ) : undefined;
 
   return (
@@ -129,10 +129,10 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
           </p>
           <NetworkHeading title={network.title} description={network.description} canEdit={canEdit} onSave={(changes) => patch(changes)}>
             <p className="mt-0.5 break-words text-xs text-ink/70">
-              {k ? (
+              {number ? (
                 <>
-                  Derivation revision {k}
-                  {latest && latest !== k ? ` of ${latest}` : ""}
+                  Derivation revision {number}
+                  {latest && latest !== number ? ` of ${latest}` : ""}
                   {revision.data?.createdBy ? ` · solved by ${revision.data.createdBy.name}` : ""}
                   {revision.data?.createdAt ? ` · ${new Date(revision.data.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })}` : ""}
                   {revision.data?.permalink && (
@@ -150,7 +150,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
               {network.author ? ` · network by ${network.author.name}` : ""} · your role: {role}
             </p>
           </NetworkHeading>
-          {k && revision.data && <ReviewPanel revision={revision.data} member canReview={canReview} currentUserId={me.user.id} />}
+          {number && revision.data && <ReviewPanel revision={revision.data} member canReview={canReview} currentUserId={me.user.id} />}
         </div>
         <div className="flex flex-wrap items-center gap-2 print:hidden">
           {latest && latest > 0 && (
@@ -159,7 +159,7 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
             </Link>
           )}
           {revision.data && <ExportMenu revision={revision.data} valueSets={valueSets.data} />}
-          {k && canEdit && (
+          {number && canEdit && (
             <Button onClick={() => setSharing(true)} variant="secondary">
               Share
             </Button>
@@ -208,17 +208,17 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
             Ledger
           </h2>
           <div className="mt-2">
-            {k === null ? (
+            {number === null ? (
               <EmptyState title="No derivation yet.">{canEdit ? "Check the netlist and the port, then press Solve." : "An editor of the team has not solved this network yet."}</EmptyState>
             ) : revision.isLoading ? (
-              <LoadingState label={`Loading revision ${k}…`} />
+              <LoadingState label={`Loading revision ${number}…`} />
             ) : revision.isError ? (
-              <ErrorState error={revision.error} title={`Revision ${k} could not be loaded`} />
+              <ErrorState error={revision.error} title={`Revision ${number} could not be loaded`} />
             ) : revision.data ? (
               <Ledger
                 revision={revision.data}
                 comments={comments.data ?? []}
-                review={{ networkId: network.id, k: revision.data.number, canComment: canReview, currentUserId: me.user.id, revisionAuthorId: revision.data.createdBy?.id ?? null, isOwner: role === "owner" }}
+                review={{ networkId: network.id, number: revision.data.number, canComment: canReview, currentUserId: me.user.id, revisionAuthorId: revision.data.createdBy?.id ?? null, isOwner: role === "owner" }}
               />
             ) : null}
           </div>
@@ -231,13 +231,13 @@ function Workbench({ me, network, k }: { me: Me; network: Network; k: number | n
           )}
         </section>
       </div>
-      {sharing && k && <ShareDialog open={sharing} onClose={() => setSharing(false)} networkId={network.id} teamId={network.teamId} k={k} />}
+      {sharing && number && <ShareDialog open={sharing} onClose={() => setSharing(false)} networkId={network.id} teamId={network.teamId} number={number} />}
     </div>
   );
 }
 
 export function PermalinkRoute() {
-  const { slug = "", k = "" } = useParams();
+  const { slug = "", number = "" } = useParams();
   const network = useNetworkBySlug(slug);
   return (
     <RequireAccount>
@@ -247,7 +247,7 @@ export function PermalinkRoute() {
         ) : network.isError ? (
           <ErrorState error={network.error} title="This link does not open a network you can see" />
         ) : network.data ? (
-          <Navigate to={`/networks/${network.data.id}/r/${k}`} replace />
+          <Navigate to={`/networks/${network.data.id}/r/${number}`} replace />
         ) : null
       }
     </RequireAccount>
@@ -255,9 +255,9 @@ export function PermalinkRoute() {
 }
 
 export function WorkbenchRoute() {
-  const { networkId = "", k: kParam } = useParams();
+  const { networkId = "", number: numberParam } = useParams();
   const network = useNetwork(networkId);
-  const k = kParam ? Number(kParam) : (network.data?.latestRevision ?? null);
+  const number = numberParam ? Number(numberParam) : (network.data?.latestRevision ?? null);
   return (
     <RequireAccount>
       {(me) =>
@@ -266,7 +266,7 @@ export function WorkbenchRoute() {
         ) : network.isError ? (
           <ErrorState error={network.error} title="This network could not be opened" />
         ) : network.data ? (
-          <Workbench key={network.data.id} me={me} network={network.data} k={k && Number.isInteger(k) && k > 0 ? k : null} />
+          <Workbench key={network.data.id} me={me} network={network.data} number={number && Number.isInteger(number) && number > 0 ? number : null} />
         ) : null
       }
     </RequireAccount>

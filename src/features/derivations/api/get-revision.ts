@@ -2,13 +2,13 @@ import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Revision } from "@/lib/api-contract";
 
-export function getRevision(networkId: string, k: number) {
-  return api<Revision>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}`);
+export function getRevision(networkId: string, number: number) {
+  return api<Revision>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}`);
 }
 
-export const revisionQueryOptions = (networkId: string, k: number) =>
-  queryOptions({ queryKey: ["networks", networkId, "revisions", k], queryFn: () => getRevision(networkId, k), staleTime: Infinity });
+export const revisionQueryOptions = (networkId: string, number: number) =>
+  queryOptions({ queryKey: ["networks", networkId, "revisions", number], queryFn: () => getRevision(networkId, number), staleTime: Infinity });
 
-export function useRevision(networkId: string, k: number | null) {
-  return useQuery({ ...revisionQueryOptions(networkId, k ?? 0), enabled: k !== null && k > 0 });
+export function useRevision(networkId: string, number: number | null) {
+  return useQuery({ ...revisionQueryOptions(networkId, number ?? 0), enabled: number !== null && number > 0 });
 }

@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Network } from "@/lib/api-contract";
 
-// The permanent, human-readable link /n/<slug>/r/<k> resolves through the slug.
+// The permanent, human-readable link /n/<slug>/r/<number> resolves through the slug.
 export function getNetworkBySlug(slug: string) {
   return api<Network>(`/networks/by-slug/${encodeURIComponent(slug)}`);
 }

@@ -6,7 +6,7 @@ import { EmptyState, ErrorState, InlineError, LoadingState } from "@/components/
 import { Pager } from "@/components/ui/pager";
 import { shortDateTime } from "@/lib/dates";
 import { VerdictMark } from "@/features/review/components/verdict-mark";
-import type { NetworkSort, NetworkSummary, Role } from "@/lib/api-contract";
+import { roleAtLeast, type NetworkSort, type NetworkSummary, type Role } from "@/lib/api-contract";
 import { useDeleteNetwork } from "../api/delete-network";
 import { useDuplicateNetwork } from "../api/duplicate-network";
 import { useNetworks } from "../api/get-networks";
@@ -73,7 +73,7 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
   const debouncedSearch = useDebounced(search, 250);
   useEffect(() => setPage(1), [debouncedSearch, sort, direction]);
   const networks = useNetworks({ teamId, search: debouncedSearch, sort, direction, page, pageSize: PAGE_SIZE });
-  const canEdit = role === "owner" || role === "editor";
+  const canEdit = roleAtLeast(role, "editor");
 
   const sortBy = (key: NetworkSort) => {
     if (key === sort) setDirection(direction === "asc" ? "desc" : "asc");

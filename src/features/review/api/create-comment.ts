@@ -2,19 +2,19 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Comment, CommentRequest } from "@/lib/api-contract";
 
-export type CreateCommentInput = CommentRequest & { networkId: string; k: number };
+export type CreateCommentInput = CommentRequest & { networkId: string; number: number };
 
-export function createComment({ networkId, k, ...input }: CreateCommentInput) {
-  return api<Comment>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/comments`, { method: "POST", json: input });
+export function createComment({ networkId, number, ...input }: CreateCommentInput) {
+  return api<Comment>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/comments`, { method: "POST", json: input });
 }
 
 export function useCreateComment(onSaved?: () => void) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createComment,
-    onSuccess: async (_data, { networkId, k }) => {
+    onSuccess: async (_data, { networkId, number }) => {
       // The notes and the revision's count of open ones.
-      await queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k] });
+      await queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", number] });
       onSaved?.();
     },
   });

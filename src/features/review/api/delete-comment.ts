@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
-export function deleteComment({ networkId, k, commentId }: { networkId: string; k: number; commentId: string }) {
-  return api<null>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/comments/${encodeURIComponent(commentId)}`, {
+export function deleteComment({ networkId, number, commentId }: { networkId: string; number: number; commentId: string }) {
+  return api<null>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/comments/${encodeURIComponent(commentId)}`, {
     method: "DELETE",
   });
 }
@@ -11,8 +11,8 @@ export function useDeleteComment() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: deleteComment,
-    onSuccess: async (_data, { networkId, k }) => {
-      await queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k] });
+    onSuccess: async (_data, { networkId, number }) => {
+      await queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", number] });
     },
   });
 }

@@ -3,13 +3,13 @@ import { api } from "@/lib/api-client";
 import type { VerdictHistory } from "@/lib/api-contract";
 
 // Every verdict on one revision, newest first, and the state the server derives from them.
-export function getVerdicts(networkId: string, k: number) {
-  return api<VerdictHistory>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/verdicts`);
+export function getVerdicts(networkId: string, number: number) {
+  return api<VerdictHistory>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/verdicts`);
 }
 
-export const verdictsQueryOptions = (networkId: string, k: number) =>
-  queryOptions({ queryKey: ["networks", networkId, "revisions", k, "verdicts"], queryFn: () => getVerdicts(networkId, k) });
+export const verdictsQueryOptions = (networkId: string, number: number) =>
+  queryOptions({ queryKey: ["networks", networkId, "revisions", number, "verdicts"], queryFn: () => getVerdicts(networkId, number) });
 
-export function useVerdicts(networkId: string, k: number, enabled = true) {
-  return useQuery({ ...verdictsQueryOptions(networkId, k), enabled: enabled && Boolean(networkId) && k > 0 });
+export function useVerdicts(networkId: string, number: number, enabled = true) {
+  return useQuery({ ...verdictsQueryOptions(networkId, number), enabled: enabled && Boolean(networkId) && number > 0 });
 }

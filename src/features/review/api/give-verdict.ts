@@ -2,16 +2,16 @@ import { useMutation, useQueryClient, type QueryClient } from "@tanstack/react-q
 import { api } from "@/lib/api-client";
 import type { VerdictGiven, VerdictRequest } from "@/lib/api-contract";
 
-export type GiveVerdictInput = VerdictRequest & { networkId: string; k: number };
+export type GiveVerdictInput = VerdictRequest & { networkId: string; number: number };
 
-export function giveVerdict({ networkId, k, verdict, note }: GiveVerdictInput) {
-  return api<VerdictGiven>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/verdicts`, { method: "POST", json: { verdict, ...(note ? { note } : {}) } });
+export function giveVerdict({ networkId, number, verdict, note }: GiveVerdictInput) {
+  return api<VerdictGiven>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/verdicts`, { method: "POST", json: { verdict, ...(note ? { note } : {}) } });
 }
 
 // A verdict changes the revision, its history, the network's summary and both review pages.
-export async function refreshAfterVerdict(queryClient: QueryClient, networkId: string, k: number) {
+export async function refreshAfterVerdict(queryClient: QueryClient, networkId: string, number: number) {
   await Promise.all([
-    queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k] }),
+    queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", number] }),
     queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", "list"] }),
     queryClient.invalidateQueries({ queryKey: ["share"] }),
     queryClient.invalidateQueries({ queryKey: ["reviews"] }),
@@ -22,5 +22,5 @@ export async function refreshAfterVerdict(queryClient: QueryClient, networkId: s
 
 export function useGiveVerdict() {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: giveVerdict, onSuccess: (_data, { networkId, k }) => refreshAfterVerdict(queryClient, networkId, k) });
+  return useMutation({ mutationFn: giveVerdict, onSuccess: (_data, { networkId, number }) => refreshAfterVerdict(queryClient, networkId, number) });
 }

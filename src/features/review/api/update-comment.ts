@@ -2,8 +2,8 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Comment, EditCommentRequest } from "@/lib/api-contract";
 
-export function updateComment({ networkId, k, commentId, body }: EditCommentRequest & { networkId: string; k: number; commentId: string }) {
-  return api<Comment>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/comments/${encodeURIComponent(commentId)}`, {
+export function updateComment({ networkId, number, commentId, body }: EditCommentRequest & { networkId: string; number: number; commentId: string }) {
+  return api<Comment>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/comments/${encodeURIComponent(commentId)}`, {
     method: "PATCH",
     json: { body },
   });
@@ -13,8 +13,8 @@ export function useUpdateComment() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: updateComment,
-    onSuccess: async (_data, { networkId, k }) => {
-      await queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k] });
+    onSuccess: async (_data, { networkId, number }) => {
+      await queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", number] });
     },
   });
 }

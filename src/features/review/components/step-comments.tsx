@@ -13,7 +13,7 @@ import { formulaTerms } from "../lib/formula-terms";
 
 export interface ReviewContext {
   networkId: string;
-  k: number;
+  number: number;
   canComment: boolean;
   currentUserId: string | null;
   /** Who may resolve any thread besides its author: the revision's author and team owners. */
@@ -76,7 +76,7 @@ function ThreadState({ comment, review }: { comment: Reply; review: ReviewContex
           type="button"
           className="text-ink/60 hover:text-verdigris"
           disabled={toggle.isPending}
-          onClick={() => toggle.mutate({ networkId: review.networkId, k: review.k, commentId: comment.id, resolved: !comment.resolved })}
+          onClick={() => toggle.mutate({ networkId: review.networkId, number: review.number, commentId: comment.id, resolved: !comment.resolved })}
         >
           {comment.resolved ? "Reopen" : "Resolve"}
         </button>
@@ -167,7 +167,7 @@ function CommentItem({ comment, replies, review, stepTitle }: { comment: Reply; 
           pending={update.isPending}
           error={update.error}
           onCancel={() => setMode("read")}
-          onSubmit={(body) => update.mutate({ networkId: review.networkId, k: review.k, commentId: comment.id, body }, { onSuccess: () => setMode("read") })}
+          onSubmit={(body) => update.mutate({ networkId: review.networkId, number: review.number, commentId: comment.id, body }, { onSuccess: () => setMode("read") })}
         />
       ) : (
         <>
@@ -202,7 +202,7 @@ function CommentItem({ comment, replies, review, stepTitle }: { comment: Reply; 
                     className="text-ink/60 hover:text-signal"
                     disabled={remove.isPending}
                     onClick={() => {
-                      if (window.confirm("Delete this note? This cannot be undone.")) remove.mutate({ networkId: review.networkId, k: review.k, commentId: comment.id });
+                      if (window.confirm("Delete this note? This cannot be undone.")) remove.mutate({ networkId: review.networkId, number: review.number, commentId: comment.id });
                     }}
                   >
                     Delete
@@ -227,7 +227,7 @@ function CommentItem({ comment, replies, review, stepTitle }: { comment: Reply; 
           pending={create.isPending}
           error={create.error}
           onCancel={() => setMode("read")}
-          onSubmit={(body) => create.mutate({ networkId: review.networkId, k: review.k, stepId: comment.stepId, body, parentId: comment.parentId ?? comment.id })}
+          onSubmit={(body) => create.mutate({ networkId: review.networkId, number: review.number, stepId: comment.stepId, body, parentId: comment.parentId ?? comment.id })}
         />
       )}
     </li>
@@ -275,7 +275,7 @@ export function StepComments({ stepId, stepTitle, formula = "", comments, review
               onCancel={() => setAdding(false)}
               onSubmit={(body) => {
                 const anchor: NoteAnchor | undefined = adding === "highlight" && highlight ? highlight : adding === "step" && term ? { part: "formula", text: term } : undefined;
-                create.mutate({ networkId: review.networkId, k: review.k, stepId, body, ...(anchor ? { anchor } : {}) }, { onSuccess: () => setTerm("") });
+                create.mutate({ networkId: review.networkId, number: review.number, stepId, body, ...(anchor ? { anchor } : {}) }, { onSuccess: () => setTerm("") });
               }}
             />
           </>

@@ -27,7 +27,7 @@ export function VerdictActions({ revision, entries, currentUserId }: { revision:
     give.reset();
     withdraw.reset();
   };
-  const target = { networkId: revision.networkId, k: revision.number };
+  const target = { networkId: revision.networkId, number: revision.number };
   const record = () => {
     if (action === "withdraw" && standing) withdraw.mutate({ ...target, verdictId: standing.id }, { onSuccess: close });
     if (action === "approve") give.mutate({ ...target, verdict: "approved", note: note.trim() || undefined }, { onSuccess: close });

@@ -2,16 +2,16 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { CreatedShare, ShareRequest } from "@/lib/api-contract";
 
-export type CreateShareLinkInput = ShareRequest & { networkId: string; k: number };
+export type CreateShareLinkInput = ShareRequest & { networkId: string; number: number };
 
-export function createShareLink({ networkId, k, expiresAt }: CreateShareLinkInput) {
-  return api<CreatedShare>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/share`, { method: "POST", json: expiresAt ? { expiresAt } : {} });
+export function createShareLink({ networkId, number, expiresAt }: CreateShareLinkInput) {
+  return api<CreatedShare>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/share`, { method: "POST", json: expiresAt ? { expiresAt } : {} });
 }
 
 export function useCreateShareLink() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createShareLink,
-    onSuccess: (_data, { networkId, k }) => queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k, "shares"] }),
+    onSuccess: (_data, { networkId, number }) => queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", number, "shares"] }),
   });
 }

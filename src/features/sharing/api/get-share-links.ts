@@ -2,13 +2,13 @@ import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { ShareList } from "@/lib/api-contract";
 
-export function getShareLinks(networkId: string, k: number) {
-  return api<ShareList>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/share`).then((body) => body.shares);
+export function getShareLinks(networkId: string, number: number) {
+  return api<ShareList>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/share`).then((body) => body.shares);
 }
 
-export const shareLinksQueryOptions = (networkId: string, k: number) =>
-  queryOptions({ queryKey: ["networks", networkId, "revisions", k, "shares"], queryFn: () => getShareLinks(networkId, k) });
+export const shareLinksQueryOptions = (networkId: string, number: number) =>
+  queryOptions({ queryKey: ["networks", networkId, "revisions", number, "shares"], queryFn: () => getShareLinks(networkId, number) });
 
-export function useShareLinks(networkId: string, k: number, enabled: boolean) {
-  return useQuery({ ...shareLinksQueryOptions(networkId, k), enabled });
+export function useShareLinks(networkId: string, number: number, enabled: boolean) {
+  return useQuery({ ...shareLinksQueryOptions(networkId, number), enabled });
 }

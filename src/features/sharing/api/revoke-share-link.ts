@@ -1,14 +1,14 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
-export function revokeShareLink({ networkId, k, shareId }: { networkId: string; k: number; shareId: string }) {
-  return api<null>(`/networks/${encodeURIComponent(networkId)}/revisions/${k}/share/${encodeURIComponent(shareId)}`, { method: "DELETE" });
+export function revokeShareLink({ networkId, number, shareId }: { networkId: string; number: number; shareId: string }) {
+  return api<null>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/share/${encodeURIComponent(shareId)}`, { method: "DELETE" });
 }
 
 export function useRevokeShareLink() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: revokeShareLink,
-    onSuccess: (_data, { networkId, k }) => queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", k, "shares"] }),
+    onSuccess: (_data, { networkId, number }) => queryClient.invalidateQueries({ queryKey: ["networks", networkId, "revisions", number, "shares"] }),
   });
 }

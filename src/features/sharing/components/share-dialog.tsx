@@ -35,7 +35,7 @@ function CopyButton({ text }: { text: string }) {
 // made shows before the list is read again.
 type LinkEntry = { id: string; listed: Share | null; made: CreatedShare | null };
 
-function LinkRow({ entry, networkId, k }: { entry: LinkEntry; networkId: string; k: number }) {
+function LinkRow({ entry, networkId, number }: { entry: LinkEntry; networkId: string; number: number }) {
   const revoke = useRevokeShareLink();
   const { listed, made } = entry;
   const url = made?.url ?? null;
@@ -67,7 +67,7 @@ function LinkRow({ entry, networkId, k }: { entry: LinkEntry; networkId: string;
             className="px-2 py-1 text-xs hover:text-signal"
             disabled={revoke.isPending}
             onClick={() => {
-              if (window.confirm("Revoke this share link? Anyone holding it loses access at once.")) revoke.mutate({ networkId, k, shareId: entry.id });
+              if (window.confirm("Revoke this share link? Anyone holding it loses access at once.")) revoke.mutate({ networkId, number, shareId: entry.id });
             }}
           >
             Revoke
@@ -81,10 +81,10 @@ function LinkRow({ entry, networkId, k }: { entry: LinkEntry; networkId: string;
 }
 
 // Share links for one revision, and who can see what.
-export function ShareDialog({ open, onClose, networkId, teamId, k }: { open: boolean; onClose: () => void; networkId: string; teamId: string; k: number }) {
+export function ShareDialog({ open, onClose, networkId, teamId, number }: { open: boolean; onClose: () => void; networkId: string; teamId: string; number: number }) {
   const expiryId = useId();
   const [expiry, setExpiry] = useState("");
-  const links = useShareLinks(networkId, k, open);
+  const links = useShareLinks(networkId, number, open);
   const create = useCreateShareLink();
   const members = useTeamMembers(open ? teamId : undefined);
   // The address of a link is known only in the answer that made it; keep it for this dialog.
@@ -93,9 +93,9 @@ export function ShareDialog({ open, onClose, networkId, teamId, k }: { open: boo
   for (const made of created) if (!all.some((entry) => entry.id === made.id)) all.unshift({ id: made.id, listed: null, made });
 
   return (
-    <Dialog open={open} onClose={onClose} title={`Share revision ${k}`} wide>
+    <Dialog open={open} onClose={onClose} title={`Share revision ${number}`} wide>
       <p className="text-sm text-ink/80">
-        A share link opens revision {k} read-only, without an account: the ledger, Values, Limits and Sweep. It cannot change anything or
+        A share link opens revision {number} read-only, without an account: the ledger, Values, Limits and Sweep. It cannot change anything or
         add notes. Each link is its own unguessable address and can be revoked.
       </p>
       <form
@@ -103,7 +103,7 @@ export function ShareDialog({ open, onClose, networkId, teamId, k }: { open: boo
         onSubmit={(event) => {
           event.preventDefault();
           create.mutate(
-            { networkId, k, expiresAt: expiry ? new Date(`${expiry}T23:59:59`).toISOString() : undefined },
+            { networkId, number, expiresAt: expiry ? new Date(`${expiry}T23:59:59`).toISOString() : undefined },
             {
               onSuccess: (link) => setCreated((list) => [link, ...list]),
             },
@@ -127,7 +127,7 @@ export function ShareDialog({ open, onClose, networkId, teamId, k }: { open: boo
         {all.length > 0 ? (
           <ul className="space-y-2" aria-label="Share links of this revision">
             {all.map((entry) => (
-              <LinkRow key={entry.id} entry={entry} networkId={networkId} k={k} />
+              <LinkRow key={entry.id} entry={entry} networkId={networkId} number={number} />
             ))}
           </ul>
         ) : (
@@ -139,7 +139,7 @@ export function ShareDialog({ open, onClose, networkId, teamId, k }: { open: boo
           Who can see what
         </h3>
         <ul className="mt-1 text-xs text-ink/80">
-          <li>Anyone with an open share link: revision {k}, read-only.</li>
+          <li>Anyone with an open share link: revision {number}, read-only.</li>
           {ROLE_RIGHTS.map(([role, rights]) => (
             <li key={role}>
               Team {role}s: {rights}.

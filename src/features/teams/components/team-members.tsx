@@ -1,10 +1,8 @@
 import { ErrorState, InlineError, LoadingState } from "@/components/ui/states";
-import type { Role } from "@/lib/api-contract";
+import { roles, type Role } from "@/lib/api-contract";
 import { useChangeMemberRole } from "../api/change-member-role";
 import { useTeamMembers } from "../api/get-team-members";
 import { useRemoveMember } from "../api/remove-member";
-
-const ROLES: Role[] = ["owner", "editor", "reviewer", "viewer"];
 
 // Who is in the team and with which role; owners change roles and remove members (the server refuses the last owner's removal).
 export function TeamMembers({ teamId, isOwner, currentUserId }: { teamId: string; isOwner: boolean; currentUserId: string }) {
@@ -41,7 +39,7 @@ export function TeamMembers({ teamId, isOwner, currentUserId }: { teamId: string
                     onChange={(e) => change.mutate({ teamId, userId: m.userId, role: e.target.value as Role })}
                     className="rounded border border-rule bg-white px-1.5 py-0.5 text-xs"
                   >
-                    {ROLES.map((r) => (
+                    {roles.map((r) => (
                       <option key={r} value={r}>
                         {r}
                       </option>
