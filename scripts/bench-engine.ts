@@ -134,10 +134,12 @@ function runSympy(net: NetworkInput, capSeconds: number, ours: OneRun["results"]
   return { seconds: out.seconds, wall, status: "ok", matches };
 }
 
-function childRun(name: string): OneRun {
+/** One network in a fresh child process; a child that fails (out of memory, say) is a row that says why, not the end of the run. */
+function childRun(name: string): OneRun | { failed: string } {
   const r = spawnSync(process.execPath, ["--import", "tsx", HERE, "--one", name], { encoding: "utf8", maxBuffer: 1 << 30 });
-  if (r.status !== 0) throw new Error(`child failed for ${name}: ${r.stderr}`);
-  return JSON.parse(r.stdout) as OneRun;
+  if (r.status === 0) return JSON.parse(r.stdout) as OneRun;
+  const why = /heap out of memory/i.test(r.stderr) ? "out of memory" : (r.stderr.trim().split("\n").pop() ?? `exit ${r.status}`);
+  return { failed: why.slice(0, 120) };
 }
 
 function arg(name: string, fallback: number): number {
@@ -235,6 +237,7 @@ function main(): void {
   console.log(`Portfold engine benchmark (node ${process.version}); sympy budget ${budget} s, cap ${cap} s per network`);
   console.log("times: wall/cpu ms; exact = lowest terms + Voc/Isc check, printed = every printed form, complete = results, ledger, sensitivities, dimensions, TeX");
   const rows: { name: string; ours: OneRun; sym: SympyRun | null }[] = [];
+  const failures = new Map<string, string>();
   // Smallest ladders first, the two ladder families interleaved, then ladder-14 and -16, then the graphs.
   const names: string[] = [];
   for (let n = 3; n <= Math.max(maxPlain, maxGm); n++) {
@@ -246,7 +249,13 @@ function main(): void {
   print(header);
   for (const name of names) {
     if (only && !name.startsWith(only)) continue;
-    const ours = childRun(name);
+    const run = childRun(name);
+    if ("failed" in run) {
+      failures.set(name, run.failed);
+      console.log(`${pad(name, widths[0])} failed: ${run.failed}`);
+      continue;
+    }
+    const ours = run;
     let sym: SympyRun | null = null;
     // sympy is not asked about the two largest ladders: it cannot finish them within any cap here.
     if (sympy && name !== "ladder-14" && name !== "ladder-16") {
@@ -291,6 +300,7 @@ function main(): void {
     console.log(`target ladder-14 exact <= 2 s: ${verdict(o.exact.wallMs <= 2000)} (${ms(o.exact)} ms); every printed form <= 4 s: ${verdict(o.printed.wallMs <= 4000)} (${ms(o.printed)} ms); peak <= 600 MB: ${verdict(o.peakMB <= 600)} (${o.peakMB.toFixed(0)} MB)`);
   }
   const l16 = row("ladder-16");
+  if (failures.has("ladder-16")) console.log(`target ladder-16 completes: NOT met (${failures.get("ladder-16")})`);
   if (l16) console.log(`target ladder-16 completes: met (complete ${ms(l16.ours.complete)} ms, peak ${l16.ours.peakMB.toFixed(0)} MB${l16.ours.skipped.length > 0 ? `, ${l16.ours.skipped.join(", ")}` : ""})`);
   for (const n of ["ladder-7", "K3,3"]) {
     const r = row(n);

@@ -52,7 +52,7 @@ describe("the solve cache", () => {
   it("derives a network once: the second solve is answered from the cache without a solver thread", async () => {
     const networkId = await newNetwork("Divider", divider);
     const first = await solve(networkId);
-    expect(first.status).toBe(201);
+    expect(first.status, JSON.stringify(first.body)).toBe(201);
     expect(first.headers.get("portfold-solve-cache")).toBe("miss");
     const at = { Vs: 5, [Rs]: 1_000, [Rl]: 3_000 };
     expect(evaluateInfix(first.body.results.vth.infix, at)).toBeCloseTo((5 * 3_000) / 4_000, 12);
