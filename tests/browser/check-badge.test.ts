@@ -58,6 +58,8 @@ describe("the check badge in chromium", () => {
   it("links to the page that lists every check and outside reference", async () => {
     await page.getByRole("link", { name: "How results are checked" }).click();
     await page.waitForURL(/\/how-results-are-checked$/);
+    // The route's module loads after the address changes: wait for its heading, not the old page's.
+    await page.getByRole("heading", { level: 1, name: "How results are checked" }).waitFor();
     expect(await page.getByRole("heading", { level: 1 }).textContent()).toBe("How results are checked");
     expect(await page.getByText("Razavi, Design of Analog CMOS Integrated Circuits, 2nd ed., ch. 3").count()).toBe(1);
     expect(await page.getByText("66 networks").count()).toBe(1);

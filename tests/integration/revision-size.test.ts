@@ -12,7 +12,11 @@ describe("revision size bound and share previews", () => {
   let server: TestServer;
   let editor: Person;
   let teamId: string;
-  const run = randomBytes(3).toString("hex");
+  // A digit between letters: a name's TeX sets trailing digits as a subscript only when letters come
+  // before them and nothing else does, so a bare hex suffix made the ledger's size (and what the
+  // bound leaves out) depend on the draw. A 0, then letters: always the whole name in one piece, six characters as the hex was.
+  const letters = () => randomBytes(3).toString("hex").replace(/[0-9]/g, (d) => "ghijklmnop"[Number(d)]).slice(0, 3);
+  const run = `0${letters()}${letters()}`.slice(0, 6);
   beforeAll(async () => {
     server = await startTestServer({ clientDir: clientShellDir(), solve: { maxRevisionBytes: 60_000 } });
     editor = await signedInPerson(server, "sizer");
