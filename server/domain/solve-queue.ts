@@ -73,7 +73,14 @@ export async function createSolveQueue(boss: PgBoss, db: Database, options: { da
     async send(data, priority) {
       // A solve runs once: pg-boss does not retry it (a failed solve is the user's to ask again).
       const expireInSeconds = Math.ceil(settings.timeLimitMs / 1000) + 300;
-      await boss.send(name, data, { id: data.jobId, priority, retryLimit: 0, expireInSeconds });
+      const job = { id: data.jobId, priority, retryLimit: 0, expireInSeconds };
+      // Once more after a short pause: the queue's tables can answer a passing deadlock while another
+      // process creates or drops a queue, and a solve should not be refused for that. The job id is
+      // the key, so a first send that did land is not queued twice.
+      await boss.send(name, data, job).catch(async () => {
+        await new Promise((resolve) => setTimeout(resolve, 250));
+        await boss.send(name, data, job);
+      });
       // This process's idle workers look now rather than at their next poll.
       for (const worker of workers) worker.wake();
     },

@@ -117,14 +117,8 @@ export async function solve(services: Services, networkId: string, userId: strin
     throw error;
   });
   const { job } = admission;
-  const data = { jobId: job.id, networkId: network.id, userId, teamId: network.teamId, circuit, options, key };
   try {
-    // Once more after a short pause: the queue's tables can answer a passing deadlock while
-    // another process creates or drops a queue, and a solve should not be refused for that.
-    await solveQueue.send(data, admission.priority).catch(async () => {
-      await new Promise((resolve) => setTimeout(resolve, 250));
-      await solveQueue.send(data, admission.priority);
-    });
+    await solveQueue.send({ jobId: job.id, networkId: network.id, userId, teamId: network.teamId, circuit, options, key }, admission.priority);
   } catch (error) {
     services.log.error({ err: error, networkId: network.id }, "solve not queued");
     await finishSolveJob(db, job.id, { error: failureRecord(noQueue())! }).catch(() => undefined);
