@@ -182,7 +182,10 @@ function parseRows(sympy: boolean): void {
   console.log(["shape", "terms", "chars", "parseValue", "readExpression", "sympy s", "sympy/ours"].map((h, i) => pad(h, widths[i])).join(" "));
   const figures = new Map<string, Timed>();
   // Warm the JIT on both readers first, so the smallest row is not a cold start.
-  for (let run = 0; run < 3; run++) for (const text of [longValue(150), distinctSymbols(150)]) [parseValue(text), readExpression(text)];
+  for (let run = 0; run < 3; run++) for (const text of [longValue(150), distinctSymbols(150)]) {
+    parseValue(text);
+    readExpression(text);
+  }
   for (const [shape, make] of [["printed", longValue], ["distinct", distinctSymbols]] as const) {
     for (const n of [100, 1000, 10000]) {
       const text = make(n);

@@ -1,5 +1,5 @@
 #!/usr/bin/env node
-// One entry point for `npm start`, `npm test` and `npm run dev`: installs what is missing,
+// One entry point for `npm start`, `npm test`, `npm run dev` and `npm run lint`: installs what is missing,
 // runs a project-local PostgreSQL cluster on loopback, migrates, seeds, then hands over.
 // Plain Node with no dependencies, because it runs before `npm ci`.
 import { spawn, spawnSync } from "node:child_process";
@@ -37,10 +37,22 @@ function capture(command, args, options = {}) {
   return spawnSync(command, args, { encoding: "utf8", cwd: root, ...options });
 }
 
+// True when the folder's installed tree is at least as new as its lockfile.
+function installed(folder) {
+  const marker = join(folder, "node_modules", ".package-lock.json");
+  return existsSync(marker) && statSync(marker).mtimeMs >= statSync(join(folder, "package-lock.json")).mtimeMs;
+}
+
+// The linter is its own small package (scripts/lint): it needs a TypeScript the project does not use.
+function ensureLintDependencies() {
+  const folder = join(root, "scripts", "lint");
+  if (installed(folder)) return;
+  log("installing the linter (npm ci in scripts/lint)");
+  run("npm", ["ci", "--no-audit", "--no-fund"], { cwd: folder });
+}
+
 function ensureDependencies() {
-  const marker = join(root, "node_modules", ".package-lock.json");
-  const lock = join(root, "package-lock.json");
-  if (existsSync(marker) && statSync(marker).mtimeMs >= statSync(lock).mtimeMs) return;
+  if (installed(root)) return;
   log("installing dependencies (npm ci)");
   const result = capture("npm", ["ci", "--no-audit", "--no-fund"], { stdio: ["ignore", "pipe", "pipe"] });
   process.stdout.write(result.stdout ?? "");
@@ -212,7 +224,14 @@ function bin(name) {
   return join(root, "node_modules", ".bin", name);
 }
 
+function lint() {
+  ensureLintDependencies();
+  log("linting (scripts/lint/eslint.config.js)");
+  run(join(root, "scripts", "lint", "node_modules", ".bin", "eslint"), ["--config", "scripts/lint/eslint.config.js", "."]);
+}
+
 async function main() {
+  if (mode === "lint") return lint();
   ensureDependencies();
   const database = mode === "test" ? "portfold_test" : "portfold";
   const env = { ...process.env, DATABASE_URL: await databaseUrl(database) };
@@ -242,6 +261,7 @@ async function main() {
   ensureTestTools();
   log("type-checking");
   run(bin("tsc"), ["-p", ".", "--noEmit"], { env });
+  lint();
   mkdirSync(join(root, ".runtime"), { recursive: true });
   const report = join(root, ".runtime", "vitest-report.json");
   rmSync(report, { force: true });

@@ -1,7 +1,5 @@
 import { Link, NavLink, Outlet, useMatches, useNavigate } from "react-router-dom";
-import { useMe } from "@/features/auth/api/get-me";
-import { useSignOut } from "@/features/auth/api/sign-out";
-import { VerifyEmailBanner } from "@/features/auth/components/verify-email-banner";
+import { useMe, useSignOut, VerifyEmailBanner } from "@/features/auth";
 import { PortMark } from "@/components/ui/port-mark";
 
 interface RouteHandle {

@@ -9,14 +9,14 @@ import type * as revisions from "../../shared/api/revisions";
 import type * as shares from "../../shared/api/shares";
 import type * as teams from "../../shared/api/teams";
 import type * as valueSets from "../../shared/api/value-sets";
-import type { ResultName as EngineResultName } from "../../shared/engine/types";
+import type { ResultName as EngineResultName } from "./engine-types";
 
 export type { Role, RevisionState, Verdict } from "../../shared/api/common";
 export { roleAtLeast } from "../../shared/api/common";
 export { roles } from "../../shared/api/common";
 export type { ApiToken, CreateTokenRequest, CreatedToken, TokenList, TokenScope } from "../../shared/api/tokens";
 // What the engine owns inside the answers: a circuit, its elements, its diagnostics, one result's printed forms.
-export type { CheckDetail, Diagnostic, Element as CircuitElement, ExactExpression, NetworkInput as Circuit } from "../../shared/engine/types";
+export type { CheckDetail, Diagnostic, Element as CircuitElement, ExactExpression, NetworkInput as Circuit } from "./engine-types";
 
 // ---- accounts ----
 export type User = z.infer<typeof accounts.user>;

@@ -90,25 +90,36 @@ function tableauPort(net: NetworkInput, point: Record<string, number>, mode: "op
     if (vcol(q) >= 0) a[vcol(q)][ic] -= 1;
     switch (e.kind) {
       case "resistor": // V - R I = 0
-        addV(row, p, 1), addV(row, q, -1), (a[row][ic] -= value(e));
+        addV(row, p, 1);
+        addV(row, q, -1);
+        a[row][ic] -= value(e);
         break;
       case "inductor":
-        addV(row, p, 1), addV(row, q, -1), (a[row][ic] -= s * value(e));
+        addV(row, p, 1);
+        addV(row, q, -1);
+        a[row][ic] -= s * value(e);
         break;
       case "conductance":
       case "capacitor": {
         const y = e.kind === "capacitor" ? s * value(e) : value(e);
-        a[row][ic] += 1, addV(row, p, -y), addV(row, q, y);
+        a[row][ic] += 1;
+        addV(row, p, -y);
+        addV(row, q, y);
         break;
       }
       case "voltage":
       case "current": {
         // V(p) − V(q) (or the element's current) − Σ gain·control = independent part, zeroed for the test source.
         const source = linearParts(e.value, point);
-        if (e.kind === "voltage") addV(row, p, 1), addV(row, q, -1);
-        else a[row][ic] += 1;
+        if (e.kind === "voltage") {
+          addV(row, p, 1);
+          addV(row, q, -1);
+        } else a[row][ic] += 1;
         for (const { control, gain } of source.controls) {
-          if (control.word === "across") addV(row, control.args[0], -gain), addV(row, control.args[1], gain);
+          if (control.word === "across") {
+            addV(row, control.args[0], -gain);
+            addV(row, control.args[1], gain);
+          }
           else a[row][idx.get(control.args[0])!] -= gain;
         }
         b[row] = mode === "test" ? 0 : source.independent;

@@ -4,7 +4,7 @@
 import { describe, expect, it } from "vitest";
 import { DEGREE_STEPS, ONE_TWO_FIVE, engineeringTick, logTicks } from "@/features/analysis/lib/axis-ticks";
 import { notLogRange, sweepPoints } from "@/features/analysis/lib/sweep";
-import { bodeFunctions, readFrequencyRange } from "@/features/frequency/lib/bode";
+import { bodeFunctions, readFrequencyRange } from "@/features/analysis/lib/bode";
 import { noteTops } from "@/features/network-editor/components/netlist-editor";
 import { readExpression } from "@/lib/engine";
 

@@ -260,16 +260,20 @@ function buildTableau<T>(
     if (v === null) return null;
     switch (e.kind) {
       case "resistor": // V = R I
-        across(row, p, q, F.one), put(row, i, F.neg(v));
+        across(row, p, q, F.one);
+        put(row, i, F.neg(v));
         break;
       case "inductor": // V = sL I
-        across(row, p, q, F.one), put(row, i, F.neg(F.mul(s, v)));
+        across(row, p, q, F.one);
+        put(row, i, F.neg(F.mul(s, v)));
         break;
       case "conductance": // I = G V
-        put(row, i, F.one), across(row, p, q, F.neg(v));
+        put(row, i, F.one);
+        across(row, p, q, F.neg(v));
         break;
       case "capacitor": // I = sC V
-        put(row, i, F.one), across(row, p, q, F.neg(F.mul(s, v)));
+        put(row, i, F.one);
+        across(row, p, q, F.neg(F.mul(s, v)));
         break;
       case "voltage": // V(p) − V(q) − Σ gain·control = independent part
       case "current": {

@@ -51,7 +51,13 @@ function drivingEdges(network: Network): Edge[] {
 function allNodes(network: Network): string[] {
   const seen = new Set<string>();
   const out: string[] = [];
-  for (const e of network.elements) for (const n of elementNodes(e)) if (!seen.has(n)) (seen.add(n), out.push(n));
+  for (const e of network.elements) {
+    for (const n of elementNodes(e)) {
+      if (seen.has(n)) continue;
+      seen.add(n);
+      out.push(n);
+    }
+  }
   return out;
 }
 

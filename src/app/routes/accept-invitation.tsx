@@ -1,9 +1,8 @@
 import { Link, useLocation, useNavigate, useSearchParams } from "react-router-dom";
 import { Button } from "@/components/ui/button";
 import { ErrorState, LoadingState } from "@/components/ui/states";
-import { useMe } from "@/features/auth/api/get-me";
-import { useAcceptInvitation } from "@/features/teams/api/accept-invitation";
-import { useInvitation } from "@/features/teams/api/get-invitation";
+import { useMe } from "@/features/auth";
+import { useAcceptInvitation, useInvitation } from "@/features/teams";
 import { shortDateTime } from "@/lib/dates";
 
 export function AcceptInvitationRoute() {

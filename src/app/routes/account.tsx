@@ -1,8 +1,7 @@
 import { Link } from "react-router-dom";
 import { InlineError } from "@/components/ui/states";
-import { ApiTokens } from "@/features/account/components/api-tokens";
-import { useUpdateAccountSettings } from "@/features/account/api/update-account-settings";
-import { RequireAccount } from "@/features/auth/components/require-account";
+import { ApiTokens, useUpdateAccountSettings } from "@/features/account";
+import { RequireAccount } from "@/features/auth";
 
 export function AccountRoute() {
   const update = useUpdateAccountSettings();

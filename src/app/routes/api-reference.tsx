@@ -1,4 +1,4 @@
-import { ApiReference } from "@/features/api-reference/components/api-reference";
+import { ApiReference } from "@/features/api-reference";
 
 export function ApiReferenceRoute() {
   return (

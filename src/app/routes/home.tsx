@@ -1,5 +1,5 @@
 import { Link } from "react-router-dom";
-import { useMe } from "@/features/auth/api/get-me";
+import { useMe } from "@/features/auth";
 
 export function HomeRoute() {
   const me = useMe();

@@ -3,8 +3,7 @@ import { Link, useSearchParams } from "react-router-dom";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { InlineError } from "@/components/ui/states";
-import { useRequestPasswordReset } from "@/features/auth/api/request-password-reset";
-import { useResetPassword } from "@/features/auth/api/reset-password";
+import { useRequestPasswordReset, useResetPassword } from "@/features/auth";
 
 function RequestForm() {
   const request = useRequestPasswordReset();

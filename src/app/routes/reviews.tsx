@@ -1,6 +1,6 @@
 import { NavLink } from "react-router-dom";
-import { RequireAccount } from "@/features/auth/components/require-account";
-import { ReviewQueueTable } from "@/features/review/components/review-queue-table";
+import { RequireAccount } from "@/features/auth";
+import { ReviewQueueTable } from "@/features/review";
 
 function ReviewTabs() {
   const tab = ({ isActive }: { isActive: boolean }) => (isActive ? "border-b-2 border-copper pb-1 text-copper" : "pb-1 hover:text-copper");

@@ -1,20 +1,17 @@
 import { Link, useParams } from "react-router-dom";
 import { ErrorState, LoadingState } from "@/components/ui/states";
-import { AnalysisColumn } from "@/features/analysis/components/analysis-column";
-import { useMe } from "@/features/auth/api/get-me";
-import { useRevision } from "@/features/derivations/api/get-revision";
-import { Ledger } from "@/features/derivations/components/ledger";
-import { ExportMenu } from "@/features/export/components/export-menu";
-import { DrawingView } from "@/features/canvas/components/drawing-view";
-import { useNetwork } from "@/features/networks/api/get-network";
-import { useComments } from "@/features/review/api/get-comments";
-import { ReviewPanel } from "@/features/review/components/review-panel";
-import { useSharedRevision } from "@/features/sharing/api/get-shared-revision";
+import { AnalysisColumn } from "@/features/analysis";
+import { useMe } from "@/features/auth";
+import { useRevision, Ledger, ResultCard } from "@/features/derivations";
+import { ExportMenu } from "@/features/export";
+import { DrawingView } from "@/features/canvas";
+import { useNetwork } from "@/features/networks";
+import { useComments, ReviewPanel } from "@/features/review";
+import { useSharedRevision } from "@/features/sharing";
 import { ApiError } from "@/lib/api-client";
 import { shortDateTime } from "@/lib/dates";
 import { roleAtLeast } from "@/lib/api-contract";
 import { printNetlistText, type EngineNetwork } from "@/lib/engine-netlist";
-import { ResultCard } from "@/features/derivations/components/result-card";
 
 // The page behind a share link: one revision, read-only, no account needed. Team members who
 // sign in see the review notes and may add their own.

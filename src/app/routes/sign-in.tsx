@@ -3,8 +3,7 @@ import { Link, useNavigate, useSearchParams } from "react-router-dom";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { InlineError } from "@/components/ui/states";
-import { useSignIn } from "@/features/auth/api/sign-in";
-import { safeNext } from "@/features/auth/components/require-account";
+import { useSignIn, safeNext } from "@/features/auth";
 
 export function SignInRoute() {
   const [params] = useSearchParams();

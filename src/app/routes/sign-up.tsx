@@ -4,8 +4,7 @@ import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { InlineError } from "@/components/ui/states";
 import { ApiError } from "@/lib/api-client";
-import { useSignUp } from "@/features/auth/api/sign-up";
-import { safeNext } from "@/features/auth/components/require-account";
+import { useSignUp, safeNext } from "@/features/auth";
 
 export function SignUpRoute() {
   const [params] = useSearchParams();

@@ -3,16 +3,10 @@ import { useParams } from "react-router-dom";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/states";
 import { roleAtLeast } from "@/lib/api-contract";
-import { RequireAccount } from "@/features/auth/components/require-account";
-import { AddCellForm } from "@/features/cells/components/add-cell-form";
-import { TeamCells } from "@/features/cells/components/team-cells";
-import { CreateNetworkDialog } from "@/features/networks/components/create-network-dialog";
-import { ImportNetworkDialog } from "@/features/networks/components/import-network-dialog";
-import { NetworksTable } from "@/features/networks/components/networks-table";
-import { CreateTeamForm } from "@/features/teams/components/create-team-form";
-import { InviteMemberForm } from "@/features/teams/components/invite-member-form";
-import { RequiredApprovals } from "@/features/teams/components/required-approvals";
-import { TeamMembers } from "@/features/teams/components/team-members";
+import { RequireAccount } from "@/features/auth";
+import { AddCellForm, TeamCells } from "@/features/cells";
+import { CreateNetworkDialog, ImportNetworkDialog, NetworksTable } from "@/features/networks";
+import { CreateTeamForm, InviteMemberForm, RequiredApprovals, TeamMembers } from "@/features/teams";
 
 export function TeamRoute() {
   const { teamId = "" } = useParams();

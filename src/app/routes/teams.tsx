@@ -1,7 +1,7 @@
 import { Link, Navigate } from "react-router-dom";
 import { EmptyState } from "@/components/ui/states";
-import { RequireAccount } from "@/features/auth/components/require-account";
-import { CreateTeamForm } from "@/features/teams/components/create-team-form";
+import { RequireAccount } from "@/features/auth";
+import { CreateTeamForm } from "@/features/teams";
 
 // With one team the list is in the way: go straight to it.
 export function TeamsRoute() {

@@ -1,7 +1,7 @@
 import { useEffect, useRef } from "react";
 import { Link, useSearchParams } from "react-router-dom";
 import { ErrorState, LoadingState } from "@/components/ui/states";
-import { useVerifyEmail } from "@/features/auth/api/verify-email";
+import { useVerifyEmail } from "@/features/auth";
 
 export function VerifyEmailRoute() {
   const [params] = useSearchParams();

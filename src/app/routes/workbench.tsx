@@ -1,31 +1,22 @@
 import { useQueryClient } from "@tanstack/react-query";
-import { useEffect, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { Link, Navigate, useNavigate, useParams } from "react-router-dom";
 import { Button } from "@/components/ui/button";
 import { EmptyState, ErrorState, LoadingState } from "@/components/ui/states";
-import { AnalysisColumn } from "@/features/analysis/components/analysis-column";
-import { RequireAccount } from "@/features/auth/components/require-account";
-import { useRevision } from "@/features/derivations/api/get-revision";
-import { useSolveNetwork, type SolveProgress } from "@/features/derivations/api/solve-network";
-import { Ledger } from "@/features/derivations/components/ledger";
-import { ResultCard } from "@/features/derivations/components/result-card";
-import { useValueSets } from "@/features/value-sets/api/get-value-sets";
-import { AttachmentsSection } from "@/features/attachments/components/attachments-section";
-import { SaveConflict } from "@/features/network-editor/components/save-conflict";
-import { NetworkHeading } from "@/features/networks/components/network-heading";
-import { networkQueryOptions } from "@/features/networks/api/get-network";
+import { AnalysisColumn } from "@/features/analysis";
+import { RequireAccount } from "@/features/auth";
+import { useRevision, useSolveNetwork, type SolveProgress, Ledger, ResultCard } from "@/features/derivations";
+import { useValueSets } from "@/features/value-sets";
+import { useTeamCells } from "@/features/cells";
+import { AttachmentsSection } from "@/features/attachments";
+import { SaveConflict, NetworkPanel, type NetworkTab, circuitOf, netlistOf, readNetlist } from "@/features/network-editor";
+import { NetworkHeading, networkQueryOptions, useNetwork, useNetworkBySlug, useUpdateNetwork, type UpdateNetworkInput } from "@/features/networks";
 import { ApiError } from "@/lib/api-client";
 import { errorMessage } from "@/components/ui/states";
-import { ExportMenu } from "@/features/export/components/export-menu";
-import { layoutFor } from "@/features/canvas/model/sync";
-import { NetworkPanel, type NetworkTab } from "@/features/network-editor/components/network-panel";
-import { circuitOf, netlistOf, readNetlist } from "@/features/network-editor/lib/netlist";
-import { useNetwork } from "@/features/networks/api/get-network";
-import { useNetworkBySlug } from "@/features/networks/api/get-network-by-slug";
-import { useUpdateNetwork, type UpdateNetworkInput } from "@/features/networks/api/update-network";
-import { useComments } from "@/features/review/api/get-comments";
-import { ReviewPanel } from "@/features/review/components/review-panel";
-import { ShareDialog } from "@/features/sharing/components/share-dialog";
+import { ExportMenu } from "@/features/export";
+import { layoutFor } from "@/features/canvas";
+import { useComments, ReviewPanel } from "@/features/review";
+import { ShareDialog } from "@/features/sharing";
 import { roleAtLeast, type Me, type Network } from "@/lib/api-contract";
 
 // The text the network is edited as: what was typed, or the printed form of a network made from JSON.
@@ -53,6 +44,8 @@ function Workbench({ me, network, number }: { me: Me; network: Network; number: 
   const canReview = roleAtLeast(role, "reviewer");
   const comments = useComments(network.id, number ?? 0, number !== null);
   const valueSets = useValueSets(network.id);
+  const teamCells = useTeamCells(network.teamId);
+  const cellDefinitions = useMemo(() => teamCells.data?.map((cell) => cell.definition), [teamCells.data]);
 
   // Leaving with unsaved edits asks first (the browser's own prompt).
   useEffect(() => {
@@ -199,7 +192,7 @@ function Workbench({ me, network, number }: { me: Me; network: Network; number: 
             layout={layout}
             onLayoutChange={setLayout}
             onTabChange={setTab}
-            teamId={network.teamId}
+            teamCells={cellDefinitions}
           />
           <AttachmentsSection networkId={network.id} canEdit={canEdit} />
         </section>

@@ -1,14 +1,13 @@
 import { useMemo, useState, type ReactNode } from "react";
 import { Caution } from "@/components/ui/caution";
 import type { Circuit, RevisionResults, ValueSet } from "@/lib/api-contract";
-import { useValueSets } from "@/features/value-sets/api/get-value-sets";
-import { ValueSetsBar } from "@/features/value-sets/components/value-sets-bar";
+import { useValueSets, ValueSetsBar } from "@/features/value-sets";
 import { readExactResults, symbolsOf } from "../lib/exact-results";
 import { LimitsPanel } from "./limits-panel";
 import { SweepPanel } from "./sweep-panel";
 import { ValuesPanel, type TypedValues } from "./values-panel";
-import { DesignSolve } from "@/features/frequency/components/design-solve";
-import { FrequencyPanel } from "@/features/frequency/components/frequency-panel";
+import { DesignSolve } from "./design-solve";
+import { FrequencyPanel } from "./frequency-panel";
 
 function Panel({ title, children }: { title: string; children: ReactNode }) {
   const id = `panel-${title.toLowerCase()}`;

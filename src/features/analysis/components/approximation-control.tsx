@@ -3,7 +3,7 @@ import { MathTex } from "@/components/ui/math";
 import { boundedApproximation, parseSI, readExpression, type BoundedApproximation, type Rational } from "@/lib/engine";
 import type { ResultName } from "@/lib/api-contract";
 import type { ExactResults } from "../lib/exact-results";
-import { RESULT_LABEL, RESULT_NAMES, RESULT_TEX } from "../lib/quantities";
+import { RESULT_LABEL, RESULT_NAMES, RESULT_TEX } from "@/lib/quantities";
 
 type Lock = "in" | "out";
 

@@ -4,7 +4,7 @@ import { RationalFunction, type Limit } from "@/lib/engine";
 import type { ResultName } from "@/lib/api-contract";
 import type { ExactResults } from "../lib/exact-results";
 import { limitWithSigns, positiveSymbols } from "../lib/limit-sign";
-import { RESULT_NAMES, resultLabel, resultTex } from "../lib/quantities";
+import { RESULT_NAMES, resultLabel, resultTex } from "@/lib/quantities";
 
 type Point = "inf" | "zero";
 

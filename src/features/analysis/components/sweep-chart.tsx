@@ -31,8 +31,11 @@ const DECADE_SPACE = { x: 30, y: 18 }; // decades are few and short: closer on a
 export default function SweepChart({ x, series, logX, logY, xLabel, yLabel, yInDegrees = false, onCursor, keyboardIndex }: SweepChartProps) {
   const host = useRef<HTMLDivElement>(null);
   const plotRef = useRef<uPlot | null>(null);
+  // The latest cursor callback, for uPlot's hook (set after each render, never during one).
   const cursor = useRef(onCursor);
-  cursor.current = onCursor;
+  useEffect(() => {
+    cursor.current = onCursor;
+  });
 
   useEffect(() => {
     const el = host.current;

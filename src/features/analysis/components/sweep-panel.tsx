@@ -1,11 +1,11 @@
-import { lazy, Suspense, useEffect, useId, useMemo, useState } from "react";
+import { lazy, Suspense, useId, useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Progress } from "@/components/ui/states";
 import { formatSI } from "@/lib/engine";
-import { downloadText } from "@/features/export/lib/latex";
+import { downloadText } from "@/lib/download";
 import type { ResultName } from "@/lib/api-contract";
 import { readTypedValues, type ExactResults } from "../lib/exact-results";
-import { RESULT_NAMES, RESULT_UNIT, resultLabel, symbolUnit } from "../lib/quantities";
+import { RESULT_NAMES, RESULT_UNIT, resultLabel, symbolUnit } from "@/lib/quantities";
 import { notLogRange, sweepCsv, sweepResult } from "../lib/sweep";
 import { readTypedNumber } from "../lib/typed-number";
 import type { ChartSeries } from "./sweep-chart";
@@ -56,13 +56,12 @@ export function SweepPanel({
   }, [fromText, toText, xUnit]);
   const notLogX = range ? notLogRange(range.from, range.to) : null;
 
-  // A log box never stays ticked on a range a log axis cannot show.
-  useEffect(() => {
-    if (logX && notLogX) {
-      setLogX(false);
-      setAxisNotes((n) => ({ ...n, x: `${notLogX} Log ${symbol} unticked.` }));
-    } else if (!notLogX) setAxisNotes((n) => (n.x ? { ...n, x: undefined } : n)); // the reason is gone: so is the note
-  }, [logX, notLogX, symbol]);
+  // A log box never stays ticked on a range a log axis cannot show (state adjusted while rendering,
+  // so the unticked box and its note show in the same paint as the new range).
+  if (logX && notLogX) {
+    setLogX(false);
+    setAxisNotes((n) => ({ ...n, x: `${notLogX} Log ${symbol} unticked.` }));
+  } else if (!notLogX && axisNotes.x) setAxisNotes((n) => ({ ...n, x: undefined })); // the reason is gone: so is the note
 
   const fixed = useMemo(() => readTypedValues(values).exact, [values]);
   const rf = exact[result];
@@ -74,12 +73,10 @@ export function SweepPanel({
 
   const positive = outcome?.kind === "ok" && outcome.y.every((v) => Number.isNaN(v) || v > 0);
   const yName = resultLabel(result, inS);
-  useEffect(() => {
-    if (logY && outcome?.kind === "ok" && !positive) {
-      setLogY(false);
-      setAxisNotes((n) => ({ ...n, y: `${yName} is not positive over this range: a log axis cannot show it. Log ${yName} unticked.` }));
-    } else if (positive) setAxisNotes((n) => (n.y ? { ...n, y: undefined } : n));
-  }, [logY, outcome, positive, yName]);
+  if (logY && outcome?.kind === "ok" && !positive) {
+    setLogY(false);
+    setAxisNotes((n) => ({ ...n, y: `${yName} is not positive over this range: a log axis cannot show it. Log ${yName} unticked.` }));
+  } else if (positive && axisNotes.y) setAxisNotes((n) => ({ ...n, y: undefined }));
   const useLogY = logY && positive;
   // Why a log box cannot be ticked now, or null when it can.
   const refusal = (axis: "x" | "y"): string | null => {

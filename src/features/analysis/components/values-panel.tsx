@@ -4,7 +4,7 @@ import { formatSI, RationalFunction } from "@/lib/engine";
 import type { ResultName } from "@/lib/api-contract";
 import { readTypedValues, type ExactResults } from "../lib/exact-results";
 import { ApproximationControl } from "./approximation-control";
-import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultMeaning, resultTex, symbolLabel, symbolUnit } from "../lib/quantities";
+import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultMeaning, resultTex, symbolLabel, symbolUnit } from "@/lib/quantities";
 
 export type TypedValues = Record<string, string>;
 

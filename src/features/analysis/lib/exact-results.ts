@@ -1,6 +1,6 @@
 import { Rational, RationalFunction, parseSI, readExpression } from "@/lib/engine";
 import type { ResultName, RevisionResults } from "@/lib/api-contract";
-import { RESULT_NAMES } from "./quantities";
+import { RESULT_NAMES } from "@/lib/quantities";
 
 export type ExactResults = Partial<Record<ResultName, RationalFunction>>;
 

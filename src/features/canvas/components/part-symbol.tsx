@@ -1,5 +1,5 @@
 import type { Element } from "@/lib/engine-netlist";
-import { hasPolarity, SymbolBody } from "@/features/network-editor/components/schematic";
+import { hasPolarity, SymbolBody } from "./schematic";
 import { cellHalfHeight, isCellPart, type CellPartElement } from "../model/cell-part";
 import { partPins, type Part } from "../model/drawing";
 import { GRID, orient, place, type Point } from "../model/geometry";

@@ -2,7 +2,7 @@
 // node labels on their pins), and where a pin's node differs from the netlist the drawing is
 // corrected with a label, so that reading the drawing back gives the netlist again.
 import { BUILT_IN_CELLS, type CellDefinition, type EngineNetwork } from "@/lib/engine-netlist";
-import { layoutSchematic } from "@/features/network-editor/lib/schematic-layout";
+import { layoutSchematic } from "./schematic-layout";
 import { isCellPart, partElementsOf, type PartElement } from "./cell-part";
 import { extractConnectivity } from "./connectivity";
 import { EMPTY_DRAWING, elementNodes, partPins, readLayout, toLayout, type Drawing, type Layout, type NodeLabel, type Part } from "./drawing";

@@ -2,7 +2,7 @@ import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { InlineError } from "@/components/ui/states";
-import { NetlistEditor, editorDiagnostics } from "@/features/network-editor/components/netlist-editor";
+import { NetlistEditor, editorDiagnostics } from "@/features/network-editor";
 import { ApiError } from "@/lib/api-client";
 import type { CellDefinition } from "@/lib/engine-netlist";
 import type { Diagnostic } from "@/lib/api-contract";

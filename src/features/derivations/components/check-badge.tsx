@@ -1,5 +1,5 @@
 import { Link } from "react-router-dom";
-import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultsInS } from "@/features/analysis/lib/quantities";
+import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultsInS } from "@/lib/quantities";
 import type { CheckMark, RevisionResults } from "@/lib/api-contract";
 
 /** The page that explains every check and every outside reference. */

@@ -1,6 +1,6 @@
 import { Formula } from "@/components/ui/formula";
-import { resultTex, resultsInS } from "@/features/analysis/lib/quantities";
-import { compactTex } from "../lib/printed-forms";
+import { resultTex, resultsInS } from "@/lib/quantities";
+import { compactTex } from "@/lib/printed-forms";
 import type { RevisionResults } from "@/lib/api-contract";
 
 const stroke = { fill: "none", stroke: "currentColor", strokeWidth: 1.4, strokeLinecap: "round" as const, strokeLinejoin: "round" as const };

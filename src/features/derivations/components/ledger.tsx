@@ -1,7 +1,7 @@
 import { Caution } from "@/components/ui/caution";
 import { Formula } from "@/components/ui/formula";
 import { EmptyState } from "@/components/ui/states";
-import { StepComments, type ReviewContext } from "@/features/review/components/step-comments";
+import { StepComments, type ReviewContext } from "@/features/review";
 import { useState } from "react";
 import type { Comment, NoteAnchor, Revision } from "@/lib/api-contract";
 import { Equivalents } from "./equivalents";

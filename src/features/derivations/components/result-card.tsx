@@ -1,8 +1,8 @@
 import { useState, type ReactNode } from "react";
 import { Formula } from "@/components/ui/formula";
-import { resultLabel, resultMeaning, resultTex, resultsInS } from "@/features/analysis/lib/quantities";
+import { resultLabel, resultMeaning, resultTex, resultsInS } from "@/lib/quantities";
 import type { ExactExpression, ResultName, RevisionResults } from "@/lib/api-contract";
-import { compactTex, compactText, expandedTex } from "../lib/printed-forms";
+import { compactTex, compactText, expandedTex } from "@/lib/printed-forms";
 import { CheckBadge, DimensionCheck } from "./check-badge";
 
 function CopyButton({ text, label }: { text: string; label: string }) {

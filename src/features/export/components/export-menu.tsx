@@ -2,8 +2,9 @@ import { useEffect, useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { NETLIST_EXTENSION, printNetlistText, type EngineNetwork } from "@/lib/engine-netlist";
 import type { Revision, ValueSet } from "@/lib/api-contract";
-import { valueSetsCsv } from "@/features/value-sets/lib/export";
-import { downloadText, fileSafe, ledgerLatex } from "../lib/latex";
+import { valueSetsCsv } from "@/features/value-sets";
+import { downloadText, fileSafe } from "@/lib/download";
+import { ledgerLatex } from "../lib/latex";
 
 // Export of one revision: the ledger as LaTeX, the network as our JSON and as our text, and print.
 export function ExportMenu({ revision, valueSets = [] }: { revision: Revision; valueSets?: ValueSet[] }) {

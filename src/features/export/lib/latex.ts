@@ -1,13 +1,7 @@
 import type { Revision, ValueSet } from "@/lib/api-contract";
-import { compactTex } from "@/features/derivations/lib/printed-forms";
-import { valueSetsLatex } from "@/features/value-sets/lib/export";
-
-// Plain text into LaTeX text mode: every special character escaped, so titles cannot inject commands.
-export function latexText(text: string): string {
-  return text.replace(/[\\{}$&#^_%~]/g, (c) =>
-    c === "\\" ? "\\textbackslash{}" : c === "^" ? "\\textasciicircum{}" : c === "~" ? "\\textasciitilde{}" : `\\${c}`,
-  );
-}
+import { compactTex } from "@/lib/printed-forms";
+import { valueSetsLatex } from "@/features/value-sets";
+import { latexText } from "@/lib/latex";
 
 /** The whole ledger as a stand-alone LaTeX document (amsmath), one subsection per step. */
 export function ledgerLatex(revision: Revision, valueSets: ValueSet[] = []): string {
@@ -35,17 +29,4 @@ export function ledgerLatex(revision: Revision, valueSets: ValueSet[] = []): str
   lines.push("", ...valueSetsLatex(valueSets));
   lines.push("\\end{document}", "");
   return lines.join("\n");
-}
-
-export function fileSafe(title: string): string {
-  return title.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "network";
-}
-
-export function downloadText(filename: string, text: string, type: string) {
-  const url = URL.createObjectURL(new Blob([text], { type }));
-  const a = document.createElement("a");
-  a.href = url;
-  a.download = filename;
-  a.click();
-  URL.revokeObjectURL(url);
 }

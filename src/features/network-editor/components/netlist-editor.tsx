@@ -69,16 +69,14 @@ export function NetlistEditor({
   const [heights, setHeights] = useState<number[]>([]);
   useLayoutEffect(() => {
     const measured = [...(noteList.current?.children ?? [])].map((li) => (li as HTMLElement).offsetHeight);
-    if (measured.length !== heights.length || measured.some((h, i) => h !== heights[i])) setHeights(measured);
-  });
+    setHeights((old) => (measured.length === old.length && measured.every((h, i) => h === old[i]) ? old : measured));
+  }, [diagnostics]);
   const tops = noteTops(notes.map((d) => d.line), heights);
   // The messages go at once; the empty margin a little later (a live check of the new text may refill it).
   const [marginKept, setMarginKept] = useState(false);
+  if (notes.length > 0 && !marginKept) setMarginKept(true);
   useEffect(() => {
-    if (notes.length > 0) {
-      setMarginKept(true);
-      return;
-    }
+    if (notes.length > 0) return;
     const timer = window.setTimeout(() => setMarginKept(false), MARGIN_KEPT_MS);
     return () => window.clearTimeout(timer);
   }, [notes.length]);

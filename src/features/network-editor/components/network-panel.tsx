@@ -2,7 +2,7 @@ import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { ErrorState, Progress } from "@/components/ui/states";
 import { ApiError } from "@/lib/api-client";
-import type { EngineNetwork } from "@/lib/engine-netlist";
+import type { CellDefinition, EngineNetwork } from "@/lib/engine-netlist";
 import type { Diagnostic } from "@/lib/api-contract";
 import { parseNetlistText } from "@/lib/engine-netlist";
 import { keepTypedLines } from "../lib/keep-lines";
@@ -11,10 +11,7 @@ import { mergeDiagnostics, useLiveCheck } from "../lib/use-live-check";
 import { ElementTable } from "./element-table";
 import { NetlistEditor, editorDiagnostics } from "./netlist-editor";
 import { PortPicker } from "./port-picker";
-import { Schematic } from "./schematic";
-import { DrawingView } from "@/features/canvas/components/drawing-view";
-import { useTeamCells } from "@/features/cells/api/get-team-cells";
-import type { Layout } from "@/features/canvas/model/drawing";
+import { Schematic, DrawingView, type Layout } from "@/features/canvas";
 
 export type NetworkTab = "text" | "table" | "drawing";
 type Tab = NetworkTab;
@@ -55,12 +52,11 @@ export interface NetworkPanelProps {
   layout?: unknown;
   onLayoutChange?: (layout: Layout) => void;
   onTabChange?: (tab: NetworkTab) => void;
-  /** The network's team, whose own cells the drawing's palette offers beside the built-in ones. */
-  teamId?: string;
+  /** The team's own cells: the drawing's palette offers them beside the built-in ones, and the live check reads them. */
+  teamCells?: CellDefinition[];
 }
 
-export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSolve, saving, solving, saveError, solveError, printText, solveProgress = "sending", layout, onLayoutChange, onTabChange, teamId }: NetworkPanelProps) {
-  const teamCells = useTeamCells(teamId);
+export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSolve, saving, solving, saveError, solveError, printText, solveProgress = "sending", layout, onLayoutChange, onTabChange, teamCells }: NetworkPanelProps) {
   const [tab, setTabState] = useState<Tab>("text");
   const setTab = (next: Tab) => {
     setTabState(next);
@@ -71,8 +67,7 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
   if (read.network && read.network !== lastGood) setLastGood(read.network);
   const network = read.network ?? lastGood;
   // Everything a Solve would refuse, checked as the designer types (the engine runs in the browser too).
-  const cellDefinitions = useMemo(() => teamCells.data?.map((cell) => cell.definition), [teamCells.data]);
-  const live = useLiveCheck(text, read.network !== null, cellDefinitions);
+  const live = useLiveCheck(text, read.network !== null, teamCells);
   const local = mergeDiagnostics(read.diagnostics, placeDiagnostics(live?.diagnostics ?? [], text));
   const errors = local.filter((d) => d.severity === "error");
   const serverDiagnostics = [solveError, saveError].flatMap((e) => (e instanceof ApiError && e.diagnostics ? e.diagnostics : []));
@@ -126,7 +121,7 @@ export function NetworkPanel({ text, onTextChange, canEdit, dirty, onSave, onSol
                 <DrawingView
                   network={network}
                   layout={layout}
-                  teamCells={teamCells.data?.map((cell) => cell.definition)}
+                  teamCells={teamCells}
                   readOnly={!canEdit}
                   faults={faults}
                   onEdit={(nextText, nextLayout) => {

@@ -4,8 +4,7 @@ import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { TextField } from "@/components/ui/field";
 import { InlineError } from "@/components/ui/states";
-import { circuitOf, looksLikeJson, readNetworkText } from "@/features/network-editor/lib/netlist";
-import { NetlistEditor, editorDiagnostics } from "@/features/network-editor/components/netlist-editor";
+import { circuitOf, looksLikeJson, readNetworkText, NetlistEditor, editorDiagnostics } from "@/features/network-editor";
 import { useCreateNetwork } from "../api/create-network";
 import { BLANK_NETWORK, STARTING_NETWORKS } from "../lib/starting-networks";
 

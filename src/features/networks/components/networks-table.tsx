@@ -5,7 +5,7 @@ import { Dialog } from "@/components/ui/dialog";
 import { EmptyState, ErrorState, InlineError, LoadingState } from "@/components/ui/states";
 import { Pager } from "@/components/ui/pager";
 import { shortDateTime } from "@/lib/dates";
-import { VerdictMark } from "@/features/review/components/verdict-mark";
+import { VerdictMark } from "@/features/review";
 import { roleAtLeast, type NetworkSort, type NetworkSummary, type Role } from "@/lib/api-contract";
 import { useDeleteNetwork } from "../api/delete-network";
 import { useDuplicateNetwork } from "../api/duplicate-network";
@@ -69,9 +69,12 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
   const [search, setSearch] = useState("");
   const [sort, setSort] = useState<NetworkSort>("updatedAt");
   const [direction, setDirection] = useState<"asc" | "desc">("desc");
-  const [page, setPage] = useState(1);
   const debouncedSearch = useDebounced(search, 250);
-  useEffect(() => setPage(1), [debouncedSearch, sort, direction]);
+  // A new search or order starts again at page 1: the page is kept with the query it belongs to.
+  const query = `${debouncedSearch}\u0000${sort}\u0000${direction}`;
+  const [paged, setPaged] = useState({ query, page: 1 });
+  const page = paged.query === query ? paged.page : 1;
+  const setPage = (next: number) => setPaged({ query, page: next });
   const networks = useNetworks({ teamId, search: debouncedSearch, sort, direction, page, pageSize: PAGE_SIZE });
   const canEdit = roleAtLeast(role, "editor");
 

@@ -2,7 +2,7 @@ import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { InlineError, Progress } from "@/components/ui/states";
-import { useTeamMembers } from "@/features/teams/api/get-team-members";
+import { useTeamMembers } from "@/features/teams";
 import type { CreatedShare, Share } from "@/lib/api-contract";
 import { useCreateShareLink } from "../api/create-share-link";
 import { useShareLinks } from "../api/get-share-links";

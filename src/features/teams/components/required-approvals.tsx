@@ -1,4 +1,4 @@
-import { useEffect, useState } from "react";
+import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { InlineError } from "@/components/ui/states";
@@ -10,9 +10,12 @@ export function RequiredApprovals({ teamId, isOwner }: { teamId: string; isOwner
   const team = useTeam(teamId);
   const update = useUpdateTeam();
   const [value, setValue] = useState("");
-  useEffect(() => {
-    if (team.data) setValue(String(team.data.requiredApprovals));
-  }, [team.data]);
+  // The field starts from the stored number, and again whenever the stored number changes.
+  const [shown, setShown] = useState<number | null>(null);
+  if (team.data && team.data.requiredApprovals !== shown) {
+    setShown(team.data.requiredApprovals);
+    setValue(String(team.data.requiredApprovals));
+  }
   if (!team.data) return null;
   const required = team.data.requiredApprovals;
   if (!isOwner) {

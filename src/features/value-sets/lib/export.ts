@@ -1,4 +1,4 @@
-import { latexText } from "@/features/export/lib/latex";
+import { latexText } from "@/lib/latex";
 import type { ValueSet } from "@/lib/api-contract";
 
 const symbolsOf = (sets: ValueSet[]) => [...new Set(sets.flatMap((s) => Object.keys(s.values)))].sort((a, b) => a.localeCompare(b, "en", { numeric: true }));

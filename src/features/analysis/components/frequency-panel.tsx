@@ -4,18 +4,18 @@ import { MathTex } from "@/components/ui/math";
 import { Progress } from "@/components/ui/states";
 import { formatSI, readExpression } from "@/lib/engine";
 import type { Circuit } from "@/lib/api-contract";
-import type { ChartSeries } from "@/features/analysis/components/sweep-chart";
-import { engineeringTick } from "@/features/analysis/lib/axis-ticks";
-import { readTypedValues, type ExactResults } from "@/features/analysis/lib/exact-results";
-import { POINTS_PER_DECADE } from "@/features/analysis/lib/sweep";
-import { readTypedNumber } from "@/features/analysis/lib/typed-number";
-import type { TypedValues } from "@/features/analysis/components/values-panel";
-import { downloadText } from "@/features/export/lib/latex";
+import type { ChartSeries } from "./sweep-chart";
+import { engineeringTick } from "../lib/axis-ticks";
+import { readTypedValues, type ExactResults } from "../lib/exact-results";
+import { POINTS_PER_DECADE } from "../lib/sweep";
+import { readTypedNumber } from "../lib/typed-number";
+import type { TypedValues } from "./values-panel";
+import { downloadText } from "@/lib/download";
 import { bodeCsv, bodeFunctions, magnitudeName, readFrequencyRange, toDb, type BodeFunction } from "../lib/bode";
 import { frequencyLimit, frequencyResponse, frequencySpan, independentSourcesOf, logFrequencies, numericCoefficientsInS, openCircuitTransfer, polesAndZeros, type SRoot } from "@/lib/engine-frequency";
 
 // uPlot arrives only when a Bode plot is first drawn.
-const Chart = lazy(() => import("@/features/analysis/components/sweep-chart"));
+const Chart = lazy(() => import("./sweep-chart"));
 
 const LIMIT_LABEL = { dc: "DC (s → 0)", hf: "high frequency (s → ∞)" } as const;
 const field = "mt-0.5 flex items-center rounded border border-rule bg-white focus-within:border-copper";

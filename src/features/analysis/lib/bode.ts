@@ -1,6 +1,6 @@
 import { formatSI, type RationalFunction } from "@/lib/engine";
-import { readTypedNumber } from "@/features/analysis/lib/typed-number";
-import { MAX_DECADES } from "@/features/analysis/lib/sweep";
+import { readTypedNumber } from "./typed-number";
+import { MAX_DECADES } from "./sweep";
 import type { OpenCircuitTransfer } from "@/lib/engine-frequency";
 
 /** One function of s the Frequency panel can draw: its name, its unit and what it is. */

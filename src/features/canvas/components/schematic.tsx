@@ -1,6 +1,6 @@
 import { useId } from "react";
 import { isControlled, type Element, type EngineNetwork } from "@/lib/engine-netlist";
-import { layoutSchematic, type PlacedOpamp, type PlacedPart } from "../lib/schematic-layout";
+import { layoutSchematic, type PlacedOpamp, type PlacedPart } from "../model/schematic-layout";
 
 const BODY = 20; // half-length of a symbol along its axis
 

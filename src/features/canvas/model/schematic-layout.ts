@@ -189,9 +189,15 @@ export function layoutSchematic(network: EngineNetwork): SchematicLayout {
   for (const o of opamps) touch(o.x, o.y);
   // Bus interior points count twice (the bus runs through them).
   columns.forEach((_, i) => {
-    for (const sx of slotX[i]) if (sx > busStart[i] && sx < busEnd[i]) touch(sx, RAIL_Y), touch(sx, RAIL_Y);
+    for (const sx of slotX[i]) if (sx > busStart[i] && sx < busEnd[i]) {
+      touch(sx, RAIL_Y);
+      touch(sx, RAIL_Y);
+    }
   });
-  if (groundRail) for (const p of parts) if (p.y2 === GROUND_Y && p.x2 > groundRail[0] && p.x2 < groundRail[2]) touch(p.x2, GROUND_Y), touch(p.x2, GROUND_Y);
+  if (groundRail) for (const p of parts) if (p.y2 === GROUND_Y && p.x2 > groundRail[0] && p.x2 < groundRail[2]) {
+    touch(p.x2, GROUND_Y);
+    touch(p.x2, GROUND_Y);
+  }
   const junctions = [...ends.entries()]
     .filter(([, count]) => count >= 3)
     .map(([key]) => {

@@ -1,0 +1,1 @@
+export { AnalysisColumn } from "./components/analysis-column";

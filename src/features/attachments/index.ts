@@ -1,0 +1,1 @@
+export { AttachmentsSection } from "./components/attachments-section";

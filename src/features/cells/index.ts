@@ -1,0 +1,3 @@
+export { useTeamCells } from "./api/get-team-cells";
+export { AddCellForm } from "./components/add-cell-form";
+export { TeamCells } from "./components/team-cells";

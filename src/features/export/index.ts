@@ -1,0 +1,1 @@
+export { ExportMenu } from "./components/export-menu";

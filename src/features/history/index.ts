@@ -1,0 +1,1 @@
+export { useRevisionComparison } from "./api/get-revision-comparison";

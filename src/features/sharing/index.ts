@@ -1,0 +1,2 @@
+export { useSharedRevision } from "./api/get-shared-revision";
+export { ShareDialog } from "./components/share-dialog";

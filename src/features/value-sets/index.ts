@@ -1,0 +1,3 @@
+export { useValueSets } from "./api/get-value-sets";
+export { ValueSetsBar } from "./components/value-sets-bar";
+export { valueSetsCsv, valueSetsLatex } from "./lib/export";
