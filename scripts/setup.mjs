@@ -227,7 +227,7 @@ function bin(name) {
 function lint() {
   ensureLintDependencies();
   log("linting (scripts/lint/eslint.config.js)");
-  run(join(root, "scripts", "lint", "node_modules", ".bin", "eslint"), ["--config", "scripts/lint/eslint.config.js", "."]);
+  run(join(root, "scripts", "lint", "node_modules", ".bin", "eslint"), ["--config", "scripts/lint/eslint.config.js", "--max-warnings", "0", "."]);
 }
 
 async function main() {

@@ -13,7 +13,8 @@ let lint: (code: string, file: string) => Promise<Message[]>;
 let config: { featureDependencies: Record<string, string[]>; assertAcyclic: (graph: Record<string, string[]>) => void };
 
 beforeAll(async () => {
-  const { ESLint } = lintRequire("eslint") as typeof import("eslint");
+  type LintResult = { messages: Message[] };
+  const { ESLint } = lintRequire("eslint") as { ESLint: new (options: object) => { lintText(code: string, options: { filePath: string }): Promise<LintResult[]> } };
   const eslint = new ESLint({ cwd: root, overrideConfigFile: resolve(root, "scripts/lint/eslint.config.js") });
   lint = async (code, file) => (await eslint.lintText(code, { filePath: resolve(root, file) }))[0].messages;
   config = await import(resolve(root, "scripts/lint/eslint.config.js"));

@@ -1,4 +1,4 @@
-import { useId, useState, type KeyboardEvent as ReactKeyboardEvent, type PointerEvent as ReactPointerEvent } from "react";
+import { useId, useRef, useState, type KeyboardEvent as ReactKeyboardEvent, type PointerEvent as ReactPointerEvent } from "react";
 import type { CellDefinition, Element, EngineNetwork } from "@/lib/engine-netlist";
 import { cellLibrary, isCellPart } from "../model/cell-part";
 import type { Extraction } from "../model/connectivity";
@@ -34,7 +34,9 @@ const CORNER_BUTTON = "h-6 rounded border border-rule bg-paper text-xs text-ink/
 export function SchematicCanvas({ drawing, network, extraction, onChange, readOnly = false, faults = new Map(), height = 440, cells = BUILT_IN_LIST }: SchematicCanvasProps) {
   const gridId = useId().replace(/:/g, "");
   const history = useDrawingHistory(drawing, onChange, readOnly);
-  const view = useCanvasView(drawing, height);
+  const box = useRef<HTMLDivElement>(null);
+  const svg = useRef<SVGSVGElement>(null);
+  const view = useCanvasView({ box, svg }, drawing, height);
   const tools = useCanvasTools(history, network);
   const { tool, pointer, selection } = tools;
   const [help, setHelp] = useState(false);
@@ -58,7 +60,7 @@ export function SchematicCanvas({ drawing, network, extraction, onChange, readOn
     if (runShortcut(event, commands, readOnly)) event.preventDefault();
   };
   const onPointerDown = (event: ReactPointerEvent<SVGSVGElement>) => {
-    view.box.current?.focus();
+    box.current?.focus();
     if (pansTheView(event, readOnly)) return view.startPan(event);
     if (event.button !== 0) return;
     if (tool.kind === "select") view.capture(event.pointerId);
@@ -81,7 +83,7 @@ export function SchematicCanvas({ drawing, network, extraction, onChange, readOn
     <div className="space-y-2">
       {!readOnly && <CanvasToolbars tools={tools} network={network} cells={cells} onShowKeys={() => setHelp(true)} />}
       <div
-        ref={view.box}
+        ref={box}
         tabIndex={0}
         onKeyDown={onKeyDown}
         aria-label={readOnly ? "Drawing of the network" : "Schematic canvas: press ? for the keys"}
@@ -89,7 +91,7 @@ export function SchematicCanvas({ drawing, network, extraction, onChange, readOn
         style={{ height }}
       >
         <svg
-          ref={view.svg}
+          ref={svg}
           role="img"
           aria-label={`Drawing: ${drawing.parts.length} parts, port ${extraction.port ? `${extraction.port.plus} to ${extraction.port.minus}` : "not marked"}`}
           data-testid="schematic-canvas"

@@ -1,4 +1,4 @@
-import { useEffect, useLayoutEffect, useRef, useState, type PointerEvent as ReactPointerEvent } from "react";
+import { useEffect, useLayoutEffect, useRef, useState, type PointerEvent as ReactPointerEvent, type RefObject } from "react";
 import { partPins, type Drawing } from "../model/drawing";
 import { GRID, type Point } from "../model/geometry";
 
@@ -20,10 +20,14 @@ function boundsOf(d: Drawing) {
 /** A press that pans rather than edits: the middle button, Alt, or any press on a drawing that cannot change. */
 export const pansTheView = (event: { button: number; altKey: boolean }, readOnly: boolean) => event.button === 1 || event.altKey || (readOnly && event.button === 0);
 
+/** The canvas's elements: the focusable box (its width) and the SVG (pointer positions, capture, the wheel). */
+export interface CanvasElements {
+  box: RefObject<HTMLDivElement | null>;
+  svg: RefObject<SVGSVGElement | null>;
+}
+
 // Pan, zoom and fit of the canvas, and the mapping from a pointer on screen to the drawing's grid.
-export function useCanvasView(drawing: Drawing, height: number) {
-  const box = useRef<HTMLDivElement>(null);
-  const svg = useRef<SVGSVGElement>(null);
+export function useCanvasView({ box, svg }: CanvasElements, drawing: Drawing, height: number) {
   const [view, setView] = useState<View>({ x: 60, y: 60, scale: 1 });
   const pan = useRef<{ from: [number, number]; view: View } | null>(null);
   const width = () => box.current?.clientWidth ?? 600;
@@ -37,7 +41,8 @@ export function useCanvasView(drawing: Drawing, height: number) {
     setView({ scale, x: -b.minX * GRID * scale + (w - (b.maxX - b.minX) * GRID * scale) / 2, y: -b.minY * GRID * scale + (height - (b.maxY - b.minY) * GRID * scale) / 2 });
   };
   // Fit once the box has its size; later edits keep the designer's view.
-  useLayoutEffect(fit, []); // eslint-disable-line react-hooks/exhaustive-deps
+  // eslint-disable-next-line react-hooks/set-state-in-effect, react-hooks/exhaustive-deps -- the fit needs the box's measured width, once
+  useLayoutEffect(fit, []);
 
   const zoomAt = (factor: number, sx: number, sy: number) =>
     setView((v) => {
@@ -56,11 +61,9 @@ export function useCanvasView(drawing: Drawing, height: number) {
     };
     el.addEventListener("wheel", wheel, { passive: false });
     return () => el.removeEventListener("wheel", wheel);
-  }, []);
+  }, [svg]);
 
   return {
-    box,
-    svg,
     view,
     /** The SVG transform from grid px to screen px. */
     transform: `translate(${view.x} ${view.y}) scale(${view.scale})`,

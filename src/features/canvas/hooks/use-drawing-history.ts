@@ -1,4 +1,4 @@
-import { useRef, useState } from "react";
+import { useState } from "react";
 import type { Drawing } from "../model/drawing";
 
 export interface DrawingHistory {
@@ -21,20 +21,21 @@ export interface DrawingHistory {
 
 // The owner keeps the drawing; the canvas keeps the drawings it replaced, to step back and forth.
 export function useDrawingHistory(drawing: Drawing, onChange: ((next: Drawing) => void) | undefined, readOnly: boolean): DrawingHistory {
-  const undone = useRef<Drawing[]>([]);
-  const redone = useRef<Drawing[]>([]);
+  const [past, setPast] = useState<{ undone: Drawing[]; redone: Drawing[] }>({ undone: [], redone: [] });
   const [draft, setDraft] = useState<Drawing | null>(null);
 
   const commit = (next: Drawing) => {
     if (readOnly || !onChange || next === drawing) return;
-    undone.current.push(drawing);
-    redone.current = [];
+    setPast((p) => ({ undone: [...p.undone, drawing], redone: [] }));
     onChange(next);
   };
-  const step = (from: Drawing[], to: Drawing[]) => {
-    const back = from.pop();
+  // Takes the last drawing of one stack and puts the present one on the other.
+  const step = (direction: "undo" | "redo") => {
+    const from = direction === "undo" ? past.undone : past.redone;
+    const back = from.at(-1);
     if (!back || !onChange) return false;
-    to.push(drawing);
+    const rest = from.slice(0, -1);
+    setPast((p) => (direction === "undo" ? { undone: rest, redone: [...p.redone, drawing] } : { undone: [...p.undone, drawing], redone: rest }));
     onChange(back);
     return true;
   };
@@ -47,9 +48,9 @@ export function useDrawingHistory(drawing: Drawing, onChange: ((next: Drawing) =
       setDraft(null);
     },
     commit,
-    undo: () => step(undone.current, redone.current),
-    redo: () => step(redone.current, undone.current),
-    canUndo: undone.current.length > 0,
-    canRedo: redone.current.length > 0,
+    undo: () => step("undo"),
+    redo: () => step("redo"),
+    canUndo: past.undone.length > 0,
+    canRedo: past.redone.length > 0,
   };
 }

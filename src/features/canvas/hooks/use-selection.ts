@@ -53,9 +53,11 @@ export function useSelection(history: DrawingHistory) {
     press,
     dragTo,
     release,
-    turn: (by: 1 | 3) => commit(turnSelection(drawing, selection, by)),
-    mirror: () => commit(mirrorSelection(drawing, selection)),
+    // With nothing selected these change nothing, so they leave no step to undo.
+    turn: (by: 1 | 3) => !isEmpty(selection) && commit(turnSelection(drawing, selection, by)),
+    mirror: () => !isEmpty(selection) && commit(mirrorSelection(drawing, selection)),
     remove: () => {
+      if (isEmpty(selection)) return;
       commit(deleteSelection(drawing, selection));
       setSelection(NOTHING);
     },
