@@ -9,7 +9,9 @@
 // Bareiss's fraction-free elimination is kept alongside for comparison and for rank.
 
 import { Rational, bigLcm } from "./rational";
-import { Key, Layout, Poly, fromKeys, keysIn, makeLayout, unionVars, varMap } from "./polynomial";
+import { Poly } from "./polynomial";
+import { fieldsFromKeys } from "./polynomial-build";
+import { keysIn, makeLayout, unionVars, varMap, type Key, type Layout } from "./monomial-layout";
 import { polyDivideExact } from "./division";
 import { TermTable, smallCoefficients } from "./term-table";
 
@@ -132,7 +134,7 @@ function packedArith(pm: PreparedMatrix, entriesFlat: (PackedPoly | null)[]): Ar
       }
       return combineBig(entries.map((e) => toBig(entriesFlat[e]!)), signs, minors.map(toBig), pm.layout.packed);
     },
-    toPoly: (t) => fromKeys(pm.layout, t.keys, t.coefs, pm.scale),
+    toPoly: (t) => Poly.fromFields(fieldsFromKeys(pm.layout, t.keys, t.coefs, pm.scale)),
   };
 }
 

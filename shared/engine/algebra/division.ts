@@ -1,7 +1,9 @@
 // Exact division of sparse polynomials: leading-term division with the remainder held in
 // a hash map and its terms ordered by a max-heap (after Monagan and Pearce, 2007, simplified).
 
-import { Key, Poly, fieldDecoder, fromKeys, keysIn, makeLayout, varMap, type Layout } from "./polynomial";
+import { Poly } from "./polynomial";
+import { fieldsFromKeys } from "./polynomial-build";
+import { fieldDecoder, keysIn, makeLayout, varMap, type Key, type Layout } from "./monomial-layout";
 
 class MaxHeap {
   private readonly items: any[] = [];
@@ -209,7 +211,7 @@ function divideSmall(
       }
     }
   }
-  return fromKeys(layout, qKeys, qCoefs.map(BigInt), 1n);
+  return Poly.fromFields(fieldsFromKeys(layout, qKeys, qCoefs.map(BigInt), 1n));
 }
 
 function divideBig(
@@ -258,7 +260,7 @@ function divideBig(
       } else corr.set(kk, old - qc * cB[j]);
     }
   }
-  return fromKeys(layout, qKeys, qCoefs, 1n);
+  return Poly.fromFields(fieldsFromKeys(layout, qKeys, qCoefs, 1n));
 }
 
 /** a / m for a one-term m, or null when m does not divide a. */

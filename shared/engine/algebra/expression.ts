@@ -6,7 +6,9 @@
 // printed results), or text for nerdamer's parser (parseValue in element-value.ts).
 
 import { Rational } from "./rational";
-import { MAX_EXPONENT, Poly, polyFromMonomials, type SparseMonomial } from "./polynomial";
+import { Poly } from "./polynomial";
+import { fieldsFromMonomials, type SparseMonomial } from "./polynomial-build";
+import { MAX_EXPONENT } from "./monomial-layout";
 import { RationalFunction } from "./rational-function";
 
 export class ValueSyntaxError extends Error {
@@ -280,7 +282,7 @@ function multiplyByName(a: SparseMonomial, name: number, power: number): boolean
 /**
  * The same meaning as exactReading, built faster for long polynomial text (engine output of
  * tens of thousands of terms): products and positive powers of monomials stay monomials and a
- * sum of them is built once (polyFromMonomials), so reading is near-linear in the text. Anything
+ * sum of them is built once (fieldsFromMonomials), so reading is near-linear in the text. Anything
  * else (a quotient by a non-constant, a product of sums, a negative power) is handed to
  * exactReading, faults included, so both give the same value and the same errors. Each reading
  * is consumed once, so monomials and term lists are grown in place. finish gives the value.
@@ -292,7 +294,7 @@ export function monomialReading(text: string): { reading: Reading<Partial> & Req
   const names: string[] = [];
   const nameTerms = (name: number): Terms => ({ terms: [{ coef: Rational.ONE, factors: [name, 1] }] });
   const asExact = (p: Partial): RationalFunction =>
-    p instanceof RationalFunction ? p : typeof p === "number" ? RationalFunction.variable(names[p]) : RationalFunction.fromPoly(polyFromMonomials(names, p.terms));
+    p instanceof RationalFunction ? p : typeof p === "number" ? RationalFunction.variable(names[p]) : RationalFunction.fromPoly(Poly.fromFields(fieldsFromMonomials(names, p.terms)));
   /** The value as terms (a name becomes one), or null for a rational function. */
   const termsOf = (p: Partial): Terms | null => (p instanceof RationalFunction ? null : typeof p === "number" ? nameTerms(p) : p);
   /** The value's one monomial, or null. */

@@ -15,7 +15,9 @@
 //     one variable, with contents computed recursively by this same function.
 // Every answer is exact; randomness only decides how fast it comes.
 
-import { Poly, buildPoly, makeLayout, unionVars, type Key } from "./polynomial";
+import { Poly } from "./polynomial";
+import { canonicalFields } from "./polynomial-build";
+import { makeLayout, unionVars, type Key } from "./monomial-layout";
 import { polyDivide, polyDivideExact } from "./division";
 import { heuristicGcd } from "./heuristic-gcd";
 import { PRIME, invMod, makeRandom, residue } from "./modular";
@@ -312,7 +314,7 @@ function coefficientGroups(p: Poly, keep: readonly string[]): Array<{ size: numb
         for (const i of keepCols) exps.push(p.exps[t * nv + i]);
         coefs.push(p.coefs[t]);
       }
-      return buildPoly(keptVars, exps, coefs, 1n);
+      return Poly.fromFields(canonicalFields(keptVars, exps, coefs, 1n));
     },
   }));
 }

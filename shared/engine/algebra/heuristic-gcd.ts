@@ -5,7 +5,8 @@
 // so an answer is always right; after a few evaluation points it gives up (null) and the
 // caller falls back to a remainder sequence.
 
-import { Poly, buildPoly } from "./polynomial";
+import { Poly } from "./polynomial";
+import { canonicalFields } from "./polynomial-build";
 import { bigAbs, bigGcd } from "./rational";
 import { polyDivide } from "./division";
 import { sortNames } from "./names";
@@ -59,11 +60,11 @@ function isqrt(n: bigint): bigint {
 }
 
 function scaleInt(p: Poly, k: bigint): Poly {
-  return k === 1n ? p : buildPoly(p.vars, p.exps, p.coefs.map((c) => c * k), 1n);
+  return k === 1n ? p : Poly.fromFields(canonicalFields(p.vars, p.exps, p.coefs.map((c) => c * k), 1n));
 }
 
 function divideInt(p: Poly, k: bigint): Poly {
-  return k === 1n ? p : buildPoly(p.vars, p.exps, p.coefs.map((c) => c / k), 1n);
+  return k === 1n ? p : Poly.fromFields(canonicalFields(p.vars, p.exps, p.coefs.map((c) => c / k), 1n));
 }
 
 function heu(a: Poly, b: Poly): HeuristicGcd | null {
@@ -156,12 +157,12 @@ function evaluateAt(p: Poly, x: string, xi: bigint): Poly {
       coefs.push(c);
     } else coefs[at] += c;
   }
-  return buildPoly(rest, exps, coefs, 1n);
+  return Poly.fromFields(canonicalFields(rest, exps, coefs, 1n));
 }
 
 /** The polynomial in x (and p's variables) whose coefficients are the symmetric xi-adic digits of p's. */
 function interpolate(p: Poly, x: string, xi: bigint): Poly {
-  // buildPoly wants the variables in canonical order; x goes where it belongs in that order.
+  // canonicalFields wants the variables in canonical order; x goes where it belongs in that order.
   const order = sortNames([...p.vars, x]);
   const at = order.indexOf(x);
   const nv = order.length;
@@ -182,5 +183,5 @@ function interpolate(p: Poly, x: string, xi: bigint): Poly {
       c = (c - d) / xi;
     }
   }
-  return buildPoly(order, exps, coefs, 1n);
+  return Poly.fromFields(canonicalFields(order, exps, coefs, 1n));
 }

@@ -2,7 +2,8 @@
 // positive leading coefficient (D = 1 for polynomials), so equal functions print equally.
 
 import { Rational } from "./rational";
-import { Poly, unionVars } from "./polynomial";
+import { Poly } from "./polynomial";
+import { unionVars } from "./monomial-layout";
 import { polyGcdCofactors } from "./gcd";
 import { factorCheap, type CheapFactorization } from "./factor";
 import { sortNames, texName } from "./names";

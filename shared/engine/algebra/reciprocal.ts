@@ -2,7 +2,9 @@
 // variable g by 1/r and clear denominators with r^deg_g(p). For multilinear p this is a
 // pure remap of exponents (e_r = deg_g - e_g), no arithmetic on coefficients.
 
-import { Poly, buildPoly, sortTerms, unionVars } from "./polynomial";
+import { Poly } from "./polynomial";
+import { canonicalFields, sortedFields } from "./polynomial-build";
+import { unionVars } from "./monomial-layout";
 import { sortNames } from "./names";
 
 /**
@@ -44,10 +46,10 @@ export function reciprocalSubstitute(p: Poly, pairs: Record<string, string>): { 
   const low = p.lowDegrees();
   const outDeg = new Int32Array(nvOut);
   for (let v = 0; v < nvIn; v++) outDeg[col[v]] = reflect[v] === 1 ? degs[v] - low[v] : degs[v];
-  // Coefficients are unchanged; sortTerms only reads them (a reduced, positive den is kept as is).
-  const poly = outDeg.every((d) => d > 0)
-    ? sortTerms(vars, exps, p.coefs as bigint[], p.den, outDeg)
-    : buildPoly(vars, exps, p.coefs.slice(), p.den);
+  // Coefficients are unchanged; sortedFields only reads them (a reduced, positive den is kept as is).
+  const poly = Poly.fromFields(
+    outDeg.every((d) => d > 0) ? sortedFields(vars, exps, p.coefs as bigint[], p.den, outDeg) : canonicalFields(vars, exps, p.coefs.slice(), p.den),
+  );
   return { poly, multiplier: Poly.monomial(1, multiplier) };
 }
 

@@ -216,6 +216,7 @@ interface ControlPart {
   coefficient: Coefficient;
 }
 
+/** A source's controlled parts: each its gain times the controlling quantity, a node-voltage difference (across) or a branch current (through). */
 function controlParts(e: TwoTerminalElement, ctx: StampContext): ControlPart[] {
   const label = (letter: "v" | "i", j: number) => {
     const sub = ctx.terms.length > 1 ? `${e.name}_${j + 1}` : e.name;
@@ -271,38 +272,28 @@ function sourceWords(e: TwoTerminalElement): string {
   return phrase.charAt(0).toUpperCase() + phrase.slice(1);
 }
 
-/** A voltage source: V(a) − V(b) − Σ gain·control = independent part; its current is a new unknown. */
-export function stampVoltageSource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
-  const [a, b] = e.nodes;
-  const row = branchRow(e.name);
-  const v = coefficientOf(ctx.value!, e.name, ctx.index, "source");
-  const parts = controlParts(e, ctx);
-  const words = sourceWords(e);
-  return {
-    ...sourceBase(e, parts, v),
-    entries: [...branchCurrentEntries(e), ...differenceEntries(row, a, b, unit), ...parts.flatMap((p) => p.at(row, -1))],
-    sources: [{ row, value: v.poly, display: v.display }],
-    currents: branchCurrents(e),
-    branch: {
-      row,
-      unknown: currentUnknown(e.name),
-      kind: "constraint",
-      equation: written(differenceOf(a, b, ctx.ground), drivenWritten(ctx.value!, parts)),
-      explanation:
-        parts.length === 0
-          ? `Voltage source "${e.name}" fixes the voltage between its nodes; its current is a new unknown.`
-          : `${words} "${e.name}" sets the voltage between its nodes from its controls; its current is a new unknown.`,
-    },
-  };
-}
+/**
+ * Where a source's output goes: a branch equation "output = what the source drives" in its own
+ * row, with its current I a new unknown entering KCL at its nodes (the output is V(a) − V(b) for
+ * a voltage source, I itself for a current source whose current controls another source), or an
+ * injection of what it drives into the KCL rows of its two nodes.
+ */
+type SourceOutput =
+  | { form: "branch"; kind: BranchEquation["kind"]; output: Written; outputEntries: (row: string) => MatrixEntry[]; explanation: string }
+  | { form: "injection" };
 
-/** A current source: drives its value from a to b; kept as a current unknown when some source names through() it. */
-export function stampCurrentSource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+/**
+ * Every source stamp, independent or controlled (VCVS, CCVS, VCCS, CCCS and their mixtures): the
+ * controlled parts (controlParts: a node-voltage difference or a branch current, times its gain)
+ * go where the output goes, with the sign that moves them to the left side; the independent part
+ * goes to the right side.
+ */
+function stampSource(e: TwoTerminalElement, ctx: StampContext, to: SourceOutput): ElementStamp {
   const [a, b] = e.nodes;
   const v = coefficientOf(ctx.value!, e.name, ctx.index, "source");
   const parts = controlParts(e, ctx);
   const driven = drivenWritten(ctx.value!, parts);
-  if (!ctx.branchForm) {
+  if (to.form === "injection") {
     // The source current leaves node a and enters node b; its independent part changes sign on the right side.
     return {
       ...sourceBase(e, parts, v),
@@ -319,20 +310,40 @@ export function stampCurrentSource(e: TwoTerminalElement, ctx: StampContext): El
     };
   }
   const row = branchRow(e.name);
-  const i = currentUnknown(e.name);
   return {
     ...sourceBase(e, parts, v),
-    entries: [...branchCurrentEntries(e), entry(row, i, unit), ...parts.flatMap((p) => p.at(row, -1))],
+    entries: [...branchCurrentEntries(e), ...to.outputEntries(row), ...parts.flatMap((p) => p.at(row, -1))],
     sources: [{ row, value: v.poly, display: v.display }],
     currents: branchCurrents(e),
-    branch: {
-      row,
-      unknown: i,
-      kind: "control",
-      equation: written({ infix: currentInfix(e.name), tex: currentTex(e.name) }, driven),
-      explanation: `The current of ${elementPhrase(e)} "${e.name}" controls another source, so it is kept as an unknown equal to what the source drives.`,
-    },
+    branch: { row, unknown: currentUnknown(e.name), kind: to.kind, equation: written(to.output, driven), explanation: to.explanation },
   };
+}
+
+/** A voltage source (VCVS or CCVS when controlled): V(a) − V(b) − Σ gain·control = independent part; its current is a new unknown. */
+export function stampVoltageSource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+  const [a, b] = e.nodes;
+  return stampSource(e, ctx, {
+    form: "branch",
+    kind: "constraint",
+    output: differenceOf(a, b, ctx.ground),
+    outputEntries: (row) => differenceEntries(row, a, b, unit),
+    explanation:
+      ctx.terms.length === 0
+        ? `Voltage source "${e.name}" fixes the voltage between its nodes; its current is a new unknown.`
+        : `${sourceWords(e)} "${e.name}" sets the voltage between its nodes from its controls; its current is a new unknown.`,
+  });
+}
+
+/** A current source (VCCS or CCCS when controlled): drives its value from a to b; kept as a current unknown when some source names through() it. */
+export function stampCurrentSource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+  if (!ctx.branchForm) return stampSource(e, ctx, { form: "injection" });
+  return stampSource(e, ctx, {
+    form: "branch",
+    kind: "control",
+    output: { infix: currentInfix(e.name), tex: currentTex(e.name) },
+    outputEntries: (row) => [entry(row, currentUnknown(e.name), unit)],
+    explanation: `The current of ${elementPhrase(e)} "${e.name}" controls another source, so it is kept as an unknown equal to what the source drives.`,
+  });
 }
 
 // ---- op-amp ------------------------------------------------------------------------------

@@ -1,0 +1,276 @@
+// Canonical polynomial fields from raw terms: zero terms and unused variables dropped, the
+// common denominator reduced, the terms sorted into graded lexicographic order (see Poly).
+// The builders return the fields and Poly.fromFields wraps them, so building does not depend
+// on the class.
+
+import { bigGcd, bigLcm, type Rational } from "./rational";
+import { sortNames } from "./names";
+import { MAX_EXPONENT, bitLength, fieldDecoder, gradedKeys, makeLayout, type Key, type Layout } from "./monomial-layout";
+
+/** A polynomial's fields in canonical form, with its degrees when the building operation knows them. */
+export interface PolyFields {
+  readonly vars: readonly string[];
+  readonly exps: Uint16Array;
+  readonly coefs: readonly bigint[];
+  readonly den: bigint;
+  readonly degrees?: Int32Array;
+  readonly lowDegrees?: Int32Array;
+}
+
+export const ZERO_FIELDS: PolyFields = { vars: [], exps: new Uint16Array(0), coefs: [], den: 1n };
+
+/** Divide the common denominator and the coefficients (in place) by their gcd; returns the reduced denominator. */
+export function normalizeDen(coefs: bigint[], den: bigint): bigint {
+  if (den === 1n) return den;
+  let g = den;
+  for (let i = 0; i < coefs.length && g !== 1n; i++) g = bigGcd(g, coefs[i]);
+  if (g !== 1n) {
+    for (let i = 0; i < coefs.length; i++) coefs[i] /= g;
+    return den / g;
+  }
+  return den;
+}
+
+
+/** Fields of the polynomial with packed keys (distinct) and integer coefficients (BigInt, or safe integers in doubles) over den. */
+export function fieldsFromKeys(layout: Layout, keys: ArrayLike<Key>, coefs: ArrayLike<bigint> | Float64Array, den: bigint): PolyFields {
+  const nv = layout.vars.length;
+  const m = coefs.length;
+  const cs: bigint[] = [];
+  const keep: number[] = [];
+  if (coefs instanceof Float64Array) {
+    for (let i = 0; i < m; i++) if (coefs[i] !== 0) keep.push(i);
+  } else {
+    for (let i = 0; i < m; i++) if (coefs[i] !== 0n) keep.push(i);
+  }
+  const n = keep.length;
+  const exps = new Uint16Array(n * nv);
+  if (layout.packed) {
+    const dec = fieldDecoder(layout);
+    // One array kind for the loop (keys arrive as Float64Array or as arrays of doubles).
+    const ks = keys instanceof Float64Array ? keys : Float64Array.from(keys as ArrayLike<number>);
+    for (let t = 0; t < n; t++) {
+      const i = keep[t];
+      const k = ks[i];
+      const hi = Math.floor(k / 4294967296);
+      const lo = (k - hi * 4294967296) >>> 0;
+      const o = t * nv;
+      for (let v = 0; v < nv; v++) {
+        const off = dec.off[v];
+        exps[o + v] = (off >= 32 ? hi >>> (off - 32) : off + dec.bits[v] <= 32 ? lo >>> off : (lo >>> off) | (hi << (32 - off))) & dec.mask[v];
+      }
+    }
+  } else {
+    const masks = layout.bits.map((b) => (1n << BigInt(b)) - 1n);
+    const shifts = layout.multBig.map((mb) => BigInt(mb.toString(2).length - 1));
+    for (let t = 0; t < n; t++) {
+      const k = keys[keep[t]] as bigint;
+      for (let v = 0; v < nv; v++) exps[t * nv + v] = Number((k >> shifts[v]) & masks[v]);
+    }
+  }
+  if (coefs instanceof Float64Array) for (let t = 0; t < n; t++) cs.push(BigInt(coefs[keep[t]]));
+  else for (let t = 0; t < n; t++) cs.push(coefs[keep[t]]);
+  return canonicalFields(layout.vars, exps, cs, den);
+}
+
+/** A monomial by its variables: coefficient and (variable number, exponent) pairs, variables distinct, in any order. */
+export interface SparseMonomial {
+  coef: Rational;
+  factors: number[];
+}
+
+/**
+ * Fields of the sum of many monomials (repeats allowed) over the variables names (numbered by position),
+ * in one pass: rows written once, repeats found by a hash of each monomial's pairs, one sort.
+ * Linear in the terms written plus the sort, where adding them one polynomial at a time costs
+ * n log n polynomial additions.
+ */
+export function fieldsFromMonomials(names: readonly string[], terms: readonly SparseMonomial[]): PolyFields {
+  const used = new Uint8Array(names.length);
+  for (const t of terms) for (let j = 0; j < t.factors.length; j += 2) used[t.factors[j]] = 1;
+  const vars = sortNames(names.filter((_, i) => used[i]));
+  const column = new Int32Array(names.length);
+  const sortedAt = new Map(vars.map((v, i) => [v, i]));
+  names.forEach((name, i) => {
+    if (used[i]) column[i] = sortedAt.get(name)!;
+  });
+  const nv = vars.length;
+  const exps = new Uint16Array(terms.length * nv);
+  const coefs: Rational[] = [];
+  // Chained hash table over the distinct rows so far: head by hash, next by row.
+  const head = new Map<number, number>();
+  const next: number[] = [];
+  for (const t of terms) {
+    const row = coefs.length;
+    const o = row * nv;
+    const f = t.factors;
+    let h = 0;
+    for (let j = 0; j < f.length; j += 2) {
+      const c = column[f[j]];
+      const e = f[j + 1];
+      if (e > MAX_EXPONENT) throw new RangeError(`exponent above ${MAX_EXPONENT}`);
+      exps[o + c] = e;
+      // Order-independent: the pairs come in the text's order.
+      h = (h + Math.imul((c * 65599 + e) ^ 0x5bd1e995, 0x9e3779b1)) | 0;
+    }
+    let same = head.get(h) ?? -1;
+    for (; same >= 0; same = next[same]) {
+      const so = same * nv;
+      let equal = true;
+      for (let v = 0; v < nv && equal; v++) equal = exps[so + v] === exps[o + v];
+      if (equal) break;
+    }
+    if (same >= 0) {
+      coefs[same] = coefs[same].add(t.coef);
+      for (let j = 0; j < f.length; j += 2) exps[o + column[f[j]]] = 0;
+      continue;
+    }
+    coefs.push(t.coef);
+    next.push(head.get(h) ?? -1);
+    head.set(h, row);
+  }
+  const n = coefs.length;
+  return fieldsFromRationals(vars, n * nv === exps.length ? exps : exps.slice(0, n * nv), coefs);
+}
+
+/** A sum of terms with rational coefficients, repeated exponent rows combined (rows keyed as text: for small inputs). */
+export class RationalTermSum {
+  private readonly index = new Map<string, number>();
+  private readonly exps: number[] = [];
+  private readonly coefs: Rational[] = [];
+
+  /** Add c times the monomial with exponent row e (read, not kept). */
+  add(e: readonly number[], c: Rational): void {
+    const key = e.join(",");
+    const at = this.index.get(key);
+    if (at === undefined) {
+      this.index.set(key, this.coefs.length);
+      this.exps.push(...e);
+      this.coefs.push(c);
+    } else this.coefs[at] = this.coefs[at].add(c);
+  }
+
+  fields(vars: readonly string[]): PolyFields {
+    return fieldsFromRationals(vars, this.exps, this.coefs);
+  }
+}
+
+/** Fields of the polynomial with distinct monomials and rational coefficients. */
+export function fieldsFromRationals(vars: readonly string[], exps: ArrayLike<number>, coefs: Rational[]): PolyFields {
+  let den = 1n;
+  for (const c of coefs) if (c.den !== 1n) den = bigLcm(den, c.den);
+  const ints = coefs.map((c) => (c.den === den ? c.num : c.num * (den / c.den)));
+  return canonicalFields(vars, exps, ints, den);
+}
+
+/**
+ * Canonical fields from distinct monomials: drops zero terms and unused variables,
+ * reduces the common denominator and sorts the terms. Takes ownership of coefs.
+ */
+export function canonicalFields(vars: readonly string[], exps: ArrayLike<number>, coefs: bigint[], den: bigint): PolyFields {
+  // One element type for every loop below (mixed array kinds make V8's element loads slow).
+  if (!(exps instanceof Uint16Array)) exps = Uint16Array.from(exps);
+  let nv = vars.length;
+  const n0 = coefs.length;
+  // Drop zero coefficients.
+  let n = 0;
+  for (let i = 0; i < n0; i++) if (coefs[i] !== 0n) n++;
+  let e: ArrayLike<number> = exps;
+  if (n !== n0) {
+    const e2 = new Uint16Array(n * nv);
+    const c2 = new Array<bigint>(n);
+    let t = 0;
+    for (let i = 0; i < n0; i++) {
+      if (coefs[i] === 0n) continue;
+      for (let v = 0; v < nv; v++) e2[t * nv + v] = exps[i * nv + v];
+      c2[t++] = coefs[i];
+    }
+    e = e2;
+    coefs = c2;
+  }
+  if (n === 0) return ZERO_FIELDS;
+  if (den < 0n) {
+    den = -den;
+    for (let i = 0; i < n; i++) coefs[i] = -coefs[i];
+  }
+  den = normalizeDen(coefs, den);
+  // Drop variables that no longer occur.
+  const maxDeg = new Int32Array(nv);
+  for (let t = 0; t < n; t++) for (let v = 0; v < nv; v++) if (e[t * nv + v] > maxDeg[v]) maxDeg[v] = e[t * nv + v];
+  const keep: number[] = [];
+  for (let v = 0; v < nv; v++) if (maxDeg[v] > 0) keep.push(v);
+  let outVars: readonly string[] = vars;
+  if (keep.length !== nv) {
+    const e2 = new Uint16Array(n * keep.length);
+    for (let t = 0; t < n; t++) for (let j = 0; j < keep.length; j++) e2[t * keep.length + j] = e[t * nv + keep[j]];
+    e = e2;
+    outVars = keep.map((v) => vars[v]);
+    const md = keep.map((v) => maxDeg[v]);
+    nv = keep.length;
+    maxDeg.set(md);
+  }
+  const ex = e instanceof Uint16Array ? e : Uint16Array.from(e as ArrayLike<number>);
+  return sortedFields(outVars, ex, coefs, den, maxDeg.subarray(0, nv));
+}
+
+/** Canonical order for distinct terms with no zero coefficient; maxDeg is each variable's degree (all > 0). */
+export function sortedFields(vars: readonly string[], e: Uint16Array, coefs: bigint[], den: bigint, maxDeg: ArrayLike<number>): PolyFields {
+  const nv = vars.length;
+  const n = coefs.length;
+  const degrees = Int32Array.from(maxDeg);
+  if (n <= 1) return { vars, exps: e, coefs, den, degrees };
+  let maxTot = 0;
+  for (let v = 0; v < nv; v++) maxTot += maxDeg[v];
+  const layout = makeLayout(vars, maxDeg);
+  let order: Uint32Array;
+  if (layout.totalBits + bitLength(maxTot) <= 53) {
+    const sk = gradedKeys(e, n, nv, layout.mult, layout.totalBits);
+    let sorted = true;
+    for (let t = 1; t < n && sorted; t++) if (sk[t] > sk[t - 1]) sorted = false;
+    if (sorted) return { vars, exps: e, coefs, den, degrees };
+    order = new Uint32Array(n);
+    const idxBits = bitLength(n);
+    if (layout.totalBits + bitLength(maxTot) + idxBits <= 53) {
+      // Room for the term index below the key: one native numeric sort, indices read back.
+      const scale = 2 ** idxBits;
+      const packed = new Float64Array(n);
+      for (let t = 0; t < n; t++) packed[t] = sk[t] * scale + t;
+      packed.sort();
+      for (let t = 0; t < n; t++) order[t] = packed[n - 1 - t] % scale;
+    } else {
+      // Keys are distinct integers: a native numeric sort, then each key finds its term again.
+      const where = new Map<number, number>();
+      for (let t = 0; t < n; t++) where.set(sk[t], t);
+      const asc = sk.slice().sort();
+      for (let t = 0; t < n; t++) order[t] = where.get(asc[n - 1 - t])!;
+    }
+  } else {
+    const tot = new Float64Array(n);
+    for (let t = 0, o = 0; t < n; t++, o += nv) {
+      let d = 0;
+      for (let v = 0; v < nv; v++) d += e[o + v];
+      tot[t] = d;
+    }
+    order = new Uint32Array(n);
+    for (let t = 0; t < n; t++) order[t] = t;
+    order.sort((a, b) => {
+      if (tot[a] !== tot[b]) return tot[b] - tot[a];
+      for (let v = 0; v < nv; v++) {
+        const d = e[b * nv + v] - e[a * nv + v];
+        if (d !== 0) return d;
+      }
+      return 0;
+    });
+  }
+  const e2 = new Uint16Array(n * nv);
+  const c2 = new Array<bigint>(n);
+  for (let t = 0; t < n; t++) {
+    const s = order[t];
+    const from = s * nv;
+    const to = t * nv;
+    for (let v = 0; v < nv; v++) e2[to + v] = e[from + v];
+    c2[t] = coefs[s];
+  }
+  return { vars, exps: e2, coefs: c2, den, degrees };
+}
+
