@@ -11,7 +11,7 @@
 import { Rational, bigLcm } from "./rational";
 import { Poly } from "./polynomial";
 import { fieldsFromKeys } from "./polynomial-build";
-import { keysIn, makeLayout, unionVars, varMap, type Key, type Layout } from "./monomial-layout";
+import { addKeys, keysIn, makeLayout, unionVars, varMap, type Key, type Layout } from "./monomial-layout";
 import { polyDivideExact } from "./division";
 import { TermTable, smallCoefficients } from "./term-table";
 
@@ -171,10 +171,10 @@ function combineBig(
     const mk = minors[i].keys;
     const mc = minors[i].coefs;
     for (let a = 0; a < e.keys.length; a++) {
-      const ek: any = e.keys[a];
+      const ek = e.keys[a];
       const ec = signs[i] < 0 ? -e.coefs[a] : e.coefs[a];
       for (let b = 0; b < mk.length; b++) {
-        const k: Key = ek + (mk[b] as any);
+        const k = addKeys(ek, mk[b]);
         const at = index.get(k);
         if (at === undefined) {
           index.set(k, keys.length);

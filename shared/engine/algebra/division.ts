@@ -3,10 +3,10 @@
 
 import { Poly } from "./polynomial";
 import { fieldsFromKeys } from "./polynomial-build";
-import { fieldDecoder, keysIn, makeLayout, varMap, type Key, type Layout } from "./monomial-layout";
+import { addKeys, fieldDecoder, keysIn, makeLayout, subKeys, varMap, type Key, type Layout } from "./monomial-layout";
 
 class MaxHeap {
-  private readonly items: any[] = [];
+  private readonly items: Key[] = [];
   get size(): number {
     return this.items.length;
   }
@@ -25,10 +25,11 @@ class MaxHeap {
     }
     h[i] = k;
   }
+  /** Takes the largest key out; only called on a heap that is not empty. */
   pop(): Key {
     const h = this.items;
     const top = h[0];
-    const last = h.pop();
+    const last = h.pop()!;
     const n = h.length;
     if (n > 0) {
       let i = 0;
@@ -220,7 +221,7 @@ function divideBig(
   const cA = A.coefs;
   const cB = B.coefs;
   const lcB = cB[0];
-  const kB0: any = kB[0];
+  const kB0 = kB[0];
   const dec = layout.packed ? fieldDecoder(layout) : null;
   const corr = new Map<Key, bigint>();
   const heap = new MaxHeap();
@@ -229,9 +230,9 @@ function divideBig(
   let ia = 0;
   const nA = kA.length;
   while (ia < nA || heap.size > 0) {
-    let k: any;
+    let k: Key;
     let c: bigint;
-    if (ia < nA && (heap.size === 0 || (kA[ia] as any) >= heap.peek())) {
+    if (ia < nA && (heap.size === 0 || kA[ia] >= heap.peek())) {
       k = kA[ia];
       c = cA[ia++];
       if (heap.size > 0 && heap.peek() === k) {
@@ -248,11 +249,11 @@ function divideBig(
     if (!quotientTermFits(layout, dec, k, ltB, qMax)) return null;
     if (c % lcB !== 0n) return null;
     const qc = c / lcB;
-    const t: any = k - kB0;
+    const t = subKeys(k, kB0);
     qKeys.push(t);
     qCoefs.push(qc);
     for (let j = 1; j < kB.length; j++) {
-      const kk: Key = t + (kB[j] as any);
+      const kk = addKeys(t, kB[j]);
       const old = corr.get(kk);
       if (old === undefined) {
         corr.set(kk, -qc * cB[j]);

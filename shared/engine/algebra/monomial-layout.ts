@@ -8,6 +8,11 @@ import type { Poly } from "./polynomial";
 
 export type Key = number | bigint;
 
+// Keys of one layout are all doubles or all BigInts, so these never mix the two; the casts only tell
+// TypeScript so (multiplying monomials is adding keys, dividing is subtracting them).
+export const addKeys = (a: Key, b: Key): Key => (a as number) + (b as number);
+export const subKeys = (a: Key, b: Key): Key => (a as number) - (b as number);
+
 /** A packed-monomial layout: one bit field per variable, the first variable in the most significant field. */
 export interface Layout {
   readonly vars: readonly string[];

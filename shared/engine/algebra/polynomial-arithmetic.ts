@@ -5,7 +5,7 @@
 
 import { bigLcm } from "./rational";
 import { TermTable, smallCoefficients } from "./term-table";
-import { MAX_EXPONENT, bitLength, gradedKeys, keysIn, makeLayout, unionVars, varMap, type Key, type Layout } from "./monomial-layout";
+import { MAX_EXPONENT, addKeys, bitLength, gradedKeys, keysIn, makeLayout, unionVars, varMap, type Key, type Layout } from "./monomial-layout";
 import { canonicalFields, fieldsFromKeys, normalizeDen, ZERO_FIELDS, type PolyFields } from "./polynomial-build";
 import type { Poly } from "./polynomial";
 
@@ -33,10 +33,10 @@ export function mulSparse(x: Poly, y: Poly): PolyFields {
   const ca = a.coefs;
   const cb = b.coefs;
   for (let i = 0; i < ca.length; i++) {
-    const ki: any = ka[i];
+    const ki = ka[i];
     const ci = ca[i];
     for (let j = 0; j < cb.length; j++) {
-      const k: Key = ki + (kb[j] as any);
+      const k = addKeys(ki, kb[j]);
       const at = index.get(k);
       if (at === undefined) {
         index.set(k, keys.length);

@@ -268,12 +268,11 @@ export class Poly {
 
   pow(n: number): Poly {
     if (!Number.isInteger(n) || n < 0) throw new RangeError("Poly.pow needs a non-negative integer");
+    // Square and multiply, from the exponent's highest bit down.
     let result: Poly = Poly.ONE;
-    let base: Poly = this;
-    while (n > 0) {
-      if (n & 1) result = result.mul(base);
-      n >>= 1;
-      if (n > 0) base = base.mul(base);
+    for (let bit = 31 - Math.clz32(n); bit >= 0; bit--) {
+      result = result.mul(result);
+      if ((n >> bit) & 1) result = result.mul(this);
     }
     return result;
   }
