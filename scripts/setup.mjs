@@ -228,6 +228,8 @@ function lint() {
   ensureLintDependencies();
   log("linting (scripts/lint/eslint.config.js)");
   run(join(root, "scripts", "lint", "node_modules", ".bin", "eslint"), ["--config", "scripts/lint/eslint.config.js", "--max-warnings", "0", "."]);
+  log("looking for dead exports, files and dependencies (knip, scripts/lint/knip.json)");
+  run(join(root, "scripts", "lint", "node_modules", ".bin", "knip"), ["--config", "scripts/lint/knip.json", "--no-progress", "--no-config-hints"]);
 }
 
 async function main() {

@@ -32,7 +32,7 @@ import { valueSetsRouter } from "./routes/value-sets.js";
 import { createSolver, type Solver } from "./solver/pool.js";
 import type { SolveQueue } from "./domain/solve-queue.js";
 
-export { redactTokens } from "./lib/logging.js";
+;
 
 export interface AppContext {
   pool: pg.Pool;

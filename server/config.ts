@@ -17,7 +17,7 @@ function numberFrom(name: string, fallback: number): number {
 // of the balancers whose X-Forwarded-For is believed (e.g. "loopback" or "10.0.0.0/8, 192.168.1.5").
 export type TrustProxy = boolean | number | string;
 
-export function trustProxyFrom(raw: string | undefined): TrustProxy {
+function trustProxyFrom(raw: string | undefined): TrustProxy {
   const value = (raw ?? "").trim();
   if (value === "" || value === "false" || value === "0") return false;
   if (value === "true") return true;

@@ -6,7 +6,7 @@ import { HttpError } from "../lib/errors.js";
 const loopbackNames = new Set(["localhost", "127.0.0.1", "[::1]", "::1"]);
 
 /** The host name of a Host header ("name:port", "[::1]:port"), lower-case; null when unreadable. */
-export function hostName(header: string | undefined): string | null {
+function hostName(header: string | undefined): string | null {
   if (!header) return null;
   try {
     return new URL(`http://${header}`).hostname.toLowerCase();
@@ -15,7 +15,7 @@ export function hostName(header: string | undefined): string | null {
   }
 }
 
-export function isLoopbackName(name: string | null): boolean {
+function isLoopbackName(name: string | null): boolean {
   return name !== null && (loopbackNames.has(name) || /^127(\.\d{1,3}){3}$/.test(name));
 }
 

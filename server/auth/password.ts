@@ -2,7 +2,7 @@ import { hash, verify, type Options } from "@node-rs/argon2";
 
 // argon2id with m = 19 MiB, t = 2, p = 1: the minimum configuration the OWASP Password
 // Storage Cheat Sheet recommends for Argon2id (owasp.org, Cheat Sheet Series, "Password Storage").
-export const passwordHashOptions: Options = {
+const passwordHashOptions: Options = {
   algorithm: 2, // Argon2id (a const enum in the package's types, so spelled as its value)
   memoryCost: 19_456,
   timeCost: 2,

@@ -7,7 +7,7 @@ import type { Transaction } from "./services.js";
 
 import { roleAtLeast } from "../../shared/api/common.js";
 
-export async function memberRole(db: Database | Transaction, teamId: string, userId: string): Promise<Role | null> {
+async function memberRole(db: Database | Transaction, teamId: string, userId: string): Promise<Role | null> {
   const [row] = await db
     .select({ role: teamMembers.role })
     .from(teamMembers)

@@ -26,7 +26,7 @@ export function publicUser(row: Pick<UserRow, "id" | "email" | "name" | "emailVe
   return { id: row.id, email: row.email, name: row.name, emailVerified: row.emailVerifiedAt !== null };
 }
 
-export const invalidToken = () => new Invalid("invalid_token", "This link is invalid, already used or expired.");
+const invalidToken = () => new Invalid("invalid_token", "This link is invalid, already used or expired.");
 
 export function personalTeamName(name: string): string {
   return `${name}'s networks`;

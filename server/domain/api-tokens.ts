@@ -10,7 +10,7 @@ import { accountOverview, publicUser } from "./accounts.js";
 import { requireTeamRole } from "./access.js";
 
 // A recognisable prefix lets secret scanners and people tell a Portfold token from other secrets.
-export const tokenPrefix = "pft_";
+const tokenPrefix = "pft_";
 const secretPattern = /^pft_[A-Za-z0-9_-]{43}$/;
 // last_used_at is written at most this often per token, so a busy script does not write on every request.
 const touchEveryMs = 60_000;
@@ -81,7 +81,7 @@ export interface TokenCaller {
   token: TokenRow;
 }
 
-export const invalidApiToken = () =>
+const invalidApiToken = () =>
   new Unauthenticated("invalid_token", "This API token is unknown, revoked or expired; create a new one on your account page.", true);
 
 // The person behind a bearer secret, or a 401: unknown, revoked and expired tokens answer alike.

@@ -15,7 +15,7 @@ const signatures: { type: string; bytes: number[]; extensions: string[] }[] = [
 
 export const attachmentTypes = signatures.map((s) => s.type);
 
-export function sniffContentType(content: Buffer): string | null {
+function sniffContentType(content: Buffer): string | null {
   const match = signatures.find((s) => content.length >= s.bytes.length && s.bytes.every((b, i) => content[i] === b));
   return match?.type ?? null;
 }
@@ -24,7 +24,7 @@ export function sniffContentType(content: Buffer): string | null {
  * Keeps the name a person gave the file, minus anything that could break a header or a path or make
  * it read as something else (controls, bidi overrides), ending in the extension of its sniffed type.
  */
-export function cleanFilename(name: string, contentType: string): string {
+function cleanFilename(name: string, contentType: string): string {
   const { extensions } = signatures.find((s) => s.type === contentType)!;
   const base = withoutControls((name.split(/[\\/]/).pop() ?? "").replace(/"/g, ""));
   const dot = base.lastIndexOf(".");

@@ -5,7 +5,7 @@ import { requireRevision } from "./revisions.js";
 
 type Element = Network["elements"][number];
 
-export interface ElementChange {
+interface ElementChange {
   name: string;
   before: Element;
   after: Element;
@@ -33,7 +33,7 @@ export interface ResultChange {
 const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
 
 // Elements are matched by name, the one identity a netlist gives them.
-export function circuitChanges(before: Network, after: Network): CircuitChanges {
+function circuitChanges(before: Network, after: Network): CircuitChanges {
   const old = new Map(before.elements.map((e) => [e.name, e]));
   const now = new Map(after.elements.map((e) => [e.name, e]));
   const changed: ElementChange[] = [];
@@ -60,7 +60,7 @@ export function circuitChanges(before: Network, after: Network): CircuitChanges 
 }
 
 // The engine prints equal results equally (canonical form), so comparing the infix text is exact.
-export function resultChanges(before: Record<string, unknown>, after: Record<string, unknown>): ResultChange[] {
+function resultChanges(before: Record<string, unknown>, after: Record<string, unknown>): ResultChange[] {
   const infix = (results: Record<string, unknown>, name: string) => {
     const entry = results[name] as { infix?: unknown } | null | undefined;
     return typeof entry?.infix === "string" ? entry.infix : null;

@@ -61,7 +61,7 @@ function view(row: NetworkRow, role: Role, author: { id: string; name: string } 
 }
 
 // Human-readable and permanent: the title at creation plus a random suffix, never changed later.
-export function slugFor(title: string): string {
+function slugFor(title: string): string {
   const base = title
     .normalize("NFKD")
     .replace(/[\u0300-\u036f]/g, "")

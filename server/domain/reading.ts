@@ -36,7 +36,7 @@ export function readNetwork(services: Services, input: unknown) {
 }
 
 // A stored circuit must have the engine's shape; whether it is solvable is the solve's business.
-export async function readCircuit(services: Services, input: Record<string, unknown>, field = "circuit"): Promise<Network> {
+async function readCircuit(services: Services, input: Record<string, unknown>, field = "circuit"): Promise<Network> {
   const { network, diagnostics } = await readNetwork(services, input);
   if (!network) {
     throw new Invalid("invalid_circuit", "The circuit is not in Portfold's network format.", { fields: { [field]: diagnostics[0]?.message ?? "invalid" }, diagnostics });

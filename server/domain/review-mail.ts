@@ -5,7 +5,7 @@ import type { OutgoingMail } from "../mail/mailer.js";
 import type { Services } from "./services.js";
 
 /** Addresses of these people that take review mail, the actor left out, each once. */
-export async function reviewMailRecipients(services: Services, userIds: (string | null)[], actorId: string): Promise<string[]> {
+async function reviewMailRecipients(services: Services, userIds: (string | null)[], actorId: string): Promise<string[]> {
   const ids = [...new Set(userIds.filter((id): id is string => id !== null && id !== actorId))];
   if (ids.length === 0) return [];
   const rows = await services.db.select({ email: users.email }).from(users).where(and(inArray(users.id, ids), eq(users.reviewMail, true)));

@@ -11,7 +11,7 @@ export interface QueuePage {
   pageSize: number;
 }
 
-export interface QueueItem {
+interface QueueItem {
   network: { id: string; slug: string; title: string; teamId: string; teamName: string };
   revision: number;
   permalink: string;

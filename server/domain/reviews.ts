@@ -75,11 +75,6 @@ export async function listComments(db: Database, networkId: string, number: numb
   return threadsOf(db, revision.id);
 }
 
-// A thread is open until resolved, unless everything in it was deleted.
-export function isOpenThread(thread: CommentView): boolean {
-  return thread.resolved === null && (!thread.deleted || thread.replies.some((reply) => !reply.deleted));
-}
-
 /** Open note threads per revision id. */
 export async function openNoteCounts(db: Database, revisionIds: string[]): Promise<Map<string, number>> {
   const out = new Map<string, number>(revisionIds.map((id) => [id, 0]));

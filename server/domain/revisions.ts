@@ -5,18 +5,15 @@ import type { Database } from "../db/client.js";
 import { networks, revisionSteps, revisions, users, type Role } from "../db/schema.js";
 import { notFound } from "./errors.js";
 import { requireNetworkRole, type NetworkRow } from "./access.js";
-import type { Derivation, StepRecord } from "../solver/derive.js";
+import type { Derivation } from "../solver/derive.js";
 import type { Diagnostic, Network } from "../solver/engine.js";
 import { openNoteCounts } from "./reviews.js";
-import { approvedBefore, revisionStates, type RevisionState } from "./verdicts.js";
+import { approvedBefore, revisionStates } from "./verdicts.js";
 
 // What a revision stores is exactly what a solve derives (server/solver/derive.ts).
-export type StepInput = StepRecord;
 export type RevisionInput = Derivation;
 
 type RevisionRow = typeof revisions.$inferSelect;
-
-export type VerdictView = RevisionState;
 
 export function permalink(slug: string, number: number): string {
   return `/n/${slug}/r/${number}`;

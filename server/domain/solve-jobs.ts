@@ -31,7 +31,7 @@ export interface SolveJobView {
   poll: string;
 }
 
-export function jobPath(networkId: string, jobId: string): string {
+function jobPath(networkId: string, jobId: string): string {
   return `/api/networks/${networkId}/solve-jobs/${jobId}`;
 }
 
@@ -170,7 +170,7 @@ export async function failInterruptedJobs(db: Database, runner: string): Promise
 }
 
 /** How long a job may stay queued or solving before its server is presumed gone (one that never restarts). */
-export function staleAfterMs(settings: SolveSettings): number {
+function staleAfterMs(settings: SolveSettings): number {
   const turns = 1 + Math.ceil(settings.queueMax / settings.threads);
   return settings.timeLimitMs * turns + 60_000;
 }

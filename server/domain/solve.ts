@@ -28,7 +28,7 @@ import {
 } from "./solve-jobs.js";
 import type { SolveJobData } from "./solve-queue.js";
 
-export function capExceeded(found: CapBreach): Unprocessable {
+function capExceeded(found: CapBreach): Unprocessable {
   return new Unprocessable("solve_cap_exceeded", breachMessage(found), { details: { cap: found } });
 }
 
@@ -52,7 +52,7 @@ function solveLimited(error: SolveLimitError): DomainError {
 const engineFailed = () =>
   new Unprocessable("engine_failed", "Portfold's engine could not solve this network: it failed on something in it. The failure is in the server's log; try changing the network.");
 
-export function derivationOf(outcome: SolveOutcome): Derivation {
+function derivationOf(outcome: SolveOutcome): Derivation {
   if (outcome.kind === "ill_posed") throw illPosed(outcome.diagnostics);
   if (outcome.kind === "engine_failed") throw engineFailed();
   if (outcome.kind === "capped") throw capExceeded(outcome.breach);

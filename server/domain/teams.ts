@@ -11,7 +11,7 @@ import { link, type Services, type Transaction } from "./services.js";
 
 const invitationLifetimeMs = 7 * 24 * 3_600_000;
 
-export interface TeamMember {
+interface TeamMember {
   userId: string;
   name: string;
   email: string;

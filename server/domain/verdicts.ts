@@ -35,7 +35,7 @@ export interface RevisionState {
   requiredApprovals: number;
 }
 
-export const verdictLabel: Record<Verdict, string> = { open: "open", approved: "approved", needs_changes: "needs changes" };
+const verdictLabel: Record<Verdict, string> = { open: "open", approved: "approved", needs_changes: "needs changes" };
 
 interface HistoryRow {
   id: string;
@@ -83,7 +83,7 @@ function standing(history: HistoryRow[]): HistoryRow[] {
 }
 
 /** The state of a revision from its history (newest first): any standing change request wins; else enough approvals by others than its author. */
-export function deriveState(history: HistoryRow[], requiredApprovals: number, authorId: string | null): RevisionState {
+function deriveState(history: HistoryRow[], requiredApprovals: number, authorId: string | null): RevisionState {
   const current = standing(history);
   const changes = current.filter((row) => row.verdict === "needs_changes");
   const approvals = current.filter((row) => row.verdict === "approved" && row.userId !== authorId);

@@ -8,7 +8,7 @@ const messageMax = 300;
  * An error message that quotes the input keeps only a short excerpt of it: a quoted stretch over 40
  * characters is cut with "…", the whole message at 300, so an answer never echoes a large body back.
  */
-export function excerpt(message: string): string {
+function excerpt(message: string): string {
   const short = message.replace(/"([^"]{41,})"/g, (_all, quoted: string) => `"${quoted.slice(0, quotedMax)}…"`);
   return short.length > messageMax ? `${short.slice(0, messageMax - 1)}…` : short;
 }
@@ -72,7 +72,7 @@ const statusOfKind: Record<DomainErrorKind, number> = {
 };
 
 /** The HTTP answer to a domain refusal: its kind's status, its parts in the body, Retry-After and WWW-Authenticate. */
-export function httpErrorOf(error: DomainError): HttpError {
+function httpErrorOf(error: DomainError): HttpError {
   const { fields, diagnostics, details, retryAfter } = error.parts;
   const headers: Record<string, string> = {};
   if (retryAfter !== undefined) headers["Retry-After"] = String(retryAfter);
@@ -103,7 +103,7 @@ export const notFoundApi: RequestHandler = (req, _res, next) => {
   next(new HttpError(404, "not_found", `No API route ${req.method} ${req.path}`));
 };
 
-export const databaseUnavailableError = () =>
+const databaseUnavailableError = () =>
   new HttpError(503, "database_unavailable", "The database is not reachable right now, so this request was not carried out and nothing was saved; try again in a few seconds.", undefined, undefined, {
     headers: { "Retry-After": "5" },
   });
@@ -111,7 +111,7 @@ export const databaseUnavailableError = () =>
 // PostgreSQL SQLSTATE classes and node errors that mean "the database is not reachable right now".
 const unavailableCodes = new Set(["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "57P01", "57P02", "57P03", "08000", "08001", "08003", "08006"]);
 
-export function databaseUnavailable(error: unknown): boolean {
+function databaseUnavailable(error: unknown): boolean {
   const code = (error as { code?: unknown })?.code;
   const message = String((error as { message?: unknown })?.message ?? "");
   return (typeof code === "string" && unavailableCodes.has(code)) || message.includes("timeout exceeded when trying to connect")

@@ -5,7 +5,7 @@ import pino, { type DestinationStream, type Logger } from "pino";
 import { pinoHttp } from "pino-http";
 
 // Wherever these appear in a logged object they are replaced, whatever logged it.
-export const redactedPaths = [
+const redactedPaths = [
   "req.headers.cookie",
   "req.headers.authorization",
   'res.headers["set-cookie"]',
@@ -22,7 +22,7 @@ export const redactedPaths = [
 ];
 
 // Tokens travel in some paths (share links, invitations); logs keep the route, not the secret.
-export function redactTokens(url: string): string {
+function redactTokens(url: string): string {
   return url.replace(/\/(s|share|invitations)\/[A-Za-z0-9_-]{20,}/g, "/$1/[token]").replace(/token=[^&]+/g, "token=[token]");
 }
 
@@ -41,7 +41,7 @@ interface LoggedError {
 
 // Only these members of an error reach a log line: a failed query's `params` (and anything else an
 // error may carry) stay out. pino-http hands over an already serialized object, pino the Error itself.
-export function serializeError(error: unknown, depth = 0): LoggedError {
+function serializeError(error: unknown, depth = 0): LoggedError {
   if (error === null || typeof error !== "object") return { type: typeof error, message: withoutParameters(String(error)) };
   const { name, type, message, code, stack, cause } = error as { name?: unknown; type?: unknown; message?: unknown; code?: unknown; stack?: unknown; cause?: unknown };
   return {
@@ -60,7 +60,7 @@ export function createLogger(level: string, destination?: DestinationStream): Lo
 const requestIdPattern = /^[A-Za-z0-9._:-]{1,100}$/;
 
 // A request id from the load balancer is kept, so one id follows a request across machines.
-export function requestId(req: IncomingMessage, res: ServerResponse): string {
+function requestId(req: IncomingMessage, res: ServerResponse): string {
   const given = req.headers["x-request-id"];
   const id = typeof given === "string" && requestIdPattern.test(given) ? given : randomUUID();
   res.setHeader("X-Request-Id", id);

@@ -2,7 +2,7 @@
 // loads: its own scripts, styles and fonts (IBM Plex and KaTeX's fonts are bundled), nothing remote.
 import helmet from "helmet";
 
-export function contentSecurityPolicy(production: boolean): Record<string, string[] | null> {
+function contentSecurityPolicy(production: boolean): Record<string, string[] | null> {
   return {
     "default-src": ["'self'"],
     "base-uri": ["'self'"],

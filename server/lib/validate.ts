@@ -41,4 +41,4 @@ export function tokenParam(value: unknown, what = "That link"): string {
   return value;
 }
 
-export { emailField, nameText, plainText, tokenField, withoutControls } from "../../shared/api/common.js";
+export { withoutControls } from "../../shared/api/common.js";

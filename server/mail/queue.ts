@@ -17,7 +17,7 @@ export interface MailQueueSettings {
 }
 
 
-export function deadLetterQueue(settings: Pick<MailQueueSettings, "queue">): string {
+function deadLetterQueue(settings: Pick<MailQueueSettings, "queue">): string {
   return `${settings.queue}-dead`;
 }
 
@@ -28,7 +28,7 @@ export async function createMailQueues(boss: PgBoss, settings: MailQueueSettings
 }
 
 // One mail, one job: the same key (given, or the mail's own content) never queues it twice.
-export function mailKey(mail: OutgoingMail): string {
+function mailKey(mail: OutgoingMail): string {
   return mail.key ?? createHash("sha256").update(JSON.stringify([mail.to.toLowerCase(), mail.subject, mail.text, mail.html])).digest("hex");
 }
 

@@ -12,7 +12,7 @@ const genericDescription = "A derivation shared from Portfold. This link is not 
 const previewMax = { title: 120, description: 300 };
 const clip = (text: string, max: number) => (text.length > max ? `${text.slice(0, max - 1)}…` : text);
 
-export function withPreview(shell: string, preview: { title: string; description: string; url?: string }): string {
+function withPreview(shell: string, preview: { title: string; description: string; url?: string }): string {
   const title = escapeHtml(clip(preview.title, previewMax.title));
   const description = escapeHtml(clip(preview.description, previewMax.description));
   const tags = [

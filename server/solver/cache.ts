@@ -25,7 +25,7 @@ const engineDir = fileURLToPath(new URL("../../shared/engine/", import.meta.url)
 let engineHash: string | null = null;
 
 /** A hash of the engine's own source: a changed engine never answers from an older engine's cache. */
-export function engineFingerprint(): string {
+function engineFingerprint(): string {
   if (engineHash) return engineHash;
   const hash = createHash("sha256");
   const files = (readdirSync(engineDir, { recursive: true }) as string[]).filter((file) => file.endsWith(".ts")).sort();

@@ -29,7 +29,7 @@ export function breach(cap: CapName, limit: number, actual: number | null): CapB
 const identifier = /(?<![\p{L}\p{N}_.])[\p{L}_][\p{L}\p{N}_]*/gu;
 
 /** The distinct symbols a network's element values use (the Laplace variable s included). */
-export function circuitSymbols(network: Network): string[] {
+function circuitSymbols(network: Network): string[] {
   const found = new Set<string>();
   for (const element of network.elements) {
     if (!("value" in element) || typeof element.value !== "string") continue;
@@ -51,7 +51,7 @@ interface CountedExpression {
 }
 
 /** The largest result, in terms of numerator plus denominator. */
-export function largestResultTerms(results: Record<string, unknown>): number {
+function largestResultTerms(results: Record<string, unknown>): number {
   let largest = 0;
   for (const name of ["vth", "isc", "rth", "rthFromVocIsc"]) {
     const expression = results[name] as CountedExpression | null | undefined;

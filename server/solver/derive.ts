@@ -3,7 +3,7 @@ import { solveNetwork, type Diagnostic, type Network, type SolveOptions } from "
 import { breach, resultBreach, type CapBreach } from "./caps.js";
 import { boundDerivation } from "./revision-size.js";
 
-export interface StepRecord {
+interface StepRecord {
   id: string;
   kind: string;
   title: string;

@@ -11,11 +11,10 @@ import {
   type Network,
   type ParseResult,
   type SolveOptions,
-  type SolveResult,
 } from "../../shared/engine/index.js";
 
 export { BUILT_IN_CELLS, NETLIST_EXTENSION, solveNetwork };
-export type { CellDefinition, Diagnostic, Network, SolveOptions, SolveResult };
+export type { CellDefinition, Diagnostic, Network, SolveOptions };
 
 /**
  * The engine's reader, held to its contract: whatever the input, an answer with diagnostics. Should

@@ -9,7 +9,7 @@ import type { ReadOutcome, ReadTask } from "./read-task.js";
 import type { SolveOutcome } from "./derive.js";
 import { startedMessage, type SolveTask } from "./solve-task.js";
 
-export interface SolverStats {
+interface SolverStats {
   // Solves that reached a thread: the count a cache hit must not raise.
   started: number;
   finished: number;
@@ -20,13 +20,13 @@ export interface SolverStats {
   threads: number;
 }
 
-export interface SolveHooks {
+interface SolveHooks {
   // Called once, when a thread begins the solve (the job turns from queued to solving).
   onStart?: () => void;
 }
 
 /** Who asked for a solve: a free thread takes the next solve of the team served longest ago. */
-export interface SolveOwner {
+interface SolveOwner {
   userId: string;
   teamId: string;
 }

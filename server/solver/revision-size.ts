@@ -8,7 +8,7 @@ const bytesOf = (value: unknown) => Buffer.byteLength(JSON.stringify(value ?? nu
 // The equivalents and their printed forms: never left out (a revision without them says nothing).
 const essential = new Set(["vth", "isc", "rth", "rthFromVocIsc", "agree", "compact", "tex", "port", "mode", "solved"]);
 
-export interface OmittedPart {
+interface OmittedPart {
   part: string;
   bytes: number;
   reason: string;

@@ -14,12 +14,10 @@ export const passwordResetConfirmRequest = z.object({ token: tokenField, passwor
 
 export const settingsRequest = z.object({ reviewMail: z.boolean() }).meta({ id: "SettingsRequest" });
 
-export const user = z.object({ id: z.string(), email: z.string(), name: z.string(), emailVerified: z.boolean() }).meta({ id: "User" });
-export type User = z.infer<typeof user>;
+const user = z.object({ id: z.string(), email: z.string(), name: z.string(), emailVerified: z.boolean() }).meta({ id: "User" });
 export const userAnswer = z.object({ user }).meta({ id: "UserAnswer" });
-export const teamMembership = z.object({ id: z.uuid(), name: z.string(), role: z.enum(roles), personal: z.boolean() }).meta({ id: "TeamMembership" });
-export const accountSettings = z.object({ reviewMail: z.boolean() }).meta({ id: "AccountSettings" });
+const teamMembership = z.object({ id: z.uuid(), name: z.string(), role: z.enum(roles), personal: z.boolean() }).meta({ id: "TeamMembership" });
+const accountSettings = z.object({ reviewMail: z.boolean() }).meta({ id: "AccountSettings" });
 export const settingsAnswer = z.object({ settings: accountSettings }).meta({ id: "SettingsAnswer" });
 export const me = z.object({ user, teams: z.array(teamMembership), settings: accountSettings }).meta({ id: "Me" });
-export type Me = z.infer<typeof me>;
 export const sentAnswer = z.object({ sent: z.boolean() }).meta({ id: "SentAnswer" });

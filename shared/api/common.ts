@@ -53,11 +53,9 @@ export const errorBody = z
       .loose(),
   })
   .meta({ id: "Error" });
-export type ErrorBody = z.infer<typeof errorBody>;
 
 // A revision's review state, derived from its verdict history: who decided it and when (the latest change request,
 // or the approval that completed the count), and how many of the team's required approvals stand.
 export const revisionState = z
   .object({ verdict: z.enum(verdicts), by: person.nullable(), at: isoTime.nullable(), approvals: z.number().int(), requiredApprovals: z.number().int() })
   .meta({ id: "RevisionState" });
-export type RevisionState = z.infer<typeof revisionState>;

@@ -57,7 +57,6 @@ export const network = z
     importedFrom: z.string().optional(),
   })
   .meta({ id: "Network" });
-export type Network = z.infer<typeof network>;
 
 export const networkSummary = z
   .object({

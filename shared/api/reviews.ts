@@ -38,7 +38,6 @@ const commentFields = {
 // Threads are one level deep: a reply has no replies of its own.
 export const reply = z.object({ ...commentFields, replies: z.array(z.unknown()).max(0) }).meta({ id: "Reply" });
 export const comment = z.object({ ...commentFields, replies: z.array(reply) }).meta({ id: "Comment" });
-export type Comment = z.infer<typeof comment>;
 export const commentList = z.object({ comments: z.array(comment) }).meta({ id: "CommentList" });
 
 export const verdictEntry = z
@@ -59,7 +58,7 @@ export const verdictEntry = z
 export const verdictHistory = z.object({ verdicts: z.array(verdictEntry), state: revisionState }).meta({ id: "VerdictHistory" });
 export const verdictGiven = z.object({ verdict: verdictEntry, state: revisionState }).meta({ id: "VerdictGiven" });
 
-export const reviewQueueItem = z
+const reviewQueueItem = z
   .object({
     network: z.object({ id: z.uuid(), slug: z.string(), title: z.string(), teamId: z.uuid(), teamName: z.string() }),
     revision: z.number().int(),

@@ -1,6 +1,6 @@
 // Derivation revisions: immutable solves of a network, the solve jobs that outlast a request, and comparisons.
 import { z } from "zod";
-import type { Diagnostic, NetworkInput, SolveChecks, SolveResult } from "../engine/types.js";
+import type { Diagnostic, Element, NetworkInput, SolveChecks, SolveResult } from "../engine/types.js";
 import { engineShaped, isoTime, person, revisionState } from "./common.js";
 
 // What a revision keeps of the engine's solve (server/solver/derive.ts): everything but the network, steps and diagnostics,
@@ -12,7 +12,7 @@ export type RevisionResults = Omit<SolveResult, "network" | "steps" | "diagnosti
 // How long the request may wait for the solve, in ms; never longer than SOLVE_WAIT_MS.
 export const solveQuery = z.object({ wait: z.coerce.number().int().min(0).max(3_600_000).optional() });
 
-export const step = z
+const step = z
   .object({ id: z.string(), ordinal: z.number().int(), kind: z.string(), title: z.string(), explanation: z.string(), tex: z.string(), data: z.unknown() })
   .meta({ id: "Step" });
 
@@ -37,9 +37,8 @@ export const revision = z
     createdAt: isoTime,
   })
   .meta({ id: "Revision" });
-export type Revision = z.infer<typeof revision>;
 
-export const revisionSummary = z
+const revisionSummary = z
   .object({
     id: z.uuid(),
     number: z.number().int(),
@@ -76,9 +75,11 @@ export const revisionComparison = z
     to: revisionStamp,
     // Elements by name; port, ground and quantities where they differ (null: unchanged).
     circuit: z.object({
-      added: z.array(z.record(z.string(), z.unknown())),
-      removed: z.array(z.record(z.string(), z.unknown())),
-      changed: z.array(z.object({ name: z.string(), before: z.unknown(), after: z.unknown(), fields: z.array(z.string()) })),
+      added: z.array(engineShaped<Element>(z.record(z.string(), z.unknown()))),
+      removed: z.array(engineShaped<Element>(z.record(z.string(), z.unknown()))),
+      changed: z.array(
+        z.object({ name: z.string(), before: engineShaped<Element>(z.record(z.string(), z.unknown())), after: engineShaped<Element>(z.record(z.string(), z.unknown())), fields: z.array(z.string()) }),
+      ),
       port: change.nullable(),
       ground: change.nullable(),
       quantities: z.array(z.object({ symbol: z.string(), before: z.string().nullable(), after: z.string().nullable() })),

@@ -15,7 +15,7 @@ import * as teams from "./teams.js";
 import * as tokens from "./tokens.js";
 import * as valueSets from "./value-sets.js";
 
-export type Method = "GET" | "POST" | "PATCH" | "PUT" | "DELETE";
+type Method = "GET" | "POST" | "PATCH" | "PUT" | "DELETE";
 
 export interface Endpoint {
   method: Method;

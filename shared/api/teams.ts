@@ -15,9 +15,9 @@ export const invitationRequest = z.object({ email: emailField, role: z.enum(role
 export const team = z
   .object({ id: z.uuid(), name: z.string(), personal: z.boolean(), role: z.enum(roles), requiredApprovals: z.number().int(), createdAt: isoTime })
   .meta({ id: "Team" });
-export const member = z.object({ userId: z.string(), name: z.string(), email: z.string(), role: z.enum(roles) }).meta({ id: "Member" });
+const member = z.object({ userId: z.string(), name: z.string(), email: z.string(), role: z.enum(roles) }).meta({ id: "Member" });
 export const memberList = z.object({ members: z.array(member) }).meta({ id: "MemberList" });
-export const invitation = z
+const invitation = z
   .object({ id: z.uuid(), email: z.string(), role: z.enum(roles), expiresAt: isoTime, acceptedAt: isoTime.nullable(), createdAt: isoTime })
   .meta({ id: "Invitation" });
 // Inviting someone as owner says what an owner can do.

@@ -5,7 +5,7 @@ export const tokenScopes = ["read", "solve"] as const;
 export type TokenScope = (typeof tokenScopes)[number];
 
 // A year at most: a forgotten token stops working on its own.
-export const maxTokenDays = 366;
+const maxTokenDays = 366;
 
 export const createTokenRequest = z
   .object({
@@ -18,7 +18,7 @@ export const createTokenRequest = z
   .meta({ id: "CreateTokenRequest" });
 export type CreateTokenRequest = z.infer<typeof createTokenRequest>;
 
-export const apiToken = z
+const apiToken = z
   .object({
     id: z.uuid(),
     name: z.string(),

@@ -14,5 +14,4 @@ export const saveValueSetRequest = z
 export const valueSet = z
   .object({ id: z.uuid(), name: z.string(), values: z.record(z.string(), z.string()), createdAt: isoTime, updatedAt: isoTime })
   .meta({ id: "ValueSet" });
-export type ValueSet = z.infer<typeof valueSet>;
 export const valueSetList = z.object({ valueSets: z.array(valueSet) }).meta({ id: "ValueSetList" });

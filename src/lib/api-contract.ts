@@ -11,18 +11,15 @@ import type * as teams from "../../shared/api/teams";
 import type * as valueSets from "../../shared/api/value-sets";
 import type { ResultName as EngineResultName } from "./engine-types";
 
-export type { Role, RevisionState, Verdict } from "../../shared/api/common";
+export type { Role, Verdict } from "../../shared/api/common";
 export { roleAtLeast } from "../../shared/api/common";
 export { roles } from "../../shared/api/common";
-export type { ApiToken, CreateTokenRequest, CreatedToken, TokenList, TokenScope } from "../../shared/api/tokens";
-// What the engine owns inside the answers: a circuit, its elements, its diagnostics, one result's printed forms.
-export type { CheckDetail, Diagnostic, Element as CircuitElement, ExactExpression, NetworkInput as Circuit } from "./engine-types";
+export type { CreateTokenRequest, CreatedToken, TokenList, TokenScope } from "../../shared/api/tokens";
+// What the engine owns inside the answers: a circuit, its diagnostics and check details, one result's printed forms.
+export type { CheckDetail, Diagnostic, ExactExpression, NetworkInput as Circuit } from "./engine-types";
 
 // ---- accounts ----
-export type User = z.infer<typeof accounts.user>;
 export type Me = z.infer<typeof accounts.me>;
-export type TeamMembership = z.infer<typeof accounts.teamMembership>;
-export type AccountSettings = z.infer<typeof accounts.accountSettings>;
 export type SettingsAnswer = z.infer<typeof accounts.settingsAnswer>;
 export type SettingsRequest = z.input<typeof accounts.settingsRequest>;
 export type SignupRequest = z.input<typeof accounts.signupRequest>;
@@ -39,7 +36,6 @@ export type TeamRequest = z.input<typeof teams.teamRequest>;
 export type TeamChangesRequest = z.input<typeof teams.teamChangesRequest>;
 export type RoleRequest = z.input<typeof teams.roleRequest>;
 export type InvitationRequest = z.input<typeof teams.invitationRequest>;
-export type Member = z.infer<typeof teams.member>;
 export type MemberList = z.infer<typeof teams.memberList>;
 export type CreatedInvitation = z.infer<typeof teams.createdInvitation>;
 export type InvitationPreview = z.infer<typeof teams.invitationPreview>;
@@ -48,7 +44,6 @@ export type AcceptedInvitation = z.infer<typeof teams.acceptedInvitation>;
 // ---- cells ----
 export type Cell = z.infer<typeof cells.cell>;
 export type CellList = z.infer<typeof cells.cellList>;
-export type CreateCellRequest = z.input<typeof cells.createCellRequest>;
 
 // ---- networks ----
 export type Network = z.infer<typeof networks.network>;
@@ -62,9 +57,7 @@ export type DuplicateNetworkRequest = z.input<typeof networks.duplicateNetworkRe
 // ---- derivations ----
 export type RevisionResults = revisions.RevisionResults;
 export type Revision = z.infer<typeof revisions.revision>;
-export type RevisionSummary = z.infer<typeof revisions.revisionSummary>;
 export type RevisionList = z.infer<typeof revisions.revisionList>;
-export type Step = z.infer<typeof revisions.step>;
 export type SolveJob = z.infer<typeof revisions.solveJob>;
 export type SolveJobAnswer = z.infer<typeof revisions.solveJobAnswer>;
 export type RevisionComparison = z.infer<typeof revisions.revisionComparison>;
@@ -80,7 +73,6 @@ export type VerdictRequest = z.input<typeof reviews.verdictRequest>;
 export type VerdictEntry = z.infer<typeof reviews.verdictEntry>;
 export type VerdictHistory = z.infer<typeof reviews.verdictHistory>;
 export type VerdictGiven = z.infer<typeof reviews.verdictGiven>;
-export type ReviewQueueItem = z.infer<typeof reviews.reviewQueueItem>;
 export type ReviewQueuePage = z.infer<typeof reviews.reviewQueuePage>;
 
 // ---- sharing ----

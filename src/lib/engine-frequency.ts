@@ -1,6 +1,6 @@
 // The client's door into the engine's frequency and design-solve modules (pure, shared with the server).
 export {
-  dependsOnFrequency,
+  
   frequencyLimit,
   frequencyResponse,
   frequencySpan,
@@ -8,10 +8,10 @@ export {
   numericCoefficientsInS,
   openCircuitTransfer,
   polesAndZeros,
-  type FrequencyLimitValue,
+  
   type OpenCircuitTransfer,
-  type PolesZeros,
+  
   type SRoot,
 } from "../../shared/engine/circuit/frequency";
 export { designSolve, type DesignSolveAnswer } from "../../shared/engine/circuit/design-solve";
-export { independentSourcesOf, type IndependentSource } from "../../shared/engine/index";
+export { independentSourcesOf } from "../../shared/engine/index";

@@ -1,6 +1,6 @@
 // The client's door into the shared engine's exact algebra, for Values, Limits and Sweep.
 // Imported only by lazily loaded screens (it carries the expression parser).
-export { Rational, RationalFunction, ValueSyntaxError, formatSI, parseSI, readExpression } from "../../shared/engine/algebra/index";
+export { Rational, RationalFunction, formatSI, parseSI, readExpression } from "../../shared/engine/algebra/index";
 export type { Limit } from "../../shared/engine/algebra/index";
 export { boundedApproximation } from "../../shared/engine/circuit/error-bound";
-export type { BoundedApproximation, ErrorBoundOptions } from "../../shared/engine/circuit/error-bound";
+export type { BoundedApproximation } from "../../shared/engine/circuit/error-bound";

@@ -15,7 +15,7 @@ const UNITS: Record<string, string> = {
   time: "s",
 };
 
-export function unitOf(quantity: string | null | undefined): string {
+function unitOf(quantity: string | null | undefined): string {
   return quantity ? (UNITS[quantity] ?? "") : "";
 }
 
@@ -28,7 +28,7 @@ export function symbolLabel(symbol: string, quantity: string | null | undefined)
   return symbol === "s" ? "Laplace variable" : quantityLabel(quantity);
 }
 
-export function quantityLabel(quantity: string | null | undefined): string {
+function quantityLabel(quantity: string | null | undefined): string {
   if (!quantity) return "quantity not known";
   return quantity === "dimensionless" ? "gain, no unit" : quantity;
 }
@@ -41,7 +41,7 @@ export const RESULT_LABEL: Record<ResultName, string> = { vth: "Vth", rth: "Rth"
 
 export const RESULT_TEX: Record<ResultName, string> = { vth: "V_{\\mathrm{th}}", rth: "R_{\\mathrm{th}}", isc: "I_{\\mathrm{sc}}" };
 
-export const RESULT_MEANING: Record<ResultName, string> = {
+const RESULT_MEANING: Record<ResultName, string> = {
   vth: "open-circuit voltage",
   rth: "Thevenin resistance",
   isc: "short-circuit current",

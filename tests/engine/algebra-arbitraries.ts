@@ -3,8 +3,6 @@
 import fc from "fast-check";
 import { Poly, Rational } from "../../shared/engine/algebra/index";
 
-export const VARS = ["x", "y", "z"] as const;
-
 export const smallRational = fc
   .tuple(fc.integer({ min: -9, max: 9 }), fc.integer({ min: 1, max: 4 }))
   .map(([n, d]) => Rational.of(n, d));

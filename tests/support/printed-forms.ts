@@ -3,7 +3,7 @@
 // dropped bracket) shows up as a different number, not as the same mistake read back twice.
 
 /** How TeX shows an infix name: a trailing digit run becomes a subscript ("R1" and "R_1" both read R_{1}). */
-export function symbolKey(name: string): string {
+function symbolKey(name: string): string {
   if (name.includes("_")) return name;
   const m = /^(\D+)(\d+)$/.exec(name);
   return m ? `${m[1]}_${m[2]}` : name;
@@ -177,7 +177,7 @@ class Reader {
 }
 
 /** Values by symbolKey; throws when two names of one network share a key (the TeX would be ambiguous). */
-export function valuesByKey(point: Readonly<Record<string, number>>): Map<string, number> {
+function valuesByKey(point: Readonly<Record<string, number>>): Map<string, number> {
   const out = new Map<string, number>();
   const owner = new Map<string, string>();
   for (const [name, v] of Object.entries(point)) {

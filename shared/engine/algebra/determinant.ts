@@ -24,7 +24,7 @@ function checkSquare(m: Matrix): number {
 }
 
 /** Reverse Cuthill-McKee order of the symmetrized sparsity pattern. */
-export function bandOrder(m: Matrix): number[] {
+function bandOrder(m: Matrix): number[] {
   const n = m.length;
   const adj: Set<number>[] = Array.from({ length: n }, () => new Set<number>());
   for (let i = 0; i < n; i++) {
@@ -336,11 +336,6 @@ export function solveCramer(a: Matrix, b: readonly Poly[]): { det: Poly; numerat
     });
   }
   return { det, numerators };
-}
-
-/** The numerator of unknown i alone (x_i = cramerNumerator / det), without the others. */
-export function cramerNumerator(a: Matrix, b: readonly Poly[], i: number): Poly {
-  return solveCramer(a, b).numerators[i];
 }
 
 // ---- Bareiss fraction-free elimination ---------------------------------------------------

@@ -9,7 +9,7 @@ export interface ExpressionBounds {
   maxExponent: number;
 }
 
-export type ExpressionBoundName = "characters" | "terms" | "depth" | "exponent";
+type ExpressionBoundName = "characters" | "terms" | "depth" | "exponent";
 
 export interface ExpressionBreach {
   bound: ExpressionBoundName;

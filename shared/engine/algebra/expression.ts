@@ -24,7 +24,7 @@ export class ValueSyntaxError extends Error {
 }
 
 /** SI prefixes, SI Brochure (BIPM, 9th edition, 2019), case-sensitive; u and the micro sign both mean 10^-6. */
-export const SI_PREFIX_EXPONENT: Readonly<Record<string, number>> = {
+const SI_PREFIX_EXPONENT: Readonly<Record<string, number>> = {
   T: 12, G: 9, M: 6, k: 3, m: -3, u: -6, "\u00b5": -6, "\u03bc": -6, n: -9, p: -12, f: -15,
 };
 

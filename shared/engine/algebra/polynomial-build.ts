@@ -156,7 +156,7 @@ export class RationalTermSum {
 }
 
 /** Fields of the polynomial with distinct monomials and rational coefficients. */
-export function fieldsFromRationals(vars: readonly string[], exps: ArrayLike<number>, coefs: Rational[]): PolyFields {
+function fieldsFromRationals(vars: readonly string[], exps: ArrayLike<number>, coefs: Rational[]): PolyFields {
   let den = 1n;
   for (const c of coefs) if (c.den !== 1n) den = bigLcm(den, c.den);
   const ints = coefs.map((c) => (c.den === den ? c.num : c.num * (den / c.den)));

@@ -26,7 +26,7 @@ export function parseAssumption(text: string): Assumption {
 }
 
 /** Whether a symbol belongs to a stem: the stem itself, or the stem with a number or an underscore suffix. */
-export function belongsToStem(symbol: string, stem: string): boolean {
+function belongsToStem(symbol: string, stem: string): boolean {
   if (symbol === stem) return true;
   if (!symbol.startsWith(stem)) return false;
   return /^(_?\d+|_[A-Za-z0-9]+)$/.test(symbol.slice(stem.length));
@@ -69,7 +69,7 @@ function ratioOf(big: Monomial, small: Monomial): Monomial | null {
 }
 
 /** The terms of p that no other term of p exceeds by a large factor; and how many were dropped. */
-export function dominantTerms(p: Poly, assumptions: readonly Assumption[]): { poly: Poly; dropped: number } {
+function dominantTerms(p: Poly, assumptions: readonly Assumption[]): { poly: Poly; dropped: number } {
   const terms = p.terms();
   const memo = new Map<string, boolean>();
   const keep = terms.filter((t, i) => !terms.some((u, j) => j !== i && isDominatedBy(t.monomial, u.monomial, assumptions, memo)));

@@ -64,7 +64,7 @@ export const AMPLIFIER: CellDefinition = {
 export const BUILT_IN_CELLS: ReadonlyMap<string, CellDefinition> = new Map([BJT_HYBRID_PI, MOSFET, AMPLIFIER].map((c) => [c.id, c]));
 
 /** Cell ids: letters, digits, underscore and hyphen. */
-export const CELL_ID_PATTERN = /^[\p{L}\p{N}_-]+$/u;
+const CELL_ID_PATTERN = /^[\p{L}\p{N}_-]+$/u;
 
 export interface ExpandedNetwork {
   /** The network with every cell instance replaced by its elements; null when an instance is invalid. */
@@ -76,7 +76,7 @@ export interface ExpandedNetwork {
 }
 
 /** Element name of a cell's element inside an instance. */
-export function expandedName(instance: string, element: string): string {
+function expandedName(instance: string, element: string): string {
   return `${instance}_${element}`;
 }
 
@@ -149,7 +149,7 @@ function instanceProblems(instance: CellInstance, definition: CellDefinition): {
 }
 
 /** The elements one instance stands for: names prefixed, terminals joined, internal nodes made unique, symbols renamed. */
-export function expandInstance(instance: CellInstance, definition: CellDefinition, ground: string): Element[] {
+function expandInstance(instance: CellInstance, definition: CellDefinition, ground: string): Element[] {
   const node = (n: string) => (definition.terminals.includes(n) ? instance.terminals[n] : n === CELL_GROUND ? ground : expandedName(instance.name, n));
   const inner = new Set(definition.elements.map((e) => e.name));
   const renames: Record<string, RationalFunction> = {};
@@ -228,7 +228,7 @@ export class CellLineError extends Error {
   }
 }
 
-export const CELL_LINE_USAGE = "<name> cell <cell> <terminal>=<node> ... [with <part> ...] [rename <symbol>:<new> ...]";
+const CELL_LINE_USAGE = "<name> cell <cell> <terminal>=<node> ... [with <part> ...] [rename <symbol>:<new> ...]";
 
 /** Read a cell line from its whitespace-separated tokens (1-based columns). */
 export function readCellLine(tokens: readonly { text: string; column: number }[]): CellInstance {

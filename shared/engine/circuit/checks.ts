@@ -179,7 +179,7 @@ function eliminate<T>(a: Row<T>[], b: T[], n: number, F: Field<T>): { x: T[] } |
   return { x: scaleBy ? y.map((v, c) => scaleBy(v, columnScale[c])) : y };
 }
 
-export type TableauMode = "open" | "test" | "short";
+type TableauMode = "open" | "test" | "short";
 
 interface Tableau<T> {
   a: Row<T>[];

@@ -11,9 +11,9 @@ import { floatPortValues, seededRandom } from "./numeric";
 import { LAPLACE, type SourceTerm, type SourceTerms } from "./values";
 
 /** Exponents of volt, ampere and second. */
-export type Dim = readonly [number, number, number];
+type Dim = readonly [number, number, number];
 
-export const QUANTITY_DIMS: Record<Quantity, Dim> = {
+const QUANTITY_DIMS: Record<Quantity, Dim> = {
   resistance: [1, -1, 0],
   conductance: [-1, 1, 0],
   voltage: [1, 0, 0],
@@ -42,7 +42,7 @@ const UNIT_NAMES: [Dim, string][] = [
 const sameDim = (x: Dim, y: Dim) => x[0] === y[0] && x[1] === y[1] && x[2] === y[2];
 const addDim = (x: Dim, y: Dim, k = 1): Dim => [x[0] + k * y[0], x[1] + k * y[1], x[2] + k * y[2]];
 
-export function unitOf(d: Dim): string {
+function unitOf(d: Dim): string {
   const named = UNIT_NAMES.find(([u]) => sameDim(u, d));
   if (named) return named[1];
   const parts = (["V", "A", "s"] as const).flatMap((u, i) => (d[i] === 0 ? [] : [d[i] === 1 ? u : `${u}^${d[i]}`]));
@@ -71,7 +71,7 @@ function termsOf(p: RationalFunction["num"]): Term[] {
 }
 
 /** Infer quantities from element values, by propagation until nothing changes. */
-export function inferQuantities(
+function inferQuantities(
   network: Network,
   values: ReadonlyMap<string, RationalFunction>,
   declared: Record<string, Quantity>,

@@ -51,11 +51,11 @@ function isSum(text: string): boolean {
   return false;
 }
 
-export function factorInfix(text: string): string {
+function factorInfix(text: string): string {
   return isSum(text) || text.startsWith("-") || text.includes("/") ? `(${text})` : text;
 }
 
-export function factorTex(text: string): string {
+function factorTex(text: string): string {
   return isSum(text) || text.startsWith("-") ? `\\left(${text}\\right)` : text;
 }
 

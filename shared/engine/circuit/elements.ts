@@ -1,18 +1,10 @@
 // The element model: what each kind is, which nodes it touches, what its value means.
 
 import { controlsIn } from "../algebra/expression";
-import type { Control, Element, ElementKind, Network, OpampElement, Quantity, TwoTerminalElement } from "../types";
+import type { Control, Element, ElementKind, Network, OpampElement, Quantity } from "../types";
 
 export function isOpamp(e: Element): e is OpampElement {
   return e.kind === "opamp";
-}
-
-export function isTwoTerminal(e: Element): e is TwoTerminalElement {
-  return !isOpamp(e);
-}
-
-export function isPassive(e: Element): boolean {
-  return e.kind === "resistor" || e.kind === "conductance" || e.kind === "capacitor" || e.kind === "inductor";
 }
 
 export function isSource(e: Element): boolean {
@@ -36,7 +28,7 @@ const controlCache = new Map<string, Control[]>();
  * read structurally without the algebra; a value that does not scan names none (its syntax error
  * is reported where values are parsed).
  */
-export function controlsOfValue(value: string): Control[] {
+function controlsOfValue(value: string): Control[] {
   const cached = controlCache.get(value);
   if (cached) return cached;
   let controls: Control[] = [];
@@ -108,7 +100,7 @@ export function gainQuantity(kind: ElementKind, control: Control): Quantity {
 }
 
 /** Words for a kind, used in explanations. */
-export function kindPhrase(kind: ElementKind): string {
+function kindPhrase(kind: ElementKind): string {
   switch (kind) {
     case "voltage":
       return "voltage source";

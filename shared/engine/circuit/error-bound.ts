@@ -47,7 +47,7 @@ const mul = (a: Complex, b: Complex): Complex => [a[0] * b[0] - a[1] * b[1], a[0
 const abs = (a: Complex) => Math.hypot(a[0], a[1]);
 
 /** The monomial of term t printed without its coefficient ("1" for the constant term). */
-export function monomialName(m: Record<string, number>): string {
+function monomialName(m: Record<string, number>): string {
   const parts = Object.keys(m).sort().map((v) => (m[v] === 1 ? v : `${v}^${m[v]}`));
   return parts.length === 0 ? "1" : parts.join("*");
 }

@@ -65,7 +65,7 @@ export function openCircuitTransfer(vth: RationalFunction | null | undefined, so
 }
 
 /** Whether any result depends on s (only then is there a frequency report). */
-export function dependsOnFrequency(results: FrequencyResults): boolean {
+function dependsOnFrequency(results: FrequencyResults): boolean {
   return Object.values(results).some((f) => f != null && f.variables().includes(LAPLACE));
 }
 

@@ -42,7 +42,7 @@ export interface NodalSystem {
 }
 
 /** Elements whose current is an unknown: V-type sources, op-amps, and every element some source is controlled by. */
-export function branchFormElements(network: Network): Set<string> {
+function branchFormElements(network: Network): Set<string> {
   const out = currentControlledElements(network);
   for (const e of network.elements) if (isOpamp(e) || isVoltageType(e.kind)) out.add(e.name);
   return out;

@@ -7,7 +7,7 @@ import type { NodalSystem } from "./mna";
 import { portVector, shortPort } from "./ports";
 
 /** Gaussian elimination with partial pivoting; null when a pivot is negligible (singular). */
-export function solveFloat(a: number[][], b: number[]): number[] | null {
+function solveFloat(a: number[][], b: number[]): number[] | null {
   const n = b.length;
   const m = a.map((row, i) => [...row, b[i]]);
   const scale = Math.max(1e-300, ...a.flat().map(Math.abs));
@@ -32,7 +32,7 @@ export function solveFloat(a: number[][], b: number[]): number[] | null {
 }
 
 /** Values of the internal variables at a point given in user symbols. */
-export function internalValues(sys: NodalSystem, point: Record<string, number>): Record<string, number> {
+function internalValues(sys: NodalSystem, point: Record<string, number>): Record<string, number> {
   const out: Record<string, number> = { ...point };
   for (const s of sys.internals) out[s.name] = s.value.evaluate(point);
   return out;

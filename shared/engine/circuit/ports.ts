@@ -36,11 +36,6 @@ export function zeroIndependentSources(
   return { shorted, opened, partly };
 }
 
-/** The right side with a 1 A test current driven into plus and out of minus, every independent source zeroed. */
-export function testSourceRhs(sys: NodalSystem, port: Port): Poly[] {
-  return portVector(sys, port);
-}
-
 export interface ShortedSystem<T> {
   /** The node that disappears into the other port node (or into ground). */
   merged: string;

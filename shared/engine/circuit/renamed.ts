@@ -2,7 +2,7 @@
 // A file that still uses one is refused with the word that replaced it, never read silently.
 
 /** Earlier element kind -> what to write now. */
-export const RENAMED_KINDS: Readonly<Record<string, string>> = {
+const RENAMED_KINDS: Readonly<Record<string, string>> = {
   vsource: "`vsource` is now `voltage`",
   isource: "`isource` is now `current`",
   vcvs: "`vcvs` is now `voltage` with a value such as `A * across(in, out)`",

@@ -16,7 +16,7 @@ export const branchRow = (element: string) => `BR:${element}`;
 export const voltageUnknown = (node: string) => `V:${node}`;
 export const currentUnknown = (element: string) => `I:${element}`;
 
-export interface MatrixEntry {
+interface MatrixEntry {
   row: string;
   col: string;
   coeff: Poly;
@@ -24,19 +24,19 @@ export interface MatrixEntry {
 }
 
 /** A right-side term contributed by an independent source. */
-export interface SourceEntry {
+interface SourceEntry {
   row: string;
   value: Poly;
   display: RationalFunction;
 }
 
 /** The current an element carries out of a node, as the KCL step writes it. */
-export interface NodeCurrent {
+interface NodeCurrent {
   node: string;
   written: Written;
 }
 
-export interface BranchEquation {
+interface BranchEquation {
   row: string;
   unknown: string;
   kind: "constraint" | "control";
@@ -45,7 +45,7 @@ export interface BranchEquation {
   explanation: string;
 }
 
-export interface ControlVariable {
+interface ControlVariable {
   equation: Written;
   explanation: string;
 }
@@ -179,12 +179,12 @@ function stampPassive(e: TwoTerminalElement, ctx: StampContext, form: PassiveFor
   };
 }
 
-export function stampResistor(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+function stampResistor(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
   const r = ctx.value!;
   return stampPassive(e, ctx, { admittance: r.inverse(), impedance: r, current: (d) => over(d, r), phrase: "resistor" });
 }
 
-export function stampConductance(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+function stampConductance(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
   const g = ctx.value!;
   return stampPassive(e, ctx, {
     admittance: g,
@@ -194,12 +194,12 @@ export function stampConductance(e: TwoTerminalElement, ctx: StampContext): Elem
   });
 }
 
-export function stampCapacitor(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+function stampCapacitor(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
   const y = RationalFunction.variable(LAPLACE).mul(ctx.value!);
   return stampPassive(e, ctx, { admittance: y, impedance: y.isZero() ? y : y.inverse(), current: (d) => times(y, d), phrase: "capacitor" });
 }
 
-export function stampInductor(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+function stampInductor(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
   const z = RationalFunction.variable(LAPLACE).mul(ctx.value!);
   return stampPassive(e, ctx, { admittance: z.inverse(), impedance: z, current: (d) => over(d, z), phrase: "inductor" });
 }
@@ -320,7 +320,7 @@ function stampSource(e: TwoTerminalElement, ctx: StampContext, to: SourceOutput)
 }
 
 /** A voltage source (VCVS or CCVS when controlled): V(a) − V(b) − Σ gain·control = independent part; its current is a new unknown. */
-export function stampVoltageSource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+function stampVoltageSource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
   const [a, b] = e.nodes;
   return stampSource(e, ctx, {
     form: "branch",
@@ -335,7 +335,7 @@ export function stampVoltageSource(e: TwoTerminalElement, ctx: StampContext): El
 }
 
 /** A current source (VCCS or CCCS when controlled): drives its value from a to b; kept as a current unknown when some source names through() it. */
-export function stampCurrentSource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
+function stampCurrentSource(e: TwoTerminalElement, ctx: StampContext): ElementStamp {
   if (!ctx.branchForm) return stampSource(e, ctx, { form: "injection" });
   return stampSource(e, ctx, {
     form: "branch",
@@ -349,7 +349,7 @@ export function stampCurrentSource(e: TwoTerminalElement, ctx: StampContext): El
 // ---- op-amp ------------------------------------------------------------------------------
 
 /** Nullor: the nullator holds V(p) = V(n) and draws no current; the norator's output current is free. */
-export function stampOpamp(e: OpampElement, ctx: StampContext): ElementStamp {
+function stampOpamp(e: OpampElement, ctx: StampContext): ElementStamp {
   const [p, n] = e.inputs;
   const row = branchRow(e.name);
   const i = currentUnknown(e.name);

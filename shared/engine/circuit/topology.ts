@@ -92,7 +92,7 @@ export function checkTopology(network: Network): Diagnostic[] {
 }
 
 // The KCL rows of a group no element joins to the rest add up to zero, so the system is singular.
-export function floatingNodes(network: Network): Diagnostic[] {
+function floatingNodes(network: Network): Diagnostic[] {
   const groups = groupsAwayFromGround(network, [...carryingEdges(network), ...drivingEdges(network)]);
   return groups.map((nodes) => {
     const opampInputsOnly = network.elements
@@ -113,7 +113,7 @@ export function floatingNodes(network: Network): Diagnostic[] {
  * singular whatever the values: a loop of independent sources and op-amp inputs (dependent rows), or
  * a loop of V-type sources none of whose currents controls anything (a free circulating current).
  */
-export function voltageSourceLoops(network: Network): Diagnostic[] {
+function voltageSourceLoops(network: Network): Diagnostic[] {
   const controls = currentControlledElements(network);
   const out: Diagnostic[] = [];
   const fixing: (Edge & { dependent: boolean; carries: boolean })[] = [];
@@ -192,7 +192,7 @@ function treePath(tree: Map<string, { to: string; edge: number }[]>, from: strin
  * a row of zeros. The port's short is counted as a joining element, since a port that is an ideal
  * current source is a degenerate port (no Thevenin form), not an error.
  */
-export function currentSourceCutsets(network: Network): Diagnostic[] {
+function currentSourceCutsets(network: Network): Diagnostic[] {
   const short: Edge = { a: network.port.plus, b: network.port.minus, element: "(port short)" };
   const groups = groupsAwayFromGround(network, [...carryingEdges(network), short]);
   const driving = network.elements.filter((e) => !isOpamp(e) && isCurrentType(e.kind)) as Exclude<Element, { kind: "opamp" }>[];
@@ -214,7 +214,7 @@ export function currentSourceCutsets(network: Network): Diagnostic[] {
 }
 
 /** Nodes that reach ground only through capacitors: fine in s, but the result has no DC value there. */
-export function noDcPath(network: Network): Diagnostic[] {
+function noDcPath(network: Network): Diagnostic[] {
   const capacitors = new Set(network.elements.filter((e) => e.kind === "capacitor").map((e) => e.name));
   if (capacitors.size === 0) return [];
   const all = [...carryingEdges(network), ...drivingEdges(network)];

@@ -2,9 +2,9 @@
 // nodal matrix holds. Values with a non-constant denominator (1/R, 1/(sL), A/(1+s*tau)) get an
 // internal variable, so every matrix entry stays a polynomial and det(A) is multilinear in them.
 
-import { Poly, Rational, RationalFunction, ValueSyntaxError, parseValue } from "../algebra";
+import { Poly, RationalFunction, ValueSyntaxError, parseValue } from "../algebra";
 import { controlOfSymbol, controlSymbol, controlsIn } from "../algebra/expression";
-import type { Control, Diagnostic, Element, Network, ParseResult } from "../types";
+import type { Control, Diagnostic, Network, ParseResult } from "../types";
 import { diagnostic } from "./diagnostics";
 import { isOpamp, isSource } from "./elements";
 
@@ -27,7 +27,7 @@ class NonLinearControl extends Error {}
  * Split a source value read with its controls as symbols into independent part + Σ gain·control.
  * The value must be linear in its controls: no control in a denominator, no power or product of them.
  */
-export function splitSourceValue(value: RationalFunction): { independent: RationalFunction; terms: SourceTerm[] } {
+function splitSourceValue(value: RationalFunction): { independent: RationalFunction; terms: SourceTerm[] } {
   const controlSymbols = value.variables().filter((v) => controlOfSymbol(v) !== null);
   if (controlSymbols.length === 0) return { independent: value, terms: [] };
   const inDenominator = controlSymbols.find((c) => value.den.degreeIn(c) > 0);
@@ -155,11 +155,6 @@ export interface InternalSymbol {
 
 export type CoefficientRole = "admittance" | "impedance" | "gain" | "source";
 
-/** Internal variables start with "$", which no user symbol can contain. */
-export function isInternalSymbol(name: string): boolean {
-  return name.startsWith("$");
-}
-
 const ROLE_LETTER: Record<CoefficientRole, string> = { admittance: "y", impedance: "z", gain: "k", source: "u" };
 
 /**
@@ -174,25 +169,3 @@ export function coefficientOf(display: RationalFunction, element: string, index:
   return { poly: Poly.variable(name), display, internal };
 }
 
-/** Admittance of a passive element in user symbols: 1/R, G, sC, 1/(sL). */
-export function admittanceOf(e: Element, value: RationalFunction): RationalFunction {
-  const s = RationalFunction.variable(LAPLACE);
-  switch (e.kind) {
-    case "resistor":
-      return value.inverse();
-    case "conductance":
-      return value;
-    case "capacitor":
-      return s.mul(value);
-    case "inductor":
-      return s.mul(value).inverse();
-    default:
-      throw new Error(`${e.kind} has no admittance`);
-  }
-}
-
-export function isPlainNumber(v: RationalFunction): boolean {
-  return v.constantValue() !== null;
-}
-
-export const ONE = Rational.ONE;

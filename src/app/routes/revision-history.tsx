@@ -11,7 +11,7 @@ import { useNetwork } from "@/features/networks";
 import { VerdictMark } from "@/features/review";
 import { compactTex } from "@/lib/printed-forms";
 import { printElementLine, type EngineNetwork } from "@/lib/engine-netlist";
-import type { CircuitElement, Revision } from "@/lib/api-contract";
+import type { Revision } from "@/lib/api-contract";
 
 const RESULTS = [
   ["vth", "V_{\\mathrm{th}}"],
@@ -49,12 +49,11 @@ function Comparison({ networkId, from, to }: { networkId: string; from: number; 
   if (a.isError || b.isError || comparison.isError) return <ErrorState error={a.error ?? b.error ?? comparison.error} title="The revisions could not be compared" />;
   if (!a.data || !b.data || !comparison.data) return null;
   const { circuit } = comparison.data;
-  const element = (e: unknown) => e as CircuitElement;
   const diff = {
     elements: [
-      ...circuit.removed.map((e) => ({ name: element(e).name, before: element(e), after: null })),
-      ...circuit.changed.map((c) => ({ name: c.name, before: element(c.before), after: element(c.after) })),
-      ...circuit.added.map((e) => ({ name: element(e).name, before: null, after: element(e) })),
+      ...circuit.removed.map((e) => ({ name: e.name, before: e, after: null })),
+      ...circuit.changed.map((c) => ({ name: c.name, before: c.before, after: c.after })),
+      ...circuit.added.map((e) => ({ name: e.name, before: null, after: e })),
     ],
     portChanged: circuit.port !== null,
   };

@@ -1,4 +1,4 @@
-import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from "react";
+import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from "react";
 
 const control =
   "mt-1 block w-full rounded border border-rule bg-white px-2.5 py-1.5 text-sm text-ink placeholder:text-ink/40 focus:border-copper focus:outline-none";
@@ -34,20 +34,6 @@ export function TextField({ label, error, hint, className = "", ...rest }: Field
           {error}
         </p>
       )}
-    </div>
-  );
-}
-
-export function TextAreaField({ label, error, hint, className = "", ...rest }: FieldProps & TextareaHTMLAttributes<HTMLTextAreaElement>) {
-  const id = useId();
-  return (
-    <div className={className}>
-      <label htmlFor={id} className="block text-sm font-medium">
-        {label}
-      </label>
-      <textarea id={id} aria-invalid={error ? true : undefined} className={`${control} ${error ? "border-signal" : ""}`} {...rest} />
-      {hint && !error && <p className="mt-1 text-xs text-ink/60">{hint}</p>}
-      {error && <p className="mt-1 text-xs text-signal">{error}</p>}
     </div>
   );
 }

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { CreateTokenRequest, CreatedToken } from "@/lib/api-contract";
 
-export function createApiToken(input: CreateTokenRequest) {
+function createApiToken(input: CreateTokenRequest) {
   return api<CreatedToken>("/account/tokens", { method: "POST", json: input });
 }
 

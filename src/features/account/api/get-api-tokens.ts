@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { TokenList } from "@/lib/api-contract";
 
-export const apiTokensQueryOptions = () => queryOptions({ queryKey: ["api-tokens"], queryFn: () => api<TokenList>("/account/tokens") });
+const apiTokensQueryOptions = () => queryOptions({ queryKey: ["api-tokens"], queryFn: () => api<TokenList>("/account/tokens") });
 
 export function useApiTokens() {
   return useQuery(apiTokensQueryOptions());

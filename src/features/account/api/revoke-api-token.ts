@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
-export function revokeApiToken(tokenId: string) {
+function revokeApiToken(tokenId: string) {
   return api<null>(`/account/tokens/${tokenId}`, { method: "DELETE" });
 }
 

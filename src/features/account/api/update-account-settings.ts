@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { SettingsAnswer, SettingsRequest } from "@/lib/api-contract";
 
-export function updateAccountSettings(settings: SettingsRequest) {
+function updateAccountSettings(settings: SettingsRequest) {
   return api<SettingsAnswer>("/me/settings", { method: "PATCH", json: settings });
 }
 

@@ -9,7 +9,7 @@ export interface SweepRequest {
 }
 
 export const POINTS_PER_DECADE = 40;
-export const LINEAR_POINTS = 201;
+const LINEAR_POINTS = 201;
 export const MAX_DECADES = 24;
 
 /** Why a range cannot be drawn on a log axis, or null when it can. */

@@ -43,13 +43,13 @@ export interface OpenApiDocument {
 }
 
 // The document is the server's own (GET /api/openapi.json), generated from the contract in shared/api.
-export async function getOpenApi(): Promise<OpenApiDocument> {
+async function getOpenApi(): Promise<OpenApiDocument> {
   const response = await fetch("/api/openapi.json", { headers: { Accept: "application/json" } });
   if (!response.ok) throw new Error(`The API description could not be loaded (${response.status}).`);
   return response.json();
 }
 
-export const openApiQueryOptions = () => queryOptions({ queryKey: ["openapi"], queryFn: getOpenApi, staleTime: Infinity });
+const openApiQueryOptions = () => queryOptions({ queryKey: ["openapi"], queryFn: getOpenApi, staleTime: Infinity });
 
 export function useOpenApi() {
   return useQuery(openApiQueryOptions());

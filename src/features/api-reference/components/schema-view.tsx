@@ -3,7 +3,7 @@ import type { JsonSchema } from "../api/get-openapi";
 const refName = (ref: string) => ref.split("/").pop() ?? ref;
 
 // One line for a schema that needs no table: its type with its bounds.
-export function typeLabel(schema: JsonSchema | undefined): string {
+function typeLabel(schema: JsonSchema | undefined): string {
   if (!schema) return "any";
   if (schema.$ref) return refName(schema.$ref);
   if (schema.enum) return schema.enum.map((v) => JSON.stringify(v)).join(" | ");

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
-export function deleteAttachment({ networkId, attachmentId }: { networkId: string; attachmentId: string }) {
+function deleteAttachment({ networkId, attachmentId }: { networkId: string; attachmentId: string }) {
   return api<null>(`/networks/${encodeURIComponent(networkId)}/attachments/${encodeURIComponent(attachmentId)}`, { method: "DELETE" });
 }
 

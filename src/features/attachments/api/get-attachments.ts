@@ -3,11 +3,11 @@ import { api } from "@/lib/api-client";
 import type { AttachmentList } from "@/lib/api-contract";
 
 // The limits travel with the list, so the page states them before anyone tries an upload.
-export function getAttachments(networkId: string) {
+function getAttachments(networkId: string) {
   return api<AttachmentList>(`/networks/${encodeURIComponent(networkId)}/attachments`);
 }
 
-export const attachmentsQueryOptions = (networkId: string) => queryOptions({ queryKey: ["networks", networkId, "attachments"], queryFn: () => getAttachments(networkId) });
+const attachmentsQueryOptions = (networkId: string) => queryOptions({ queryKey: ["networks", networkId, "attachments"], queryFn: () => getAttachments(networkId) });
 
 export function useAttachments(networkId: string) {
   return useQuery(attachmentsQueryOptions(networkId));

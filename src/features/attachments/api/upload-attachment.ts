@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Attachment } from "@/lib/api-contract";
 
-export function uploadAttachment({ networkId, file }: { networkId: string; file: File }) {
+function uploadAttachment({ networkId, file }: { networkId: string; file: File }) {
   const form = new FormData();
   form.append("file", file);
   return api<Attachment>(`/networks/${encodeURIComponent(networkId)}/attachments`, { method: "POST", body: form });

@@ -3,7 +3,7 @@ import { api, ApiError } from "@/lib/api-client";
 import type { Me } from "@/lib/api-contract";
 
 // null when signed out: a 401 here is an answer, not an error.
-export async function getMe(): Promise<Me | null> {
+async function getMe(): Promise<Me | null> {
   try {
     return await api<Me>("/me");
   } catch (error) {
@@ -12,7 +12,7 @@ export async function getMe(): Promise<Me | null> {
   }
 }
 
-export const meQueryOptions = () => queryOptions({ queryKey: ["me"], queryFn: getMe, staleTime: 60_000 });
+const meQueryOptions = () => queryOptions({ queryKey: ["me"], queryFn: getMe, staleTime: 60_000 });
 
 export function useMe() {
   return useQuery(meQueryOptions());

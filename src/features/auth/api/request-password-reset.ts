@@ -2,7 +2,7 @@ import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { PasswordResetRequest, SentAnswer } from "@/lib/api-contract";
 
-export function requestPasswordReset(input: PasswordResetRequest) {
+function requestPasswordReset(input: PasswordResetRequest) {
   return api<SentAnswer>("/auth/password-reset", { method: "POST", json: input });
 }
 

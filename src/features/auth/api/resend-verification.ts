@@ -2,7 +2,7 @@ import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { SentAnswer } from "@/lib/api-contract";
 
-export function resendVerification() {
+function resendVerification() {
   return api<SentAnswer>("/auth/verify-email/resend", { method: "POST" });
 }
 

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { PasswordResetConfirmRequest, UserAnswer } from "@/lib/api-contract";
 
-export function resetPassword(input: PasswordResetConfirmRequest) {
+function resetPassword(input: PasswordResetConfirmRequest) {
   return api<UserAnswer>("/auth/password-reset/confirm", { method: "POST", json: input });
 }
 

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { LoginRequest, UserAnswer } from "@/lib/api-contract";
 
-export function signIn(input: LoginRequest) {
+function signIn(input: LoginRequest) {
   return api<UserAnswer>("/auth/login", { method: "POST", json: input });
 }
 

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
-export function signOut() {
+function signOut() {
   return api<null>("/auth/logout", { method: "POST" });
 }
 

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { SignupRequest, UserAnswer } from "@/lib/api-contract";
 
-export function signUp(input: SignupRequest) {
+function signUp(input: SignupRequest) {
   return api<UserAnswer>("/auth/signup", { method: "POST", json: input });
 }
 

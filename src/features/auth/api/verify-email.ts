@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { EmailLinkRequest, UserAnswer } from "@/lib/api-contract";
 
-export function verifyEmail(input: EmailLinkRequest) {
+function verifyEmail(input: EmailLinkRequest) {
   return api<UserAnswer>("/auth/verify-email", { method: "POST", json: input });
 }
 

@@ -6,7 +6,7 @@ import { GRID, orient, place, type Point } from "../model/geometry";
 
 const px = (p: Point): [number, number] => [p[0] * GRID, p[1] * GRID];
 
-export function valueText(e: Element): string {
+function valueText(e: Element): string {
   if (e.kind === "opamp") return "ideal";
   return e.value;
 }

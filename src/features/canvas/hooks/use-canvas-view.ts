@@ -91,4 +91,3 @@ export function useCanvasView({ box, svg }: CanvasElements, drawing: Drawing, he
   };
 }
 
-export type CanvasView = ReturnType<typeof useCanvasView>;

@@ -28,7 +28,7 @@ function pinOrder(instance: CellInstance, library: ReadonlyMap<string, CellDefin
   return [...known.filter((t) => given.includes(t)), ...given.filter((t) => !known.includes(t))];
 }
 
-export function cellPartOf(instance: CellInstance, library: ReadonlyMap<string, CellDefinition>): CellPartElement {
+function cellPartOf(instance: CellInstance, library: ReadonlyMap<string, CellDefinition>): CellPartElement {
   return { ...instance, kind: "cell", pins: pinOrder(instance, library) };
 }
 

@@ -6,13 +6,13 @@ import { instanceOf, isCellPart, partElementsOf, type PartElement } from "./cell
 import { elementNodes, partPins, withNodes, type Drawing } from "./drawing";
 import { insideSegment, pointKey, type Point } from "./geometry";
 
-export interface CanvasDiagnostic {
+interface CanvasDiagnostic {
   code: "node-two-names" | "port-unmarked" | "port-off-node" | "duplicate-name";
   message: string;
   parts: string[];
 }
 
-export interface Net {
+interface Net {
   name: string;
   /** Pins on this node as [part index, pin index]. */
   pins: [number, number][];

@@ -11,7 +11,7 @@ export interface Part {
   mirror: boolean;
 }
 
-export type Wire = readonly [Point, Point];
+type Wire = readonly [Point, Point];
 
 /** A node label: names the node at its point (labels with one name join their nodes). */
 export interface NodeLabel {
@@ -31,12 +31,12 @@ export interface Drawing {
 
 export const EMPTY_DRAWING: Drawing = { parts: [], wires: [], labels: [], grounds: [], port: null };
 
-export const LAYOUT_VERSION = 1;
+const LAYOUT_VERSION = 1;
 
 const point = z.tuple([z.number().int(), z.number().int()]);
 
 /** The stored layout: geometry only, parts keyed by element or cell instance name; those stay in `elements` and `cells`. */
-export const layoutSchema = z.object({
+const layoutSchema = z.object({
   version: z.literal(LAYOUT_VERSION),
   parts: z.array(z.object({ element: z.string(), at: point, turn: z.union([z.literal(0), z.literal(1), z.literal(2), z.literal(3)]), mirror: z.boolean() })),
   wires: z.array(z.tuple([point, point])),

@@ -25,11 +25,6 @@ export function localPins(kind: ElementKind): Point[] {
       ];
 }
 
-/** What each pin is called, in the order of localPins (the order of the element's node fields). */
-export function pinNames(kind: ElementKind): string[] {
-  return kind === "opamp" ? ["non-inverting input", "inverting input", "output"] : ["first node", "second node"];
-}
-
 // Mirror first (across the local vertical axis), then turn; the same order everywhere.
 export function orient(p: Point, turn: Turn, mirror: boolean): Point {
   let [x, y] = p;
@@ -52,4 +47,3 @@ export function insideSegment(p: Point, a: Point, b: Point): boolean {
   return dot > 0 && dot < length2;
 }
 
-export const snap = (value: number) => Math.round(value);

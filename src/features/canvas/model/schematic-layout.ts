@@ -4,14 +4,14 @@ import type { Element, EngineNetwork } from "@/lib/engine-netlist";
 // rail, elements to ground hang between the rails, elements between two nodes bridge columns
 // (stacked in levels above the rail when they would overlap), and the port sits at the right.
 
-export const RAIL_Y = 0;
-export const GROUND_Y = 130;
+const RAIL_Y = 0;
+const GROUND_Y = 130;
 const SLOT = 76; // horizontal room per element hanging from one node
 const GAP = 120; // room for a bridging element between adjacent columns
 const LEVEL = 56; // height between stacked bridging elements
 const PORT_GAP = 56;
 
-export type Segment = [number, number, number, number];
+type Segment = [number, number, number, number];
 
 export interface PlacedPart {
   element: Element;

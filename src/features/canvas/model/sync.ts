@@ -147,7 +147,7 @@ function withPort(drawing: Drawing, network: EngineNetwork, library: ReadonlyMap
 }
 
 // The preview's ladder layout, rounded onto the grid, as the first drawing of a network without one.
-export function autoDrawing(network: EngineNetwork, library: ReadonlyMap<string, CellDefinition> = BUILT_IN_CELLS): Drawing {
+function autoDrawing(network: EngineNetwork, library: ReadonlyMap<string, CellDefinition> = BUILT_IN_CELLS): Drawing {
   if (network.elements.length === 0 && !network.cells?.length) return EMPTY_DRAWING;
   const ladder = layoutSchematic(network);
   const r = (v: number) => Math.round(v / GRID);

@@ -5,7 +5,7 @@ import type { CellDefinition } from "@/lib/engine-netlist";
 import { teamCellsQueryOptions } from "./get-team-cells";
 
 /** Save a team cell; the server answers 400 invalid_cell with the engine's diagnostics, 409 cell_name_taken. */
-export function createTeamCell({ teamId, definition }: { teamId: string; definition: CellDefinition }): Promise<Cell> {
+function createTeamCell({ teamId, definition }: { teamId: string; definition: CellDefinition }): Promise<Cell> {
   return api<Cell>(`/teams/${encodeURIComponent(teamId)}/cells`, { method: "POST", json: { definition } });
 }
 

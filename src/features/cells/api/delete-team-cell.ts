@@ -3,7 +3,7 @@ import { api } from "@/lib/api-client";
 import { teamCellsQueryOptions } from "./get-team-cells";
 
 /** Remove a team cell; revisions already solved keep its definition inside their circuit. */
-export function deleteTeamCell({ teamId, cellId }: { teamId: string; cellId: string }): Promise<null> {
+function deleteTeamCell({ teamId, cellId }: { teamId: string; cellId: string }): Promise<null> {
   return api<null>(`/teams/${encodeURIComponent(teamId)}/cells/${encodeURIComponent(cellId)}`, { method: "DELETE" });
 }
 

@@ -3,7 +3,7 @@ import { api } from "@/lib/api-client";
 import type { CellList } from "@/lib/api-contract";
 
 // A cell's id is the one a network's cell instance names.
-export function getTeamCells(teamId: string) {
+function getTeamCells(teamId: string) {
   return api<CellList>(`/teams/${encodeURIComponent(teamId)}/cells`).then((body) => body.cells);
 }
 

@@ -27,7 +27,7 @@ export interface ReadCellForm {
 const DIRECTIVES = new Set(["ground", "port", "quantity"]);
 
 /** "a, b  c" -> ["a", "b", "c"]: commas or spaces between names. */
-export function listOf(text: string): string[] {
+function listOf(text: string): string[] {
   return [...new Set(text.split(/[\s,]+/).filter((s) => s !== ""))];
 }
 
@@ -35,7 +35,7 @@ export function listOf(text: string): string[] {
 const VALUE_TOKEN = /(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?(?:[TGMkmunpf\u00b5\u03bc](?![A-Za-z0-9_]))?|([A-Za-z_][A-Za-z0-9_]*)/g;
 
 /** The identifiers the element values use, in first-use order (a controlled source's value is its gain alone). */
-export function valueSymbols(elements: readonly Element[]): string[] {
+function valueSymbols(elements: readonly Element[]): string[] {
   const found = new Set<string>();
   for (const e of elements) {
     if (!("value" in e)) continue;

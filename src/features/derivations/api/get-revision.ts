@@ -6,7 +6,7 @@ export function getRevision(networkId: string, number: number) {
   return api<Revision>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}`);
 }
 
-export const revisionQueryOptions = (networkId: string, number: number) =>
+const revisionQueryOptions = (networkId: string, number: number) =>
   queryOptions({ queryKey: ["networks", networkId, "revisions", number], queryFn: () => getRevision(networkId, number), staleTime: Infinity });
 
 export function useRevision(networkId: string, number: number | null) {

@@ -3,11 +3,11 @@ import { api } from "@/lib/api-client";
 import type { RevisionList } from "@/lib/api-contract";
 
 // Newest first, as the server lists them.
-export function getRevisions(networkId: string) {
+function getRevisions(networkId: string) {
   return api<RevisionList>(`/networks/${encodeURIComponent(networkId)}/revisions`).then((body) => body.revisions);
 }
 
-export const revisionsQueryOptions = (networkId: string) =>
+const revisionsQueryOptions = (networkId: string) =>
   queryOptions({ queryKey: ["networks", networkId, "revisions", "list"], queryFn: () => getRevisions(networkId) });
 
 export function useRevisions(networkId: string) {

@@ -26,7 +26,7 @@ async function followJob(networkId: string, job: SolveJob, onProgress: (p: Solve
 }
 
 // Each solve stores a new, immutable derivation revision with its steps.
-export async function solveNetwork({ networkId, onProgress = () => undefined }: { networkId: string; onProgress?: (p: SolveProgress) => void }) {
+async function solveNetwork({ networkId, onProgress = () => undefined }: { networkId: string; onProgress?: (p: SolveProgress) => void }) {
   onProgress("sending");
   // 201 with the revision, or 202 with a job to poll.
   const body = await api<Revision | SolveJobAnswer>(`/networks/${encodeURIComponent(networkId)}/solve`, { method: "POST", json: {} });

@@ -3,7 +3,7 @@ import { RESULT_NAMES, RESULT_UNIT, resultLabel, resultsInS } from "@/lib/quanti
 import type { CheckMark, RevisionResults } from "@/lib/api-contract";
 
 /** The page that explains every check and every outside reference. */
-export const HOW_CHECKED_PATH = "/how-results-are-checked";
+const HOW_CHECKED_PATH = "/how-results-are-checked";
 
 const MARKS: { key: CheckMark; label: string; none: string }[] = [
   { key: "testSource", label: "test source", none: "no test-source check for this port" },

@@ -3,11 +3,11 @@ import { api } from "@/lib/api-client";
 import type { RevisionComparison } from "@/lib/api-contract";
 
 // What changed between two revisions, as the server compares them (circuit by element name, results by printed form).
-export function getRevisionComparison(networkId: string, from: number, to: number) {
+function getRevisionComparison(networkId: string, from: number, to: number) {
   return api<RevisionComparison>(`/networks/${encodeURIComponent(networkId)}/revisions/${from}/compare/${to}`);
 }
 
-export const revisionComparisonQueryOptions = (networkId: string, from: number, to: number) =>
+const revisionComparisonQueryOptions = (networkId: string, from: number, to: number) =>
   queryOptions({ queryKey: ["networks", networkId, "revisions", from, "compare", to], queryFn: () => getRevisionComparison(networkId, from, to), staleTime: Infinity });
 
 export function useRevisionComparison(networkId: string, from: number, to: number) {

@@ -3,9 +3,9 @@ import { api } from "@/lib/api-client";
 import type { Circuit, CreateNetworkRequest, Network } from "@/lib/api-contract";
 
 // The circuit is the engine's network; the netlist the text as typed, when the network was written as one.
-export type CreateNetworkInput = Omit<CreateNetworkRequest, "circuit"> & { teamId: string; circuit: Circuit };
+type CreateNetworkInput = Omit<CreateNetworkRequest, "circuit"> & { teamId: string; circuit: Circuit };
 
-export function createNetwork({ teamId, ...input }: CreateNetworkInput) {
+function createNetwork({ teamId, ...input }: CreateNetworkInput) {
   return api<Network>(`/teams/${encodeURIComponent(teamId)}/networks`, { method: "POST", json: input });
 }
 

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
-export function deleteNetwork({ networkId }: { networkId: string; teamId: string }) {
+function deleteNetwork({ networkId }: { networkId: string; teamId: string }) {
   return api<null>(`/networks/${encodeURIComponent(networkId)}`, { method: "DELETE" });
 }
 

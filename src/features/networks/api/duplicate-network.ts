@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { DuplicateNetworkRequest, Network } from "@/lib/api-contract";
 
-export function duplicateNetwork({ networkId, title }: DuplicateNetworkRequest & { networkId: string; teamId: string }) {
+function duplicateNetwork({ networkId, title }: DuplicateNetworkRequest & { networkId: string; teamId: string }) {
   return api<Network>(`/networks/${encodeURIComponent(networkId)}/duplicate`, { method: "POST", json: title ? { title } : {} });
 }
 

@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Network } from "@/lib/api-contract";
 
-export function getNetwork(networkId: string) {
+function getNetwork(networkId: string) {
   return api<Network>(`/networks/${encodeURIComponent(networkId)}`);
 }
 

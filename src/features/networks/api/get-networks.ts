@@ -12,7 +12,7 @@ export interface NetworkListQuery {
 }
 
 // Sorting, search and paging happen on the server; the table only asks for one page.
-export function getNetworks(query: NetworkListQuery) {
+function getNetworks(query: NetworkListQuery) {
   const params = new URLSearchParams({
     q: query.search,
     sort: query.sort,
@@ -23,7 +23,7 @@ export function getNetworks(query: NetworkListQuery) {
   return api<NetworkList>(`/teams/${encodeURIComponent(query.teamId)}/networks?${params}`);
 }
 
-export const networksQueryOptions = (query: NetworkListQuery) =>
+const networksQueryOptions = (query: NetworkListQuery) =>
   queryOptions({ queryKey: ["teams", query.teamId, "networks", query], queryFn: () => getNetworks(query), placeholderData: keepPreviousData });
 
 export function useNetworks(query: NetworkListQuery) {

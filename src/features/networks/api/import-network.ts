@@ -3,7 +3,7 @@ import { api } from "@/lib/api-client";
 import type { Network } from "@/lib/api-contract";
 
 // Multipart upload of our JSON or our text netlist; the server answers with per-line diagnostics when it refuses.
-export function importNetwork({ teamId, file, title }: { teamId: string; file: File; title?: string }) {
+function importNetwork({ teamId, file, title }: { teamId: string; file: File; title?: string }) {
   const form = new FormData();
   form.append("file", file);
   if (title) form.append("title", title);

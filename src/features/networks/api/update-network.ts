@@ -5,7 +5,7 @@ import type { Circuit, Network, PatchNetworkRequest } from "@/lib/api-contract";
 // The circuit sent is the engine's network; `expectedUpdatedAt` is the copy being edited: a later save by someone else answers 409 `stale`.
 export type UpdateNetworkInput = Omit<PatchNetworkRequest, "circuit"> & { networkId: string; circuit?: Circuit };
 
-export function updateNetwork({ networkId, ...input }: UpdateNetworkInput) {
+function updateNetwork({ networkId, ...input }: UpdateNetworkInput) {
   return api<Network>(`/networks/${encodeURIComponent(networkId)}`, { method: "PATCH", json: input });
 }
 

@@ -2,9 +2,9 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Comment, CommentRequest } from "@/lib/api-contract";
 
-export type CreateCommentInput = CommentRequest & { networkId: string; number: number };
+type CreateCommentInput = CommentRequest & { networkId: string; number: number };
 
-export function createComment({ networkId, number, ...input }: CreateCommentInput) {
+function createComment({ networkId, number, ...input }: CreateCommentInput) {
   return api<Comment>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/comments`, { method: "POST", json: input });
 }
 

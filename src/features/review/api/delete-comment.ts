@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
-export function deleteComment({ networkId, number, commentId }: { networkId: string; number: number; commentId: string }) {
+function deleteComment({ networkId, number, commentId }: { networkId: string; number: number; commentId: string }) {
   return api<null>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/comments/${encodeURIComponent(commentId)}`, {
     method: "DELETE",
   });

@@ -3,11 +3,11 @@ import { api } from "@/lib/api-client";
 import type { CommentList } from "@/lib/api-contract";
 
 // Review notes of one revision, threaded one level deep: each thread's first note with its replies.
-export function getComments(networkId: string, number: number) {
+function getComments(networkId: string, number: number) {
   return api<CommentList>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/comments`).then((body) => body.comments);
 }
 
-export const commentsQueryOptions = (networkId: string, number: number) =>
+const commentsQueryOptions = (networkId: string, number: number) =>
   queryOptions({ queryKey: ["networks", networkId, "revisions", number, "comments"], queryFn: () => getComments(networkId, number) });
 
 export function useComments(networkId: string, number: number, enabled = true) {

@@ -5,11 +5,11 @@ import type { ReviewQueuePage } from "@/lib/api-contract";
 export type ReviewQueue = "awaiting" | "mine";
 
 // "awaiting": open revisions waiting for my verdict; "mine": revisions I solved that are not approved yet.
-export function getReviewQueue(queue: ReviewQueue, page: number, pageSize: number) {
+function getReviewQueue(queue: ReviewQueue, page: number, pageSize: number) {
   return api<ReviewQueuePage>(`/reviews/${queue}?page=${page}&pageSize=${pageSize}`);
 }
 
-export const reviewQueueQueryOptions = (queue: ReviewQueue, page: number, pageSize: number) =>
+const reviewQueueQueryOptions = (queue: ReviewQueue, page: number, pageSize: number) =>
   queryOptions({ queryKey: ["reviews", queue, { page, pageSize }], queryFn: () => getReviewQueue(queue, page, pageSize), placeholderData: keepPreviousData });
 
 export function useReviewQueue(queue: ReviewQueue, page: number, pageSize = 20) {

@@ -3,11 +3,11 @@ import { api } from "@/lib/api-client";
 import type { VerdictHistory } from "@/lib/api-contract";
 
 // Every verdict on one revision, newest first, and the state the server derives from them.
-export function getVerdicts(networkId: string, number: number) {
+function getVerdicts(networkId: string, number: number) {
   return api<VerdictHistory>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/verdicts`);
 }
 
-export const verdictsQueryOptions = (networkId: string, number: number) =>
+const verdictsQueryOptions = (networkId: string, number: number) =>
   queryOptions({ queryKey: ["networks", networkId, "revisions", number, "verdicts"], queryFn: () => getVerdicts(networkId, number) });
 
 export function useVerdicts(networkId: string, number: number, enabled = true) {

@@ -2,9 +2,9 @@ import { useMutation, useQueryClient, type QueryClient } from "@tanstack/react-q
 import { api } from "@/lib/api-client";
 import type { VerdictGiven, VerdictRequest } from "@/lib/api-contract";
 
-export type GiveVerdictInput = VerdictRequest & { networkId: string; number: number };
+type GiveVerdictInput = VerdictRequest & { networkId: string; number: number };
 
-export function giveVerdict({ networkId, number, verdict, note }: GiveVerdictInput) {
+function giveVerdict({ networkId, number, verdict, note }: GiveVerdictInput) {
   return api<VerdictGiven>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/verdicts`, { method: "POST", json: { verdict, ...(note ? { note } : {}) } });
 }
 

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Comment } from "@/lib/api-contract";
 
-export function setThreadResolved({ networkId, number, commentId, resolved }: { networkId: string; number: number; commentId: string; resolved: boolean }) {
+function setThreadResolved({ networkId, number, commentId, resolved }: { networkId: string; number: number; commentId: string; resolved: boolean }) {
   return api<Comment>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/comments/${encodeURIComponent(commentId)}/${resolved ? "resolve" : "reopen"}`, { method: "POST" });
 }
 

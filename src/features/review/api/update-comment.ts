@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Comment, EditCommentRequest } from "@/lib/api-contract";
 
-export function updateComment({ networkId, number, commentId, body }: EditCommentRequest & { networkId: string; number: number; commentId: string }) {
+function updateComment({ networkId, number, commentId, body }: EditCommentRequest & { networkId: string; number: number; commentId: string }) {
   return api<Comment>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/comments/${encodeURIComponent(commentId)}`, {
     method: "PATCH",
     json: { body },

@@ -3,7 +3,7 @@ import { api } from "@/lib/api-client";
 import type { VerdictGiven } from "@/lib/api-contract";
 import { refreshAfterVerdict } from "./give-verdict";
 
-export function withdrawVerdict({ networkId, number, verdictId }: { networkId: string; number: number; verdictId: string }) {
+function withdrawVerdict({ networkId, number, verdictId }: { networkId: string; number: number; verdictId: string }) {
   return api<VerdictGiven>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/verdicts/${encodeURIComponent(verdictId)}/withdraw`, { method: "POST" });
 }
 

@@ -1,6 +1,6 @@
 import type { Verdict } from "@/lib/api-contract";
 
-export const VERDICT_WORDS: Record<Verdict, string> = { open: "open", approved: "approved", needs_changes: "needs changes" };
+const VERDICT_WORDS: Record<Verdict, string> = { open: "open", approved: "approved", needs_changes: "needs changes" };
 
 export function VerdictMark({ verdict }: { verdict: Verdict | null }) {
   if (!verdict) return <span className="text-ink/40">none</span>;

@@ -2,9 +2,9 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { CreatedShare, ShareRequest } from "@/lib/api-contract";
 
-export type CreateShareLinkInput = ShareRequest & { networkId: string; number: number };
+type CreateShareLinkInput = ShareRequest & { networkId: string; number: number };
 
-export function createShareLink({ networkId, number, expiresAt }: CreateShareLinkInput) {
+function createShareLink({ networkId, number, expiresAt }: CreateShareLinkInput) {
   return api<CreatedShare>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/share`, { method: "POST", json: expiresAt ? { expiresAt } : {} });
 }
 

@@ -2,11 +2,11 @@ import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { ShareList } from "@/lib/api-contract";
 
-export function getShareLinks(networkId: string, number: number) {
+function getShareLinks(networkId: string, number: number) {
   return api<ShareList>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/share`).then((body) => body.shares);
 }
 
-export const shareLinksQueryOptions = (networkId: string, number: number) =>
+const shareLinksQueryOptions = (networkId: string, number: number) =>
   queryOptions({ queryKey: ["networks", networkId, "revisions", number, "shares"], queryFn: () => getShareLinks(networkId, number) });
 
 export function useShareLinks(networkId: string, number: number, enabled: boolean) {

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
-export function revokeShareLink({ networkId, number, shareId }: { networkId: string; number: number; shareId: string }) {
+function revokeShareLink({ networkId, number, shareId }: { networkId: string; number: number; shareId: string }) {
   return api<null>(`/networks/${encodeURIComponent(networkId)}/revisions/${number}/share/${encodeURIComponent(shareId)}`, { method: "DELETE" });
 }
 

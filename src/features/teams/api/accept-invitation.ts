@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { AcceptedInvitation } from "@/lib/api-contract";
 
-export function acceptInvitation({ token }: { token: string }) {
+function acceptInvitation({ token }: { token: string }) {
   return api<AcceptedInvitation>(`/invitations/${encodeURIComponent(token)}/accept`, { method: "POST" });
 }
 

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { MemberList, RoleRequest } from "@/lib/api-contract";
 
-export function changeMemberRole({ teamId, userId, role }: RoleRequest & { teamId: string; userId: string }) {
+function changeMemberRole({ teamId, userId, role }: RoleRequest & { teamId: string; userId: string }) {
   return api<MemberList>(`/teams/${encodeURIComponent(teamId)}/members/${encodeURIComponent(userId)}`, { method: "PATCH", json: { role } });
 }
 

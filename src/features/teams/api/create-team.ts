@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Team, TeamRequest } from "@/lib/api-contract";
 
-export function createTeam(input: TeamRequest) {
+function createTeam(input: TeamRequest) {
   return api<Team>("/teams", { method: "POST", json: input });
 }
 

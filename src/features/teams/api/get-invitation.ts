@@ -3,11 +3,11 @@ import { api } from "@/lib/api-client";
 import type { InvitationPreview } from "@/lib/api-contract";
 
 // Readable without an account, so the invited person sees what they are joining before signing in.
-export function getInvitation(token: string) {
+function getInvitation(token: string) {
   return api<InvitationPreview>(`/invitations/${encodeURIComponent(token)}`);
 }
 
-export const invitationQueryOptions = (token: string) =>
+const invitationQueryOptions = (token: string) =>
   queryOptions({ queryKey: ["invitations", token], queryFn: () => getInvitation(token), retry: false });
 
 export function useInvitation(token: string) {

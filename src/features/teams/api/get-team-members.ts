@@ -2,11 +2,11 @@ import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { MemberList } from "@/lib/api-contract";
 
-export function getTeamMembers(teamId: string) {
+function getTeamMembers(teamId: string) {
   return api<MemberList>(`/teams/${encodeURIComponent(teamId)}/members`).then((body) => body.members);
 }
 
-export const teamMembersQueryOptions = (teamId: string) =>
+const teamMembersQueryOptions = (teamId: string) =>
   queryOptions({ queryKey: ["teams", teamId, "members"], queryFn: () => getTeamMembers(teamId) });
 
 export function useTeamMembers(teamId: string | undefined) {

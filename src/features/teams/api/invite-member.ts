@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { CreatedInvitation, InvitationRequest } from "@/lib/api-contract";
 
-export function inviteMember({ teamId, ...input }: InvitationRequest & { teamId: string }) {
+function inviteMember({ teamId, ...input }: InvitationRequest & { teamId: string }) {
   return api<CreatedInvitation>(`/teams/${encodeURIComponent(teamId)}/invitations`, { method: "POST", json: input });
 }
 

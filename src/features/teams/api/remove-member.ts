@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
-export function removeMember({ teamId, userId }: { teamId: string; userId: string }) {
+function removeMember({ teamId, userId }: { teamId: string; userId: string }) {
   return api<null>(`/teams/${encodeURIComponent(teamId)}/members/${encodeURIComponent(userId)}`, { method: "DELETE" });
 }
 

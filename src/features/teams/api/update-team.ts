@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Team, TeamChangesRequest } from "@/lib/api-contract";
 
-export function updateTeam({ teamId, ...changes }: TeamChangesRequest & { teamId: string }) {
+function updateTeam({ teamId, ...changes }: TeamChangesRequest & { teamId: string }) {
   return api<Team>(`/teams/${encodeURIComponent(teamId)}`, { method: "PATCH", json: changes });
 }
 

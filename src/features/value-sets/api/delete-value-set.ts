@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 
-export function deleteValueSet({ networkId, setId }: { networkId: string; setId: string }) {
+function deleteValueSet({ networkId, setId }: { networkId: string; setId: string }) {
   return api<null>(`/networks/${encodeURIComponent(networkId)}/value-sets/${encodeURIComponent(setId)}`, { method: "DELETE" });
 }
 

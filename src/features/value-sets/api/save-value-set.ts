@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { SaveValueSetRequest, ValueSet } from "@/lib/api-contract";
 
-export function saveValueSet({ networkId, name, values }: SaveValueSetRequest & { networkId: string }) {
+function saveValueSet({ networkId, name, values }: SaveValueSetRequest & { networkId: string }) {
   return api<ValueSet>(`/networks/${encodeURIComponent(networkId)}/value-sets`, { method: "POST", json: { name, values } });
 }
 
