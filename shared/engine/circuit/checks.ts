@@ -61,18 +61,19 @@ function evaluateOverCommonDenominator(p: Poly, numerators: Readonly<Record<stri
     degrees.push(d);
     top = Math.max(top, d);
   }
-  const powers = new Map<string, bigint>();
-  const power = (base: bigint, e: number, key: string): bigint => {
-    let r = powers.get(key);
-    if (r === undefined) powers.set(key, (r = base ** BigInt(e)));
-    return r;
+  // Powers by exponent, each computed once: qPowers[e] = q^e, varPowers[v][e] = m_v^e.
+  const qPowers: bigint[] = [1n];
+  const varPowers: bigint[][] = m.map(() => [1n]);
+  const power = (table: bigint[], base: bigint, e: number): bigint => {
+    for (let k = table.length; k <= e; k++) table.push(table[k - 1] * base);
+    return table[e];
   };
   let sum = 0n;
   for (let t = 0; t < p.coefs.length; t++) {
-    let term = p.coefs[t] * power(q, top - degrees[t], `q${top - degrees[t]}`);
+    let term = p.coefs[t] * power(qPowers, q, top - degrees[t]);
     for (let v = 0; v < nv; v++) {
       const e = p.exps[t * nv + v];
-      if (e > 0) term *= power(m[v], e, `${v}^${e}`);
+      if (e > 0) term *= power(varPowers[v], m[v]!, e);
     }
     sum += term;
   }
