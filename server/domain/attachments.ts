@@ -53,7 +53,7 @@ export async function addAttachment(
   userId: string,
   file: { originalname: string; mimetype: string; buffer: Buffer },
 ) {
-  await requireNetworkRole(db, networkId, userId, "editor");
+  await requireNetworkRole(db, userId, networkId, "editor");
   const contentType = sniffContentType(file.buffer);
   if (!contentType) {
     throw new UnsupportedType("unsupported_type", "Attachments are PDF, PNG or JPEG files.", { fields: { file: "not a PDF, PNG or JPEG file" } });
@@ -71,7 +71,7 @@ export async function addAttachment(
 }
 
 export async function listAttachments(db: Database, networkId: string, userId: string) {
-  await requireNetworkRole(db, networkId, userId, "viewer");
+  await requireNetworkRole(db, userId, networkId, "viewer");
   const rows = await db
     .select({
       id: attachments.id,
@@ -91,14 +91,14 @@ export async function listAttachments(db: Database, networkId: string, userId: s
 }
 
 export async function attachmentContent(db: Database, networkId: string, attachmentId: string, userId: string) {
-  await requireNetworkRole(db, networkId, userId, "viewer");
+  await requireNetworkRole(db, userId, networkId, "viewer");
   const [row] = await db.select().from(attachments).where(and(eq(attachments.id, attachmentId), eq(attachments.networkId, networkId)));
   if (!row) throw notFound("That attachment");
   return { filename: row.filename, contentType: row.contentType, content: row.content };
 }
 
 export async function deleteAttachment(db: Database, networkId: string, attachmentId: string, userId: string): Promise<void> {
-  await requireNetworkRole(db, networkId, userId, "editor");
+  await requireNetworkRole(db, userId, networkId, "editor");
   const deleted = await db
     .delete(attachments)
     .where(and(eq(attachments.id, attachmentId), eq(attachments.networkId, networkId)))

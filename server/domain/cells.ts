@@ -42,7 +42,7 @@ function isUniqueViolation(error: unknown): boolean {
 }
 
 export async function listCells(db: Database, teamId: string, userId: string): Promise<{ cells: CellView[] }> {
-  await requireTeamRole(db, teamId, userId, "viewer");
+  await requireTeamRole(db, userId, teamId, "viewer");
   const rows = await db
     .select({ cell: teamCells, authorName: users.name })
     .from(teamCells)
@@ -54,7 +54,7 @@ export async function listCells(db: Database, teamId: string, userId: string): P
 
 export async function createCell(services: Services, teamId: string, userId: string, input: unknown): Promise<CellView> {
   const { db } = services;
-  await requireTeamRole(db, teamId, userId, "editor");
+  await requireTeamRole(db, userId, teamId, "editor");
   const { definition, diagnostics } = await readCell(services, input);
   if (!definition) throw new Invalid("invalid_cell", "The cell definition is not valid; see the diagnostics.", { fields: { definition: diagnostics[0]?.message ?? "invalid" }, diagnostics });
   // A team cell named like a built-in one would silently replace it in every network of the team.
@@ -70,7 +70,7 @@ export async function createCell(services: Services, teamId: string, userId: str
 }
 
 export async function deleteCell(db: Database, teamId: string, userId: string, cellId: string): Promise<void> {
-  await requireTeamRole(db, teamId, userId, "editor");
+  await requireTeamRole(db, userId, teamId, "editor");
   const gone = await db.delete(teamCells).where(and(eq(teamCells.teamId, teamId), eq(teamCells.slug, cellId))).returning({ id: teamCells.id });
   if (gone.length === 0) throw notFound("That cell");
 }

@@ -92,7 +92,7 @@ export interface NetworkListQuery {
 }
 
 export async function listNetworks(db: Database, teamId: string, userId: string, query: NetworkListQuery) {
-  await requireTeamRole(db, teamId, userId, "viewer");
+  await requireTeamRole(db, userId, teamId, "viewer");
   const conditions: SQL[] = [eq(networks.teamId, teamId)];
   if (query.q) {
     const pattern = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
@@ -153,7 +153,7 @@ export async function createNetwork(
   userId: string,
   input: { title: string; description?: string; circuit: Network; netlist?: string | null },
 ): Promise<NetworkView> {
-  const role = await requireTeamRole(db, teamId, userId, "editor");
+  const role = await requireTeamRole(db, userId, teamId, "editor");
   const [row] = await db
     .insert(networks)
     .values({ teamId, slug: slugFor(input.title), title: input.title, description: input.description ?? "", circuit: input.circuit, netlist: input.netlist ?? null, authorId: userId })
@@ -162,7 +162,7 @@ export async function createNetwork(
 }
 
 export async function getNetwork(db: Database, networkId: string, userId: string): Promise<NetworkView> {
-  const { network, role } = await requireNetworkRole(db, networkId, userId, "viewer");
+  const { network, role } = await requireNetworkRole(db, userId, networkId, "viewer");
   return loadView(db, network, role);
 }
 
@@ -182,7 +182,7 @@ export async function updateNetwork(
   userId: string,
   patch: { title?: string; description?: string; circuit?: Network; netlist?: string | null; expectedUpdatedAt?: string },
 ): Promise<NetworkView> {
-  const { role } = await requireNetworkRole(db, networkId, userId, "editor");
+  const { role } = await requireNetworkRole(db, userId, networkId, "editor");
   const conditions: SQL[] = [eq(networks.id, networkId)];
   // Optimistic concurrency: an edit made from a stale copy is refused rather than silently lost.
   if (patch.expectedUpdatedAt) conditions.push(sql`date_trunc('milliseconds', ${networks.updatedAt}) = ${patch.expectedUpdatedAt}::timestamptz`);
@@ -203,12 +203,12 @@ export async function updateNetwork(
 }
 
 export async function deleteNetwork(db: Database, networkId: string, userId: string): Promise<void> {
-  await requireNetworkRole(db, networkId, userId, "editor");
+  await requireNetworkRole(db, userId, networkId, "editor");
   await db.delete(networks).where(eq(networks.id, networkId));
 }
 
 export async function duplicateNetwork(db: Database, networkId: string, userId: string, title?: string): Promise<NetworkView> {
-  const { network } = await requireNetworkRole(db, networkId, userId, "editor");
+  const { network } = await requireNetworkRole(db, userId, networkId, "editor");
   return createNetwork(db, network.teamId, userId, {
     title: title ?? `${network.title} (copy)`,
     description: network.description,

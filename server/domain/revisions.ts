@@ -141,7 +141,7 @@ export async function revisionView(db: Database, network: Pick<NetworkRow, "id" 
 export type RevisionView = Awaited<ReturnType<typeof revisionView>>;
 
 export async function requireRevision(db: Database, networkId: string, number: number, userId: string, minimum: Role) {
-  const access = await requireNetworkRole(db, networkId, userId, minimum);
+  const access = await requireNetworkRole(db, userId, networkId, minimum);
   const [revision] = await db.select().from(revisions).where(and(eq(revisions.networkId, networkId), eq(revisions.number, number)));
   if (!revision) throw notFound("That revision");
   return { ...access, revision };
@@ -155,7 +155,7 @@ export async function getRevision(db: Database, networkId: string, number: numbe
 }
 
 export async function listRevisions(db: Database, networkId: string, userId: string) {
-  const { network } = await requireNetworkRole(db, networkId, userId, "viewer");
+  const { network } = await requireNetworkRole(db, userId, networkId, "viewer");
   const rows = await db
     .select({ revision: revisions, authorName: users.name })
     .from(revisions)

@@ -176,7 +176,7 @@ export function staleAfterMs(settings: SolveSettings): number {
 }
 
 export async function getSolveJob(db: Database, settings: SolveSettings, networkId: string, jobId: string, userId: string): Promise<SolveJobView> {
-  await requireNetworkRole(db, networkId, userId, "viewer");
+  await requireNetworkRole(db, userId, networkId, "viewer");
   const [row] = await db
     .select({ job: solveJobs, slug: networks.slug })
     .from(solveJobs)

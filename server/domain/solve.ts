@@ -85,7 +85,7 @@ async function revisionAnswer(db: Services["db"], network: Parameters<typeof rev
  */
 export async function solve(services: Services, networkId: string, userId: string, waitMs: number): Promise<SolveAnswer> {
   const { db, settings, solveQueue } = services;
-  const { network } = await requireNetworkRole(db, networkId, userId, "editor");
+  const { network } = await requireNetworkRole(db, userId, networkId, "editor");
   const parsed = await readNetwork(services, network.circuit);
   if (!parsed.network) throw illPosed(parsed.diagnostics);
   // The team's cells go into the circuit itself, so the cache key and the revision carry their definitions.

@@ -37,7 +37,7 @@ export async function createTeam(db: Database, userId: string, name: string) {
 }
 
 export async function teamDetail(db: Database, teamId: string, userId: string): Promise<TeamDetail> {
-  const role = await requireTeamRole(db, teamId, userId, "viewer");
+  const role = await requireTeamRole(db, userId, teamId, "viewer");
   const [team] = await db.select().from(teams).where(eq(teams.id, teamId));
   const members = await db
     .select({ userId: users.id, name: users.name, email: users.email, role: teamMembers.role })
@@ -58,7 +58,7 @@ export async function teamDetail(db: Database, teamId: string, userId: string): 
 
 // Owners rename the team and set how many approvals a revision needs.
 export async function updateTeam(db: Database, teamId: string, userId: string, changes: { name?: string; requiredApprovals?: number }): Promise<TeamDetail> {
-  await requireTeamRole(db, teamId, userId, "owner");
+  await requireTeamRole(db, userId, teamId, "owner");
   await db.update(teams).set(changes).where(eq(teams.id, teamId));
   return teamDetail(db, teamId, userId);
 }
@@ -78,7 +78,7 @@ function checkPersonalRole(holder: string | null, memberId: string | null, role:
 }
 
 export async function deleteTeam(db: Database, teamId: string, userId: string): Promise<void> {
-  await requireTeamRole(db, teamId, userId, "owner");
+  await requireTeamRole(db, userId, teamId, "owner");
   const [team] = await db.select({ personalUserId: teams.personalUserId }).from(teams).where(eq(teams.id, teamId));
   if (team.personalUserId) throw new Conflict("personal_team", "A personal team cannot be deleted.");
   await db.delete(teams).where(eq(teams.id, teamId));
@@ -102,7 +102,7 @@ async function changeMembership(
   await db.transaction(async (tx) => {
     const locked = await tx.select({ id: teams.id }).from(teams).where(eq(teams.id, teamId)).for("update");
     if (locked.length === 0) throw notFound("That team");
-    await requireTeamRole(tx, teamId, userId, minimum);
+    await requireTeamRole(tx, userId, teamId, minimum);
     const [member] = await tx.select({ role: teamMembers.role }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
     if (!member) throw notFound("That member");
     const [owners] = await tx.select({ n: count() }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.role, "owner")));
@@ -147,7 +147,7 @@ const ownerWarning = "An owner can change every member's role, remove anyone, in
 
 export async function inviteMember(services: Services, teamId: string, inviter: PublicUser, email: string, role: Role) {
   const { db } = services;
-  await requireTeamRole(db, teamId, inviter.id, "owner");
+  await requireTeamRole(db, inviter.id, teamId, "owner");
   // Mail to other people only from a confirmed address, so sign-ups cannot be used to send spam.
   if (!inviter.emailVerified) throw new Forbidden("email_unverified", "Confirm your own e-mail address before inviting others.");
   const [existing] = await db
@@ -168,7 +168,7 @@ export async function inviteMember(services: Services, teamId: string, inviter: 
 }
 
 export async function pendingInvitations(db: Database, teamId: string, userId: string) {
-  await requireTeamRole(db, teamId, userId, "owner");
+  await requireTeamRole(db, userId, teamId, "owner");
   const rows = await db
     .select()
     .from(invitations)
@@ -178,7 +178,7 @@ export async function pendingInvitations(db: Database, teamId: string, userId: s
 }
 
 export async function revokeInvitation(db: Database, teamId: string, userId: string, invitationId: string): Promise<void> {
-  await requireTeamRole(db, teamId, userId, "owner");
+  await requireTeamRole(db, userId, teamId, "owner");
   const deleted = await db
     .delete(invitations)
     .where(and(eq(invitations.id, invitationId), eq(invitations.teamId, teamId), isNull(invitations.acceptedAt)))

@@ -15,7 +15,7 @@ export function attachmentsRouter(services: Services): Router {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
     // Access first: a file is only read into memory for someone allowed to attach it.
-    await requireNetworkRole(db, networkId, user.id, "editor");
+    await requireNetworkRole(db, user.id, networkId, "editor");
     const { file } = await readUpload(req, res, services.settings.limits.attachmentBytes);
     res.status(201).json(await addAttachment(db, networkId, user.id, file));
   });

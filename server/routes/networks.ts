@@ -46,7 +46,7 @@ export function networksRouter(services: Services): Router {
     const user = signedInUser(res);
     const teamId = idParam(req.params.teamId, "That team");
     // Access first: a file is only read into memory for someone allowed to import it.
-    await requireTeamRole(db, teamId, user.id, "editor");
+    await requireTeamRole(db, user.id, teamId, "editor");
     const { file, fields } = await readUpload(req, res, services.settings.limits.importBytes);
     // A title given with the file obeys the same rule as any title; without one, the file name stands in.
     const { title: given } = parseBody(importFields, { title: fields.title || undefined });
