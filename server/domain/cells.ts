@@ -41,7 +41,7 @@ function isUniqueViolation(error: unknown): boolean {
   return e?.code === "23505" || e?.cause?.code === "23505";
 }
 
-export async function listCells(db: Database, teamId: string, userId: string): Promise<{ cells: CellView[] }> {
+export async function listCells(db: Database, userId: string, teamId: string): Promise<{ cells: CellView[] }> {
   await requireTeamRole(db, userId, teamId, "viewer");
   const rows = await db
     .select({ cell: teamCells, authorName: users.name })
@@ -52,7 +52,7 @@ export async function listCells(db: Database, teamId: string, userId: string): P
   return { cells: rows.map((r) => view(r.cell, r.authorName)) };
 }
 
-export async function createCell(services: Services, teamId: string, userId: string, input: unknown): Promise<CellView> {
+export async function createCell(services: Services, userId: string, teamId: string, input: unknown): Promise<CellView> {
   const { db } = services;
   await requireTeamRole(db, userId, teamId, "editor");
   const { definition, diagnostics } = await readCell(services, input);
@@ -69,7 +69,7 @@ export async function createCell(services: Services, teamId: string, userId: str
   }
 }
 
-export async function deleteCell(db: Database, teamId: string, userId: string, cellId: string): Promise<void> {
+export async function deleteCell(db: Database, userId: string, teamId: string, cellId: string): Promise<void> {
   await requireTeamRole(db, userId, teamId, "editor");
   const gone = await db.delete(teamCells).where(and(eq(teamCells.teamId, teamId), eq(teamCells.slug, cellId))).returning({ id: teamCells.id });
   if (gone.length === 0) throw notFound("That cell");
