@@ -72,7 +72,7 @@ export function resultChanges(before: Record<string, unknown>, after: Record<str
   });
 }
 
-export async function compareRevisions(db: Database, networkId: string, from: number, to: number, userId: string) {
+export async function compareRevisions(db: Database, userId: string, networkId: string, from: number, to: number) {
   const a = await requireRevision(db, networkId, from, userId, "viewer");
   const b = await requireRevision(db, networkId, to, userId, "viewer");
   return {

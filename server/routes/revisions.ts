@@ -52,7 +52,7 @@ export function revisionsRouter(services: Services): Router {
   router.get("/networks/:networkId/revisions/:from/compare/:to", async (req, res) => {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
-    res.json(await compareRevisions(db, networkId, revisionNumberParam(req.params.from), revisionNumberParam(req.params.to), user.id));
+    res.json(await compareRevisions(db, user.id, networkId, revisionNumberParam(req.params.from), revisionNumberParam(req.params.to)));
   });
 
   return router;
