@@ -91,7 +91,7 @@ export interface NetworkListQuery {
   pageSize: number;
 }
 
-export async function listNetworks(db: Database, teamId: string, userId: string, query: NetworkListQuery) {
+export async function listNetworks(db: Database, userId: string, teamId: string, query: NetworkListQuery) {
   await requireTeamRole(db, userId, teamId, "viewer");
   const conditions: SQL[] = [eq(networks.teamId, teamId)];
   if (query.q) {
@@ -149,8 +149,8 @@ export async function listNetworks(db: Database, teamId: string, userId: string,
 
 export async function createNetwork(
   db: Database,
-  teamId: string,
   userId: string,
+  teamId: string,
   input: { title: string; description?: string; circuit: Network; netlist?: string | null },
 ): Promise<NetworkView> {
   const role = await requireTeamRole(db, userId, teamId, "editor");
@@ -161,12 +161,12 @@ export async function createNetwork(
   return loadView(db, row, role);
 }
 
-export async function getNetwork(db: Database, networkId: string, userId: string): Promise<NetworkView> {
+export async function getNetwork(db: Database, userId: string, networkId: string): Promise<NetworkView> {
   const { network, role } = await requireNetworkRole(db, userId, networkId, "viewer");
   return loadView(db, network, role);
 }
 
-export async function networkIdForSlug(db: Database, slug: string, userId: string): Promise<string> {
+export async function networkIdForSlug(db: Database, userId: string, slug: string): Promise<string> {
   const [row] = await db
     .select({ id: networks.id })
     .from(networks)
@@ -178,8 +178,8 @@ export async function networkIdForSlug(db: Database, slug: string, userId: strin
 
 export async function updateNetwork(
   db: Database,
-  networkId: string,
   userId: string,
+  networkId: string,
   patch: { title?: string; description?: string; circuit?: Network; netlist?: string | null; expectedUpdatedAt?: string },
 ): Promise<NetworkView> {
   const { role } = await requireNetworkRole(db, userId, networkId, "editor");
@@ -202,14 +202,14 @@ export async function updateNetwork(
   return loadView(db, row, role);
 }
 
-export async function deleteNetwork(db: Database, networkId: string, userId: string): Promise<void> {
+export async function deleteNetwork(db: Database, userId: string, networkId: string): Promise<void> {
   await requireNetworkRole(db, userId, networkId, "editor");
   await db.delete(networks).where(eq(networks.id, networkId));
 }
 
-export async function duplicateNetwork(db: Database, networkId: string, userId: string, title?: string): Promise<NetworkView> {
+export async function duplicateNetwork(db: Database, userId: string, networkId: string, title?: string): Promise<NetworkView> {
   const { network } = await requireNetworkRole(db, userId, networkId, "editor");
-  return createNetwork(db, network.teamId, userId, {
+  return createNetwork(db, userId, network.teamId, {
     title: title ?? `${network.title} (copy)`,
     description: network.description,
     circuit: network.circuit as Network,
@@ -223,8 +223,8 @@ const importTypes = ["application/json", "text/plain"];
 // Import from a file: our JSON or our text netlist, as UTF-8 text; refused with the engine's diagnostics.
 export async function importNetwork(
   services: Services,
-  teamId: string,
   userId: string,
+  teamId: string,
   file: { originalname: string; mimetype: string; buffer: Buffer },
   title?: string,
 ) {
@@ -243,6 +243,6 @@ export async function importNetwork(
   if (text.includes("\u0000")) throw new UnsupportedType("unsupported_type", "The file is not UTF-8 text.", { fields: { file: "binary content" } });
   const { network, format } = await readNetworkFile(services, text);
   const base = withoutControls(dot > 0 ? filename.slice(0, dot) : filename).slice(0, networkTitleMax).trim();
-  const created = await createNetwork(services.db, teamId, userId, { title: title || base || "Imported network", circuit: network, netlist: format === "text" ? text : null });
+  const created = await createNetwork(services.db, userId, teamId, { title: title || base || "Imported network", circuit: network, netlist: format === "text" ? text : null });
   return { ...created, importedFrom: format };
 }
