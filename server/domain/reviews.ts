@@ -135,7 +135,7 @@ export async function addComment(
   const thread = parentId
     ? await db.select({ authorId: comments.authorId }).from(comments).where(and(eq(comments.revisionId, revision.id), or(eq(comments.id, parentId), eq(comments.parentId, parentId))))
     : [];
-  await mailPeople(services, [revision.createdBy, network.authorId, ...thread.map((c) => c.authorId)], actor.id, (to) =>
+  await mailPeople(services, actor.id, [revision.createdBy, network.authorId, ...thread.map((c) => c.authorId)], (to) =>
     commentMail(to, {
       commenter: actor.name,
       networkTitle: network.title,

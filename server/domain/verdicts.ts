@@ -167,7 +167,7 @@ const selfApproval = () =>
 async function mailVerdict(services: Services, context: Awaited<ReturnType<typeof requireRevision>>, actor: PublicUser, entry: VerdictEntry, state: RevisionState) {
   const { network, revision } = context;
   const action = entry.verdict === "open" ? "withdrew their verdict" : entry.verdict === "approved" ? "approved" : "requested changes on";
-  await mailPeople(services, [revision.createdBy, network.authorId], actor.id, (to) =>
+  await mailPeople(services, actor.id, [revision.createdBy, network.authorId], (to) =>
     verdictMail(to, {
       reviewer: actor.name,
       action,
