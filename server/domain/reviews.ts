@@ -70,7 +70,7 @@ async function threadsOf(db: Database, revisionId: string): Promise<CommentView[
   return [...threads.values()];
 }
 
-export async function listComments(db: Database, networkId: string, number: number, userId: string): Promise<CommentView[]> {
+export async function listComments(db: Database, userId: string, networkId: string, number: number): Promise<CommentView[]> {
   const { revision } = await requireRevision(db, networkId, number, userId, "viewer");
   return threadsOf(db, revision.id);
 }
@@ -105,9 +105,9 @@ function checkAnchor(anchor: NoteAnchor, step: { explanation: string; tex: strin
 
 export async function addComment(
   services: Services,
+  actor: PublicUser,
   networkId: string,
   number: number,
-  actor: PublicUser,
   input: { stepId: string; body: string; parentId?: string; anchor?: NoteAnchor },
 ): Promise<CommentView> {
   const { db } = services;
@@ -155,7 +155,7 @@ async function ownComment(db: Database, revisionId: string, commentId: string) {
   return row;
 }
 
-export async function editComment(db: Database, networkId: string, number: number, commentId: string, actor: PublicUser, body: string) {
+export async function editComment(db: Database, actor: PublicUser, networkId: string, number: number, commentId: string, body: string) {
   const { revision } = await requireRevision(db, networkId, number, actor.id, "reviewer");
   const row = await ownComment(db, revision.id, commentId);
   if (row.authorId !== actor.id) throw forbidden("Only the author of a comment can edit it.");
@@ -164,7 +164,7 @@ export async function editComment(db: Database, networkId: string, number: numbe
 }
 
 // Authors delete their own comments; team owners may remove any.
-export async function deleteComment(db: Database, networkId: string, number: number, commentId: string, actor: PublicUser): Promise<void> {
+export async function deleteComment(db: Database, actor: PublicUser, networkId: string, number: number, commentId: string): Promise<void> {
   const { revision, role } = await requireRevision(db, networkId, number, actor.id, "reviewer");
   const row = await ownComment(db, revision.id, commentId);
   if (row.authorId !== actor.id && role !== "owner") throw forbidden("Only the author of a comment or a team owner can delete it.");
@@ -172,7 +172,7 @@ export async function deleteComment(db: Database, networkId: string, number: num
 }
 
 // A thread is resolved or reopened by its first note's author, the revision's author, or a team owner.
-export async function setThreadResolved(db: Database, networkId: string, number: number, commentId: string, actor: PublicUser, resolved: boolean): Promise<CommentView> {
+export async function setThreadResolved(db: Database, actor: PublicUser, networkId: string, number: number, commentId: string, resolved: boolean): Promise<CommentView> {
   const { revision, role } = await requireRevision(db, networkId, number, actor.id, "viewer");
   const [row] = await db.select().from(comments).where(and(eq(comments.id, commentId), eq(comments.revisionId, revision.id)));
   if (!row) throw notFound("That comment");
