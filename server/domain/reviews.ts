@@ -71,7 +71,7 @@ async function threadsOf(db: Database, revisionId: string): Promise<CommentView[
 }
 
 export async function listComments(db: Database, userId: string, networkId: string, number: number): Promise<CommentView[]> {
-  const { revision } = await requireRevision(db, networkId, number, userId, "viewer");
+  const { revision } = await requireRevision(db, userId, networkId, number, "viewer");
   return threadsOf(db, revision.id);
 }
 
@@ -111,7 +111,7 @@ export async function addComment(
   input: { stepId: string; body: string; parentId?: string; anchor?: NoteAnchor },
 ): Promise<CommentView> {
   const { db } = services;
-  const { network, revision } = await requireRevision(db, networkId, number, actor.id, "reviewer");
+  const { network, revision } = await requireRevision(db, actor.id, networkId, number, "reviewer");
   const [step] = await db
     .select({ title: revisionSteps.title, explanation: revisionSteps.explanation, tex: revisionSteps.tex })
     .from(revisionSteps)
@@ -156,7 +156,7 @@ async function ownComment(db: Database, revisionId: string, commentId: string) {
 }
 
 export async function editComment(db: Database, actor: PublicUser, networkId: string, number: number, commentId: string, body: string) {
-  const { revision } = await requireRevision(db, networkId, number, actor.id, "reviewer");
+  const { revision } = await requireRevision(db, actor.id, networkId, number, "reviewer");
   const row = await ownComment(db, revision.id, commentId);
   if (row.authorId !== actor.id) throw forbidden("Only the author of a comment can edit it.");
   const [updated] = await db.update(comments).set({ body, updatedAt: new Date() }).where(eq(comments.id, commentId)).returning();
@@ -165,7 +165,7 @@ export async function editComment(db: Database, actor: PublicUser, networkId: st
 
 // Authors delete their own comments; team owners may remove any.
 export async function deleteComment(db: Database, actor: PublicUser, networkId: string, number: number, commentId: string): Promise<void> {
-  const { revision, role } = await requireRevision(db, networkId, number, actor.id, "reviewer");
+  const { revision, role } = await requireRevision(db, actor.id, networkId, number, "reviewer");
   const row = await ownComment(db, revision.id, commentId);
   if (row.authorId !== actor.id && role !== "owner") throw forbidden("Only the author of a comment or a team owner can delete it.");
   await db.update(comments).set({ deletedAt: new Date(), body: "" }).where(eq(comments.id, commentId));
@@ -173,7 +173,7 @@ export async function deleteComment(db: Database, actor: PublicUser, networkId: 
 
 // A thread is resolved or reopened by its first note's author, the revision's author, or a team owner.
 export async function setThreadResolved(db: Database, actor: PublicUser, networkId: string, number: number, commentId: string, resolved: boolean): Promise<CommentView> {
-  const { revision, role } = await requireRevision(db, networkId, number, actor.id, "viewer");
+  const { revision, role } = await requireRevision(db, actor.id, networkId, number, "viewer");
   const [row] = await db.select().from(comments).where(and(eq(comments.id, commentId), eq(comments.revisionId, revision.id)));
   if (!row) throw notFound("That comment");
   if (row.parentId !== null) throw new Invalid("not_a_thread", "Resolve the thread through its first note, not a reply.");

@@ -18,7 +18,7 @@ function status(row: Pick<ShareRow, "revokedAt" | "expiresAt">): "active" | "rev
 }
 
 export async function createShare(services: Services, networkId: string, number: number, userId: string, expiresAt: Date | null) {
-  const { revision } = await requireRevision(services.db, networkId, number, userId, "editor");
+  const { revision } = await requireRevision(services.db, userId, networkId, number, "editor");
   if (expiresAt && expiresAt.getTime() <= Date.now()) {
     throw new Invalid("invalid_body", "The expiry must be in the future.", { fields: { expiresAt: "must be in the future" } });
   }
@@ -36,7 +36,7 @@ export async function createShare(services: Services, networkId: string, number:
 
 // Every link of a revision with its state, so the team sees who outside it can read what.
 export async function listShares(db: Database, networkId: string, userId: string, number: number) {
-  await requireRevision(db, networkId, number, userId, "viewer");
+  await requireRevision(db, userId, networkId, number, "viewer");
   const rows = await db
     .select({ share: shareLinks, revision: revisions.number, creatorName: users.name })
     .from(shareLinks)
@@ -74,7 +74,7 @@ export async function revokeShareByToken(db: Database, token: string, userId: st
 }
 
 export async function revokeShare(db: Database, networkId: string, number: number, shareId: string, userId: string): Promise<void> {
-  const { revision } = await requireRevision(db, networkId, number, userId, "editor");
+  const { revision } = await requireRevision(db, userId, networkId, number, "editor");
   const [row] = await db
     .select({ id: shareLinks.id })
     .from(shareLinks)

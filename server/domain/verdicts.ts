@@ -155,7 +155,7 @@ export async function approvedBefore(db: Database, networkId: string, teamId: st
 }
 
 export async function listVerdicts(db: Database, networkId: string, number: number, userId: string) {
-  const { network, revision } = await requireRevision(db, networkId, number, userId, "viewer");
+  const { network, revision } = await requireRevision(db, userId, networkId, number, "viewer");
   const [history, required] = await Promise.all([historyRows(db, [revision.id]).then((m) => m.get(revision.id)!), requiredApprovalsOf(db, network.teamId)]);
   return { verdicts: history.map((row) => entryView(row, revision.number, history)), state: deriveState(history, required, revision.createdBy) };
 }
@@ -182,7 +182,7 @@ async function mailVerdict(services: Services, context: Awaited<ReturnType<typeo
 
 export async function giveVerdict(services: Services, networkId: string, number: number, actor: PublicUser, input: { verdict: "approved" | "needs_changes"; note?: string }) {
   const { db } = services;
-  const context = await requireRevision(db, networkId, number, actor.id, "reviewer");
+  const context = await requireRevision(db, actor.id, networkId, number, "reviewer");
   const { revision, role } = context;
   if (input.verdict === "approved" && revision.createdBy === actor.id) throw selfApproval();
   const note = input.note?.trim() || null;
@@ -197,7 +197,7 @@ export async function giveVerdict(services: Services, networkId: string, number:
 // Only the giver takes a verdict back, and only while it stands (not already withdrawn or replaced).
 export async function withdrawVerdict(services: Services, networkId: string, number: number, actor: PublicUser, verdictId: string | null) {
   const { db } = services;
-  const context = await requireRevision(db, networkId, number, actor.id, "reviewer");
+  const context = await requireRevision(db, actor.id, networkId, number, "reviewer");
   const history = (await historyRows(db, [context.revision.id])).get(context.revision.id)!;
   const mine = standing(history).find((row) => row.userId === actor.id) ?? null;
   if (verdictId !== null) {

@@ -39,13 +39,13 @@ export function revisionsRouter(services: Services): Router {
 
   router.get("/networks/:networkId/revisions", async (req, res) => {
     const user = signedInUser(res);
-    res.json({ revisions: await listRevisions(db, idParam(req.params.networkId, "That network"), user.id) });
+    res.json({ revisions: await listRevisions(db, user.id, idParam(req.params.networkId, "That network")) });
   });
 
   router.get("/networks/:networkId/revisions/:number", async (req, res) => {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
-    const revision = await getRevision(db, networkId, revisionNumberParam(req.params.number), user.id);
+    const revision = await getRevision(db, user.id, networkId, revisionNumberParam(req.params.number));
     await sendRevisionJson(res, revision, revision.steps);
   });
 
