@@ -83,7 +83,7 @@ async function revisionAnswer(db: Services["db"], network: Parameters<typeof rev
  * team and queue), sent to the solve queue, and the request waits up to `waitMs` for a worker to
  * finish it before answering with the job to poll.
  */
-export async function solve(services: Services, networkId: string, userId: string, waitMs: number): Promise<SolveAnswer> {
+export async function solve(services: Services, userId: string, networkId: string, waitMs: number): Promise<SolveAnswer> {
   const { db, settings, solveQueue } = services;
   const { network } = await requireNetworkRole(db, userId, networkId, "editor");
   const parsed = await readNetwork(services, network.circuit);

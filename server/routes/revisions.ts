@@ -19,7 +19,7 @@ export function revisionsRouter(services: Services): Router {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
     const { wait } = parseQuery(solveQuery, req.query);
-    const answer = await solve(services, networkId, user.id, Math.min(wait ?? services.settings.solve.waitMs, services.settings.solve.waitMs));
+    const answer = await solve(services, user.id, networkId, Math.min(wait ?? services.settings.solve.waitMs, services.settings.solve.waitMs));
     if (answer.kind === "failed") throw recordedFailure(answer.error);
     if (answer.kind === "job") {
       res.status(202).location(answer.job.poll).json({ job: answer.job });
@@ -34,7 +34,7 @@ export function revisionsRouter(services: Services): Router {
     const networkId = idParam(req.params.networkId, "That network");
     const jobId = idParam(req.params.jobId, "That solve job");
     res.set("Cache-Control", "no-store");
-    res.json(await getSolveJob(db, services.settings.solve, networkId, jobId, user.id));
+    res.json(await getSolveJob(db, services.settings.solve, user.id, networkId, jobId));
   });
 
   router.get("/networks/:networkId/revisions", async (req, res) => {
