@@ -58,20 +58,20 @@ export function reviewsRouter(services: Services): Router {
   router.get(`${path}/verdicts`, async (req, res) => {
     const user = signedInUser(res);
     const [networkId, number] = target(req.params);
-    res.json(await listVerdicts(db, networkId, number, user.id));
+    res.json(await listVerdicts(db, user.id, networkId, number));
   });
 
   router.post(`${path}/verdicts`, async (req, res) => {
     const user = signedInUser(res);
     const [networkId, number] = target(req.params);
     const input = parseBody(verdictBody, req.body);
-    res.status(201).json(await giveVerdict(services, networkId, number, user, input));
+    res.status(201).json(await giveVerdict(services, user, networkId, number, input));
   });
 
   router.post(`${path}/verdicts/:verdictId/withdraw`, async (req, res) => {
     const user = signedInUser(res);
     const [networkId, number] = target(req.params);
-    const withdrawn = await withdrawVerdict(services, networkId, number, user, idParam(req.params.verdictId, "That verdict"));
+    const withdrawn = await withdrawVerdict(services, user, networkId, number, idParam(req.params.verdictId, "That verdict"));
     res.status(201).json(withdrawn);
   });
 
@@ -80,11 +80,11 @@ export function reviewsRouter(services: Services): Router {
     const [networkId, number] = target(req.params);
     const input = parseBody(legacyVerdictBody, req.body);
     if (input.verdict === "open") {
-      await withdrawVerdict(services, networkId, number, user, null);
-      res.json((await listVerdicts(db, networkId, number, user.id)).state);
+      await withdrawVerdict(services, user, networkId, number, null);
+      res.json((await listVerdicts(db, user.id, networkId, number)).state);
       return;
     }
-    res.json((await giveVerdict(services, networkId, number, user, { verdict: input.verdict, note: input.note })).state);
+    res.json((await giveVerdict(services, user, networkId, number, { verdict: input.verdict, note: input.note })).state);
   });
 
   router.get("/reviews/awaiting", async (req, res) => {
