@@ -24,7 +24,7 @@ async function ensureUser(db: Database, person: { id: string; email: string; nam
 
 async function firstRevision(db: Database, networkId: string, circuit: Network) {
   const [existing] = await db.select().from(revisions).where(and(eq(revisions.networkId, networkId), eq(revisions.number, 1)));
-  return existing ?? storeRevision(db, networkId, demoUser.id, derive(circuit));
+  return existing ?? storeRevision(db, demoUser.id, networkId, derive(circuit));
 }
 
 async function seed(db: Database) {

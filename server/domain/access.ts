@@ -7,7 +7,7 @@ import type { Transaction } from "./services.js";
 
 import { roleAtLeast } from "../../shared/api/common.js";
 
-async function memberRole(db: Database | Transaction, teamId: string, userId: string): Promise<Role | null> {
+async function memberRole(db: Database | Transaction, userId: string, teamId: string): Promise<Role | null> {
   const [row] = await db
     .select({ role: teamMembers.role })
     .from(teamMembers)
@@ -16,8 +16,8 @@ async function memberRole(db: Database | Transaction, teamId: string, userId: st
 }
 
 // Not a member: 404, so a team's existence never shows outside it. Member with too low a role: 403.
-export async function requireTeamRole(db: Database | Transaction, teamId: string, userId: string, minimum: Role): Promise<Role> {
-  const role = await memberRole(db, teamId, userId);
+export async function requireTeamRole(db: Database | Transaction, userId: string, teamId: string, minimum: Role): Promise<Role> {
+  const role = await memberRole(db, userId, teamId);
   if (!role) throw notFound("That team");
   if (!roleAtLeast(role, minimum)) throw forbidden();
   return role;
@@ -27,8 +27,8 @@ export type NetworkRow = typeof networks.$inferSelect;
 
 export async function requireNetworkRole(
   db: Database | Transaction,
-  networkId: string,
   userId: string,
+  networkId: string,
   minimum: Role,
 ): Promise<{ network: NetworkRow; role: Role }> {
   const [row] = await db

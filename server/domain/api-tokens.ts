@@ -49,7 +49,7 @@ export async function listApiTokens(db: Database, userId: string): Promise<ApiTo
 
 export async function createApiToken(db: Database, userId: string, input: CreateTokenRequest): Promise<CreatedToken> {
   // A token for one team needs membership of it; the role stays the person's, checked on every use.
-  if (input.teamId !== null) await requireTeamRole(db, input.teamId, userId, "viewer");
+  if (input.teamId !== null) await requireTeamRole(db, userId, input.teamId, "viewer");
   const team = await tokenTeam(db, input.teamId);
   const secret = tokenPrefix + randomBytes(32).toString("base64url");
   const [row] = await db

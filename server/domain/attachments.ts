@@ -49,11 +49,11 @@ function view(row: Omit<AttachmentRow, "content">, uploaderName: string | null) 
 
 export async function addAttachment(
   db: Database,
-  networkId: string,
   userId: string,
+  networkId: string,
   file: { originalname: string; mimetype: string; buffer: Buffer },
 ) {
-  await requireNetworkRole(db, networkId, userId, "editor");
+  await requireNetworkRole(db, userId, networkId, "editor");
   const contentType = sniffContentType(file.buffer);
   if (!contentType) {
     throw new UnsupportedType("unsupported_type", "Attachments are PDF, PNG or JPEG files.", { fields: { file: "not a PDF, PNG or JPEG file" } });
@@ -70,8 +70,8 @@ export async function addAttachment(
   return view(row, uploader?.name ?? null);
 }
 
-export async function listAttachments(db: Database, networkId: string, userId: string) {
-  await requireNetworkRole(db, networkId, userId, "viewer");
+export async function listAttachments(db: Database, userId: string, networkId: string) {
+  await requireNetworkRole(db, userId, networkId, "viewer");
   const rows = await db
     .select({
       id: attachments.id,
@@ -90,15 +90,15 @@ export async function listAttachments(db: Database, networkId: string, userId: s
   return rows.map((row) => view(row, row.uploaderName));
 }
 
-export async function attachmentContent(db: Database, networkId: string, attachmentId: string, userId: string) {
-  await requireNetworkRole(db, networkId, userId, "viewer");
+export async function attachmentContent(db: Database, userId: string, networkId: string, attachmentId: string) {
+  await requireNetworkRole(db, userId, networkId, "viewer");
   const [row] = await db.select().from(attachments).where(and(eq(attachments.id, attachmentId), eq(attachments.networkId, networkId)));
   if (!row) throw notFound("That attachment");
   return { filename: row.filename, contentType: row.contentType, content: row.content };
 }
 
-export async function deleteAttachment(db: Database, networkId: string, attachmentId: string, userId: string): Promise<void> {
-  await requireNetworkRole(db, networkId, userId, "editor");
+export async function deleteAttachment(db: Database, userId: string, networkId: string, attachmentId: string): Promise<void> {
+  await requireNetworkRole(db, userId, networkId, "editor");
   const deleted = await db
     .delete(attachments)
     .where(and(eq(attachments.id, attachmentId), eq(attachments.networkId, networkId)))

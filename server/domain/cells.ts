@@ -41,8 +41,8 @@ function isUniqueViolation(error: unknown): boolean {
   return e?.code === "23505" || e?.cause?.code === "23505";
 }
 
-export async function listCells(db: Database, teamId: string, userId: string): Promise<{ cells: CellView[] }> {
-  await requireTeamRole(db, teamId, userId, "viewer");
+export async function listCells(db: Database, userId: string, teamId: string): Promise<{ cells: CellView[] }> {
+  await requireTeamRole(db, userId, teamId, "viewer");
   const rows = await db
     .select({ cell: teamCells, authorName: users.name })
     .from(teamCells)
@@ -52,9 +52,9 @@ export async function listCells(db: Database, teamId: string, userId: string): P
   return { cells: rows.map((r) => view(r.cell, r.authorName)) };
 }
 
-export async function createCell(services: Services, teamId: string, userId: string, input: unknown): Promise<CellView> {
+export async function createCell(services: Services, userId: string, teamId: string, input: unknown): Promise<CellView> {
   const { db } = services;
-  await requireTeamRole(db, teamId, userId, "editor");
+  await requireTeamRole(db, userId, teamId, "editor");
   const { definition, diagnostics } = await readCell(services, input);
   if (!definition) throw new Invalid("invalid_cell", "The cell definition is not valid; see the diagnostics.", { fields: { definition: diagnostics[0]?.message ?? "invalid" }, diagnostics });
   // A team cell named like a built-in one would silently replace it in every network of the team.
@@ -69,8 +69,8 @@ export async function createCell(services: Services, teamId: string, userId: str
   }
 }
 
-export async function deleteCell(db: Database, teamId: string, userId: string, cellId: string): Promise<void> {
-  await requireTeamRole(db, teamId, userId, "editor");
+export async function deleteCell(db: Database, userId: string, teamId: string, cellId: string): Promise<void> {
+  await requireTeamRole(db, userId, teamId, "editor");
   const gone = await db.delete(teamCells).where(and(eq(teamCells.teamId, teamId), eq(teamCells.slug, cellId))).returning({ id: teamCells.id });
   if (gone.length === 0) throw notFound("That cell");
 }

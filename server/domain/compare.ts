@@ -72,9 +72,9 @@ function resultChanges(before: Record<string, unknown>, after: Record<string, un
   });
 }
 
-export async function compareRevisions(db: Database, networkId: string, from: number, to: number, userId: string) {
-  const a = await requireRevision(db, networkId, from, userId, "viewer");
-  const b = await requireRevision(db, networkId, to, userId, "viewer");
+export async function compareRevisions(db: Database, userId: string, networkId: string, from: number, to: number) {
+  const a = await requireRevision(db, userId, networkId, from, "viewer");
+  const b = await requireRevision(db, userId, networkId, to, "viewer");
   return {
     from: { number: a.revision.number, createdAt: a.revision.createdAt.toISOString() },
     to: { number: b.revision.number, createdAt: b.revision.createdAt.toISOString() },

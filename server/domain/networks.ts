@@ -91,8 +91,8 @@ export interface NetworkListQuery {
   pageSize: number;
 }
 
-export async function listNetworks(db: Database, teamId: string, userId: string, query: NetworkListQuery) {
-  await requireTeamRole(db, teamId, userId, "viewer");
+export async function listNetworks(db: Database, userId: string, teamId: string, query: NetworkListQuery) {
+  await requireTeamRole(db, userId, teamId, "viewer");
   const conditions: SQL[] = [eq(networks.teamId, teamId)];
   if (query.q) {
     const pattern = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
@@ -149,11 +149,11 @@ export async function listNetworks(db: Database, teamId: string, userId: string,
 
 export async function createNetwork(
   db: Database,
-  teamId: string,
   userId: string,
+  teamId: string,
   input: { title: string; description?: string; circuit: Network; netlist?: string | null },
 ): Promise<NetworkView> {
-  const role = await requireTeamRole(db, teamId, userId, "editor");
+  const role = await requireTeamRole(db, userId, teamId, "editor");
   const [row] = await db
     .insert(networks)
     .values({ teamId, slug: slugFor(input.title), title: input.title, description: input.description ?? "", circuit: input.circuit, netlist: input.netlist ?? null, authorId: userId })
@@ -161,12 +161,12 @@ export async function createNetwork(
   return loadView(db, row, role);
 }
 
-export async function getNetwork(db: Database, networkId: string, userId: string): Promise<NetworkView> {
-  const { network, role } = await requireNetworkRole(db, networkId, userId, "viewer");
+export async function getNetwork(db: Database, userId: string, networkId: string): Promise<NetworkView> {
+  const { network, role } = await requireNetworkRole(db, userId, networkId, "viewer");
   return loadView(db, network, role);
 }
 
-export async function networkIdForSlug(db: Database, slug: string, userId: string): Promise<string> {
+export async function networkIdForSlug(db: Database, userId: string, slug: string): Promise<string> {
   const [row] = await db
     .select({ id: networks.id })
     .from(networks)
@@ -178,11 +178,11 @@ export async function networkIdForSlug(db: Database, slug: string, userId: strin
 
 export async function updateNetwork(
   db: Database,
-  networkId: string,
   userId: string,
+  networkId: string,
   patch: { title?: string; description?: string; circuit?: Network; netlist?: string | null; expectedUpdatedAt?: string },
 ): Promise<NetworkView> {
-  const { role } = await requireNetworkRole(db, networkId, userId, "editor");
+  const { role } = await requireNetworkRole(db, userId, networkId, "editor");
   const conditions: SQL[] = [eq(networks.id, networkId)];
   // Optimistic concurrency: an edit made from a stale copy is refused rather than silently lost.
   if (patch.expectedUpdatedAt) conditions.push(sql`date_trunc('milliseconds', ${networks.updatedAt}) = ${patch.expectedUpdatedAt}::timestamptz`);
@@ -202,14 +202,14 @@ export async function updateNetwork(
   return loadView(db, row, role);
 }
 
-export async function deleteNetwork(db: Database, networkId: string, userId: string): Promise<void> {
-  await requireNetworkRole(db, networkId, userId, "editor");
+export async function deleteNetwork(db: Database, userId: string, networkId: string): Promise<void> {
+  await requireNetworkRole(db, userId, networkId, "editor");
   await db.delete(networks).where(eq(networks.id, networkId));
 }
 
-export async function duplicateNetwork(db: Database, networkId: string, userId: string, title?: string): Promise<NetworkView> {
-  const { network } = await requireNetworkRole(db, networkId, userId, "editor");
-  return createNetwork(db, network.teamId, userId, {
+export async function duplicateNetwork(db: Database, userId: string, networkId: string, title?: string): Promise<NetworkView> {
+  const { network } = await requireNetworkRole(db, userId, networkId, "editor");
+  return createNetwork(db, userId, network.teamId, {
     title: title ?? `${network.title} (copy)`,
     description: network.description,
     circuit: network.circuit as Network,
@@ -223,8 +223,8 @@ const importTypes = ["application/json", "text/plain"];
 // Import from a file: our JSON or our text netlist, as UTF-8 text; refused with the engine's diagnostics.
 export async function importNetwork(
   services: Services,
-  teamId: string,
   userId: string,
+  teamId: string,
   file: { originalname: string; mimetype: string; buffer: Buffer },
   title?: string,
 ) {
@@ -243,6 +243,6 @@ export async function importNetwork(
   if (text.includes("\u0000")) throw new UnsupportedType("unsupported_type", "The file is not UTF-8 text.", { fields: { file: "binary content" } });
   const { network, format } = await readNetworkFile(services, text);
   const base = withoutControls(dot > 0 ? filename.slice(0, dot) : filename).slice(0, networkTitleMax).trim();
-  const created = await createNetwork(services.db, teamId, userId, { title: title || base || "Imported network", circuit: network, netlist: format === "text" ? text : null });
+  const created = await createNetwork(services.db, userId, teamId, { title: title || base || "Imported network", circuit: network, netlist: format === "text" ? text : null });
   return { ...created, importedFrom: format };
 }

@@ -5,13 +5,13 @@ import type { OutgoingMail } from "../mail/mailer.js";
 import type { Services } from "./services.js";
 
 /** Addresses of these people that take review mail, the actor left out, each once. */
-async function reviewMailRecipients(services: Services, userIds: (string | null)[], actorId: string): Promise<string[]> {
+async function reviewMailRecipients(services: Services, actorId: string, userIds: (string | null)[]): Promise<string[]> {
   const ids = [...new Set(userIds.filter((id): id is string => id !== null && id !== actorId))];
   if (ids.length === 0) return [];
   const rows = await services.db.select({ email: users.email }).from(users).where(and(inArray(users.id, ids), eq(users.reviewMail, true)));
   return rows.map((row) => row.email).sort();
 }
 
-export async function mailPeople(services: Services, userIds: (string | null)[], actorId: string, mail: (to: string) => OutgoingMail): Promise<void> {
-  for (const to of await reviewMailRecipients(services, userIds, actorId)) await services.mailer.send(mail(to));
+export async function mailPeople(services: Services, actorId: string, userIds: (string | null)[], mail: (to: string) => OutgoingMail): Promise<void> {
+  for (const to of await reviewMailRecipients(services, actorId, userIds)) await services.mailer.send(mail(to));
 }

@@ -70,8 +70,8 @@ async function threadsOf(db: Database, revisionId: string): Promise<CommentView[
   return [...threads.values()];
 }
 
-export async function listComments(db: Database, networkId: string, number: number, userId: string): Promise<CommentView[]> {
-  const { revision } = await requireRevision(db, networkId, number, userId, "viewer");
+export async function listComments(db: Database, userId: string, networkId: string, number: number): Promise<CommentView[]> {
+  const { revision } = await requireRevision(db, userId, networkId, number, "viewer");
   return threadsOf(db, revision.id);
 }
 
@@ -100,13 +100,13 @@ function checkAnchor(anchor: NoteAnchor, step: { explanation: string; tex: strin
 
 export async function addComment(
   services: Services,
+  actor: PublicUser,
   networkId: string,
   number: number,
-  actor: PublicUser,
   input: { stepId: string; body: string; parentId?: string; anchor?: NoteAnchor },
 ): Promise<CommentView> {
   const { db } = services;
-  const { network, revision } = await requireRevision(db, networkId, number, actor.id, "reviewer");
+  const { network, revision } = await requireRevision(db, actor.id, networkId, number, "reviewer");
   const [step] = await db
     .select({ title: revisionSteps.title, explanation: revisionSteps.explanation, tex: revisionSteps.tex })
     .from(revisionSteps)
@@ -130,7 +130,7 @@ export async function addComment(
   const thread = parentId
     ? await db.select({ authorId: comments.authorId }).from(comments).where(and(eq(comments.revisionId, revision.id), or(eq(comments.id, parentId), eq(comments.parentId, parentId))))
     : [];
-  await mailPeople(services, [revision.createdBy, network.authorId, ...thread.map((c) => c.authorId)], actor.id, (to) =>
+  await mailPeople(services, actor.id, [revision.createdBy, network.authorId, ...thread.map((c) => c.authorId)], (to) =>
     commentMail(to, {
       commenter: actor.name,
       networkTitle: network.title,
@@ -150,8 +150,8 @@ async function ownComment(db: Database, revisionId: string, commentId: string) {
   return row;
 }
 
-export async function editComment(db: Database, networkId: string, number: number, commentId: string, actor: PublicUser, body: string) {
-  const { revision } = await requireRevision(db, networkId, number, actor.id, "reviewer");
+export async function editComment(db: Database, actor: PublicUser, networkId: string, number: number, commentId: string, body: string) {
+  const { revision } = await requireRevision(db, actor.id, networkId, number, "reviewer");
   const row = await ownComment(db, revision.id, commentId);
   if (row.authorId !== actor.id) throw forbidden("Only the author of a comment can edit it.");
   const [updated] = await db.update(comments).set({ body, updatedAt: new Date() }).where(eq(comments.id, commentId)).returning();
@@ -159,16 +159,16 @@ export async function editComment(db: Database, networkId: string, number: numbe
 }
 
 // Authors delete their own comments; team owners may remove any.
-export async function deleteComment(db: Database, networkId: string, number: number, commentId: string, actor: PublicUser): Promise<void> {
-  const { revision, role } = await requireRevision(db, networkId, number, actor.id, "reviewer");
+export async function deleteComment(db: Database, actor: PublicUser, networkId: string, number: number, commentId: string): Promise<void> {
+  const { revision, role } = await requireRevision(db, actor.id, networkId, number, "reviewer");
   const row = await ownComment(db, revision.id, commentId);
   if (row.authorId !== actor.id && role !== "owner") throw forbidden("Only the author of a comment or a team owner can delete it.");
   await db.update(comments).set({ deletedAt: new Date(), body: "" }).where(eq(comments.id, commentId));
 }
 
 // A thread is resolved or reopened by its first note's author, the revision's author, or a team owner.
-export async function setThreadResolved(db: Database, networkId: string, number: number, commentId: string, actor: PublicUser, resolved: boolean): Promise<CommentView> {
-  const { revision, role } = await requireRevision(db, networkId, number, actor.id, "viewer");
+export async function setThreadResolved(db: Database, actor: PublicUser, networkId: string, number: number, commentId: string, resolved: boolean): Promise<CommentView> {
+  const { revision, role } = await requireRevision(db, actor.id, networkId, number, "viewer");
   const [row] = await db.select().from(comments).where(and(eq(comments.id, commentId), eq(comments.revisionId, revision.id)));
   if (!row) throw notFound("That comment");
   if (row.parentId !== null) throw new Invalid("not_a_thread", "Resolve the thread through its first note, not a reply.");

@@ -23,7 +23,7 @@ export function permalink(slug: string, number: number): string {
 const stepsPerInsert = 500;
 
 // All or nothing: the revision row and every step commit together or not at all.
-export async function storeRevision(db: Database, networkId: string, userId: string, input: RevisionInput): Promise<RevisionRow> {
+export async function storeRevision(db: Database, userId: string, networkId: string, input: RevisionInput): Promise<RevisionRow> {
   return db.transaction(async (tx) => {
     // Locking the network row serializes concurrent solves, so numbers never collide.
     await tx.select({ id: networks.id }).from(networks).where(eq(networks.id, networkId)).for("update");
@@ -137,22 +137,22 @@ export async function revisionView(db: Database, network: Pick<NetworkRow, "id" 
 
 export type RevisionView = Awaited<ReturnType<typeof revisionView>>;
 
-export async function requireRevision(db: Database, networkId: string, number: number, userId: string, minimum: Role) {
-  const access = await requireNetworkRole(db, networkId, userId, minimum);
+export async function requireRevision(db: Database, userId: string, networkId: string, number: number, minimum: Role) {
+  const access = await requireNetworkRole(db, userId, networkId, minimum);
   const [revision] = await db.select().from(revisions).where(and(eq(revisions.networkId, networkId), eq(revisions.number, number)));
   if (!revision) throw notFound("That revision");
   return { ...access, revision };
 }
 
 // For members: the revision with its count of open note threads (the shared view carries no notes).
-export async function getRevision(db: Database, networkId: string, number: number, userId: string) {
-  const { network, revision } = await requireRevision(db, networkId, number, userId, "viewer");
+export async function getRevision(db: Database, userId: string, networkId: string, number: number) {
+  const { network, revision } = await requireRevision(db, userId, networkId, number, "viewer");
   const [view, notes] = await Promise.all([revisionView(db, network, revision), openNoteCounts(db, [revision.id])]);
   return { ...view, openNotes: notes.get(revision.id)! };
 }
 
-export async function listRevisions(db: Database, networkId: string, userId: string) {
-  const { network } = await requireNetworkRole(db, networkId, userId, "viewer");
+export async function listRevisions(db: Database, userId: string, networkId: string) {
+  const { network } = await requireNetworkRole(db, userId, networkId, "viewer");
   const rows = await db
     .select({ revision: revisions, authorName: users.name })
     .from(revisions)

@@ -17,8 +17,8 @@ function status(row: Pick<ShareRow, "revokedAt" | "expiresAt">): "active" | "rev
   return "active";
 }
 
-export async function createShare(services: Services, networkId: string, number: number, userId: string, expiresAt: Date | null) {
-  const { revision } = await requireRevision(services.db, networkId, number, userId, "editor");
+export async function createShare(services: Services, userId: string, networkId: string, number: number, expiresAt: Date | null) {
+  const { revision } = await requireRevision(services.db, userId, networkId, number, "editor");
   if (expiresAt && expiresAt.getTime() <= Date.now()) {
     throw new Invalid("invalid_body", "The expiry must be in the future.", { fields: { expiresAt: "must be in the future" } });
   }
@@ -35,8 +35,8 @@ export async function createShare(services: Services, networkId: string, number:
 }
 
 // Every link of a revision with its state, so the team sees who outside it can read what.
-export async function listShares(db: Database, networkId: string, userId: string, number: number) {
-  await requireRevision(db, networkId, number, userId, "viewer");
+export async function listShares(db: Database, userId: string, networkId: string, number: number) {
+  await requireRevision(db, userId, networkId, number, "viewer");
   const rows = await db
     .select({ share: shareLinks, revision: revisions.number, creatorName: users.name })
     .from(shareLinks)
@@ -60,7 +60,7 @@ async function revoke(db: Database, shareId: string): Promise<void> {
 }
 
 // Revoking by token: for whoever holds the link and edits in its team; others learn nothing.
-export async function revokeShareByToken(db: Database, token: string, userId: string): Promise<void> {
+export async function revokeShareByToken(db: Database, userId: string, token: string): Promise<void> {
   const [row] = await db
     .select({ id: shareLinks.id, role: teamMembers.role })
     .from(shareLinks)
@@ -73,8 +73,8 @@ export async function revokeShareByToken(db: Database, token: string, userId: st
   await revoke(db, row.id);
 }
 
-export async function revokeShare(db: Database, networkId: string, number: number, shareId: string, userId: string): Promise<void> {
-  const { revision } = await requireRevision(db, networkId, number, userId, "editor");
+export async function revokeShare(db: Database, userId: string, networkId: string, number: number, shareId: string): Promise<void> {
+  const { revision } = await requireRevision(db, userId, networkId, number, "editor");
   const [row] = await db
     .select({ id: shareLinks.id })
     .from(shareLinks)

@@ -175,8 +175,8 @@ function staleAfterMs(settings: SolveSettings): number {
   return settings.timeLimitMs * turns + 60_000;
 }
 
-export async function getSolveJob(db: Database, settings: SolveSettings, networkId: string, jobId: string, userId: string): Promise<SolveJobView> {
-  await requireNetworkRole(db, networkId, userId, "viewer");
+export async function getSolveJob(db: Database, settings: SolveSettings, userId: string, networkId: string, jobId: string): Promise<SolveJobView> {
+  await requireNetworkRole(db, userId, networkId, "viewer");
   const [row] = await db
     .select({ job: solveJobs, slug: networks.slug })
     .from(solveJobs)

@@ -83,9 +83,9 @@ async function revisionAnswer(db: Services["db"], network: Parameters<typeof rev
  * team and queue), sent to the solve queue, and the request waits up to `waitMs` for a worker to
  * finish it before answering with the job to poll.
  */
-export async function solve(services: Services, networkId: string, userId: string, waitMs: number): Promise<SolveAnswer> {
+export async function solve(services: Services, userId: string, networkId: string, waitMs: number): Promise<SolveAnswer> {
   const { db, settings, solveQueue } = services;
-  const { network } = await requireNetworkRole(db, networkId, userId, "editor");
+  const { network } = await requireNetworkRole(db, userId, networkId, "editor");
   const parsed = await readNetwork(services, network.circuit);
   if (!parsed.network) throw illPosed(parsed.diagnostics);
   // The team's cells go into the circuit itself, so the cache key and the revision carry their definitions.
@@ -101,7 +101,7 @@ export async function solve(services: Services, networkId: string, userId: strin
     const tooLargeHere = resultBreach(cached.results, settings.solve.maxResultTerms);
     if (tooLargeHere) throw capExceeded(tooLargeHere);
     await noteCacheHit(db, key);
-    const revision = await storeRevision(db, network.id, userId, cached);
+    const revision = await storeRevision(db, userId, network.id, cached);
     if (waitMs <= 0) {
       const job = await recordAnsweredJob(db, { userId, networkId: network.id, runner: settings.instanceName }, revision.number);
       return { kind: "job", job: solveJobView(job, network.slug) };
@@ -160,7 +160,7 @@ export async function runSolveJob(services: WorkerServices, data: SolveJobData):
       await noteCacheHit(db, data.key);
     }
     const derivation = cached ?? (await solveOnThread(services, data));
-    const revision = await storeRevision(db, data.networkId, data.userId, derivation);
+    const revision = await storeRevision(db, data.userId, data.networkId, derivation);
     await finishSolveJob(db, data.jobId, { revisionNumber: revision.number, cacheHit: cached !== null });
   } catch (error) {
     const record = failureRecord(error);

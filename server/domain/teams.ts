@@ -36,8 +36,8 @@ export async function createTeam(db: Database, userId: string, name: string) {
   });
 }
 
-export async function teamDetail(db: Database, teamId: string, userId: string): Promise<TeamDetail> {
-  const role = await requireTeamRole(db, teamId, userId, "viewer");
+export async function teamDetail(db: Database, userId: string, teamId: string): Promise<TeamDetail> {
+  const role = await requireTeamRole(db, userId, teamId, "viewer");
   const [team] = await db.select().from(teams).where(eq(teams.id, teamId));
   const members = await db
     .select({ userId: users.id, name: users.name, email: users.email, role: teamMembers.role })
@@ -57,10 +57,10 @@ export async function teamDetail(db: Database, teamId: string, userId: string): 
 }
 
 // Owners rename the team and set how many approvals a revision needs.
-export async function updateTeam(db: Database, teamId: string, userId: string, changes: { name?: string; requiredApprovals?: number }): Promise<TeamDetail> {
-  await requireTeamRole(db, teamId, userId, "owner");
+export async function updateTeam(db: Database, userId: string, teamId: string, changes: { name?: string; requiredApprovals?: number }): Promise<TeamDetail> {
+  await requireTeamRole(db, userId, teamId, "owner");
   await db.update(teams).set(changes).where(eq(teams.id, teamId));
-  return teamDetail(db, teamId, userId);
+  return teamDetail(db, userId, teamId);
 }
 
 // A personal team belongs to one person for good: it cannot be left, given away or get another owner.
@@ -77,8 +77,8 @@ function checkPersonalRole(holder: string | null, memberId: string | null, role:
   if (memberId !== holder && role === "owner") throw personalTeam("A personal team has one owner, its holder; invite others with another role.");
 }
 
-export async function deleteTeam(db: Database, teamId: string, userId: string): Promise<void> {
-  await requireTeamRole(db, teamId, userId, "owner");
+export async function deleteTeam(db: Database, userId: string, teamId: string): Promise<void> {
+  await requireTeamRole(db, userId, teamId, "owner");
   const [team] = await db.select({ personalUserId: teams.personalUserId }).from(teams).where(eq(teams.id, teamId));
   if (team.personalUserId) throw new Conflict("personal_team", "A personal team cannot be deleted.");
   await db.delete(teams).where(eq(teams.id, teamId));
@@ -93,8 +93,8 @@ const lastOwner = () => new Conflict("last_owner", "A team keeps at least one ow
  */
 async function changeMembership(
   db: Database,
-  teamId: string,
   userId: string,
+  teamId: string,
   memberId: string,
   minimum: Role,
   write: (tx: Transaction, current: Role, owners: number) => Promise<void>,
@@ -102,7 +102,7 @@ async function changeMembership(
   await db.transaction(async (tx) => {
     const locked = await tx.select({ id: teams.id }).from(teams).where(eq(teams.id, teamId)).for("update");
     if (locked.length === 0) throw notFound("That team");
-    await requireTeamRole(tx, teamId, userId, minimum);
+    await requireTeamRole(tx, userId, teamId, minimum);
     const [member] = await tx.select({ role: teamMembers.role }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
     if (!member) throw notFound("That member");
     const [owners] = await tx.select({ n: count() }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.role, "owner")));
@@ -110,18 +110,18 @@ async function changeMembership(
   });
 }
 
-export async function changeMemberRole(db: Database, teamId: string, userId: string, memberId: string, role: Role): Promise<TeamDetail> {
-  await changeMembership(db, teamId, userId, memberId, "owner", async (tx, current, owners) => {
+export async function changeMemberRole(db: Database, userId: string, teamId: string, memberId: string, role: Role): Promise<TeamDetail> {
+  await changeMembership(db, userId, teamId, memberId, "owner", async (tx, current, owners) => {
     checkPersonalRole(await personalHolder(tx, teamId), memberId, role);
     if (current === "owner" && role !== "owner" && owners <= 1) throw lastOwner();
     await tx.update(teamMembers).set({ role }).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
   });
-  return teamDetail(db, teamId, userId);
+  return teamDetail(db, userId, teamId);
 }
 
 // Owners remove anyone; every member may leave by removing themselves.
-export async function removeMember(db: Database, teamId: string, userId: string, memberId: string): Promise<void> {
-  await changeMembership(db, teamId, userId, memberId, memberId === userId ? "viewer" : "owner", async (tx, current, owners) => {
+export async function removeMember(db: Database, userId: string, teamId: string, memberId: string): Promise<void> {
+  await changeMembership(db, userId, teamId, memberId, memberId === userId ? "viewer" : "owner", async (tx, current, owners) => {
     if ((await personalHolder(tx, teamId)) === memberId) throw personalTeam("A personal team cannot be left: it is its holder's own.");
     if (current === "owner" && owners <= 1) throw lastOwner();
     await tx.delete(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, memberId)));
@@ -145,9 +145,9 @@ function invitationView(row: InvitationRow) {
 
 const ownerWarning = "An owner can change every member's role, remove anyone, invite others and delete the team.";
 
-export async function inviteMember(services: Services, teamId: string, inviter: PublicUser, email: string, role: Role) {
+export async function inviteMember(services: Services, inviter: PublicUser, teamId: string, email: string, role: Role) {
   const { db } = services;
-  await requireTeamRole(db, teamId, inviter.id, "owner");
+  await requireTeamRole(db, inviter.id, teamId, "owner");
   // Mail to other people only from a confirmed address, so sign-ups cannot be used to send spam.
   if (!inviter.emailVerified) throw new Forbidden("email_unverified", "Confirm your own e-mail address before inviting others.");
   const [existing] = await db
@@ -167,8 +167,8 @@ export async function inviteMember(services: Services, teamId: string, inviter: 
   return { ...invitationView(row), ...(role === "owner" ? { warning: ownerWarning } : {}) };
 }
 
-export async function pendingInvitations(db: Database, teamId: string, userId: string) {
-  await requireTeamRole(db, teamId, userId, "owner");
+export async function pendingInvitations(db: Database, userId: string, teamId: string) {
+  await requireTeamRole(db, userId, teamId, "owner");
   const rows = await db
     .select()
     .from(invitations)
@@ -177,8 +177,8 @@ export async function pendingInvitations(db: Database, teamId: string, userId: s
   return rows.map(invitationView);
 }
 
-export async function revokeInvitation(db: Database, teamId: string, userId: string, invitationId: string): Promise<void> {
-  await requireTeamRole(db, teamId, userId, "owner");
+export async function revokeInvitation(db: Database, userId: string, teamId: string, invitationId: string): Promise<void> {
+  await requireTeamRole(db, userId, teamId, "owner");
   const deleted = await db
     .delete(invitations)
     .where(and(eq(invitations.id, invitationId), eq(invitations.teamId, teamId), isNull(invitations.acceptedAt)))
@@ -210,7 +210,7 @@ export async function invitationPreview(db: Database, token: string) {
 }
 
 // Only the invited address, signed in and confirmed, accepts: a forwarded link lets nobody else in.
-export async function acceptInvitation(db: Database, token: string, user: PublicUser) {
+export async function acceptInvitation(db: Database, user: PublicUser, token: string) {
   const userId = user.id;
   return db.transaction(async (tx) => {
     const [invitation] = await tx

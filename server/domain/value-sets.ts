@@ -23,14 +23,14 @@ export async function valueSetsOf(db: Database, networkId: string): Promise<Valu
   return rows.map(view);
 }
 
-export async function listValueSets(db: Database, networkId: string, userId: string): Promise<ValueSetView[]> {
-  await requireNetworkRole(db, networkId, userId, "viewer");
+export async function listValueSets(db: Database, userId: string, networkId: string): Promise<ValueSetView[]> {
+  await requireNetworkRole(db, userId, networkId, "viewer");
   return valueSetsOf(db, networkId);
 }
 
 // Saving under a name that exists replaces that set's numbers: the name is how people refer to it.
-export async function saveValueSet(db: Database, networkId: string, userId: string, input: { name: string; values: Record<string, string> }): Promise<ValueSetView> {
-  await requireNetworkRole(db, networkId, userId, "editor");
+export async function saveValueSet(db: Database, userId: string, networkId: string, input: { name: string; values: Record<string, string> }): Promise<ValueSetView> {
+  await requireNetworkRole(db, userId, networkId, "editor");
   const [row] = await db
     .insert(valueSets)
     .values({ networkId, name: input.name, values: input.values, createdBy: userId })
@@ -40,8 +40,8 @@ export async function saveValueSet(db: Database, networkId: string, userId: stri
   return view(row);
 }
 
-export async function deleteValueSet(db: Database, networkId: string, setId: string, userId: string): Promise<void> {
-  await requireNetworkRole(db, networkId, userId, "editor");
+export async function deleteValueSet(db: Database, userId: string, networkId: string, setId: string): Promise<void> {
+  await requireNetworkRole(db, userId, networkId, "editor");
   const deleted = await db.delete(valueSets).where(and(eq(valueSets.id, setId), eq(valueSets.networkId, networkId))).returning({ id: valueSets.id });
   if (deleted.length === 0) throw notFound("That value set");
 }

@@ -154,8 +154,8 @@ export async function approvedBefore(db: Database, networkId: string, teamId: st
   return { number: approved.number, by: state.by, at: state.at };
 }
 
-export async function listVerdicts(db: Database, networkId: string, number: number, userId: string) {
-  const { network, revision } = await requireRevision(db, networkId, number, userId, "viewer");
+export async function listVerdicts(db: Database, userId: string, networkId: string, number: number) {
+  const { network, revision } = await requireRevision(db, userId, networkId, number, "viewer");
   const [history, required] = await Promise.all([historyRows(db, [revision.id]).then((m) => m.get(revision.id)!), requiredApprovalsOf(db, network.teamId)]);
   return { verdicts: history.map((row) => entryView(row, revision.number, history)), state: deriveState(history, required, revision.createdBy) };
 }
@@ -164,10 +164,10 @@ const selfApproval = () =>
   new Forbidden("self_approval", "You solved this revision, so you cannot approve it; another reviewer of the team has to.");
 
 // Revision author and network author hear of every verdict, unless they gave it or turned review mail off.
-async function mailVerdict(services: Services, context: Awaited<ReturnType<typeof requireRevision>>, actor: PublicUser, entry: VerdictEntry, state: RevisionState) {
+async function mailVerdict(services: Services, actor: PublicUser, context: Awaited<ReturnType<typeof requireRevision>>, entry: VerdictEntry, state: RevisionState) {
   const { network, revision } = context;
   const action = entry.verdict === "open" ? "withdrew their verdict" : entry.verdict === "approved" ? "approved" : "requested changes on";
-  await mailPeople(services, [revision.createdBy, network.authorId], actor.id, (to) =>
+  await mailPeople(services, actor.id, [revision.createdBy, network.authorId], (to) =>
     verdictMail(to, {
       reviewer: actor.name,
       action,
@@ -180,24 +180,24 @@ async function mailVerdict(services: Services, context: Awaited<ReturnType<typeo
   );
 }
 
-export async function giveVerdict(services: Services, networkId: string, number: number, actor: PublicUser, input: { verdict: "approved" | "needs_changes"; note?: string }) {
+export async function giveVerdict(services: Services, actor: PublicUser, networkId: string, number: number, input: { verdict: "approved" | "needs_changes"; note?: string }) {
   const { db } = services;
-  const context = await requireRevision(db, networkId, number, actor.id, "reviewer");
+  const context = await requireRevision(db, actor.id, networkId, number, "reviewer");
   const { revision, role } = context;
   if (input.verdict === "approved" && revision.createdBy === actor.id) throw selfApproval();
   const note = input.note?.trim() || null;
   if (input.verdict === "needs_changes" && !note)
     throw new Invalid("note_required", "Say what has to change: a change request needs a note.", { fields: { note: "required when requesting changes" } });
   await db.insert(revisionVerdicts).values({ revisionId: revision.id, verdict: input.verdict, userId: actor.id, role, note });
-  const result = await listVerdicts(db, networkId, number, actor.id);
-  await mailVerdict(services, context, actor, result.verdicts[0], result.state);
+  const result = await listVerdicts(db, actor.id, networkId, number);
+  await mailVerdict(services, actor, context, result.verdicts[0], result.state);
   return { verdict: result.verdicts[0], state: result.state };
 }
 
 // Only the giver takes a verdict back, and only while it stands (not already withdrawn or replaced).
-export async function withdrawVerdict(services: Services, networkId: string, number: number, actor: PublicUser, verdictId: string | null) {
+export async function withdrawVerdict(services: Services, actor: PublicUser, networkId: string, number: number, verdictId: string | null) {
   const { db } = services;
-  const context = await requireRevision(db, networkId, number, actor.id, "reviewer");
+  const context = await requireRevision(db, actor.id, networkId, number, "reviewer");
   const history = (await historyRows(db, [context.revision.id])).get(context.revision.id)!;
   const mine = standing(history).find((row) => row.userId === actor.id) ?? null;
   if (verdictId !== null) {
@@ -208,7 +208,7 @@ export async function withdrawVerdict(services: Services, networkId: string, num
   }
   if (!mine) return null;
   await db.insert(revisionVerdicts).values({ revisionId: context.revision.id, verdict: "open", userId: actor.id, role: context.role, withdrawsId: mine.id });
-  const result = await listVerdicts(db, networkId, number, actor.id);
-  await mailVerdict(services, context, actor, result.verdicts[0], result.state);
+  const result = await listVerdicts(db, actor.id, networkId, number);
+  await mailVerdict(services, actor, context, result.verdicts[0], result.state);
   return { verdict: result.verdicts[0], state: result.state };
 }

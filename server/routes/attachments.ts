@@ -15,14 +15,14 @@ export function attachmentsRouter(services: Services): Router {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
     // Access first: a file is only read into memory for someone allowed to attach it.
-    await requireNetworkRole(db, networkId, user.id, "editor");
+    await requireNetworkRole(db, user.id, networkId, "editor");
     const { file } = await readUpload(req, res, services.settings.limits.attachmentBytes);
-    res.status(201).json(await addAttachment(db, networkId, user.id, file));
+    res.status(201).json(await addAttachment(db, user.id, networkId, file));
   });
 
   router.get(path, async (req, res) => {
     const user = signedInUser(res);
-    const list = await listAttachments(db, idParam(req.params.networkId, "That network"), user.id);
+    const list = await listAttachments(db, user.id, idParam(req.params.networkId, "That network"));
     // The limits travel with the list, so the page states them before anyone tries an upload.
     res.json({ attachments: list, limits: { maxBytes: services.settings.limits.attachmentBytes, types: attachmentTypes } });
   });
@@ -30,7 +30,7 @@ export function attachmentsRouter(services: Services): Router {
   router.get(`${path}/:attachmentId`, async (req, res) => {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
-    const file = await attachmentContent(db, networkId, idParam(req.params.attachmentId, "That attachment"), user.id);
+    const file = await attachmentContent(db, user.id, networkId, idParam(req.params.attachmentId, "That attachment"));
     // Always a download with the sniffed type (set after attachment(), which guesses from the name);
     // the sandbox keeps a crafted PDF from running as our page.
     res.attachment(file.filename);
@@ -46,7 +46,7 @@ export function attachmentsRouter(services: Services): Router {
   router.delete(`${path}/:attachmentId`, async (req, res) => {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
-    await deleteAttachment(db, networkId, idParam(req.params.attachmentId, "That attachment"), user.id);
+    await deleteAttachment(db, user.id, networkId, idParam(req.params.attachmentId, "That attachment"));
     res.status(204).end();
   });
 

@@ -18,19 +18,19 @@ export function cellsRouter(services: Services): Router {
 
   router.get("/teams/:teamId/cells", async (req, res) => {
     const user = signedInUser(res);
-    res.json(await listCells(db, idParam(req.params.teamId, "That team"), user.id));
+    res.json(await listCells(db, user.id, idParam(req.params.teamId, "That team")));
   });
 
   router.post("/teams/:teamId/cells", async (req, res) => {
     const user = signedInUser(res);
     const teamId = idParam(req.params.teamId, "That team");
     const body = parseBody(createBody, req.body);
-    res.status(201).json(await createCell(services, teamId, user.id, body.definition));
+    res.status(201).json(await createCell(services, user.id, teamId, body.definition));
   });
 
   router.delete("/teams/:teamId/cells/:cellId", async (req, res) => {
     const user = signedInUser(res);
-    await deleteCell(db, idParam(req.params.teamId, "That team"), user.id, cellIdParam(req.params.cellId));
+    await deleteCell(db, user.id, idParam(req.params.teamId, "That team"), cellIdParam(req.params.cellId));
     res.status(204).end();
   });
 

@@ -23,27 +23,27 @@ export function reviewsRouter(services: Services): Router {
   router.get(`${path}/comments`, async (req, res) => {
     const user = signedInUser(res);
     const [networkId, number] = target(req.params);
-    res.json({ comments: await listComments(db, networkId, number, user.id) });
+    res.json({ comments: await listComments(db, user.id, networkId, number) });
   });
 
   router.post(`${path}/comments`, async (req, res) => {
     const user = signedInUser(res);
     const [networkId, number] = target(req.params);
     const input = parseBody(commentBody, req.body);
-    res.status(201).json(await addComment(services, networkId, number, user, input));
+    res.status(201).json(await addComment(services, user, networkId, number, input));
   });
 
   router.patch(`${path}/comments/:commentId`, async (req, res) => {
     const user = signedInUser(res);
     const [networkId, number] = target(req.params);
     const input = parseBody(editBody, req.body);
-    res.json(await editComment(db, networkId, number, idParam(req.params.commentId, "That comment"), user, input.body));
+    res.json(await editComment(db, user, networkId, number, idParam(req.params.commentId, "That comment"), input.body));
   });
 
   router.delete(`${path}/comments/:commentId`, async (req, res) => {
     const user = signedInUser(res);
     const [networkId, number] = target(req.params);
-    await deleteComment(db, networkId, number, idParam(req.params.commentId, "That comment"), user);
+    await deleteComment(db, user, networkId, number, idParam(req.params.commentId, "That comment"));
     res.status(204).end();
   });
 
@@ -51,27 +51,27 @@ export function reviewsRouter(services: Services): Router {
     router.post(`${path}/comments/:commentId/${action}`, async (req, res) => {
       const user = signedInUser(res);
       const [networkId, number] = target(req.params);
-      res.json(await setThreadResolved(db, networkId, number, idParam(req.params.commentId, "That comment"), user, resolved));
+      res.json(await setThreadResolved(db, user, networkId, number, idParam(req.params.commentId, "That comment"), resolved));
     });
   }
 
   router.get(`${path}/verdicts`, async (req, res) => {
     const user = signedInUser(res);
     const [networkId, number] = target(req.params);
-    res.json(await listVerdicts(db, networkId, number, user.id));
+    res.json(await listVerdicts(db, user.id, networkId, number));
   });
 
   router.post(`${path}/verdicts`, async (req, res) => {
     const user = signedInUser(res);
     const [networkId, number] = target(req.params);
     const input = parseBody(verdictBody, req.body);
-    res.status(201).json(await giveVerdict(services, networkId, number, user, input));
+    res.status(201).json(await giveVerdict(services, user, networkId, number, input));
   });
 
   router.post(`${path}/verdicts/:verdictId/withdraw`, async (req, res) => {
     const user = signedInUser(res);
     const [networkId, number] = target(req.params);
-    const withdrawn = await withdrawVerdict(services, networkId, number, user, idParam(req.params.verdictId, "That verdict"));
+    const withdrawn = await withdrawVerdict(services, user, networkId, number, idParam(req.params.verdictId, "That verdict"));
     res.status(201).json(withdrawn);
   });
 
@@ -80,11 +80,11 @@ export function reviewsRouter(services: Services): Router {
     const [networkId, number] = target(req.params);
     const input = parseBody(legacyVerdictBody, req.body);
     if (input.verdict === "open") {
-      await withdrawVerdict(services, networkId, number, user, null);
-      res.json((await listVerdicts(db, networkId, number, user.id)).state);
+      await withdrawVerdict(services, user, networkId, number, null);
+      res.json((await listVerdicts(db, user.id, networkId, number)).state);
       return;
     }
-    res.json((await giveVerdict(services, networkId, number, user, { verdict: input.verdict, note: input.note })).state);
+    res.json((await giveVerdict(services, user, networkId, number, { verdict: input.verdict, note: input.note })).state);
   });
 
   router.get("/reviews/awaiting", async (req, res) => {

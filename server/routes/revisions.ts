@@ -19,7 +19,7 @@ export function revisionsRouter(services: Services): Router {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
     const { wait } = parseQuery(solveQuery, req.query);
-    const answer = await solve(services, networkId, user.id, Math.min(wait ?? services.settings.solve.waitMs, services.settings.solve.waitMs));
+    const answer = await solve(services, user.id, networkId, Math.min(wait ?? services.settings.solve.waitMs, services.settings.solve.waitMs));
     if (answer.kind === "failed") throw recordedFailure(answer.error);
     if (answer.kind === "job") {
       res.status(202).location(answer.job.poll).json({ job: answer.job });
@@ -34,25 +34,25 @@ export function revisionsRouter(services: Services): Router {
     const networkId = idParam(req.params.networkId, "That network");
     const jobId = idParam(req.params.jobId, "That solve job");
     res.set("Cache-Control", "no-store");
-    res.json(await getSolveJob(db, services.settings.solve, networkId, jobId, user.id));
+    res.json(await getSolveJob(db, services.settings.solve, user.id, networkId, jobId));
   });
 
   router.get("/networks/:networkId/revisions", async (req, res) => {
     const user = signedInUser(res);
-    res.json({ revisions: await listRevisions(db, idParam(req.params.networkId, "That network"), user.id) });
+    res.json({ revisions: await listRevisions(db, user.id, idParam(req.params.networkId, "That network")) });
   });
 
   router.get("/networks/:networkId/revisions/:number", async (req, res) => {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
-    const revision = await getRevision(db, networkId, revisionNumberParam(req.params.number), user.id);
+    const revision = await getRevision(db, user.id, networkId, revisionNumberParam(req.params.number));
     await sendRevisionJson(res, revision, revision.steps);
   });
 
   router.get("/networks/:networkId/revisions/:from/compare/:to", async (req, res) => {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
-    res.json(await compareRevisions(db, networkId, revisionNumberParam(req.params.from), revisionNumberParam(req.params.to), user.id));
+    res.json(await compareRevisions(db, user.id, networkId, revisionNumberParam(req.params.from), revisionNumberParam(req.params.to)));
   });
 
   return router;

@@ -16,21 +16,21 @@ export function sharesRouter(services: Services): Router {
     const networkId = idParam(req.params.networkId, "That network");
     const number = revisionNumberParam(req.params.number);
     const { expiresAt } = parseBody(shareBody, req.body);
-    res.status(201).json(await createShare(services, networkId, number, user.id, expiresAt ? new Date(expiresAt) : null));
+    res.status(201).json(await createShare(services, user.id, networkId, number, expiresAt ? new Date(expiresAt) : null));
   });
 
   router.get(path, async (req, res) => {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
     const number = revisionNumberParam(req.params.number);
-    res.json({ shares: await listShares(db, networkId, user.id, number) });
+    res.json({ shares: await listShares(db, user.id, networkId, number) });
   });
 
   router.delete(`${path}/:shareId`, async (req, res) => {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
     const number = revisionNumberParam(req.params.number);
-    await revokeShare(db, networkId, number, idParam(req.params.shareId, "That share link"), user.id);
+    await revokeShare(db, user.id, networkId, number, idParam(req.params.shareId, "That share link"));
     res.status(204).end();
   });
 
@@ -43,7 +43,7 @@ export function sharesRouter(services: Services): Router {
 
   router.delete("/share/:token", async (req, res) => {
     const user = signedInUser(res);
-    await revokeShareByToken(db, tokenParam(req.params.token), user.id);
+    await revokeShareByToken(db, user.id, tokenParam(req.params.token));
     res.status(204).end();
   });
 

@@ -36,7 +36,7 @@ export function teamsRouter(services: Services): Router {
 
   router.get("/teams/:teamId", async (req, res) => {
     const user = signedInUser(res);
-    const { members: _members, ...team } = await teamDetail(db, idParam(req.params.teamId, "That team"), user.id);
+    const { members: _members, ...team } = await teamDetail(db, user.id, idParam(req.params.teamId, "That team"));
     res.json(team);
   });
 
@@ -44,19 +44,19 @@ export function teamsRouter(services: Services): Router {
     const user = signedInUser(res);
     const teamId = idParam(req.params.teamId, "That team");
     const changes = parseBody(teamChanges, req.body);
-    const { members: _members, ...team } = await updateTeam(db, teamId, user.id, changes);
+    const { members: _members, ...team } = await updateTeam(db, user.id, teamId, changes);
     res.json(team);
   });
 
   router.delete("/teams/:teamId", async (req, res) => {
     const user = signedInUser(res);
-    await deleteTeam(db, idParam(req.params.teamId, "That team"), user.id);
+    await deleteTeam(db, user.id, idParam(req.params.teamId, "That team"));
     res.status(204).end();
   });
 
   router.get("/teams/:teamId/members", async (req, res) => {
     const user = signedInUser(res);
-    const { members } = await teamDetail(db, idParam(req.params.teamId, "That team"), user.id);
+    const { members } = await teamDetail(db, user.id, idParam(req.params.teamId, "That team"));
     res.json({ members });
   });
 
@@ -64,13 +64,13 @@ export function teamsRouter(services: Services): Router {
     const user = signedInUser(res);
     const teamId = idParam(req.params.teamId, "That team");
     const { role } = parseBody(roleBody, req.body);
-    const { members } = await changeMemberRole(db, teamId, user.id, userIdParam(req.params.userId), role);
+    const { members } = await changeMemberRole(db, user.id, teamId, userIdParam(req.params.userId), role);
     res.json({ members });
   });
 
   router.delete("/teams/:teamId/members/:userId", async (req, res) => {
     const user = signedInUser(res);
-    await removeMember(db, idParam(req.params.teamId, "That team"), user.id, userIdParam(req.params.userId));
+    await removeMember(db, user.id, idParam(req.params.teamId, "That team"), userIdParam(req.params.userId));
     res.status(204).end();
   });
 
@@ -78,18 +78,18 @@ export function teamsRouter(services: Services): Router {
     const user = signedInUser(res);
     const teamId = idParam(req.params.teamId, "That team");
     const { email, role } = parseBody(invitationBody, req.body);
-    res.status(201).json(await inviteMember(services, teamId, user, email, role));
+    res.status(201).json(await inviteMember(services, user, teamId, email, role));
   });
 
   router.get("/teams/:teamId/invitations", async (req, res) => {
     const user = signedInUser(res);
-    res.json({ invitations: await pendingInvitations(db, idParam(req.params.teamId, "That team"), user.id) });
+    res.json({ invitations: await pendingInvitations(db, user.id, idParam(req.params.teamId, "That team")) });
   });
 
   router.delete("/teams/:teamId/invitations/:invitationId", async (req, res) => {
     const user = signedInUser(res);
     const teamId = idParam(req.params.teamId, "That team");
-    await revokeInvitation(db, teamId, user.id, idParam(req.params.invitationId, "That invitation"));
+    await revokeInvitation(db, user.id, teamId, idParam(req.params.invitationId, "That invitation"));
     res.status(204).end();
   });
 
@@ -100,7 +100,7 @@ export function teamsRouter(services: Services): Router {
 
   router.post("/invitations/:token/accept", async (req, res) => {
     const user = signedInUser(res);
-    res.json({ team: await acceptInvitation(db, tokenParam(req.params.token, "That invitation"), user) });
+    res.json({ team: await acceptInvitation(db, user, tokenParam(req.params.token, "That invitation")) });
   });
 
   return router;

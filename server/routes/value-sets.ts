@@ -12,20 +12,20 @@ export function valueSetsRouter(services: Services): Router {
 
   router.get(path, async (req, res) => {
     const user = signedInUser(res);
-    res.json({ valueSets: await listValueSets(db, idParam(req.params.networkId, "That network"), user.id) });
+    res.json({ valueSets: await listValueSets(db, user.id, idParam(req.params.networkId, "That network")) });
   });
 
   router.post(path, async (req, res) => {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
     const body = parseBody(saveBody, req.body);
-    res.status(201).json(await saveValueSet(db, networkId, user.id, body));
+    res.status(201).json(await saveValueSet(db, user.id, networkId, body));
   });
 
   router.delete(`${path}/:setId`, async (req, res) => {
     const user = signedInUser(res);
     const networkId = idParam(req.params.networkId, "That network");
-    await deleteValueSet(db, networkId, idParam(req.params.setId, "That value set"), user.id);
+    await deleteValueSet(db, user.id, networkId, idParam(req.params.setId, "That value set"));
     res.status(204).end();
   });
 
