@@ -5,6 +5,7 @@
 // here uses the nodal stamps, the determinants or the port set-ups the results came from.
 
 import { Rational, type Poly, type RationalFunction } from "../algebra";
+import { PRIME, invMod, residue } from "../algebra/modular";
 import type { CheckDetail, Element, Network, NumericCheck, SolveChecks } from "../types";
 import { elementNodes, isOpamp, networkNodes } from "./elements";
 import { seededRandom } from "./numeric";
@@ -77,6 +78,47 @@ function evaluateInFloats(p: Poly, point: Readonly<Record<string, number>>): num
   const bound = (p.coefs.length + degree + 2) * 2 ** -53 * magnitude;
   if (!Number.isFinite(sum) || !(bound <= 1e-9 * Math.abs(sum))) return null;
   return sum / Number(p.den);
+}
+
+/** p mod PRIME at a point given as one residue per symbol; null when p's own denominator vanishes mod PRIME. */
+function residueAt(p: Poly, at: Readonly<Record<string, number>>): number | null {
+  const nv = p.vars.length;
+  const den = residue(p.den);
+  if (den === 0) return null;
+  const powers = p.vars.map(() => [1]);
+  const base = p.vars.map((v) => at[v]);
+  let sum = 0;
+  for (let t = 0; t < p.coefs.length; t++) {
+    let term = residue(p.coefs[t]);
+    for (let v = 0; v < nv && term !== 0; v++) {
+      const e = p.exps[t * nv + v];
+      if (e === 0) continue;
+      const table = powers[v];
+      for (let k = table.length; k <= e; k++) table.push((table[k - 1] * base[v]) % PRIME);
+      term = (term * table[e]) % PRIME;
+    }
+    sum = (sum + term) % PRIME;
+  }
+  return (sum * invMod(den)) % PRIME;
+}
+
+/**
+ * Whether f at the point m_v / q equals the exact value: decided modulo PRIME when that can tell
+ * (f's residues there against the value's), else by evaluating f exactly. Residues that differ prove
+ * the two differ; residues that agree leave a chance of about 1/PRIME that they differ still.
+ * Returns the exact value of f when it was computed (for the message), null when f has a pole there.
+ */
+function sameAtPoint(f: RationalFunction, value: Rational, numerators: Readonly<Record<string, bigint>>, q: bigint, F: Field<Rational>): { same: boolean; exact?: Rational } | null {
+  const qInverse = invMod(residue(q));
+  const at = Object.fromEntries(Object.entries(numerators).map(([s, m]) => [s, (residue(m) * qInverse) % PRIME]));
+  const num = residueAt(f.num, at);
+  const den = residueAt(f.den, at);
+  const valueDen = residue(value.den);
+  if (num !== null && den !== null && den !== 0 && valueDen !== 0) {
+    if ((num * valueDen) % PRIME === (den * residue(value.num)) % PRIME) return { same: true };
+  }
+  const exact = F.of(f);
+  return exact === null ? null : { same: exact.equals(value), exact };
 }
 
 /** p at the point m_v / q (one denominator for every symbol), exactly, in one pass over the terms. */
@@ -460,12 +502,12 @@ function exactCompare(input: CheckInput, random: () => number): { compared: numb
           compared++;
           continue;
         }
-        const exact = F.of(f);
-        if (solved.kind === "singular" || exact === null) {
+        const compare = solved.kind === "singular" ? null : sameAtPoint(f, solved.value, numerators, BigInt(q), F);
+        if (solved.kind === "singular" || compare === null) {
           usable = false;
           break;
         }
-        if (!exact.equals(solved.value)) found.push(`${LABEL[name]} is ${exact.toString()} by the result but ${solved.value.toString()} by the tableau`);
+        if (!compare.same) found.push(`${LABEL[name]} is ${compare.exact!.toString()} by the result but ${solved.value.toString()} by the tableau`);
         compared++;
       }
       if (!usable) continue;
