@@ -2,7 +2,7 @@
 
 import { Poly } from "./polynomial";
 import { matrixRankBareiss } from "./determinant";
-import { PRIME, invMod, makeRandom, powMod, residue } from "./modular";
+import { PRIME, evalMod, invMod, makeRandom } from "./modular";
 
 type Matrix = readonly (readonly Poly[])[];
 
@@ -27,23 +27,6 @@ export function identityMatrix(n: number): Poly[][] {
   return Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? Poly.one() : Poly.zero())));
 }
 
-/** p at the point, modulo PRIME; null when the common denominator vanishes there. */
-function evalMod(p: Poly, point: Map<string, number>): number | null {
-  const d = residue(p.den);
-  if (d === 0) return null;
-  const nv = p.vars.length;
-  const x = p.vars.map((v) => point.get(v)!);
-  let s = 0;
-  for (let t = 0; t < p.coefs.length; t++) {
-    let m = residue(p.coefs[t]);
-    for (let v = 0; v < nv; v++) {
-      const e = p.exps[t * nv + v];
-      if (e !== 0) m = (m * powMod(x[v], e)) % PRIME;
-    }
-    s = (s + m) % PRIME;
-  }
-  return (s * invMod(d)) % PRIME;
-}
 
 function rankMod(a: number[][]): number {
   const rows = a.length;

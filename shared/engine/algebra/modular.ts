@@ -1,5 +1,8 @@
 // Arithmetic modulo one word-size prime, for the modular images that bound gcd degrees and
-// matrix ranks: residues of BigInt coefficients, powers, inverses and a reproducible random point.
+// matrix ranks and for the results check: residues of BigInt coefficients, inverses, a
+// polynomial's value at a point and a reproducible random point.
+
+import type { Poly } from "./polynomial";
 
 /** A prime below 2^26: the product of two residues stays below 2^53, exact in doubles. */
 export const PRIME = 67108859;
@@ -9,18 +12,6 @@ const PRIME_BIG = BigInt(PRIME);
 export function residue(c: bigint): number {
   const r = c >= -9007199254740991n && c <= 9007199254740991n ? Number(c) % PRIME : Number(c % PRIME_BIG);
   return r < 0 ? r + PRIME : r;
-}
-
-/** b^e mod PRIME for a residue b and e >= 0. */
-export function powMod(b: number, e: number): number {
-  let r = 1;
-  b %= PRIME;
-  while (e > 0) {
-    if (e & 1) r = (r * b) % PRIME;
-    b = (b * b) % PRIME;
-    e >>= 1;
-  }
-  return r;
 }
 
 /** Inverse of a nonzero residue, by the extended Euclidean algorithm. */
@@ -44,4 +35,27 @@ export function makeRandom(seed: number): () => number {
     s ^= s << 5;
     return 1 + ((s >>> 0) % (PRIME - 1));
   };
+}
+
+/** p at a point (one residue per variable), modulo PRIME; null when p's common denominator vanishes there. */
+export function evalMod(p: Poly, point: ReadonlyMap<string, number>): number | null {
+  const d = residue(p.den);
+  if (d === 0) return null;
+  const nv = p.vars.length;
+  const x = p.vars.map((v) => point.get(v)!);
+  // Powers by exponent, each computed once per variable.
+  const powers = p.vars.map(() => [1]);
+  let s = 0;
+  for (let t = 0; t < p.coefs.length; t++) {
+    let m = residue(p.coefs[t]);
+    for (let v = 0; v < nv && m !== 0; v++) {
+      const e = p.exps[t * nv + v];
+      if (e === 0) continue;
+      const table = powers[v];
+      for (let k = table.length; k <= e; k++) table.push((table[k - 1] * x[v]) % PRIME);
+      m = (m * table[e]) % PRIME;
+    }
+    s = (s + m) % PRIME;
+  }
+  return (s * invMod(d)) % PRIME;
 }

@@ -5,7 +5,7 @@
 // here uses the nodal stamps, the determinants or the port set-ups the results came from.
 
 import { Rational, type Poly, type RationalFunction } from "../algebra";
-import { PRIME, invMod, residue } from "../algebra/modular";
+import { PRIME, evalMod, invMod, residue } from "../algebra/modular";
 import type { CheckDetail, Element, Network, NumericCheck, SolveChecks } from "../types";
 import { elementNodes, isOpamp, networkNodes } from "./elements";
 import { seededRandom } from "./numeric";
@@ -80,28 +80,6 @@ function evaluateInFloats(p: Poly, point: Readonly<Record<string, number>>): num
   return sum / Number(p.den);
 }
 
-/** p mod PRIME at a point given as one residue per symbol; null when p's own denominator vanishes mod PRIME. */
-function residueAt(p: Poly, at: Readonly<Record<string, number>>): number | null {
-  const nv = p.vars.length;
-  const den = residue(p.den);
-  if (den === 0) return null;
-  const powers = p.vars.map(() => [1]);
-  const base = p.vars.map((v) => at[v]);
-  let sum = 0;
-  for (let t = 0; t < p.coefs.length; t++) {
-    let term = residue(p.coefs[t]);
-    for (let v = 0; v < nv && term !== 0; v++) {
-      const e = p.exps[t * nv + v];
-      if (e === 0) continue;
-      const table = powers[v];
-      for (let k = table.length; k <= e; k++) table.push((table[k - 1] * base[v]) % PRIME);
-      term = (term * table[e]) % PRIME;
-    }
-    sum = (sum + term) % PRIME;
-  }
-  return (sum * invMod(den)) % PRIME;
-}
-
 /**
  * Whether f at the point m_v / q equals the exact value: decided modulo PRIME when that can tell
  * (f's residues there against the value's), else by evaluating f exactly. Residues that differ prove
@@ -110,9 +88,9 @@ function residueAt(p: Poly, at: Readonly<Record<string, number>>): number | null
  */
 function sameAtPoint(f: RationalFunction, value: Rational, numerators: Readonly<Record<string, bigint>>, q: bigint, F: Field<Rational>): { same: boolean; exact?: Rational } | null {
   const qInverse = invMod(residue(q));
-  const at = Object.fromEntries(Object.entries(numerators).map(([s, m]) => [s, (residue(m) * qInverse) % PRIME]));
-  const num = residueAt(f.num, at);
-  const den = residueAt(f.den, at);
+  const at = new Map(Object.entries(numerators).map(([s, m]) => [s, (residue(m) * qInverse) % PRIME]));
+  const num = evalMod(f.num, at);
+  const den = evalMod(f.den, at);
   const valueDen = residue(value.den);
   if (num !== null && den !== null && den !== 0 && valueDen !== 0) {
     if ((num * valueDen) % PRIME === (den * residue(value.num)) % PRIME) return { same: true };
