@@ -49,24 +49,38 @@ export function substitutedFields(p: Poly, values: Record<string, Rational>): Po
   return sum.fields(p.vars);
 }
 
-/** Floating-point value of p; every variable must be given. */
-export function evaluatePoly(p: Poly, values: Record<string, number>): number {
+/**
+ * Floating-point value of p, and a bound on its rounding error; every variable must be given.
+ * Each term is a product of at most degree + 2 roundings and summing n terms adds at most n more,
+ * so the error is at most (n + degree + 2)·ε·Σ|term| with ε = 2^-53 (the standard bound for
+ * recursive summation), divided by p's denominator like the value.
+ */
+export function evaluatePoly(p: Poly, values: Record<string, number>): { value: number; error: number } {
   const nv = p.vars.length;
   const x = p.vars.map((v) => {
     const val = values[v];
     if (typeof val !== "number") throw new Error(`no value for ${v}`);
     return val;
   });
-  const den = Number(p.den);
   let sum = 0;
+  let magnitude = 0;
+  let degree = 0;
   for (let t = 0; t < p.coefs.length; t++) {
     let m = Number(p.coefs[t]);
+    let d = 0;
     for (let v = 0; v < nv; v++) {
       const k = p.exps[t * nv + v];
-      if (k === 1) m *= x[v];
-      else if (k > 1) m *= x[v] ** k;
+      if (k === 0) continue;
+      m *= k === 1 ? x[v] : x[v] ** k;
+      d += k;
     }
+    if (d > degree) degree = d;
     sum += m;
+    magnitude += Math.abs(m);
   }
-  return Number.isFinite(den) ? sum / den : Rational.of(1n, p.den).toNumber() * sum;
+  const bound = (p.coefs.length + degree + 2) * 2 ** -53 * magnitude;
+  const den = Number(p.den);
+  if (Number.isFinite(den)) return { value: sum / den, error: bound / den };
+  const scale = Rational.of(1n, p.den).toNumber();
+  return { value: scale * sum, error: scale * bound };
 }

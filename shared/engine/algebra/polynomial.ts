@@ -302,6 +302,11 @@ export class Poly {
 
   /** Floating-point value; every variable must be given. */
   evaluate(values: Record<string, number>): number {
+    return evaluatePoly(this, values).value;
+  }
+
+  /** Floating-point value with a bound on its rounding error (see evaluatePoly). */
+  evaluateWithError(values: Record<string, number>): { value: number; error: number } {
     return evaluatePoly(this, values);
   }
 

@@ -49,35 +49,10 @@ function floatField(point: Record<string, number>): Field<number> {
   };
 }
 
-/**
- * p at a point in floats, with the rounding bound of the sum: each term is a product of at most
- * `degree + 2` roundings, and summing n terms adds at most n more, so the error is at most
- * (n + degree + 2)·ε·Σ|term| (ε = 2^-53; the standard bound for recursive summation). Null when that bound is
- * not below 1e-9 of the value: cancellation ate the digits, and the caller evaluates exactly.
- */
-function evaluateInFloats(p: Poly, point: Readonly<Record<string, number>>): number | null {
-  const nv = p.vars.length;
-  const at = p.vars.map((v) => point[v]);
-  let sum = 0;
-  let magnitude = 0;
-  let degree = 0;
-  for (let t = 0; t < p.coefs.length; t++) {
-    let term = Number(p.coefs[t]);
-    let d = 0;
-    for (let v = 0; v < nv; v++) {
-      const e = p.exps[t * nv + v];
-      if (e > 0) {
-        term *= e === 1 ? at[v] : at[v] ** e;
-        d += e;
-      }
-    }
-    degree = Math.max(degree, d);
-    sum += term;
-    magnitude += Math.abs(term);
-  }
-  const bound = (p.coefs.length + degree + 2) * 2 ** -53 * magnitude;
-  if (!Number.isFinite(sum) || !(bound <= 1e-9 * Math.abs(sum))) return null;
-  return sum / Number(p.den);
+/** p at a point in floats; null when its rounding bound is not below 1e-9 of the value (cancellation ate the digits). */
+function accurateInFloats(p: Poly, point: Record<string, number>): number | null {
+  const { value, error } = p.evaluateWithError(point);
+  return Number.isFinite(value) && error <= 1e-9 * Math.abs(value) ? value : null;
 }
 
 /**
@@ -428,8 +403,8 @@ function floatCompare(input: CheckInput, which: Checked[], random: () => number)
           continue;
         }
         // Floats where their rounding bound allows it (far the most results), else exact.
-        const num = evaluateInFloats(f.num, point);
-        const den = num === null ? null : evaluateInFloats(f.den, point);
+        const num = accurateInFloats(f.num, point);
+        const den = num === null ? null : accurateInFloats(f.den, point);
         const exact = num !== null && den !== null && den !== 0 ? num / den : (exactAt.of(f)?.toNumber() ?? NaN);
         if (solved.kind === "singular" || !Number.isFinite(exact)) {
           usable = false; // a point where this set-up happens to be singular: try elsewhere
