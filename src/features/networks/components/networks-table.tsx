@@ -71,7 +71,7 @@ export function NetworksTable({ teamId, role }: { teamId: string; role: Role }) 
   const [direction, setDirection] = useState<"asc" | "desc">("desc");
   const debouncedSearch = useDebounced(search, 250);
   // A new search or order starts again at page 1: the page is kept with the query it belongs to.
-  const query = `${debouncedSearch}\u0000${sort}\u0000${direction}`;
+  const query = JSON.stringify([debouncedSearch, sort, direction]);
   const [paged, setPaged] = useState({ query, page: 1 });
   const page = paged.query === query ? paged.page : 1;
   const setPage = (next: number) => setPaged({ query, page: next });
