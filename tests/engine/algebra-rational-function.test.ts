@@ -40,6 +40,18 @@ describe("RationalFunction: lowest terms and canonical form", () => {
   });
 });
 
+describe("RationalFunction: one normalized denominator per denominator", () => {
+  it("two results over the same det A share the normalized denominator, as the open port's Vth and Rth do", () => {
+    // -2*(R1*R2 + R1*R3): content 2 and a negative leading coefficient, so it is normalized.
+    const det = F("-2*(R1*R2 + R1*R3 + R2*R3)").num;
+    const vth = RationalFunction.from(F("Vs*R2").num, det);
+    const rth = RationalFunction.from(F("R1*R2*R3").num, det);
+    expect(vth.den.toInfix()).toBe("R1*R2 + R1*R3 + R2*R3");
+    expect(vth.num.toInfix()).toBe("-R2*Vs/2");
+    expect(rth.den).toBe(vth.den);
+  });
+});
+
 describe("RationalFunction: field laws (common practice)", () => {
   it("addition and multiplication: commutative, associative, distributive", () => {
     fc.assert(

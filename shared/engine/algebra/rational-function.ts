@@ -47,11 +47,9 @@ export class RationalFunction {
     if (num.isZero()) return RationalFunction.ZERO;
     if (den.isConstant()) return new RationalFunction(num.scale(den.constantValue()!.inverse()), Poly.one());
     // Make D primitive with integer coefficients and a positive leading coefficient.
-    let c = den.content();
-    if (den.coefs[0] < 0n) c = c.neg();
-    if (c.isOne()) return new RationalFunction(num, den);
-    const inv = c.inverse();
-    return new RationalFunction(num.scale(inv), den.scale(inv));
+    const normal = normalDenominator(den);
+    if (normal === null) return new RationalFunction(num, den);
+    return new RationalFunction(num.scale(normal.inverse), normal.den);
   }
 
   static constant(c: Rational | bigint | number): RationalFunction {
@@ -261,6 +259,12 @@ export class RationalFunction {
 
   /** Canonical expanded "N/D" ("N" when D = 1), plain infix, sympy-parsable once ^ is power. */
   toInfix(): string {
+    return (this.infixCache ??= this.printInfix());
+  }
+
+  private infixCache: string | undefined;
+
+  private printInfix(): string {
     if (this.den.isOne()) return this.num.toInfix();
     // Integer coefficients on both sides: scale N and D by N's common denominator.
     const [n, d] = this.integerParts();
@@ -402,6 +406,25 @@ function pushFactors(out: CompactFactor[], f: CheapFactorization): void {
       exponent,
     });
   }
+}
+
+/**
+ * D made primitive with a positive leading coefficient, and the factor that did it; null when D is
+ * already so. Kept per D, so results over one denominator (Vth and Rth over det A) share one
+ * normalized denominator object, and with it its printed form and its values at the check points.
+ */
+const normalDenominators = new WeakMap<Poly, { inverse: Rational; den: Poly } | null>();
+
+function normalDenominator(den: Poly): { inverse: Rational; den: Poly } | null {
+  let normal = normalDenominators.get(den);
+  if (normal === undefined) {
+    let c = den.content();
+    if (den.coefs[0] < 0n) c = c.neg();
+    const inverse = c.inverse();
+    normal = c.isOne() ? null : { inverse, den: den.scale(inverse) };
+    normalDenominators.set(den, normal);
+  }
+  return normal;
 }
 
 function wrapDenominator(d: Poly): string {

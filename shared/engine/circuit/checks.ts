@@ -61,11 +61,9 @@ function accurateInFloats(p: Poly, point: Record<string, number>): number | null
  * the two differ; residues that agree leave a chance of about 1/PRIME that they differ still.
  * Returns the exact value of f when it was computed (for the message), null when f has a pole there.
  */
-function sameAtPoint(f: RationalFunction, value: Rational, numerators: Readonly<Record<string, bigint>>, q: bigint, F: Field<Rational>): { same: boolean; exact?: Rational } | null {
-  const qInverse = invMod(residue(q));
-  const at = new Map(Object.entries(numerators).map(([s, m]) => [s, (residue(m) * qInverse) % PRIME]));
-  const num = evalMod(f.num, at);
-  const den = evalMod(f.den, at);
+function sameAtPoint(f: RationalFunction, value: Rational, residues: (p: Poly) => number | null, F: Field<Rational>): { same: boolean; exact?: Rational } | null {
+  const num = residues(f.num);
+  const den = residues(f.den);
   const valueDen = residue(value.den);
   if (num !== null && den !== null && den !== 0 && valueDen !== 0) {
     if ((num * valueDen) % PRIME === (den * residue(value.num)) % PRIME) return { same: true };
@@ -348,6 +346,8 @@ export interface CheckInput {
   vth: RationalFunction | null;
   isc: RationalFunction | null;
   rth: RationalFunction | null;
+  /** Whether Voc/Isc equals Rth exactly (vocIscAgreement, decided once by the solve). */
+  agree: boolean | null;
   seed: number;
 }
 
@@ -376,10 +376,17 @@ interface Tally {
   firstPoint: Record<string, number> | null;
 }
 
-/** Float tableau solves at random points against the exact results evaluated there. */
-function floatCompare(input: CheckInput, which: Checked[], random: () => number): Tally {
+/**
+ * Float tableau solves at random points against the exact results evaluated there: the tally of
+ * every result (the numeric mark) and of Rth alone (the test-source mark, the same solves of the
+ * test-source tableau). A polynomial shared by two results (det A under Vth and Rth) is evaluated
+ * once per point.
+ */
+function floatCompare(input: CheckInput, random: () => number): { numeric: Tally; testSource: Tally } {
   const symbols = symbolsOf(input.values, input.terms);
-  const tally: Tally = { points: 0, compared: 0, worst: 0, disagree: [], firstPoint: null };
+  const empty = (): Tally => ({ points: 0, compared: 0, worst: 0, disagree: [], firstPoint: null });
+  const numeric = empty();
+  const testSource = empty();
   for (let k = 0; k < FLOAT_POINTS; k++) {
     for (let attempt = 0; attempt < TRIES; attempt++) {
       // Values m/64 in [0.5, 2]: exact in binary, and cheap to substitute exactly.
@@ -388,9 +395,14 @@ function floatCompare(input: CheckInput, which: Checked[], random: () => number)
       // The results are evaluated exactly at the point: their expanded forms lose digits in floats.
       const exactAt = rationalField(Object.fromEntries(sixtyFourths.map(([s, m]) => [s, BigInt(m)])), 64n);
       const F = floatField(point);
+      const inFloats = new Map<Poly, number | null>();
+      const floatValue = (p: Poly) => {
+        if (!inFloats.has(p)) inFloats.set(p, accurateInFloats(p, point));
+        return inFloats.get(p)!;
+      };
       let usable = true;
       const verdicts: { name: Checked; error: number | null; existence: string | null }[] = [];
-      for (const name of which) {
+      for (const name of ["vth", "rth", "isc"] as const) {
         const f = input[name];
         const solved = tableauPortValue(input.network, input.values, input.terms, MODE_OF[name], F, point[LAPLACE]);
         if (solved.kind === "pole") {
@@ -403,8 +415,8 @@ function floatCompare(input: CheckInput, which: Checked[], random: () => number)
           continue;
         }
         // Floats where their rounding bound allows it (far the most results), else exact.
-        const num = accurateInFloats(f.num, point);
-        const den = num === null ? null : accurateInFloats(f.den, point);
+        const num = floatValue(f.num);
+        const den = num === null ? null : floatValue(f.den);
         const exact = num !== null && den !== null && den !== 0 ? num / den : (exactAt.of(f)?.toNumber() ?? NaN);
         if (solved.kind === "singular" || !Number.isFinite(exact)) {
           usable = false; // a point where this set-up happens to be singular: try elsewhere
@@ -414,20 +426,25 @@ function floatCompare(input: CheckInput, which: Checked[], random: () => number)
         verdicts.push({ name, error, existence: null });
       }
       if (!usable) continue;
-      tally.firstPoint ??= point;
-      tally.points++;
-      for (const v of verdicts) {
-        tally.compared++;
-        if (v.existence) tally.disagree.push(v.existence);
-        if (v.error !== null) {
-          tally.worst = Math.max(tally.worst, v.error);
-          if (v.error >= 1e-6) tally.disagree.push(`${LABEL[v.name]} differs by ${v.error.toExponential(1)} (relative)`);
-        }
-      }
+      tallyPoint(numeric, point, verdicts);
+      tallyPoint(testSource, point, verdicts.filter((v) => v.name === "rth"));
       break;
     }
   }
-  return tally;
+  return { numeric, testSource };
+}
+
+function tallyPoint(tally: Tally, point: Record<string, number>, verdicts: { name: Checked; error: number | null; existence: string | null }[]): void {
+  tally.firstPoint ??= point;
+  tally.points++;
+  for (const v of verdicts) {
+    tally.compared++;
+    if (v.existence) tally.disagree.push(v.existence);
+    if (v.error !== null) {
+      tally.worst = Math.max(tally.worst, v.error);
+      if (v.error >= 1e-6) tally.disagree.push(`${LABEL[v.name]} differs by ${v.error.toExponential(1)} (relative)`);
+    }
+  }
 }
 
 /** Exact rational tableau solves at random rational points against the exact results substituted there. */
@@ -440,6 +457,14 @@ function exactCompare(input: CheckInput, random: () => number): { compared: numb
       const q = [3, 5, 7, 11][Math.floor(random() * 4)];
       const numerators = Object.fromEntries(symbols.map((s) => [s, BigInt(1 + Math.floor(random() * 97))]));
       const F = rationalField(numerators, BigInt(q));
+      // Residues of the results at the point, each polynomial once (det A is under Vth and Rth).
+      const qInverse = invMod(residue(BigInt(q)));
+      const at = new Map(Object.entries(numerators).map(([s, m]) => [s, (residue(m) * qInverse) % PRIME]));
+      const modular = new Map<Poly, number | null>();
+      const residues = (p: Poly) => {
+        if (!modular.has(p)) modular.set(p, evalMod(p, at));
+        return modular.get(p)!;
+      };
       const found: string[] = [];
       let usable = true;
       let compared = 0;
@@ -455,7 +480,7 @@ function exactCompare(input: CheckInput, random: () => number): { compared: numb
           compared++;
           continue;
         }
-        const compare = solved.kind === "singular" ? null : sameAtPoint(f, solved.value, numerators, BigInt(q), F);
+        const compare = solved.kind === "singular" ? null : sameAtPoint(f, solved.value, residues, F);
         if (solved.kind === "singular" || compare === null) {
           usable = false;
           break;
@@ -526,17 +551,17 @@ export function checkResults(input: CheckInput): { checks: SolveChecks; numericC
   const random = seededRandom(input.seed ^ 0x5eed);
   const anyResult = input.vth !== null || input.isc !== null || input.rth !== null;
 
-  const testSource = floatDetail(anyResult, floatCompare(input, ["rth"], random), TEST_SOURCE_METHOD);
+  const floatRuns = floatCompare(input, random);
+  const testSource = floatDetail(anyResult, floatRuns.testSource, TEST_SOURCE_METHOD);
 
-  const voc = vocIscAgreement(input.vth, input.isc, input.rth);
   const vocIsc = detail(
-    voc.agree,
+    input.agree,
     VOC_ISC_METHOD,
-    voc.agree === null ? "Only one form of Rth exists for this port." : voc.agree ? "Voc/Isc − Rth cancels to 0." : "Voc/Isc − Rth does not cancel: the results disagree.",
+    input.agree === null ? "Only one form of Rth exists for this port." : input.agree ? "Voc/Isc − Rth cancels to 0." : "Voc/Isc − Rth does not cancel: the results disagree.",
     0,
   );
 
-  const numericRun = floatCompare(input, ["vth", "rth", "isc"], random);
+  const numericRun = floatRuns.numeric;
   const numeric = floatDetail(anyResult, numericRun, NUMERIC_METHOD);
 
   const exactRun = anyResult ? exactCompare(input, random) : { compared: 0, points: 0, disagree: [] };

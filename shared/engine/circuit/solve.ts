@@ -109,7 +109,7 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
   result.norton = isc && rth && !rth.isZero() ? { isc: isc.toInfix(), rth: rth.toInfix() } : null;
 
   if (!(open.singular && short.singular)) {
-    const checked = checkResults({ network, values, terms, vth, isc, rth, seed });
+    const checked = checkResults({ network, values, terms, vth, isc, rth, agree, seed });
     result.checks = checked.checks;
     result.numericCheck = checked.numericCheck;
   }
