@@ -127,6 +127,29 @@ describe("Poly: structure and printing", () => {
     expect(Poly.zero().toInfix()).toBe("0");
   });
 
+  it("large products and reciprocal substitutions come out in graded-lexicographic order (checked term by term)", () => {
+    // Twelve variables of degree 7: 36 bits of exponents, past one 32-bit word; 4096 terms, past one radix digit.
+    const names = Array.from({ length: 12 }, (_, i) => `a_${i + 1}`);
+    let q = Poly.one();
+    for (const name of names) q = q.mul(Poly.one().add(Poly.variable(name).pow(7)));
+    // Twenty multilinear variables, every one replaced by its reciprocal: the order reverses wholesale.
+    const gs = Array.from({ length: 20 }, (_, i) => `g_${i + 1}`);
+    let m = Poly.one();
+    for (let i = 0; i < gs.length; i += 2) m = m.mul(Poly.variable(gs[i]).add(Poly.variable(gs[i + 1])).add(Poly.one()));
+    const { poly: r } = reciprocalSubstitute(m, Object.fromEntries(gs.map((g, i) => [g, `R_${i + 1}`])));
+    for (const [poly, vars] of [[q, names], [r, gs.map((_, i) => `R_${i + 1}`)]] as const) {
+      const rows = poly.terms().map((t) => vars.map((v) => t.monomial[v] ?? 0));
+      expect(rows.length).toBeGreaterThan(2048);
+      for (let t = 1; t < rows.length; t++) {
+        const [a, b] = [rows[t - 1], rows[t]];
+        const [da, db] = [a.reduce((x, y) => x + y, 0), b.reduce((x, y) => x + y, 0)];
+        const first = a.findIndex((x, v) => x !== b[v]);
+        // Higher total degree first, then the larger exponent at the first variable where they differ.
+        expect(da > db || (da === db && first >= 0 && a[first] > b[first])).toBe(true);
+      }
+    }
+  });
+
   it("natural order of names: Ra_2 before Ra_10", () => {
     const q = Poly.variable("Ra_10").add(Poly.variable("Ra_2"));
     expect(q.variables()).toEqual(["Ra_2", "Ra_10"]);

@@ -23,8 +23,11 @@ function checkSquare(m: Matrix): number {
   return n;
 }
 
-/** Reverse Cuthill-McKee order of the symmetrized sparsity pattern. */
-function bandOrder(m: Matrix): number[] {
+/**
+ * Reverse Cuthill-McKee order of the symmetrized sparsity pattern. With a lead row, the
+ * Cuthill-McKee order from that row instead (not reversed), so the lead comes first.
+ */
+function bandOrder(m: Matrix, lead = -1): number[] {
   const n = m.length;
   const adj: Set<number>[] = Array.from({ length: n }, () => new Set<number>());
   for (let i = 0; i < n; i++) {
@@ -39,8 +42,8 @@ function bandOrder(m: Matrix): number[] {
   const seen = new Array<boolean>(n).fill(false);
   const order: number[] = [];
   while (order.length < n) {
-    let start = -1;
-    for (let i = 0; i < n; i++) if (!seen[i] && (start < 0 || degree[i] < degree[start])) start = i;
+    let start = lead >= 0 && !seen[lead] ? lead : -1;
+    if (start < 0) for (let i = 0; i < n; i++) if (!seen[i] && (start < 0 || degree[i] < degree[start])) start = i;
     seen[start] = true;
     const queue = [start];
     for (let q = 0; q < queue.length; q++) {
@@ -53,7 +56,7 @@ function bandOrder(m: Matrix): number[] {
       }
     }
   }
-  return order.reverse();
+  return lead >= 0 ? order : order.reverse();
 }
 
 // ---- arithmetic used by the expansion: packed keys in one layout for the whole matrix ----
@@ -144,7 +147,7 @@ type SmallPacked = Extract<PackedPoly, { small: true }>;
 function combineSmall(entries: readonly SmallPacked[], signs: readonly number[], minors: readonly SmallPacked[]): PackedPoly | null {
   let expected = 0;
   for (let i = 0; i < minors.length; i++) expected += minors[i].keys.length * entries[i].keys.length;
-  const table = new TermTable(Math.min(expected, 1 << 16));
+  const table = new TermTable(Math.min(expected, 1 << 20));
   for (let i = 0; i < entries.length; i++) {
     const e = entries[i];
     const mk = minors[i].keys;
@@ -275,9 +278,9 @@ export interface CofactorTable {
   cofactor(i: number, j: number): Poly;
 }
 
-export function cofactorsOf(m: Matrix): CofactorTable {
+export function cofactorsOf(m: Matrix, lead = -1): CofactorTable {
   const n = checkSquare(m);
-  const order = bandOrder(m);
+  const order = bandOrder(m, lead);
   const position = new Array<number>(n);
   order.forEach((orig, k) => (position[orig] = k));
   const pm = prepare(permuted(m, order));

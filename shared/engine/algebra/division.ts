@@ -3,7 +3,7 @@
 
 import { Poly } from "./polynomial";
 import { fieldsFromKeys } from "./polynomial-build";
-import { addKeys, fieldDecoder, keysIn, makeLayout, subKeys, varMap, type Key, type Layout } from "./monomial-layout";
+import { addKeys, fieldDecoder, fieldOf, keysIn, makeLayout, subKeys, varMap, type Key, type Layout } from "./monomial-layout";
 
 class MaxHeap {
   private readonly items: Key[] = [];
@@ -137,8 +137,7 @@ function quotientTermFits(layout: Layout, dec: Decoder | null, k: Key, ltB: Int3
     const hi = Math.floor(kk / 4294967296);
     const lo = (kk - hi * 4294967296) >>> 0;
     for (let v = 0; v < nv; v++) {
-      const off = dec.off[v];
-      const e = (off >= 32 ? hi >>> (off - 32) : off + dec.bits[v] <= 32 ? lo >>> off : (lo >>> off) | (hi << (32 - off))) & dec.mask[v];
+      const e = fieldOf(hi, lo, v, dec);
       const d = e - ltB[v];
       if (d < 0 || d > qMax[v]) return false;
     }

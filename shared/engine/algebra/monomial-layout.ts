@@ -133,6 +133,12 @@ export function gradedKeys(e: Uint16Array, n: number, nv: number, mult: Float64A
   return keys;
 }
 
+/** Field v of a key given as its high and low 32-bit words (decoder from fieldDecoder). */
+export function fieldOf(hi: number, lo: number, v: number, dec: { off: Int32Array; bits: Int32Array; mask: Int32Array }): number {
+  const off = dec.off[v];
+  return (off >= 32 ? hi >>> (off - 32) : off + dec.bits[v] <= 32 ? lo >>> off : (lo >>> off) | (hi << (32 - off))) & dec.mask[v];
+}
+
 /** Bit offset, width and mask of each field, for decoding keys with 32-bit integer operations. */
 export function fieldDecoder(layout: Layout): { off: Int32Array; bits: Int32Array; mask: Int32Array } {
   const nv = layout.vars.length;

@@ -5,7 +5,7 @@
 
 import { bigGcd, bigLcm, type Rational } from "./rational";
 import { sortNames } from "./names";
-import { MAX_EXPONENT, bitLength, fieldDecoder, gradedKeys, makeLayout, type Key, type Layout } from "./monomial-layout";
+import { MAX_EXPONENT, bitLength, fieldDecoder, fieldOf, gradedKeys, makeLayout, type Key, type Layout } from "./monomial-layout";
 
 /** A polynomial's fields in canonical form, with its degrees when the building operation knows them. */
 export interface PolyFields {
@@ -44,6 +44,10 @@ export function fieldsFromKeys(layout: Layout, keys: ArrayLike<Key>, coefs: Arra
     for (let i = 0; i < m; i++) if (coefs[i] !== 0n) keep.push(i);
   }
   const n = keep.length;
+  if (layout.packed && n > 1) {
+    const sorted = sortedFromKeys(layout, keys, keep, coefs, den);
+    if (sorted !== null) return sorted;
+  }
   const exps = new Uint16Array(n * nv);
   if (layout.packed) {
     const dec = fieldDecoder(layout);
@@ -55,10 +59,7 @@ export function fieldsFromKeys(layout: Layout, keys: ArrayLike<Key>, coefs: Arra
       const hi = Math.floor(k / 4294967296);
       const lo = (k - hi * 4294967296) >>> 0;
       const o = t * nv;
-      for (let v = 0; v < nv; v++) {
-        const off = dec.off[v];
-        exps[o + v] = (off >= 32 ? hi >>> (off - 32) : off + dec.bits[v] <= 32 ? lo >>> off : (lo >>> off) | (hi << (32 - off))) & dec.mask[v];
-      }
+      for (let v = 0; v < nv; v++) exps[o + v] = fieldOf(hi, lo, v, dec);
     }
   } else {
     const masks = layout.bits.map((b) => (1n << BigInt(b)) - 1n);
@@ -71,6 +72,112 @@ export function fieldsFromKeys(layout: Layout, keys: ArrayLike<Key>, coefs: Arra
   if (coefs instanceof Float64Array) for (let t = 0; t < n; t++) cs.push(BigInt(coefs[keep[t]]));
   else for (let t = 0; t < n; t++) cs.push(coefs[keep[t]]);
   return canonicalFields(layout.vars, exps, cs, den);
+}
+
+/**
+ * The canonical fields straight from packed keys, without writing the exponent rows twice: one
+ * pass reads each key's degree and the variables' degrees from its fields, the keys are ordered by
+ * (degree, key) - in a layout with the first variable in the top field, key order is lexicographic
+ * order - and the rows are decoded once, in that order. Null when (degree, key) does not fit a
+ * double; the caller then takes the general path.
+ */
+function sortedFromKeys(layout: Layout, keys: ArrayLike<Key>, keep: readonly number[], coefs: ArrayLike<bigint> | Float64Array, den: bigint): PolyFields | null {
+  const nv = layout.vars.length;
+  const n = keep.length;
+  const dec = fieldDecoder(layout);
+  const ks = keys instanceof Float64Array ? keys : Float64Array.from(keys as ArrayLike<number>);
+  const hi = new Uint32Array(n);
+  const lo = new Uint32Array(n);
+  const degree = new Float64Array(n);
+  const maxDeg = new Int32Array(nv);
+  let maxTotal = 0;
+  for (let t = 0; t < n; t++) {
+    const k = ks[keep[t]];
+    const h = Math.floor(k / 4294967296);
+    const l = (k - h * 4294967296) >>> 0;
+    hi[t] = h;
+    lo[t] = l;
+    let d = 0;
+    for (let v = 0; v < nv; v++) {
+      const x = fieldOf(h, l, v, dec);
+      d += x;
+      if (x > maxDeg[v]) maxDeg[v] = x;
+    }
+    degree[t] = d;
+    if (d > maxTotal) maxTotal = d;
+  }
+  if (layout.totalBits + bitLength(maxTotal) > 53) return null;
+  const top = 2 ** layout.totalBits;
+  const graded = new Float64Array(n);
+  for (let t = 0; t < n; t++) graded[t] = degree[t] * top + ks[keep[t]];
+  const order = radixOrder(graded);
+  // Variables that occur; a field that is zero in every term is left out.
+  const kept: number[] = [];
+  for (let v = 0; v < nv; v++) if (maxDeg[v] > 0) kept.push(v);
+  const nk = kept.length;
+  const exps = new Uint16Array(n * nk);
+  const cs = new Array<bigint>(n);
+  const small = coefs instanceof Float64Array;
+  for (let r = 0; r < n; r++) {
+    const t = order[n - 1 - r];
+    const h = hi[t];
+    const l = lo[t];
+    const o = r * nk;
+    for (let j = 0; j < nk; j++) exps[o + j] = fieldOf(h, l, kept[j], dec);
+    cs[r] = small ? BigInt(coefs[keep[t]]) : (coefs[keep[t]] as bigint);
+  }
+  if (den < 0n) {
+    den = -den;
+    for (let i = 0; i < n; i++) cs[i] = -cs[i];
+  }
+  den = normalizeDen(cs, den);
+  return { vars: nk === nv ? layout.vars : kept.map((v) => layout.vars[v]), exps, coefs: cs, den, degrees: Int32Array.from(kept, (v) => maxDeg[v]) };
+}
+
+/**
+ * Ascending order of distinct non-negative integer keys below 2^53, as term indices: a least
+ * significant digit radix sort in passes of 11 bits (linear, and no index bits packed into the key).
+ */
+function radixOrder(keys: Float64Array): Uint32Array {
+  const n = keys.length;
+  const hi = new Uint32Array(n);
+  const lo = new Uint32Array(n);
+  let maxHi = 0;
+  let maxLo = 0;
+  for (let t = 0; t < n; t++) {
+    const h = Math.floor(keys[t] / 4294967296);
+    hi[t] = h;
+    lo[t] = (keys[t] - h * 4294967296) >>> 0;
+    if (h > maxHi) maxHi = h;
+    if (lo[t] > maxLo) maxLo = lo[t];
+  }
+  let order = new Uint32Array(n);
+  for (let t = 0; t < n; t++) order[t] = t;
+  let next = new Uint32Array(n);
+  const count = new Uint32Array(2048);
+  const pass = (word: Uint32Array, shift: number) => {
+    count.fill(0);
+    for (let i = 0; i < n; i++) count[(word[order[i]] >>> shift) & 2047]++;
+    let sum = 0;
+    for (let b = 0; b < 2048; b++) {
+      const c = count[b];
+      count[b] = sum;
+      sum += c;
+    }
+    for (let i = 0; i < n; i++) {
+      const t = order[i];
+      next[count[(word[t] >>> shift) & 2047]++] = t;
+    }
+    [order, next] = [next, order];
+  };
+  // Passes above the largest key's top bit would leave the order as it is: they are skipped.
+  if (maxHi > 0) {
+    for (let shift = 0; shift < 32; shift += 11) pass(lo, shift);
+    for (let shift = 0; shift < 32 && maxHi >>> shift > 0; shift += 11) pass(hi, shift);
+  } else {
+    for (let shift = 0; shift < 32 && maxLo >>> shift > 0; shift += 11) pass(lo, shift);
+  }
+  return order;
 }
 
 /** A monomial by its variables: coefficient and (variable number, exponent) pairs, variables distinct, in any order. */
@@ -228,21 +335,15 @@ export function sortedFields(vars: readonly string[], e: Uint16Array, coefs: big
     let sorted = true;
     for (let t = 1; t < n && sorted; t++) if (sk[t] > sk[t - 1]) sorted = false;
     if (sorted) return { vars, exps: e, coefs, den, degrees };
-    order = new Uint32Array(n);
-    const idxBits = bitLength(n);
-    if (layout.totalBits + bitLength(maxTot) + idxBits <= 53) {
-      // Room for the term index below the key: one native numeric sort, indices read back.
-      const scale = 2 ** idxBits;
-      const packed = new Float64Array(n);
-      for (let t = 0; t < n; t++) packed[t] = sk[t] * scale + t;
-      packed.sort();
-      for (let t = 0; t < n; t++) order[t] = packed[n - 1 - t] % scale;
+    // Reversed order is common too: a reciprocal substitution reflects every exponent.
+    let reversed = true;
+    for (let t = 1; t < n && reversed; t++) if (sk[t] < sk[t - 1]) reversed = false;
+    if (reversed) {
+      order = new Uint32Array(n);
+      for (let t = 0; t < n; t++) order[t] = n - 1 - t;
     } else {
-      // Keys are distinct integers: a native numeric sort, then each key finds its term again.
-      const where = new Map<number, number>();
-      for (let t = 0; t < n; t++) where.set(sk[t], t);
-      const asc = sk.slice().sort();
-      for (let t = 0; t < n; t++) order[t] = where.get(asc[n - 1 - t])!;
+      // Ascending by graded key, read back from the top.
+      order = radixOrder(sk).reverse();
     }
   } else {
     const tot = new Float64Array(n);

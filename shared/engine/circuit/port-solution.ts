@@ -29,9 +29,9 @@ export interface ShortPortSolution {
 }
 
 export function solveOpenPort(sys: NodalSystem, port: Port): OpenPortSolution {
-  const table = cofactorsOf(sys.a);
-  const det = table.determinant();
   const c = portVector(sys, port);
+  const table = cofactorsOf(sys.a, c.findIndex((x) => !x.isZero()));
+  const det = table.determinant();
   const portCols = c.map((x, i) => (x.isZero() ? -1 : i)).filter((i) => i >= 0);
   // cᵀ adj(A) v for a right side v: adj(A)_{ij} = C_ji.
   const along = (v: Poly[]): Poly => {

@@ -3,7 +3,7 @@
 // unchanged: this is the multilinear conversion of ENGINE-NOTES (no GCD needed for this step).
 
 import { Poly, reciprocalSubstitute } from "../algebra";
-import type { InternalSymbol } from "./values";
+import { simpleReciprocalOf, type InternalSymbol } from "./values";
 
 /**
  * Replace each internal variable y = a/b in every polynomial of the group by clearing b:
@@ -33,7 +33,7 @@ export function restoreUserSymbols(group: readonly Poly[], internals: readonly I
   // y = 1/R with R a single symbol: a term-wise exponent remap. Batches keep the targets distinct.
   for (const batch of distinctTargetBatches(simple)) {
     const pairs: Record<string, string> = {};
-    for (const s of batch) pairs[s.name] = s.value.den.variables()[0];
+    for (const s of batch) pairs[s.name] = simpleReciprocalOf(s.value)!;
     const degrees = batch.map((s) => polys.map((p) => Math.max(0, p.degreeIn(s.name))));
     const top = degrees.map((ds) => Math.max(...ds));
     polys = polys.map((p, i) => {
@@ -51,17 +51,13 @@ export function restoreUserSymbols(group: readonly Poly[], internals: readonly I
 }
 
 function isSimpleReciprocal(s: InternalSymbol): boolean {
-  const n = s.value.num.constantValue();
-  const den = s.value.den;
-  if (n === null || !n.isOne()) return false;
-  const vars = den.variables();
-  return vars.length === 1 && den.equals(Poly.variable(vars[0]));
+  return simpleReciprocalOf(s.value) !== null;
 }
 
 function distinctTargetBatches(symbols: InternalSymbol[]): InternalSymbol[][] {
   const batches: { targets: Set<string>; members: InternalSymbol[] }[] = [];
   for (const s of symbols) {
-    const t = s.value.den.variables()[0];
+    const t = simpleReciprocalOf(s.value)!;
     let batch = batches.find((b) => !b.targets.has(t));
     if (!batch) {
       batch = { targets: new Set(), members: [] };

@@ -164,8 +164,20 @@ const ROLE_LETTER: Record<CoefficientRole, string> = { admittance: "y", impedanc
 export function coefficientOf(display: RationalFunction, element: string, index: number, role: CoefficientRole, forceInternal = false, part = 0): Coefficient {
   const c = display.den.constantValue();
   if (c !== null && !forceInternal) return { poly: display.num.scale(c.inverse()), display, internal: null };
-  const name = `$${ROLE_LETTER[role]}${index + 1}${part > 0 ? `_${part + 1}` : ""}`;
+  // 1/R names its R, so the internals sort as their targets do: undoing the substitution then
+  // reverses the canonical term order instead of scrambling it (see reciprocalSubstitute).
+  const target = simpleReciprocalOf(display);
+  // "." sorts below every character of a name, so "$yR.2" comes before "$yR1.3" as R before R1.
+  const name = `$${ROLE_LETTER[role]}${target === null ? "" : `${target}.`}${index + 1}${part > 0 ? `_${part + 1}` : ""}`;
   const internal: InternalSymbol = { name, value: display, element, role };
   return { poly: Poly.variable(name), display, internal };
 }
 
+
+/** R when the value is 1/R with R a single symbol, else null. */
+export function simpleReciprocalOf(value: RationalFunction): string | null {
+  const one = value.num.constantValue();
+  if (one === null || !one.isOne() || value.den.termCount() !== 1) return null;
+  const vars = value.den.variables();
+  return vars.length === 1 && value.den.equals(Poly.variable(vars[0])) ? vars[0] : null;
+}
