@@ -335,16 +335,8 @@ export function sortedFields(vars: readonly string[], e: Uint16Array, coefs: big
     let sorted = true;
     for (let t = 1; t < n && sorted; t++) if (sk[t] > sk[t - 1]) sorted = false;
     if (sorted) return { vars, exps: e, coefs, den, degrees };
-    // Reversed order is common too: a reciprocal substitution reflects every exponent.
-    let reversed = true;
-    for (let t = 1; t < n && reversed; t++) if (sk[t] < sk[t - 1]) reversed = false;
-    if (reversed) {
-      order = new Uint32Array(n);
-      for (let t = 0; t < n; t++) order[t] = n - 1 - t;
-    } else {
-      // Ascending by graded key, read back from the top.
-      order = radixOrder(sk).reverse();
-    }
+    // Ascending by graded key, read back from the top.
+    order = radixOrder(sk).reverse();
   } else {
     const tot = new Float64Array(n);
     for (let t = 0, o = 0; t < n; t++, o += nv) {

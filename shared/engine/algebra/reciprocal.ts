@@ -30,9 +30,13 @@ export function reciprocalSubstitute(p: Poly, pairs: Record<string, string>): { 
   const n = p.coefs.length;
   const exps = new Uint16Array(n * nvOut);
   const src = p.exps;
+  // Every variable reflected, in the same order as its target: reflecting reverses the graded
+  // lexicographic order exactly, so the rows are written in reverse and no sort is needed.
+  let reverses = reflect.every((r) => r === 1);
+  for (let v = 1; v < nvIn && reverses; v++) if (col[v] <= col[v - 1]) reverses = false;
   for (let t = 0; t < n; t++) {
     const i = t * nvIn;
-    const o = t * nvOut;
+    const o = (reverses ? n - 1 - t : t) * nvOut;
     for (let v = 0; v < nvIn; v++) {
       const e = src[i + v];
       exps[o + col[v]] += reflect[v] === 1 ? degs[v] - e : e;
@@ -47,8 +51,13 @@ export function reciprocalSubstitute(p: Poly, pairs: Record<string, string>): { 
   const outDeg = new Int32Array(nvOut);
   for (let v = 0; v < nvIn; v++) outDeg[col[v]] = reflect[v] === 1 ? degs[v] - low[v] : degs[v];
   // Coefficients are unchanged; sortedFields only reads them (a reduced, positive den is kept as is).
+  const everyVar = outDeg.every((d) => d > 0);
   const poly = Poly.fromFields(
-    outDeg.every((d) => d > 0) ? sortedFields(vars, exps, p.coefs as bigint[], p.den, outDeg) : canonicalFields(vars, exps, p.coefs.slice(), p.den),
+    reverses && everyVar
+      ? { vars, exps, coefs: p.coefs.slice().reverse(), den: p.den, degrees: outDeg }
+      : everyVar
+        ? sortedFields(vars, exps, p.coefs as bigint[], p.den, outDeg)
+        : canonicalFields(vars, exps, reverses ? p.coefs.slice().reverse() : p.coefs.slice(), p.den),
   );
   return { poly, multiplier: Poly.monomial(1, multiplier) };
 }
