@@ -69,7 +69,7 @@ export function fieldsFromKeys(layout: Layout, keys: ArrayLike<Key>, coefs: Arra
       for (let v = 0; v < nv; v++) exps[t * nv + v] = Number((k >> shifts[v]) & masks[v]);
     }
   }
-  if (coefs instanceof Float64Array) for (let t = 0; t < n; t++) cs.push(BigInt(coefs[keep[t]]));
+  if (coefs instanceof Float64Array) for (let t = 0; t < n; t++) cs.push(bigOf(coefs[keep[t]]));
   else for (let t = 0; t < n; t++) cs.push(coefs[keep[t]]);
   return canonicalFields(layout.vars, exps, cs, den);
 }
@@ -124,7 +124,7 @@ function sortedFromKeys(layout: Layout, keys: ArrayLike<Key>, keep: readonly num
     const l = lo[t];
     const o = r * nk;
     for (let j = 0; j < nk; j++) exps[o + j] = fieldOf(h, l, kept[j], dec);
-    cs[r] = small ? BigInt(coefs[keep[t]]) : (coefs[keep[t]] as bigint);
+    cs[r] = small ? bigOf(coefs[keep[t]]) : (coefs[keep[t]] as bigint);
   }
   if (den < 0n) {
     den = -den;
@@ -178,6 +178,14 @@ function radixOrder(keys: Float64Array): Uint32Array {
     for (let shift = 0; shift < 32 && maxLo >>> shift > 0; shift += 11) pass(lo, shift);
   }
   return order;
+}
+
+/** The BigInts of -256 ... 256, made once: most coefficients of a network's polynomials are among them. */
+const SMALL_BIGINTS = Array.from({ length: 513 }, (_, i) => BigInt(i - 256));
+
+/** A safe integer as a BigInt, shared for small values (one object instead of one per term). */
+function bigOf(c: number): bigint {
+  return c >= -256 && c <= 256 ? SMALL_BIGINTS[c + 256] : BigInt(c);
 }
 
 /** A monomial by its variables: coefficient and (variable number, exponent) pairs, variables distinct, in any order. */
