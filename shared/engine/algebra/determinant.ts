@@ -108,7 +108,8 @@ function prepare(m: Matrix): PreparedMatrix {
     }
     for (let v = 0; v < vars.length; v++) maxDeg[v] += rowMax[v];
   }
-  const layout = makeLayout(vars, maxDeg);
+  // Graded keys: every minor's keys sort into canonical order as they are.
+  const layout = makeLayout(vars, maxDeg, true);
   let scale = 1n;
   const entries = m.map((row) => {
     let l = 1n;

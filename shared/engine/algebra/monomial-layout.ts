@@ -24,6 +24,11 @@ export interface Layout {
   readonly totalBits: number;
   /** Keys fit exactly in a double. */
   readonly packed: boolean;
+  /**
+   * A graded layout also holds each monomial's total degree in a field above the exponents
+   * (weight 2^totalBits), so numeric key order is graded lexicographic order.
+   */
+  readonly graded: boolean;
 }
 
 export const MAX_EXPONENT = 0xffff;
@@ -32,7 +37,7 @@ export function bitLength(n: number): number {
   return n <= 0 ? 1 : 32 - Math.clz32(n);
 }
 
-export function makeLayout(vars: readonly string[], maxDeg: ArrayLike<number>): Layout {
+export function makeLayout(vars: readonly string[], maxDeg: ArrayLike<number>, graded = false): Layout {
   const nv = vars.length;
   const bits = new Array<number>(nv);
   let total = 0;
@@ -49,7 +54,11 @@ export function makeLayout(vars: readonly string[], maxDeg: ArrayLike<number>): 
     multBig[v] = 1n << BigInt(off);
     off += bits[v];
   }
-  return { vars, bits, mult, multBig, totalBits: total, packed: total <= 53 };
+  // The degree field is kept only when it fits beside the exponents in a double.
+  let top = 0;
+  for (let v = 0; v < nv; v++) top += maxDeg[v];
+  const isGraded = graded && total + bitLength(top) <= 53;
+  return { vars, bits, mult, multBig, totalBits: total, packed: total <= 53, graded: isGraded };
 }
 
 /** Index of each of `from`'s variables within `to` (both sorted; `from` ⊆ `to`). */
@@ -96,10 +105,15 @@ export function keysIn(p: Poly, layout: Layout): Key[] {
   if (layout.packed) {
     const mult = new Float64Array(nv);
     for (let v = 0; v < nv; v++) mult[v] = layout.mult[map[v]];
+    const degreeWeight = layout.graded ? 2 ** layout.totalBits : 0;
     for (let t = 0, o = 0; t < n; t++, o += nv) {
       let k = 0;
-      for (let v = 0; v < nv; v++) k += e[o + v] * mult[v];
-      keys[t] = k;
+      let d = 0;
+      for (let v = 0; v < nv; v++) {
+        k += e[o + v] * mult[v];
+        d += e[o + v];
+      }
+      keys[t] = k + d * degreeWeight;
     }
   } else {
     const mult = Array.from(map, (j) => layout.multBig[j]);

@@ -75,56 +75,60 @@ export function fieldsFromKeys(layout: Layout, keys: ArrayLike<Key>, coefs: Arra
 }
 
 /**
- * The canonical fields straight from packed keys, without writing the exponent rows twice: one
- * pass reads each key's degree and the variables' degrees from its fields, the keys are ordered by
- * (degree, key) - in a layout with the first variable in the top field, key order is lexicographic
- * order - and the rows are decoded once, in that order. Null when (degree, key) does not fit a
- * double; the caller then takes the general path.
+ * The canonical fields straight from packed keys, each exponent row written once: the keys are
+ * ordered by (degree, key) - in a layout with the first variable in the top field, key order is
+ * lexicographic order; a graded layout holds the degree in the key already - and decoded in that
+ * order. Null when (degree, key) does not fit a double; the caller then takes the general path.
  */
 function sortedFromKeys(layout: Layout, keys: ArrayLike<Key>, keep: readonly number[], coefs: ArrayLike<bigint> | Float64Array, den: bigint): PolyFields | null {
   const nv = layout.vars.length;
   const n = keep.length;
   const dec = fieldDecoder(layout);
   const ks = keys instanceof Float64Array ? keys : Float64Array.from(keys as ArrayLike<number>);
-  const hi = new Uint32Array(n);
-  const lo = new Uint32Array(n);
-  const degree = new Float64Array(n);
-  const maxDeg = new Int32Array(nv);
-  let maxTotal = 0;
-  for (let t = 0; t < n; t++) {
-    const k = ks[keep[t]];
-    const h = Math.floor(k / 4294967296);
-    const l = (k - h * 4294967296) >>> 0;
-    hi[t] = h;
-    lo[t] = l;
-    let d = 0;
-    for (let v = 0; v < nv; v++) {
-      const x = fieldOf(h, l, v, dec);
-      d += x;
-      if (x > maxDeg[v]) maxDeg[v] = x;
-    }
-    degree[t] = d;
-    if (d > maxTotal) maxTotal = d;
-  }
-  if (layout.totalBits + bitLength(maxTotal) > 53) return null;
-  const top = 2 ** layout.totalBits;
   const graded = new Float64Array(n);
-  for (let t = 0; t < n; t++) graded[t] = degree[t] * top + ks[keep[t]];
+  if (layout.graded) {
+    for (let t = 0; t < n; t++) graded[t] = ks[keep[t]];
+  } else {
+    let maxTotal = 0;
+    for (let t = 0; t < n; t++) {
+      const k = ks[keep[t]];
+      const h = Math.floor(k / 4294967296);
+      const l = (k - h * 4294967296) >>> 0;
+      let d = 0;
+      for (let v = 0; v < nv; v++) d += fieldOf(h, l, v, dec);
+      graded[t] = d;
+      if (d > maxTotal) maxTotal = d;
+    }
+    if (layout.totalBits + bitLength(maxTotal) > 53) return null;
+    const top = 2 ** layout.totalBits;
+    for (let t = 0; t < n; t++) graded[t] = graded[t] * top + ks[keep[t]];
+  }
   const order = radixOrder(graded);
-  // Variables that occur; a field that is zero in every term is left out.
-  const kept: number[] = [];
-  for (let v = 0; v < nv; v++) if (maxDeg[v] > 0) kept.push(v);
-  const nk = kept.length;
-  const exps = new Uint16Array(n * nk);
+  let exps = new Uint16Array(n * nv);
+  const maxDeg = new Int32Array(nv);
   const cs = new Array<bigint>(n);
   const small = coefs instanceof Float64Array;
   for (let r = 0; r < n; r++) {
     const t = order[n - 1 - r];
-    const h = hi[t];
-    const l = lo[t];
-    const o = r * nk;
-    for (let j = 0; j < nk; j++) exps[o + j] = fieldOf(h, l, kept[j], dec);
+    const k = ks[keep[t]];
+    const h = Math.floor(k / 4294967296);
+    const l = (k - h * 4294967296) >>> 0;
+    const o = r * nv;
+    for (let v = 0; v < nv; v++) {
+      const x = fieldOf(h, l, v, dec);
+      exps[o + v] = x;
+      if (x > maxDeg[v]) maxDeg[v] = x;
+    }
     cs[r] = small ? bigOf(coefs[keep[t]]) : (coefs[keep[t]] as bigint);
+  }
+  // Variables that occur; a field that is zero in every term is left out.
+  const kept: number[] = [];
+  for (let v = 0; v < nv; v++) if (maxDeg[v] > 0) kept.push(v);
+  const nk = kept.length;
+  if (nk !== nv) {
+    const compact = new Uint16Array(n * nk);
+    for (let r = 0; r < n; r++) for (let j = 0; j < nk; j++) compact[r * nk + j] = exps[r * nv + kept[j]];
+    exps = compact;
   }
   if (den < 0n) {
     den = -den;
