@@ -20,7 +20,7 @@ import { canonicalFields } from "./polynomial-build";
 import { makeLayout, unionVars, type Key } from "./monomial-layout";
 import { polyDivide, polyDivideExact } from "./division";
 import { heuristicGcd } from "./heuristic-gcd";
-import { PRIME, invMod, makeRandom, residue } from "./modular";
+import { PRIME, coefficientResidues, invMod, makeRandom } from "./modular";
 
 /**
  * Images of p in each test variable x: all other variables evaluated at the point (mod PRIME).
@@ -50,11 +50,10 @@ function univariateImages(p: Poly, point: Map<string, number>, testVars: readonl
   const sums = new Float64Array(slots);
   const pw = powers.map((a) => Float64Array.from(a));
   const ex = p.exps;
-  const cs = p.coefs;
+  const cs = coefficientResidues(p);
   let total = 0;
   for (let t = 0, o = 0; t < n; t++, o += nv) {
-    const c = cs[t];
-    let m = c === 1n ? 1 : residue(c);
+    let m = cs[t];
     for (let v = 0; v < nv; v++) {
       const e = ex[o + v];
       if (e !== 0) {

@@ -37,6 +37,18 @@ export function makeRandom(seed: number): () => number {
   };
 }
 
+const residueTables = new WeakMap<Poly, Float64Array>();
+
+/** p's coefficients modulo PRIME, computed once per polynomial (images of one p are taken at many points). */
+export function coefficientResidues(p: Poly): Float64Array {
+  let table = residueTables.get(p);
+  if (table === undefined) {
+    table = Float64Array.from(p.coefs, residue);
+    residueTables.set(p, table);
+  }
+  return table;
+}
+
 /** p at a point (one residue per variable), modulo PRIME; null when p's common denominator vanishes there. */
 export function evalMod(p: Poly, point: ReadonlyMap<string, number>): number | null {
   const d = residue(p.den);
@@ -45,9 +57,10 @@ export function evalMod(p: Poly, point: ReadonlyMap<string, number>): number | n
   const x = p.vars.map((v) => point.get(v)!);
   // Powers by exponent, each computed once per variable.
   const powers = p.vars.map(() => [1]);
+  const cs = coefficientResidues(p);
   let s = 0;
-  for (let t = 0; t < p.coefs.length; t++) {
-    let m = residue(p.coefs[t]);
+  for (let t = 0; t < cs.length; t++) {
+    let m = cs[t];
     for (let v = 0; v < nv && m !== 0; v++) {
       const e = p.exps[t * nv + v];
       if (e === 0) continue;

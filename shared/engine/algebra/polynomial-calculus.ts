@@ -49,6 +49,18 @@ export function substitutedFields(p: Poly, values: Record<string, Rational>): Po
   return sum.fields(p.vars);
 }
 
+const doubleTables = new WeakMap<Poly, Float64Array>();
+
+/** p's coefficients as doubles, converted once per polynomial (it is evaluated at several points). */
+function coefficientDoubles(p: Poly): Float64Array {
+  let table = doubleTables.get(p);
+  if (table === undefined) {
+    table = Float64Array.from(p.coefs, Number);
+    doubleTables.set(p, table);
+  }
+  return table;
+}
+
 /**
  * Floating-point value of p, and a bound on its rounding error; every variable must be given.
  * Each term is a product of at most degree + 2 roundings and summing n terms adds at most n more,
@@ -62,11 +74,12 @@ export function evaluatePoly(p: Poly, values: Record<string, number>): { value: 
     if (typeof val !== "number") throw new Error(`no value for ${v}`);
     return val;
   });
+  const cs = coefficientDoubles(p);
   let sum = 0;
   let magnitude = 0;
   let degree = 0;
-  for (let t = 0; t < p.coefs.length; t++) {
-    let m = Number(p.coefs[t]);
+  for (let t = 0; t < cs.length; t++) {
+    let m = cs[t];
     let d = 0;
     for (let v = 0; v < nv; v++) {
       const k = p.exps[t * nv + v];
