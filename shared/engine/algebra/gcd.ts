@@ -210,6 +210,8 @@ interface PrimitiveGcd {
  * lowA, lowB: the low degree of each variable of a and b.
  */
 function gcdWithoutMonomials(a: Poly, b: Poly, lowA: Int32Array, lowB: Int32Array): PrimitiveGcd | null {
+  // A single term is all monomial: nothing is left to share (and no image of the other is needed).
+  if (a.termCount() === 1 || b.termCount() === 1) return null;
   const all = unionVars(a.vars, b.vars);
   const commonVars = all.filter((v) => a.vars.includes(v) && b.vars.includes(v));
   if (commonVars.length === 0) return null;
