@@ -320,6 +320,25 @@ function coefficientGroups(p: Poly, keep: readonly string[]): Array<{ size: numb
   }));
 }
 
+const fixedImages = new WeakMap<Poly, Map<string, number[]>>();
+
+/** p's images in each of its variables at the fixed point (fixedResidue of each name), computed once per polynomial. */
+function fixedPointImages(p: Poly): Map<string, number[]> {
+  let images = fixedImages.get(p);
+  if (images === undefined) {
+    images = univariateImages(p, new Map(p.vars.map((v) => [v, fixedResidue(v)])), p.vars);
+    fixedImages.set(p, images);
+  }
+  return images;
+}
+
+/** A nonzero residue that depends on the name alone (FNV-1a hash), the same in every gcd. */
+function fixedResidue(name: string): number {
+  let h = 0x811c9dc5;
+  for (let i = 0; i < name.length; i++) h = Math.imul(h ^ name.charCodeAt(i), 0x01000193);
+  return 1 + ((h >>> 0) % (PRIME - 1));
+}
+
 /** Upper bounds on deg_x gcd(a, b) with monomial factors removed, for each common variable x, from images mod PRIME. */
 function degreeBounds(a: Poly, b: Poly, lowA: Int32Array, lowB: Int32Array, all: readonly string[], commonVars: readonly string[]): Map<string, number> {
   const degA = a.degrees();
@@ -334,11 +353,13 @@ function degreeBounds(a: Poly, b: Poly, lowA: Int32Array, lowB: Int32Array, all:
   }
   const random = makeRandom(a.termCount() * 7919 + b.termCount());
   // A point that keeps a leading coefficient gives a valid bound; retry only the variables without one.
+  // The first point is each variable's fixed value, so a polynomial's images there are taken once
+  // for every gcd it enters (det A meets Rth's numerator, then Isc's denominator); retries are random.
   let pending = commonVars.filter((v) => bound.get(v)! > 0);
   for (let attempt = 0; attempt < 3 && pending.length > 0; attempt++) {
-    const point = new Map(all.map((v) => [v, random()]));
-    const imgA = univariateImages(a, point, pending);
-    const imgB = univariateImages(b, point, pending);
+    const point = attempt === 0 ? null : new Map(all.map((v) => [v, random()]));
+    const imgA = point === null ? fixedPointImages(a) : univariateImages(a, point, pending);
+    const imgB = point === null ? fixedPointImages(b) : univariateImages(b, point, pending);
     const retry: string[] = [];
     for (const v of pending) {
       const i = ia.get(v)!;
