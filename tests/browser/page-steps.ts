@@ -43,6 +43,8 @@ export async function importNetlist(page: Page, file: { name: string; text: stri
   await page.getByLabel(/^Title/).fill(file.title);
   await page.getByRole("button", { name: "Import", exact: true }).click();
   await page.waitForURL(/\/networks\/[0-9a-f-]{36}$/);
+  // The address changes before the new network has loaded: wait for its title as well.
+  await page.getByRole("heading", { level: 1, name: file.title, exact: true }).waitFor();
 }
 
 /** What most browser tests start with: the app with its database, one person signed up through the API, a watched page. */
