@@ -148,6 +148,8 @@ type SmallPacked = Extract<PackedPoly, { small: true }>;
 function combineSmall(entries: readonly SmallPacked[], signs: readonly number[], minors: readonly SmallPacked[]): PackedPoly | null {
   let expected = 0;
   for (let i = 0; i < minors.length; i++) expected += minors[i].keys.length * entries[i].keys.length;
+  // An entry has a few terms, so the estimate is close: size the table for it (up to 2^20 terms)
+  // rather than rehash; a general product (mulSmall) can overestimate by far and starts smaller.
   const table = new TermTable(Math.min(expected, 1 << 20));
   for (let i = 0; i < entries.length; i++) {
     const e = entries[i];

@@ -20,6 +20,7 @@ import { canonicalFields } from "./polynomial-build";
 import { makeLayout, unionVars, type Key } from "./monomial-layout";
 import { polyDivide, polyDivideExact } from "./division";
 import { heuristicGcd } from "./heuristic-gcd";
+import { onceEach } from "./memo";
 import { PRIME, coefficientResidues, invMod, makeRandom } from "./modular";
 
 /**
@@ -320,17 +321,8 @@ function coefficientGroups(p: Poly, keep: readonly string[]): Array<{ size: numb
   }));
 }
 
-const fixedImages = new WeakMap<Poly, Map<string, number[]>>();
-
 /** p's images in each of its variables at the fixed point (fixedResidue of each name), computed once per polynomial. */
-function fixedPointImages(p: Poly): Map<string, number[]> {
-  let images = fixedImages.get(p);
-  if (images === undefined) {
-    images = univariateImages(p, new Map(p.vars.map((v) => [v, fixedResidue(v)])), p.vars);
-    fixedImages.set(p, images);
-  }
-  return images;
-}
+const fixedPointImages = onceEach((p: Poly) => univariateImages(p, new Map(p.vars.map((v) => [v, fixedResidue(v)])), p.vars));
 
 /** A nonzero residue that depends on the name alone (FNV-1a hash), the same in every gcd. */
 function fixedResidue(name: string): number {

@@ -3,6 +3,7 @@
 // polynomial's value at a point and a reproducible random point.
 
 import type { Poly } from "./polynomial";
+import { onceEach } from "./memo";
 
 /** A prime below 2^26: the product of two residues stays below 2^53, exact in doubles. */
 export const PRIME = 67108859;
@@ -37,17 +38,8 @@ export function makeRandom(seed: number): () => number {
   };
 }
 
-const residueTables = new WeakMap<Poly, Float64Array>();
-
 /** p's coefficients modulo PRIME, computed once per polynomial (images of one p are taken at many points). */
-export function coefficientResidues(p: Poly): Float64Array {
-  let table = residueTables.get(p);
-  if (table === undefined) {
-    table = Float64Array.from(p.coefs, residue);
-    residueTables.set(p, table);
-  }
-  return table;
-}
+export const coefficientResidues = onceEach((p: Poly): Float64Array => Float64Array.from(p.coefs, residue));
 
 /** p at a point (one residue per variable), modulo PRIME; null when p's common denominator vanishes there. */
 export function evalMod(p: Poly, point: ReadonlyMap<string, number>): number | null {

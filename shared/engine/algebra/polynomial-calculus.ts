@@ -3,6 +3,7 @@
 import { Rational } from "./rational";
 import { RationalTermSum, canonicalFields, ZERO_FIELDS, type PolyFields } from "./polynomial-build";
 import type { Poly } from "./polynomial";
+import { onceEach } from "./memo";
 
 /** d/dv of p. */
 export function derivativeFields(p: Poly, v: string): PolyFields {
@@ -49,17 +50,8 @@ export function substitutedFields(p: Poly, values: Record<string, Rational>): Po
   return sum.fields(p.vars);
 }
 
-const doubleTables = new WeakMap<Poly, Float64Array>();
-
 /** p's coefficients as doubles, converted once per polynomial (it is evaluated at several points). */
-function coefficientDoubles(p: Poly): Float64Array {
-  let table = doubleTables.get(p);
-  if (table === undefined) {
-    table = Float64Array.from(p.coefs, Number);
-    doubleTables.set(p, table);
-  }
-  return table;
-}
+const coefficientDoubles = onceEach((p: Poly): Float64Array => Float64Array.from(p.coefs, Number));
 
 /**
  * Floating-point value of p, and a bound on its rounding error; every variable must be given.

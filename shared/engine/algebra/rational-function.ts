@@ -5,6 +5,7 @@ import { Rational } from "./rational";
 import { Poly } from "./polynomial";
 import { unionVars } from "./monomial-layout";
 import { polyGcdCofactors } from "./gcd";
+import { onceEach } from "./memo";
 import { factorCheap, type CheapFactorization } from "./factor";
 import { sortNames, texName } from "./names";
 
@@ -413,19 +414,12 @@ function pushFactors(out: CompactFactor[], f: CheapFactorization): void {
  * already so. Kept per D, so results over one denominator (Vth and Rth over det A) share one
  * normalized denominator object, and with it its printed form and its values at the check points.
  */
-const normalDenominators = new WeakMap<Poly, { inverse: Rational; den: Poly } | null>();
-
-function normalDenominator(den: Poly): { inverse: Rational; den: Poly } | null {
-  let normal = normalDenominators.get(den);
-  if (normal === undefined) {
-    let c = den.content();
-    if (den.coefs[0] < 0n) c = c.neg();
-    const inverse = c.inverse();
-    normal = c.isOne() ? null : { inverse, den: den.scale(inverse) };
-    normalDenominators.set(den, normal);
-  }
-  return normal;
-}
+const normalDenominator = onceEach((den: Poly): { inverse: Rational; den: Poly } | null => {
+  let c = den.content();
+  if (den.coefs[0] < 0n) c = c.neg();
+  const inverse = c.inverse();
+  return c.isOne() ? null : { inverse, den: den.scale(inverse) };
+});
 
 function wrapDenominator(d: Poly): string {
   const s = d.toInfix();

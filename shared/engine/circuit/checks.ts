@@ -6,6 +6,7 @@
 
 import { Rational, type Poly, type RationalFunction } from "../algebra";
 import { PRIME, evalMod, invMod, residue } from "../algebra/modular";
+import { onceEach } from "../algebra/memo";
 import type { CheckDetail, Element, Network, NumericCheck, SolveChecks } from "../types";
 import { elementNodes, isOpamp, networkNodes } from "./elements";
 import { seededRandom } from "./numeric";
@@ -395,11 +396,7 @@ function floatCompare(input: CheckInput, random: () => number): { numeric: Tally
       // The results are evaluated exactly at the point: their expanded forms lose digits in floats.
       const exactAt = rationalField(Object.fromEntries(sixtyFourths.map(([s, m]) => [s, BigInt(m)])), 64n);
       const F = floatField(point);
-      const inFloats = new Map<Poly, number | null>();
-      const floatValue = (p: Poly) => {
-        if (!inFloats.has(p)) inFloats.set(p, accurateInFloats(p, point));
-        return inFloats.get(p)!;
-      };
+      const floatValue = onceEach((p: Poly) => accurateInFloats(p, point));
       let usable = true;
       const verdicts: { name: Checked; error: number | null; existence: string | null }[] = [];
       for (const name of ["vth", "rth", "isc"] as const) {
@@ -460,11 +457,7 @@ function exactCompare(input: CheckInput, random: () => number): { compared: numb
       // Residues of the results at the point, each polynomial once (det A is under Vth and Rth).
       const qInverse = invMod(residue(BigInt(q)));
       const at = new Map(Object.entries(numerators).map(([s, m]) => [s, (residue(m) * qInverse) % PRIME]));
-      const modular = new Map<Poly, number | null>();
-      const residues = (p: Poly) => {
-        if (!modular.has(p)) modular.set(p, evalMod(p, at));
-        return modular.get(p)!;
-      };
+      const residues = onceEach((p: Poly) => evalMod(p, at));
       const found: string[] = [];
       let usable = true;
       let compared = 0;

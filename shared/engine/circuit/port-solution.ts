@@ -30,9 +30,10 @@ export interface ShortPortSolution {
 
 export function solveOpenPort(sys: NodalSystem, port: Port): OpenPortSolution {
   const c = portVector(sys, port);
-  const table = cofactorsOf(sys.a, c.findIndex((x) => !x.isZero()));
-  const det = table.determinant();
   const portCols = c.map((x, i) => (x.isZero() ? -1 : i)).filter((i) => i >= 0);
+  // The port's row first: its cofactor is then one of the determinant's own first minors.
+  const table = cofactorsOf(sys.a, portCols[0] ?? -1);
+  const det = table.determinant();
   // cᵀ adj(A) v for a right side v: adj(A)_{ij} = C_ji.
   const along = (v: Poly[]): Poly => {
     let s = Poly.zero();

@@ -12,8 +12,8 @@ import { simpleReciprocalOf, type InternalSymbol } from "./values";
 export function restoreUserSymbols(group: readonly Poly[], internals: readonly InternalSymbol[]): Poly[] {
   let polys = group.slice();
   const present = internals.filter((s) => polys.some((p) => p.degreeIn(s.name) > 0));
-  const simple = present.filter(isSimpleReciprocal);
-  const composite = present.filter((s) => !isSimpleReciprocal(s));
+  const simple = present.filter((s) => simpleReciprocalOf(s.value) !== null);
+  const composite = present.filter((s) => simpleReciprocalOf(s.value) === null);
 
   for (const s of composite) {
     const a = s.value.num;
@@ -48,10 +48,6 @@ export function restoreUserSymbols(group: readonly Poly[], internals: readonly I
     });
   }
   return polys;
-}
-
-function isSimpleReciprocal(s: InternalSymbol): boolean {
-  return simpleReciprocalOf(s.value) !== null;
 }
 
 function distinctTargetBatches(symbols: InternalSymbol[]): InternalSymbol[][] {

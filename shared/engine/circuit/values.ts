@@ -173,7 +173,6 @@ export function coefficientOf(display: RationalFunction, element: string, index:
   return { poly: Poly.variable(name), display, internal };
 }
 
-
 /** R when the value is 1/R with R a single symbol, else null. */
 export function simpleReciprocalOf(value: RationalFunction): string | null {
   const one = value.num.constantValue();
