@@ -80,17 +80,25 @@ async function runCapped<T>(
   let timer: NodeJS.Timeout | undefined;
   let timedOut = false;
   let started = false;
-  channel.port1.on("message", (message) => {
-    if (message !== startedMessage || started) return;
+  const markStarted = (): boolean => {
+    if (started) return false;
     started = true;
+    onStarted();
+    return true;
+  };
+  channel.port1.on("message", (message) => {
+    if (message !== startedMessage || !markStarted()) return;
     timer = setTimeout(() => {
       timedOut = true;
       abort.abort();
     }, settings.timeLimitMs);
-    onStarted();
   });
   try {
-    return (await pool.run({ ...task, progress: channel.port2 }, { name, transferList: [channel.port2], signal: abort.signal })) as T;
+    const result = (await pool.run({ ...task, progress: channel.port2 }, { name, transferList: [channel.port2], signal: abort.signal })) as T;
+    // The result and the "started" message travel on different channels, so a fast task can
+    // return first; a task that returned has started, so it is counted now (and only once).
+    markStarted();
+    return result;
   } catch (error) {
     if (timedOut) {
       onTerminated();
