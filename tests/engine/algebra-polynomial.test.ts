@@ -3,6 +3,8 @@ import fc from "fast-check";
 import { Poly, Rational, parseValue, reciprocalSubstitute } from "../../shared/engine/algebra/index";
 import { nonZeroRational, polyArb, smallRational } from "./algebra-arbitraries";
 import { askSympy, type SympyQuestion } from "./algebra-sympy";
+import { evalMod, invMod, mulMod, residue } from "../../shared/engine/algebra/modular";
+import { CHAIN_MIN_TERMS } from "../../shared/engine/algebra/polynomial-calculus";
 
 const runs = { numRuns: 150 };
 const p = polyArb(4);
@@ -65,6 +67,30 @@ describe("Poly: commutative ring axioms (common practice)", () => {
         expect(Math.abs(a.evaluate(fl) - v(a).toNumber())).toBeLessThan(1e-9 * (1 + Math.abs(v(a).toNumber())));
       }),
       runs,
+    );
+  });
+
+  it("a long expansion (evaluated by running products over shared prefixes) has the value of its closed form, in floats and modulo the prime", () => {
+    // (1 + x + 2y² − 3z + xyz/2)^6 expanded has far more terms than CHAIN_MIN_TERMS; its value at a
+    // point is the base's value to the sixth (the multinomial theorem, common practice).
+    const base = Poly.fromTerms([
+      { coefficient: 1, monomial: {} },
+      { coefficient: 1, monomial: { x: 1 } },
+      { coefficient: 2, monomial: { y: 2 } },
+      { coefficient: -3, monomial: { z: 1 } },
+      { coefficient: Rational.of(1, 2), monomial: { x: 1, y: 1, z: 1 } },
+    ]);
+    const long = base.pow(6);
+    expect(long.termCount()).toBeGreaterThan(CHAIN_MIN_TERMS);
+    fc.assert(
+      fc.property(nonZeroRational, nonZeroRational, nonZeroRational, (x, y, z) => {
+        const exact = base.substitute({ x, y, z }).constantValue()!.pow(6);
+        const { value, error } = long.evaluateWithError({ x: x.toNumber(), y: y.toNumber(), z: z.toNumber() });
+        expect(Math.abs(value - exact.toNumber())).toBeLessThanOrEqual(error);
+        const at = new Map([x, y, z].map((r, i) => ["xyz"[i], mulMod(residue(r.num), invMod(residue(r.den)))]));
+        expect(evalMod(long, at)).toBe(mulMod(residue(exact.num), invMod(residue(exact.den))));
+      }),
+      { numRuns: 60 },
     );
   });
 

@@ -4,6 +4,7 @@
 
 import type { Poly } from "./polynomial";
 import { onceEach } from "./memo";
+import { CHAIN_MIN_TERMS, productChain } from "./polynomial-calculus";
 
 /** A prime below 2^26: the product of two residues stays below 2^53, exact in doubles. */
 export const PRIME = 67108859;
@@ -41,6 +42,13 @@ export function makeRandom(seed: number): () => number {
 /** p's coefficients modulo PRIME, computed once per polynomial (images of one p are taken at many points). */
 export const coefficientResidues = onceEach((p: Poly): Float64Array => Float64Array.from(p.coefs, residue));
 
+/** a·b mod PRIME for residues a, b: the product is below 2^52, exact in a double; no fmod. */
+export function mulMod(a: number, b: number): number {
+  const ab = a * b;
+  const r = ab - Math.floor(ab / PRIME) * PRIME;
+  return r < 0 ? r + PRIME : r >= PRIME ? r - PRIME : r;
+}
+
 /** p at a point (one residue per variable), modulo PRIME; null when p's common denominator vanishes there. */
 export function evalMod(p: Poly, point: ReadonlyMap<string, number>): number | null {
   const d = residue(p.den);
@@ -49,18 +57,36 @@ export function evalMod(p: Poly, point: ReadonlyMap<string, number>): number | n
   const x = p.vars.map((v) => point.get(v)!);
   // Powers by exponent, each computed once per variable.
   const powers = p.vars.map(() => [1]);
+  const power = (v: number, e: number): number => {
+    const table = powers[v];
+    for (let k = table.length; k <= e; k++) table.push(mulMod(table[k - 1], x[v]));
+    return table[e];
+  };
   const cs = coefficientResidues(p);
   let s = 0;
-  for (let t = 0; t < cs.length; t++) {
-    let m = cs[t];
-    for (let v = 0; v < nv && m !== 0; v++) {
-      const e = p.exps[t * nv + v];
-      if (e === 0) continue;
-      const table = powers[v];
-      for (let k = table.length; k <= e; k++) table.push((table[k - 1] * x[v]) % PRIME);
-      m = (m * table[e]) % PRIME;
+  if (cs.length >= CHAIN_MIN_TERMS) {
+    const { shared, start, factorVar, factorExp, depth } = productChain(p);
+    const running = new Float64Array(depth + 1);
+    running[0] = 1;
+    for (let t = 0; t < cs.length; t++) {
+      let j = shared[t];
+      for (let f = start[t], end = start[t + 1]; f < end; f++, j++) {
+        const k = factorExp[f];
+        running[j + 1] = mulMod(running[j], k === 1 ? x[factorVar[f]] : power(factorVar[f], k));
+      }
+      s += mulMod(cs[t], running[j]);
+      if (s >= PRIME) s -= PRIME;
     }
-    s = (s + m) % PRIME;
+  } else {
+    for (let t = 0; t < cs.length; t++) {
+      let m = cs[t];
+      for (let v = 0; v < nv && m !== 0; v++) {
+        const e = p.exps[t * nv + v];
+        if (e !== 0) m = mulMod(m, power(v, e));
+      }
+      s += m;
+      if (s >= PRIME) s -= PRIME;
+    }
   }
-  return (s * invMod(d)) % PRIME;
+  return mulMod(s, invMod(d));
 }

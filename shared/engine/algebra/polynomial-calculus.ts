@@ -54,6 +54,80 @@ export function substitutedFields(p: Poly, values: Record<string, Rational>): Po
 const coefficientDoubles = onceEach((p: Poly): Float64Array => Float64Array.from(p.coefs, Number));
 
 /**
+ * p's terms as a chain of products, for evaluating a long polynomial at many points: term t is
+ * its coefficient times the first `shared[t]` factors of term t − 1 (a factor is one variable to a
+ * power, in variable order) times its own factors `factorVar/factorExp[start[t] .. start[t+1])`.
+ * Neighbours in graded lexicographic order share long prefixes, so a value needs a few products
+ * per term instead of one per variable.
+ */
+export interface ProductChain {
+  shared: Uint16Array;
+  start: Uint32Array;
+  factorVar: Uint16Array;
+  factorExp: Uint16Array;
+  /** The most factors of any term (the depth of the running products). */
+  depth: number;
+  /** The largest total degree of any term. */
+  degree: number;
+}
+
+/** Below this many terms a chain costs more to build than it saves. */
+export const CHAIN_MIN_TERMS = 64;
+
+export const productChain = onceEach((p: Poly): ProductChain => {
+  const nv = p.vars.length;
+  const n = p.coefs.length;
+  const e = p.exps;
+  const shared = new Uint16Array(n);
+  const start = new Uint32Array(n + 1);
+  let vars = new Uint16Array(n * 4 + nv);
+  let exps = new Uint16Array(vars.length);
+  let w = 0;
+  let depth = 0;
+  let degree = 0;
+  for (let t = 0; t < n; t++) {
+    const row = t * nv;
+    // The factors of term t before the first variable where it differs from term t − 1.
+    let v = 0;
+    let same = 0;
+    let d = 0;
+    if (t > 0) {
+      for (; v < nv; v++) {
+        const k = e[row + v];
+        if (k !== e[row - nv + v]) break;
+        if (k !== 0) {
+          same++;
+          d += k;
+        }
+      }
+    }
+    shared[t] = same;
+    start[t] = w;
+    if (w + nv > vars.length) {
+      const grown = new Uint16Array(vars.length * 2 + nv);
+      grown.set(vars);
+      vars = grown;
+      const grownExps = new Uint16Array(grown.length);
+      grownExps.set(exps);
+      exps = grownExps;
+    }
+    for (; v < nv; v++) {
+      const k = e[row + v];
+      if (k === 0) continue;
+      vars[w] = v;
+      exps[w] = k;
+      w++;
+      d += k;
+    }
+    const count = same + w - start[t];
+    if (count > depth) depth = count;
+    if (d > degree) degree = d;
+  }
+  start[n] = w;
+  return { shared, start, factorVar: vars.subarray(0, w), factorExp: exps.subarray(0, w), depth, degree };
+});
+
+/**
  * Floating-point value of p, and a bound on its rounding error; every variable must be given.
  * Each term is a product of at most degree + 2 roundings and summing n terms adds at most n more,
  * so the error is at most (n + degree + 2)·ε·Σ|term| with ε = 2^-53 (the standard bound for
@@ -70,18 +144,37 @@ export function evaluatePoly(p: Poly, values: Record<string, number>): { value: 
   let sum = 0;
   let magnitude = 0;
   let degree = 0;
-  for (let t = 0; t < cs.length; t++) {
-    let m = cs[t];
-    let d = 0;
-    for (let v = 0; v < nv; v++) {
-      const k = p.exps[t * nv + v];
-      if (k === 0) continue;
-      m *= k === 1 ? x[v] : x[v] ** k;
-      d += k;
+  if (cs.length >= CHAIN_MIN_TERMS) {
+    const chain = productChain(p);
+    degree = chain.degree;
+    const { shared, start, factorVar, factorExp } = chain;
+    const running = new Float64Array(chain.depth + 1);
+    running[0] = 1;
+    for (let t = 0; t < cs.length; t++) {
+      let j = shared[t];
+      for (let f = start[t], end = start[t + 1]; f < end; f++, j++) {
+        const k = factorExp[f];
+        const xv = x[factorVar[f]];
+        running[j + 1] = running[j] * (k === 1 ? xv : xv ** k);
+      }
+      const m = cs[t] * running[j];
+      sum += m;
+      magnitude += Math.abs(m);
     }
-    if (d > degree) degree = d;
-    sum += m;
-    magnitude += Math.abs(m);
+  } else {
+    for (let t = 0; t < cs.length; t++) {
+      let m = cs[t];
+      let d = 0;
+      for (let v = 0; v < nv; v++) {
+        const k = p.exps[t * nv + v];
+        if (k === 0) continue;
+        m *= k === 1 ? x[v] : x[v] ** k;
+        d += k;
+      }
+      if (d > degree) degree = d;
+      sum += m;
+      magnitude += Math.abs(m);
+    }
   }
   const bound = (p.coefs.length + degree + 2) * 2 ** -53 * magnitude;
   const den = Number(p.den);
