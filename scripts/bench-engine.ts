@@ -4,8 +4,10 @@
 //
 //   npm run bench:engine -- [--max N] [--max-gm N] [--sympy-budget SECONDS] [--sympy-cap SECONDS] [--no-sympy] [--only NAME] [--parse-only]
 //
-// Each network is solved in a fresh child process, so "peak MB" is that process's peak RSS; times
-// are the best of up to three runs after a warm-up on a small ladder. The machine may be shared, so
+// Each network is timed in a fresh child process; times are the best of up to three runs after a
+// warm-up on a small ladder. "peak MB" is the peak RSS of another fresh process that makes one
+// complete solve after the same warm-up (the memory a solve needs, as the CLI or a server worker
+// would make it, not that of the timing runs, which hold several results at once). The machine may be shared, so
 // next to each wall time the child's CPU time is printed too ("cpu"), which load inflates less.
 // Columns: first = the first exact solve of that network (after the warm-up); exact = best of the runs
 // within about a second (at most 50, at least three) of the three results in lowest terms plus the
@@ -104,7 +106,7 @@ function runOne(name: string): OneRun {
     exact: exactT,
     printed,
     complete,
-    peakMB: process.resourceUsage().maxRSS / 1024,
+    peakMB: NaN, // measured in a process of its own (peakOne)
     terms: {
       rthNum: port.rth?.num.termCount() ?? 0,
       rthDen: port.rth?.den.termCount() ?? 0,
@@ -140,12 +142,27 @@ function runSympy(net: NetworkInput, capSeconds: number, ours: OneRun["results"]
   return { seconds: out.seconds, wall, status: "ok", matches };
 }
 
-/** One network in a fresh child process; a child that fails (out of memory, say) is a row that says why, not the end of the run. */
+/** Child mode: one complete solve after the warm-up; its peak RSS in MB. */
+function peakOne(name: string): number {
+  const net = networkNamed(name);
+  solveNetwork(ladderNetwork(3, true));
+  solveNetwork(net);
+  return process.resourceUsage().maxRSS / 1024;
+}
+
+/** One network in fresh child processes (timings, then the peak of one solve); a child that fails (out of memory, say) is a row that says why, not the end of the run. */
 function childRun(name: string): OneRun | { failed: string } {
-  const r = spawnSync(process.execPath, ["--import", "tsx", HERE, "--one", name], { encoding: "utf8", maxBuffer: 1 << 30 });
-  if (r.status === 0) return JSON.parse(r.stdout) as OneRun;
-  const why = /heap out of memory/i.test(r.stderr) ? "out of memory" : (r.stderr.trim().split("\n").pop() ?? `exit ${r.status}`);
-  return { failed: why.slice(0, 120) };
+  const child = (mode: string) => {
+    const r = spawnSync(process.execPath, ["--import", "tsx", HERE, mode, name], { encoding: "utf8", maxBuffer: 1 << 30 });
+    if (r.status === 0) return { out: r.stdout };
+    const why = /heap out of memory/i.test(r.stderr) ? "out of memory" : (r.stderr.trim().split("\n").pop() ?? `exit ${r.status}`);
+    return { failed: why.slice(0, 120) };
+  };
+  const timing = child("--one");
+  if ("failed" in timing) return timing;
+  const peak = child("--peak");
+  if ("failed" in peak) return peak;
+  return { ...(JSON.parse(timing.out) as OneRun), peakMB: Number(peak.out) };
 }
 
 function arg(name: string, fallback: number): number {
@@ -228,6 +245,11 @@ function main(): void {
     process.stdout.write(JSON.stringify(runOne(process.argv[one + 1])));
     return;
   }
+  const peak = process.argv.indexOf("--peak");
+  if (peak >= 0) {
+    process.stdout.write(String(peakOne(process.argv[peak + 1])));
+    return;
+  }
   if (process.argv.includes("--parse-only")) {
     parseRows(!process.argv.includes("--no-sympy"));
     return;
@@ -244,7 +266,7 @@ function main(): void {
   const header = ["network", "elem/sym", "first ms", "exact ms", "printed ms", "complete ms", "peak MB", "Rth N/D", "Vth N", "Isc N/D", "agree", "sympy s", "same", "sympy/exact"];
   const widths = [14, 8, 10, 10, 11, 12, 8, 11, 6, 11, 6, 11, 5, 11];
   console.log(`Portfold engine benchmark (node ${process.version}); sympy budget ${budget} s, cap ${cap} s per network`);
-  console.log("times: wall/cpu ms; exact = lowest terms + Voc/Isc check, printed = every printed form, complete = results, ledger, sensitivities, dimensions, TeX");
+  console.log("times: wall/cpu ms; exact = lowest terms + Voc/Isc check, printed = every printed form, complete = results, ledger, sensitivities, dimensions, TeX; peak = RSS of a process making one complete solve");
   const rows: { name: string; ours: OneRun; sym: SympyRun | null }[] = [];
   const failures = new Map<string, string>();
   // Smallest ladders first, the two ladder families interleaved, then ladder-14 and -16, then the graphs.
