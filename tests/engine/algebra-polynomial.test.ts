@@ -94,6 +94,13 @@ describe("Poly: commutative ring axioms (common practice)", () => {
     );
   });
 
+  it("residues agree with BigInt remainders on both sides of 2^53 (where a double stops being exact)", () => {
+    const prime = 67108859n;
+    for (const c of [0n, 1n, -1n, 2n ** 53n - 1n, 2n ** 53n, 2n ** 53n + 1n, -(2n ** 53n) - 3n, 3n ** 40n, -(7n ** 30n)]) {
+      expect(residue(c)).toBe(Number(((c % prime) + prime) % prime));
+    }
+  });
+
   it("derivative: product rule and linearity", () => {
     fc.assert(
       fc.property(p, p, fc.constantFrom("x", "y", "z"), (a, b, v) => {

@@ -21,7 +21,8 @@ import { makeLayout, unionVars, type Key } from "./monomial-layout";
 import { polyDivide, polyDivideExact } from "./division";
 import { heuristicGcd } from "./heuristic-gcd";
 import { onceEach } from "./memo";
-import { PRIME, coefficientResidues, invMod, makeRandom } from "./modular";
+import { PRIME, coefficientResidues, invMod, makeRandom, mulMod } from "./modular";
+import { CHAIN_MIN_TERMS, productChain } from "./polynomial-calculus";
 
 /**
  * Images of p in each test variable x: all other variables evaluated at the point (mod PRIME).
@@ -53,21 +54,37 @@ function univariateImages(p: Poly, point: Map<string, number>, testVars: readonl
   const ex = p.exps;
   const cs = coefficientResidues(p);
   let total = 0;
-  for (let t = 0, o = 0; t < n; t++, o += nv) {
-    let m = cs[t];
-    for (let v = 0; v < nv; v++) {
-      const e = ex[o + v];
-      if (e !== 0) {
-        const x = m * pw[v][e];
-        m = x - Math.floor(x / PRIME) * PRIME;
-        if (m < 0) m += PRIME;
-        else if (m >= PRIME) m -= PRIME;
+  if (n >= CHAIN_MIN_TERMS) {
+    // Running products over the factors neighbouring terms share (see productChain); the
+    // factors of the current term are kept on a stack for the sums.
+    const { shared, start, factorVar, factorExp, depth } = productChain(p);
+    const running = new Float64Array(depth + 1);
+    running[0] = 1;
+    const slotOf = new Int32Array(depth); // the sums slot of each factor of the current term, or -1
+    for (let t = 0; t < n; t++) {
+      let j = shared[t];
+      for (let f = start[t], end = start[t + 1]; f < end; f++, j++) {
+        const v = factorVar[f];
+        const e = factorExp[f];
+        running[j + 1] = mulMod(running[j], pw[v][e]);
+        slotOf[j] = sumAt[v] >= 0 ? sumAt[v] + e : -1;
       }
+      const m = mulMod(cs[t], running[j]);
+      total += m;
+      for (let k = 0; k < j; k++) if (slotOf[k] >= 0) sums[slotOf[k]] += m;
     }
-    total += m;
-    for (let v = 0; v < nv; v++) {
-      const e = ex[o + v];
-      if (e !== 0 && sumAt[v] >= 0) sums[sumAt[v] + e] += m;
+  } else {
+    for (let t = 0, o = 0; t < n; t++, o += nv) {
+      let m = cs[t];
+      for (let v = 0; v < nv; v++) {
+        const e = ex[o + v];
+        if (e !== 0) m = mulMod(m, pw[v][e]);
+      }
+      total += m;
+      for (let v = 0; v < nv; v++) {
+        const e = ex[o + v];
+        if (e !== 0 && sumAt[v] >= 0) sums[sumAt[v] + e] += m;
+      }
     }
   }
   const acc = (j: number) => sums.subarray(sumAt[j], sumAt[j] + degs[j] + 1);

@@ -12,7 +12,9 @@ const PRIME_BIG = BigInt(PRIME);
 
 /** c mod PRIME in [0, PRIME). */
 export function residue(c: bigint): number {
-  const r = c >= -9007199254740991n && c <= 9007199254740991n ? Number(c) % PRIME : Number(c % PRIME_BIG);
+  // Number(c) is exact exactly when it is a safe integer (a larger c rounds to at least 2^53).
+  const x = Number(c);
+  const r = Number.isSafeInteger(x) ? x % PRIME : Number(c % PRIME_BIG);
   return r < 0 ? r + PRIME : r;
 }
 
@@ -40,7 +42,11 @@ export function makeRandom(seed: number): () => number {
 }
 
 /** p's coefficients modulo PRIME, computed once per polynomial (images of one p are taken at many points). */
-export const coefficientResidues = onceEach((p: Poly): Float64Array => Float64Array.from(p.coefs, residue));
+export const coefficientResidues = onceEach((p: Poly): Float64Array => {
+  const out = new Float64Array(p.coefs.length);
+  for (let t = 0; t < out.length; t++) out[t] = residue(p.coefs[t]);
+  return out;
+});
 
 /** a·b mod PRIME for residues a, b: the product is below 2^52, exact in a double; no fmod. */
 export function mulMod(a: number, b: number): number {
