@@ -5,6 +5,7 @@ import { nonZeroRational, polyArb, smallRational } from "./algebra-arbitraries";
 import { askSympy, type SympyQuestion } from "./algebra-sympy";
 import { evalMod, invMod, mulMod, residue } from "../../shared/engine/algebra/modular";
 import { CHAIN_MIN_TERMS } from "../../shared/engine/algebra/polynomial-calculus";
+import { TermTable } from "../../shared/engine/algebra/term-table";
 
 const runs = { numRuns: 150 };
 const p = polyArb(4);
@@ -283,5 +284,34 @@ describe("reciprocalSubstitute: admittance to impedance", () => {
     const { poly, multiplier } = reciprocalSubstitute(q, { g: "r" });
     expect(poly.toInfix()).toBe("2*r");
     expect(multiplier.toInfix()).toBe("r");
+  });
+});
+
+describe("TermTable: tables reuse their arrays, and a reused table starts empty", () => {
+  it("interleaved, abandoned and reused tables each sum their own terms (against a Map of sums)", () => {
+    fc.assert(
+      fc.property(fc.array(fc.tuple(fc.integer({ min: 0, max: 5000 }), fc.integer({ min: -9, max: 9 })), { maxLength: 3000 }), fc.integer({ min: 1, max: 4000 }), (terms, expected) => {
+        const reference = new Map<number, number>();
+        for (const [k, c] of terms) reference.set(k, (reference.get(k) ?? 0) + c);
+        // A table abandoned half-way (as after an overflow), then two in use at once.
+        const abandoned = new TermTable(expected);
+        for (const [k, c] of terms.slice(0, terms.length >> 1)) abandoned.add(k, c + 1);
+        const outer = new TermTable(expected);
+        const inner = new TermTable(expected >> 1);
+        for (const [k, c] of terms) {
+          outer.add(k, c);
+          inner.add(k + 7, 2 * c);
+        }
+        const innerSums = inner.result();
+        const fresh = new TermTable(expected); // takes the arrays inner gave back
+        for (const [k, c] of terms) fresh.add(k, c);
+        for (const table of [outer.result(), fresh.result()]) {
+          const got = new Map(Array.from(table.keys, (k, i) => [k, table.coefs[i]]));
+          expect(got).toEqual(new Map([...reference].filter(([, c]) => c !== 0)));
+        }
+        expect(new Map(Array.from(innerSums.keys, (k, i) => [k - 7, innerSums.coefs[i] / 2]))).toEqual(new Map([...reference].filter(([, c]) => c !== 0)));
+      }),
+      { numRuns: 60 },
+    );
   });
 });

@@ -5,6 +5,7 @@
 
 import { bigGcd, bigLcm, type Rational } from "./rational";
 import { sortNames } from "./names";
+import { scratchFloat64, scratchUint32 } from "./scratch";
 import { MAX_EXPONENT, bitLength, fieldDecoder, fieldOf, gradedKeys, makeLayout, type Key, type Layout } from "./monomial-layout";
 
 /** A polynomial's fields in canonical form, with its degrees when the building operation knows them. */
@@ -85,7 +86,7 @@ function sortedFromKeys(layout: Layout, keys: ArrayLike<Key>, keep: readonly num
   const n = keep.length;
   const dec = fieldDecoder(layout);
   const ks = keys instanceof Float64Array ? keys : Float64Array.from(keys as ArrayLike<number>);
-  const graded = new Float64Array(n);
+  const graded = scratchFloat64("graded-keys", n);
   if (layout.graded) {
     for (let t = 0; t < n; t++) graded[t] = ks[keep[t]];
   } else {
@@ -141,11 +142,12 @@ function sortedFromKeys(layout: Layout, keys: ArrayLike<Key>, keep: readonly num
 /**
  * Ascending order of distinct non-negative integer keys below 2^53, as term indices: a least
  * significant digit radix sort in passes of 11 bits (linear, and no index bits packed into the key).
+ * The order is a scratch array (scratch.ts): valid until the next call.
  */
 function radixOrder(keys: Float64Array): Uint32Array {
   const n = keys.length;
-  const hi = new Uint32Array(n);
-  const lo = new Uint32Array(n);
+  const hi = scratchUint32("radix-hi", n);
+  const lo = scratchUint32("radix-lo", n);
   let maxHi = 0;
   let maxLo = 0;
   for (let t = 0; t < n; t++) {
@@ -155,9 +157,9 @@ function radixOrder(keys: Float64Array): Uint32Array {
     if (h > maxHi) maxHi = h;
     if (lo[t] > maxLo) maxLo = lo[t];
   }
-  let order = new Uint32Array(n);
+  let order = scratchUint32("radix-a", n);
   for (let t = 0; t < n; t++) order[t] = t;
-  let next = new Uint32Array(n);
+  let next = scratchUint32("radix-b", n);
   const count = new Uint32Array(2048);
   const pass = (word: Uint32Array, shift: number) => {
     count.fill(0);

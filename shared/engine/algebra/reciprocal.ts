@@ -34,12 +34,21 @@ export function reciprocalSubstitute(p: Poly, pairs: Record<string, string>): { 
   // lexicographic order exactly, so the rows are written in reverse and no sort is needed.
   let reverses = reflect.every((r) => r === 1);
   for (let v = 1; v < nvIn && reverses; v++) if (col[v] <= col[v - 1]) reverses = false;
-  for (let t = 0; t < n; t++) {
-    const i = t * nvIn;
-    const o = (reverses ? n - 1 - t : t) * nvOut;
-    for (let v = 0; v < nvIn; v++) {
-      const e = src[i + v];
-      exps[o + col[v]] += reflect[v] === 1 ? degs[v] - e : e;
+  if (reverses && nvIn === nvOut) {
+    // Then every column is its own (col is increasing within as many columns): a row is degs − row.
+    for (let t = 0; t < n; t++) {
+      const i = t * nvIn;
+      const o = (n - 1 - t) * nvOut;
+      for (let v = 0; v < nvIn; v++) exps[o + v] = degs[v] - src[i + v];
+    }
+  } else {
+    for (let t = 0; t < n; t++) {
+      const i = t * nvIn;
+      const o = (reverses ? n - 1 - t : t) * nvOut;
+      for (let v = 0; v < nvIn; v++) {
+        const e = src[i + v];
+        exps[o + col[v]] += reflect[v] === 1 ? degs[v] - e : e;
+      }
     }
   }
   const multiplier: Record<string, number> = {};

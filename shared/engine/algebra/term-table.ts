@@ -6,6 +6,32 @@
 const MAX_SAFE = Number.MAX_SAFE_INTEGER;
 const EMPTY = -1;
 
+/** A table's arrays, kept for the next table once a table's result is taken. */
+interface Storage {
+  slots: Int32Array;
+  slotKeys: Float64Array;
+  keys: Float64Array;
+  coefs: Float64Array;
+}
+
+// Fresh arrays of megabytes cost their allocation and a first touch of every page, and a table
+// lives for one product only: finished tables give their arrays back. Two are kept (tables
+// may be in use one inside another), the two largest.
+const POOL: Storage[] = [];
+const POOL_SIZE = 2;
+
+function takeStorage(cap: number, n: number): Storage {
+  const i = POOL.findIndex((s) => s.slots.length >= cap && s.keys.length >= n);
+  if (i >= 0) return POOL.splice(i, 1)[0];
+  return { slots: new Int32Array(cap), slotKeys: new Float64Array(cap), keys: new Float64Array(n), coefs: new Float64Array(n) };
+}
+
+function giveStorage(s: Storage): void {
+  POOL.push(s);
+  POOL.sort((a, b) => a.slots.length - b.slots.length);
+  if (POOL.length > POOL_SIZE) POOL.shift();
+}
+
 export class TermTable {
   private slots: Int32Array; // slot -> term index, or EMPTY
   private slotKeys: Float64Array;
@@ -18,12 +44,14 @@ export class TermTable {
   constructor(expected: number) {
     let cap = 16;
     while (cap < expected * 2) cap *= 2;
-    this.slots = new Int32Array(cap).fill(EMPTY);
-    this.slotKeys = new Float64Array(cap);
+    const storage = takeStorage(cap, Math.max(8, expected));
+    // A pooled table may be larger than asked: the mask uses the slots asked for, the rest lie idle.
+    this.slots = storage.slots;
+    this.slots.fill(EMPTY, 0, cap);
+    this.slotKeys = storage.slotKeys;
     this.mask = cap - 1;
-    const n = Math.max(8, expected);
-    this.keys = new Float64Array(n);
-    this.coefs = new Float64Array(n);
+    this.keys = storage.keys;
+    this.coefs = storage.coefs;
   }
 
   private static hash(k: number): number {
@@ -74,8 +102,11 @@ export class TermTable {
 
   private rehash(): void {
     const cap = (this.mask + 1) * 2;
-    this.slots = new Int32Array(cap).fill(EMPTY);
-    this.slotKeys = new Float64Array(cap);
+    if (this.slots.length < cap) {
+      this.slots = new Int32Array(cap);
+      this.slotKeys = new Float64Array(cap);
+    }
+    this.slots.fill(EMPTY, 0, cap);
     this.mask = cap - 1;
     for (let i = 0; i < this.size; i++) {
       const key = this.keys[i];
@@ -86,7 +117,7 @@ export class TermTable {
     }
   }
 
-  /** The nonzero terms, compacted. */
+  /** The nonzero terms, compacted; the table is finished (its arrays go to the next table). */
   result(): { keys: Float64Array; coefs: Float64Array } {
     let w = 0;
     const keys = new Float64Array(this.size);
@@ -98,6 +129,7 @@ export class TermTable {
         w++;
       }
     }
+    giveStorage({ slots: this.slots, slotKeys: this.slotKeys, keys: this.keys, coefs: this.coefs });
     return { keys: keys.subarray(0, w), coefs: coefs.subarray(0, w) };
   }
 }
