@@ -4,6 +4,7 @@ import { bigGcd } from "./rational";
 import { texName } from "./names";
 import type { Poly } from "./polynomial";
 import { productChain } from "./polynomial-calculus";
+import { scratchUint8 } from "./scratch";
 
 /** Plain infix, e.g. "R0*mu + R0 - 2*gm^2"; sympy-parsable once ^ is read as power. */
 export function polyInfix(p: Poly): string {
@@ -90,20 +91,23 @@ function printTerms(
 const UTF8 = new TextEncoder();
 const DECODE = new TextDecoder();
 
-/** A growing byte buffer for printed text; offsets into it stay valid as it grows. */
+/**
+ * A growing byte buffer for printed text; offsets into it stay valid as it grows. Its bytes are a
+ * scratch array (scratch.ts), reused by the next printing: one writer at a time.
+ */
 class ByteWriter {
   private buf: Uint8Array;
   length = 0;
 
   constructor(expected: number) {
-    this.buf = new Uint8Array(Math.max(64, expected));
+    this.buf = scratchUint8("printed-bytes", Math.max(64, expected));
   }
 
   private room(more: number): void {
     if (this.length + more <= this.buf.length) return;
-    const grown = new Uint8Array(Math.max(this.buf.length * 2, this.length + more));
-    grown.set(this.buf.subarray(0, this.length));
-    this.buf = grown;
+    const old = this.buf;
+    this.buf = scratchUint8("printed-bytes", Math.max(old.length * 2, this.length + more));
+    this.buf.set(old.subarray(0, this.length));
   }
 
   bytes(b: Uint8Array): void {

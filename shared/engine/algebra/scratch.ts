@@ -23,3 +23,7 @@ export function scratchFloat64(slot: string, n: number): Float64Array {
 export function scratchUint32(slot: string, n: number): Uint32Array {
   return new Uint32Array(bufferFor(slot, n * 4), 0, n);
 }
+
+export function scratchUint8(slot: string, n: number): Uint8Array {
+  return new Uint8Array(bufferFor(slot, n), 0, n);
+}
