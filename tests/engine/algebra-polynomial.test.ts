@@ -255,6 +255,19 @@ describe("Poly.toInfix is read back by sympy as the same polynomial", () => {
     questions.push({ kind: "equal", a: named.toInfix(), b: "beta*gamma + S*E - 3*N/2" });
     expect(askSympy(questions).every((ok) => ok === true)).toBe(true);
   });
+
+  it("a long polynomial (printed as bytes) reads back in sympy, and its first terms print as the short polynomial of those terms", () => {
+    // (3/2 − x + y²z − 5z/3 + 2xyz)^6: rational coefficients of both signs, powers, 200-odd terms.
+    const base = parseValue("3/2 - x + y^2*z - 5*z/3 + 2*x*y*z").num;
+    const long = base.pow(6);
+    expect(long.termCount()).toBeGreaterThan(CHAIN_MIN_TERMS);
+    const head = Poly.fromTerms(long.terms().slice(0, CHAIN_MIN_TERMS - 1));
+    for (const [whole, part] of [[long.toInfix(), head.toInfix()], [long.toTex(), head.toTex()]]) {
+      expect(whole.startsWith(part)).toBe(true);
+      expect(whole[part.length]).toBe(" "); // the next term follows, whole
+    }
+    expect(askSympy([{ kind: "equal", a: long.toInfix(), b: `(${base.toInfix()})^6` }])).toEqual([true]);
+  });
 });
 
 describe("reciprocalSubstitute: admittance to impedance", () => {

@@ -3,7 +3,7 @@
 import { bigGcd } from "./rational";
 import { texName } from "./names";
 import type { Poly } from "./polynomial";
-import { productChain } from "./polynomial-calculus";
+import { CHAIN_MIN_TERMS, productChain } from "./polynomial-calculus";
 import { scratchUint8 } from "./scratch";
 
 /** Plain infix, e.g. "R0*mu + R0 - 2*gm^2"; sympy-parsable once ^ is read as power. */
@@ -18,13 +18,61 @@ export function polyTex(p: Poly): string {
 
 /**
  * Terms joined by " + " / " - ". A coefficient n/d prints as "n*m/d" in infix (so "x/2") and
- * as "\\frac{n}{d} m" in TeX.
+ * as "\\frac{n}{d} m" in TeX. Short and long polynomials print the same text by two routes.
  */
 function printTerms(
   p: Poly, names: readonly string[], times: string, power: (name: string, k: number) => string, fraction: (n: string, d: string) => string, tex: boolean,
 ): string {
+  return (p.coefs.length < CHAIN_MIN_TERMS ? printShortTerms : printLongTerms)(p, names, times, power, fraction, tex);
+}
+
+/** A short polynomial's terms, each one string built by concatenation (a byte buffer costs more there). */
+function printShortTerms(
+  p: Poly, names: readonly string[], times: string, power: (name: string, k: number) => string, fraction: (n: string, d: string) => string, tex: boolean,
+): string {
   const n = p.coefs.length;
   if (n === 0) return "0";
+  const nv = p.vars.length;
+  const e = p.exps;
+  // Each term is one string built by concatenation, and the terms are joined in chunks (markedly
+  // faster than one huge join); "*R2" is one piece, made once per variable.
+  const afterTimes = names.map((name) => times + name);
+  const chunks: string[] = [];
+  let pieces: string[] = [];
+  for (let t = 0; t < n; t++) {
+    if (pieces.length >= 256) {
+      chunks.push(pieces.join(""));
+      pieces = [];
+    }
+    const { neg, absNum, den } = termCoefficient(p.coefs[t], p.den);
+    let term = t > 0 ? (neg ? " - " : " + ") : neg ? "-" : "";
+    const o = t * nv;
+    let mono = "";
+    for (let v = 0; v < nv; v++) {
+      const k = e[o + v];
+      if (k === 0) continue;
+      if (k === 1) mono += mono === "" ? names[v] : afterTimes[v];
+      else mono += mono === "" ? power(names[v], k) : times + power(names[v], k);
+    }
+    if (mono === "") {
+      pieces.push(term + (den === 1n ? absNum.toString() : fraction(absNum.toString(), den.toString())));
+      continue;
+    }
+    if (tex && den !== 1n) term += fraction(absNum.toString(), den.toString()) + "\\,";
+    else if (absNum !== 1n) term += absNum.toString() + times;
+    term += mono;
+    if (!tex && den !== 1n) term += `/${den}`;
+    pieces.push(term);
+  }
+  chunks.push(pieces.join(""));
+  return chunks.join("");
+}
+
+/** A long polynomial's terms, as bytes in one buffer. */
+function printLongTerms(
+  p: Poly, names: readonly string[], times: string, power: (name: string, k: number) => string, fraction: (n: string, d: string) => string, tex: boolean,
+): string {
+  const n = p.coefs.length;
   // The text is written as UTF-8 bytes into one buffer and decoded once (a long result has
   // hundreds of thousands of terms). Term t's monomial starts with the monomial of term t − 1 up
   // to the end of the factors they share (p's product chain), copied within the buffer.
@@ -54,17 +102,7 @@ function printTerms(
   const out = new ByteWriter(size);
   let previous = 0;
   for (let t = 0; t < n; t++) {
-    let num = p.coefs[t];
-    let den = p.den;
-    if (den !== 1n) {
-      const g = bigGcd(num, den);
-      if (g !== 1n) {
-        num /= g;
-        den /= g;
-      }
-    }
-    const neg = num < 0n;
-    const absNum = neg ? -num : num;
+    const { neg, absNum, den } = termCoefficient(p.coefs[t], p.den);
     if (t > 0) out.ascii(neg ? " - " : " + ");
     else if (neg) out.ascii("-");
     const same = shared[t];
@@ -86,6 +124,18 @@ function printTerms(
     if (!tex && den !== 1n) out.ascii(`/${den}`);
   }
   return out.toString();
+}
+
+/** The coefficient c/den of one term in lowest terms, as its sign, |numerator| and denominator. */
+function termCoefficient(c: bigint, den: bigint): { neg: boolean; absNum: bigint; den: bigint } {
+  if (den !== 1n) {
+    const g = bigGcd(c, den);
+    if (g !== 1n) {
+      c /= g;
+      den /= g;
+    }
+  }
+  return { neg: c < 0n, absNum: c < 0n ? -c : c, den };
 }
 
 const UTF8 = new TextEncoder();
