@@ -152,7 +152,7 @@ function peakOne(name: string): number {
 
 /** One network in fresh child processes (timings, then the peak of one solve); a child that fails (out of memory, say) is a row that says why, not the end of the run. */
 function childRun(name: string): OneRun | { failed: string } {
-  const child = (mode: string) => {
+  const child = (mode: string): { out: string } | { failed: string } => {
     const r = spawnSync(process.execPath, ["--import", "tsx", HERE, mode, name], { encoding: "utf8", maxBuffer: 1 << 30 });
     if (r.status === 0) return { out: r.stdout };
     const why = /heap out of memory/i.test(r.stderr) ? "out of memory" : (r.stderr.trim().split("\n").pop() ?? `exit ${r.status}`);
