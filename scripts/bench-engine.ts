@@ -72,51 +72,71 @@ interface OneRun {
   results: { vth: string | null; rth: string | null; isc: string | null };
 }
 
+/** Printed results longer than this are not sent back to the parent (sympy is not asked about such networks): ladder-16's are hundreds of millions of characters, beyond what JSON.stringify can hold. */
+const RESULT_CHARS_SENT = 10_000_000;
+
 /** Child mode: solve one network and report on stdout. */
 function runOne(name: string): OneRun {
   const net = networkNamed(name);
   // Warm the JIT on a small ladder first, then keep the best of up to three runs (within ~3 s).
   solveNetwork(ladderNetwork(3, true));
-  const [first, firstT] = timed(() => solveNetworkExact(net));
-  let exact = first;
-  let [full, printed] = timed(() => solveNetwork(net, { steps: false, sensitivities: false, dimensions: false }));
-  let [all, complete] = timed(() => solveNetwork(net));
-  let exactT = firstT;
-  for (let run = 0, spent = 0; run < 2 && spent < 3000; run++) {
-    const t0 = performance.now();
-    const [e, te] = timed(() => solveNetworkExact(net));
-    const [f, tf] = timed(() => solveNetwork(net, { steps: false, sensitivities: false, dimensions: false }));
-    const [a, ta] = timed(() => solveNetwork(net));
-    [exact, full, all] = [e, f, a];
-    exactT = best(exactT, te);
-    printed = best(printed, tf);
-    complete = best(complete, ta);
-    spent += performance.now() - t0;
-  }
-  // A small network's exact solve takes milliseconds, so a few runs are still JIT warm-up: keep
-  // solving for about a second (at most 50 runs) and keep the best, as for any micro-benchmark.
-  for (let run = 0, t0 = performance.now(); run < 50 && performance.now() - t0 < 1000; run++) exactT = best(exactT, timed(() => solveNetworkExact(net))[1]);
-  const port = exact.port!;
-  const symbols = new Set<string>();
-  for (const e of net.elements) if ("value" in e) for (const m of String(e.value).replace(/\b(?:across|through)\s*\([^)]*\)/g, "").matchAll(/(?<![0-9.])[A-Za-z_][A-Za-z0-9_]*/g)) symbols.add(m[0]);
-  return {
-    elements: net.elements.length,
-    symbols: symbols.size,
-    first: firstT,
-    exact: exactT,
-    printed,
-    complete,
-    peakMB: NaN, // measured in a process of its own (peakOne)
-    terms: {
+  // Each first solve is made in a function of its own, so that its result is garbage once the
+  // facts below are taken from it: ladder-16's results take gigabytes, and two alive at once
+  // exhaust the heap.
+  const exactFacts = () => {
+    const [exact, first] = timed(() => solveNetworkExact(net));
+    const port = exact.port!;
+    const terms = {
       rthNum: port.rth?.num.termCount() ?? 0,
       rthDen: port.rth?.den.termCount() ?? 0,
       vthNum: port.vth?.num.termCount() ?? 0,
       iscNum: port.isc?.num.termCount() ?? 0,
       iscDen: port.isc?.den.termCount() ?? 0,
-    },
-    agree: port.agree,
-    skipped: all.statements.filter((s) => s.code.endsWith("-skipped")).map((s) => s.code),
-    results: { vth: full.vth?.infix ?? null, rth: full.rth?.infix ?? null, isc: full.isc?.infix ?? null },
+    };
+    return { first, terms, agree: port.agree };
+  };
+  const printedRun = () => solveNetwork(net, { steps: false, sensitivities: false, dimensions: false });
+  const printedFacts = () => {
+    const [full, printed] = timed(printedRun);
+    const sent = (s: string | undefined) => (s === undefined ? null : s.length > RESULT_CHARS_SENT ? "(too long to send)" : s);
+    return { printed, results: { vth: sent(full.vth?.infix), rth: sent(full.rth?.infix), isc: sent(full.isc?.infix) } };
+  };
+  const completeFacts = () => {
+    const [all, complete] = timed(() => solveNetwork(net));
+    return { complete, skipped: all.statements.filter((s) => s.code.endsWith("-skipped")).map((s) => s.code) };
+  };
+  const { first, terms, agree } = exactFacts();
+  const { printed: printedFirst, results } = printedFacts();
+  const { complete: completeFirst, skipped } = completeFacts();
+  // A network whose first solve takes seconds is solved once per mode.
+  const heavy = first.wallMs > 5000;
+  let [exactT, printed, complete] = [first, printedFirst, completeFirst];
+  if (!heavy) {
+    for (let run = 0, spent = 0; run < 2 && spent < 3000; run++) {
+      const t0 = performance.now();
+      exactT = best(exactT, timed(() => solveNetworkExact(net))[1]);
+      printed = best(printed, timed(printedRun)[1]);
+      complete = best(complete, timed(() => solveNetwork(net))[1]);
+      spent += performance.now() - t0;
+    }
+    // A small network's exact solve takes milliseconds, so a few runs are still JIT warm-up: keep
+    // solving for about a second (at most 50 runs) and keep the best, as for any micro-benchmark.
+    for (let run = 0, t0 = performance.now(); run < 50 && performance.now() - t0 < 1000; run++) exactT = best(exactT, timed(() => solveNetworkExact(net))[1]);
+  }
+  const symbols = new Set<string>();
+  for (const e of net.elements) if ("value" in e) for (const m of String(e.value).replace(/\b(?:across|through)\s*\([^)]*\)/g, "").matchAll(/(?<![0-9.])[A-Za-z_][A-Za-z0-9_]*/g)) symbols.add(m[0]);
+  return {
+    elements: net.elements.length,
+    symbols: symbols.size,
+    first,
+    exact: exactT,
+    printed,
+    complete,
+    peakMB: NaN, // measured in a process of its own (peakOne)
+    terms,
+    agree,
+    skipped,
+    results,
   };
 }
 
@@ -155,7 +175,9 @@ function childRun(name: string): OneRun | { failed: string } {
   const child = (mode: string): { out: string } | { failed: string } => {
     const r = spawnSync(process.execPath, ["--import", "tsx", HERE, mode, name], { encoding: "utf8", maxBuffer: 1 << 30 });
     if (r.status === 0) return { out: r.stdout };
-    const why = /heap out of memory/i.test(r.stderr) ? "out of memory" : (r.stderr.trim().split("\n").pop() ?? `exit ${r.status}`);
+    // Node ends a crash report with its version line, so the reason is the last line naming an error.
+    const lines = r.stderr.trim().split("\n");
+    const why = /heap out of memory/i.test(r.stderr) ? "out of memory" : ([...lines].reverse().find((l) => /error/i.test(l)) ?? lines.pop() ?? `exit ${r.status}`);
     return { failed: why.slice(0, 120) };
   };
   const timing = child("--one");
