@@ -3,7 +3,8 @@
 
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { solveNetwork } from "../../shared/engine";
+import { solveNetwork, type NetworkInput } from "../../shared/engine";
+import { Rational, readExpression } from "../../shared/engine/algebra";
 import { expectSameExpression } from "../support/expressions";
 
 const FIXTURES = new URL("../../fixtures/", import.meta.url).pathname;
@@ -56,6 +57,33 @@ describe("results", () => {
     same(r.sensitivities.rth!.Ro, "1");
     same(r.sensitivities.vth!.A, "1/(1 + A)");
     expect(Object.keys(r.sensitivities.rth!)).toEqual(["A", "Ro"]);
+  });
+
+  it("gives every sensitivity of a 13-element ladder, and they sum as Euler's theorem on homogeneous functions says", () => {
+    // Six sections of series Ra_i and shunt Rb_i behind Vs: 13 elements, 13 symbols, Rth 144/233 terms.
+    const elements: NetworkInput["elements"] = [{ name: "Vin", kind: "voltage", nodes: ["n0", "0"], value: "Vs" }];
+    for (let i = 1; i <= 6; i++) {
+      elements.push({ name: `Ra${i}`, kind: "resistor", nodes: [`n${i - 1}`, `n${i}`], value: `Ra_${i}` });
+      elements.push({ name: `Rb${i}`, kind: "resistor", nodes: [`n${i}`, "0"], value: `Rb_${i}` });
+    }
+    const r = solveNetwork({ port: { plus: "n6", minus: "0" }, elements }, { steps: false });
+    expect(r.statements.map((x) => x.code)).not.toContain("sensitivity-skipped");
+    // Euler's theorem: a function homogeneous of degree k in the resistances has normalized
+    // sensitivities to them summing to k; Rth has degree 1, Vth 0, Isc -1, and Vth and Isc are
+    // proportional to Vs (common practice in network sensitivity analysis).
+    const point: Record<string, Rational> = { Vs: Rational.of(3) };
+    for (let i = 1; i <= 6; i++) [point[`Ra_${i}`], point[`Rb_${i}`]] = [Rational.of(2 * i + 1), Rational.of(11 - i)];
+    const at = (text: string) => readExpression(text).substitute(point).constantValue()!;
+    const sumOverResistors = (of: Record<string, string>) =>
+      Object.entries(of).filter(([name]) => name !== "Vs").reduce((sum, [, text]) => sum.add(at(text)), Rational.ZERO);
+    const s = r.sensitivities;
+    expect(Object.keys(s.rth!)).toHaveLength(12);
+    expect(sumOverResistors(s.rth!).toString()).toBe("1");
+    expect(sumOverResistors(s.vth!).toString()).toBe("0");
+    expect(sumOverResistors(s.isc!).toString()).toBe("-1");
+    expect(at(s.vth!.Vs).toString()).toBe("1");
+    expect(at(s.isc!.Vs).toString()).toBe("1");
+    expect(s.rthFromVocIsc).toEqual(s.rth);
   });
 
   it("skips sensitivities of large results and says so", () => {

@@ -115,6 +115,13 @@ export function valuesOf(results: Results, values: NonNullable<SolveOptions["val
   return { values: out, diagnostics };
 }
 
+/**
+ * Default SolveOptions.sensitivitySizeLimit (numerator × denominator terms). A network of 14
+ * elements and 14 symbols stays under it: ladder-6 (13 elements, Rth 144/233 terms, 33,552)
+ * gets its sensitivities in about 0.2 s.
+ */
+export const SENSITIVITY_SIZE_LIMIT = 50_000;
+
 export function sensitivitiesOf(
   results: Results,
   which: boolean | string[],
@@ -126,6 +133,11 @@ export function sensitivitiesOf(
   for (const r of RESULT_NAMES) {
     const f = results[r];
     if (!f || f.isZero()) continue;
+    // Voc/Isc that agrees is Rth itself, so its sensitivities are Rth's (equal functions print equally).
+    if (r === "rthFromVocIsc" && sensitivities.rth && results.rth && f.equals(results.rth)) {
+      sensitivities[r] = sensitivities.rth;
+      continue;
+    }
     // (x/F) dF/dx has the denominator N·D before reduction: its size bounds the work.
     if (f.num.termCount() * f.den.termCount() > sizeLimit) {
       skipped.push(r);

@@ -14,7 +14,7 @@ import { isControlled } from "./elements";
 import { hashString } from "./numeric";
 import { solveOpenPort, solveShortedPort, type OpenPortSolution, type ShortPortSolution } from "./port-solution";
 import { frequencyReport } from "./frequency";
-import { exactExpression, limitsOf, parseAssignments, sensitivitiesOf, solveForTargets, valuesOf, type Results } from "./results";
+import { exactExpression, limitsOf, parseAssignments, SENSITIVITY_SIZE_LIMIT, sensitivitiesOf, solveForTargets, valuesOf, type Results } from "./results";
 import { buildLedger } from "./steps";
 import { checkTopology, suspectStructures } from "./topology";
 import { checkStructure } from "./validate";
@@ -124,7 +124,7 @@ function solveExpandedNetwork(network: Network, options: SolveOptions, positions
     result.values = v.values;
     diagnostics.push(...v.diagnostics);
   }
-  const sens = sensitivitiesOf(results, options.sensitivities ?? true, options.sensitivitySizeLimit ?? 20000);
+  const sens = sensitivitiesOf(results, options.sensitivities ?? true, options.sensitivitySizeLimit ?? SENSITIVITY_SIZE_LIMIT);
   result.sensitivities = sens.sensitivities;
   if (sens.skipped.length > 0) {
     statements.push({
