@@ -158,7 +158,7 @@ export interface SolveOptions {
   sensitivities?: boolean | string[];
   /**
    * Skip the sensitivities of a result when (numerator terms) × (denominator terms) exceeds this:
-   * each sensitivity costs about the product N·D. Default 50000.
+   * each sensitivity costs about the product N·D. Default 200000.
    */
   sensitivitySizeLimit?: number;
   /** Solve result = target for a symbol, e.g. [{ result: "rth", symbol: "RL", target: "50" }]. */

@@ -59,6 +59,29 @@ describe("results", () => {
     expect(Object.keys(r.sensitivities.rth!)).toEqual(["A", "Ro"]);
   });
 
+  // Euler's theorem: a function homogeneous of degree k in the resistances has normalized
+  // sensitivities to them summing to k; Rth has degree 1, Vth 0, Isc -1, and Vth and Isc are
+  // proportional to Vs (common practice in network sensitivity analysis).
+  function expectEulerSums(network: NetworkInput, resistorCount: number) {
+    const r = solveNetwork(network, { steps: false });
+    expect(r.statements.map((x) => x.code)).not.toContain("sensitivity-skipped");
+    const point: Record<string, Rational> = { Vs: Rational.of(3) };
+    network.elements.forEach((e, i) => {
+      if (e.kind === "resistor") point[e.value] = Rational.of(2 * i + 1, 7);
+    });
+    const at = (text: string) => readExpression(text).substitute(point).constantValue()!;
+    const sumOverResistors = (of: Record<string, string>) =>
+      Object.entries(of).filter(([name]) => name !== "Vs").reduce((sum, [, text]) => sum.add(at(text)), Rational.ZERO);
+    const s = r.sensitivities;
+    expect(Object.keys(s.rth!)).toHaveLength(resistorCount);
+    expect(sumOverResistors(s.rth!).toString()).toBe("1");
+    expect(sumOverResistors(s.vth!).toString()).toBe("0");
+    expect(sumOverResistors(s.isc!).toString()).toBe("-1");
+    expect(at(s.vth!.Vs).toString()).toBe("1");
+    expect(at(s.isc!.Vs).toString()).toBe("1");
+    expect(s.rthFromVocIsc).toEqual(s.rth);
+  }
+
   it("gives every sensitivity of a 13-element ladder, and they sum as Euler's theorem on homogeneous functions says", () => {
     // Six sections of series Ra_i and shunt Rb_i behind Vs: 13 elements, 13 symbols, Rth 144/233 terms.
     const elements: NetworkInput["elements"] = [{ name: "Vin", kind: "voltage", nodes: ["n0", "0"], value: "Vs" }];
@@ -66,24 +89,25 @@ describe("results", () => {
       elements.push({ name: `Ra${i}`, kind: "resistor", nodes: [`n${i - 1}`, `n${i}`], value: `Ra_${i}` });
       elements.push({ name: `Rb${i}`, kind: "resistor", nodes: [`n${i}`, "0"], value: `Rb_${i}` });
     }
-    const r = solveNetwork({ port: { plus: "n6", minus: "0" }, elements }, { steps: false });
-    expect(r.statements.map((x) => x.code)).not.toContain("sensitivity-skipped");
-    // Euler's theorem: a function homogeneous of degree k in the resistances has normalized
-    // sensitivities to them summing to k; Rth has degree 1, Vth 0, Isc -1, and Vth and Isc are
-    // proportional to Vs (common practice in network sensitivity analysis).
-    const point: Record<string, Rational> = { Vs: Rational.of(3) };
-    for (let i = 1; i <= 6; i++) [point[`Ra_${i}`], point[`Rb_${i}`]] = [Rational.of(2 * i + 1), Rational.of(11 - i)];
-    const at = (text: string) => readExpression(text).substitute(point).constantValue()!;
-    const sumOverResistors = (of: Record<string, string>) =>
-      Object.entries(of).filter(([name]) => name !== "Vs").reduce((sum, [, text]) => sum.add(at(text)), Rational.ZERO);
-    const s = r.sensitivities;
-    expect(Object.keys(s.rth!)).toHaveLength(12);
-    expect(sumOverResistors(s.rth!).toString()).toBe("1");
-    expect(sumOverResistors(s.vth!).toString()).toBe("0");
-    expect(sumOverResistors(s.isc!).toString()).toBe("-1");
-    expect(at(s.vth!.Vs).toString()).toBe("1");
-    expect(at(s.isc!.Vs).toString()).toBe("1");
-    expect(s.rthFromVocIsc).toEqual(s.rth);
+    expectEulerSums({ port: { plus: "n6", minus: "0" }, elements }, 12);
+  });
+
+  it("gives every sensitivity of a 14-element 3×3 resistor grid, the densest results of that size in the benchmark", () => {
+    // Nodes g_r_c on a 3×3 grid (g_0_0 is ground), a resistor on each of the 12 sides, fed at the
+    // far corner by Vs behind Rs, port from the centre to ground: Rth 312/480 terms.
+    const node = (row: number, col: number) => (row === 0 && col === 0 ? "0" : `g${row}_${col}`);
+    const elements: NetworkInput["elements"] = [
+      { name: "Vin", kind: "voltage", nodes: ["src", "0"], value: "Vs" },
+      { name: "Rsrc", kind: "resistor", nodes: ["src", "g2_2"], value: "Rs" },
+    ];
+    for (let row = 0; row < 3; row++)
+      for (let col = 0; col < 3; col++) {
+        const here = node(row, col);
+        if (col < 2) elements.push({ name: `Rh${row}${col}`, kind: "resistor", nodes: [here, node(row, col + 1)], value: `Rh_${row}${col}` });
+        if (row < 2) elements.push({ name: `Rv${row}${col}`, kind: "resistor", nodes: [here, node(row + 1, col)], value: `Rv_${row}${col}` });
+      }
+    expect(elements).toHaveLength(14);
+    expectEulerSums({ port: { plus: "g1_1", minus: "0" }, elements }, 13);
   });
 
   it("skips sensitivities of large results and says so", () => {
