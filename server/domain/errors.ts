@@ -85,3 +85,4 @@ export class Unavailable extends ofKind("unavailable") {}
 export const notFound = (what = "That") => new NotFound("not_found", `${what} was not found.`);
 export const forbidden = (message = "Your role in this team does not allow this.") => new Forbidden("forbidden", message);
 export const signInRequired = () => new Unauthenticated("unauthenticated", "Sign in to continue.");
+export const solverStopping = () => new Unavailable("solver_stopped", "The server is stopping; solve again in a moment.", { retryAfter: 5 });

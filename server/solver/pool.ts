@@ -40,6 +40,13 @@ export interface Solver {
   close(): Promise<void>;
 }
 
+/** What a closed solver answers a solve or read asked of it (the process is stopping). */
+export class SolverStopped extends Error {
+  constructor() {
+    super("the solver is closed");
+  }
+}
+
 const workerFile = new URL("./worker.mjs", import.meta.url);
 
 // Identical solves asked for at the same time share one run (the cache only helps the next request).
@@ -160,8 +167,20 @@ export function createSolver(settings: SolveSettings): Solver {
       pump();
     });
 
-  const threads = () => (pool ??= threadPool(settings, settings.threads));
-  const readerThread = () => (reader ??= threadPool(settings, 1));
+  // A closed solver starts no threads again: a job taken while the process stops fails at once
+  // instead of starting a fresh pool that keeps the process (or a test's teardown) waiting.
+  let closed = false;
+  const open = () => {
+    if (closed) throw new SolverStopped();
+  };
+  const threads = () => {
+    open();
+    return (pool ??= threadPool(settings, settings.threads));
+  };
+  const readerThread = () => {
+    open();
+    return (reader ??= threadPool(settings, 1));
+  };
   const terminated = () => {
     counts.terminated += 1;
   };
@@ -199,11 +218,12 @@ export function createSolver(settings: SolveSettings): Solver {
       }
       return entry.outcome;
     },
-    read: (kind, input) => runCapped<ReadOutcome>(settings, readerThread(), { kind, input }, "runReadTask", () => undefined, terminated),
+    read: async (kind, input) => runCapped<ReadOutcome>(settings, readerThread(), { kind, input }, "runReadTask", () => undefined, terminated),
     stats: () => ({ ...counts, queued: flights.size - counts.running, threads: pool?.threads.length ?? 0 }),
     // The reader thread starts on first use: most networks read inline.
-    warm: () => void threads(),
+    warm: () => void (closed || threads()),
     close: async () => {
+      closed = true;
       await Promise.all([pool?.destroy(), reader?.destroy()]);
       pool = null;
       reader = null;

@@ -2,7 +2,10 @@
 // terminates the thread (a fresh one takes its place), and the server answers meanwhile.
 import { eq, inArray } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { defaultSettings } from "../../server/config.js";
 import { revisions, solveJobs } from "../../server/db/schema.js";
+import { parseNetwork } from "../../server/solver/engine.js";
+import { createSolver, SolverStopped } from "../../server/solver/pool.js";
 import { evaluateInfix } from "../support/expressions.js";
 import { signedInPerson, type Person } from "../support/fixtures.js";
 import { completeMesh, resistorChain, sensorSource, type CircuitJson } from "../support/networks.js";
@@ -172,5 +175,17 @@ describe("solver caps", () => {
     expect((await outsider.client.get(job.poll)).status).toBe(404);
     expect((await editor.client.get(`/api/networks/${sensor}/solve-jobs/${crypto.randomUUID()}`)).status).toBe(404);
     expect((await editor.client.get(`/api/networks/${sensor}/solve-jobs/not-a-job`)).status).toBe(404);
+  });
+
+  it("a closed solver starts no thread again: a solve asked of it while the process stops is refused at once", async () => {
+    // Before, a job taken after close started a fresh pool and ran to the time cap, holding up the stop.
+    const solver = createSolver({ ...defaultSettings().solve, threads: 1 });
+    const owner = { userId: "closing", teamId: "closing-team" };
+    const sensor = parseNetwork(sensorSource).network!;
+    const before = await solver.solve(sensor, {}, "closing-1", owner);
+    expect(before.kind).toBe("solved");
+    await solver.close();
+    await expect(solver.solve(sensor, {}, "closing-2", owner)).rejects.toBeInstanceOf(SolverStopped);
+    expect(solver.stats().threads).toBe(0);
   });
 });
