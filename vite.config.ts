@@ -23,7 +23,7 @@ export default defineConfig({
   test: {
     projects: [
       { extends: true, test: { name: "unit", include: ["tests/engine/**/*.test.ts", "tests/unit/**/*.test.ts"], environment: "node", testTimeout: 30_000 } },
-      { extends: true, test: { name: "integration", include: ["tests/integration/**/*.test.ts"], environment: "node", fileParallelism: false, testTimeout: 30_000 } },
+      { extends: true, test: { name: "integration", include: ["tests/integration/**/*.test.ts"], environment: "node", fileParallelism: false, testTimeout: 30_000, hookTimeout: 30_000 } },
       { extends: true, test: { name: "browser", include: ["tests/browser/**/*.test.ts"], environment: "node", fileParallelism: false, testTimeout: 120_000, hookTimeout: 120_000 } },
     ],
   },
