@@ -169,6 +169,29 @@ describe("limits and leading-order forms (checked against sympy)", () => {
     expect(askSympy(questions)).toEqual(questions.map(() => true));
   });
 
+  it("sensitivities equal sympy's (x/F)·dF/dx on random functions, of degree 0 to 3 in the symbol", () => {
+    // Degree 2 in x and y exercises the cross terms of unequal powers beyond the multilinear case.
+    const questions: SympyQuestion[] = fc.sample(nonZeroRf, { numRuns: 40, seed: 15 }).flatMap((f) =>
+      ["x", "y", "z"].map((v): SympyQuestion => ({ kind: "sensitivity", expr: f.toInfix(), symbol: v, ours: f.sensitivity(v).toInfix() })),
+    );
+    // A multilinear function in many symbols, as the resistances of a network give, and one with large coefficients.
+    for (const expr of ["(R1*R2 + R2*R3 + R1*R3)/(R1 + 2*R2 + R3*R4)", "(9007199254740991*a*b + 3*b)/(a^2*b + 123456789012*a + 7)"]) {
+      for (const v of F(expr).variables()) questions.push({ kind: "sensitivity", expr, symbol: v, ours: F(expr).sensitivity(v).toInfix() });
+    }
+    expect(askSympy(questions)).toEqual(questions.map(() => true));
+  });
+
+  it("a sum of products in one pass equals the products added (sympy), with rational and with large coefficients", () => {
+    const pairs = fc.sample(fc.array(fc.tuple(polyArb(4), polyArb(4)), { minLength: 1, maxLength: 3 }), { numRuns: 40, seed: 15 });
+    pairs.push([[F("9007199254740991*x + y").num, F("x*y + 3").num], [F("x - y").num, F("2*x").num]]);
+    const questions: SympyQuestion[] = pairs.map((ps) => ({
+      kind: "equal",
+      a: Poly.sumOfProducts(ps).toInfix(),
+      b: ps.map(([x, y]) => `(${x.toInfix()})*(${y.toInfix()})`).join(" + "),
+    }));
+    expect(askSympy(questions)).toEqual(questions.map(() => true));
+  });
+
   it("mu*vs/(1 + mu) -> vs as mu -> inf", () => {
     const l = F("mu*vs/(1 + mu)").limit("mu", "inf");
     expect(l.kind === "finite" && l.value.toInfix()).toBe("vs");

@@ -8,6 +8,7 @@ export type SympyQuestion =
   | { kind: "limit"; expr: string; symbol: string; to: "inf" | "zero"; ours: string } // ours: expression, "oo" or "-oo"
   | { kind: "gcd"; a: string; b: string; ours: string } // ours equals sympy's gcd up to a constant factor
   | { kind: "det"; rows: string[][]; ours: string }
+  | { kind: "sensitivity"; expr: string; symbol: string; ours: string } // ours = (x/F) dF/dx
   | { kind: "value"; expr: string }; // sympy's exact value as "p/q" (for constant expressions)
 
 const PROGRAM = String.raw`
@@ -39,6 +40,10 @@ def answer(q):
     if k == "det":
         m = sympy.Matrix([[parse(e) for e in row] for row in q["rows"]])
         return sympy.expand(m.det(method="berkowitz") - parse(q["ours"])) == 0
+    if k == "sensitivity":
+        x = sympy.Symbol(q["symbol"])
+        f = parse(q["expr"])
+        return sympy.cancel(x / f * sympy.diff(f, x) - parse(q["ours"])) == 0
     if k == "value":
         v = sympy.Rational(parse(q["expr"]))
         return f"{v.p}/{v.q}"

@@ -48,6 +48,50 @@ export function mulSparse(x: Poly, y: Poly): PolyFields {
   return fieldsFromKeys(layout, keys, coefs, a.den * b.den);
 }
 
+/**
+ * Σ_k x_k·y_k in one term table of one layout, so that terms cancelling between the products are
+ * never decoded into exponent rows. Null when the pairs' denominators differ, the layout does not
+ * pack or a coefficient leaves doubles: the caller then multiplies and adds.
+ */
+export function sumOfProductsPacked(pairs: ReadonlyArray<readonly [Poly, Poly]>): PolyFields | null {
+  const den = pairs[0][0].den * pairs[0][1].den;
+  let vars: string[] = [];
+  for (const [x, y] of pairs) {
+    if (x.den * y.den !== den) return null;
+    vars = unionVars(unionVars(vars, x.vars), y.vars);
+  }
+  const maxDeg = new Int32Array(vars.length);
+  let expected = 0;
+  for (const [x, y] of pairs) {
+    const sum = new Int32Array(vars.length);
+    for (const p of [x, y]) {
+      const d = p.degrees();
+      const map = varMap(p.vars, vars);
+      for (let v = 0; v < d.length; v++) sum[map[v]] += d[v];
+    }
+    for (let v = 0; v < vars.length; v++) if (sum[v] > maxDeg[v]) maxDeg[v] = sum[v];
+    expected += x.coefs.length * y.coefs.length;
+  }
+  const layout = makeLayout(vars, maxDeg);
+  if (!layout.packed) return null;
+  const table = new TermTable(Math.min(expected, 1 << 16));
+  for (const [x, y] of pairs) {
+    const fa = smallCoefficients(x.coefs);
+    const fb = fa && smallCoefficients(y.coefs);
+    if (!fa || !fb) return null;
+    const ka = keysIn(x, layout) as number[];
+    const kb = keysIn(y, layout) as number[];
+    for (let i = 0; i < ka.length; i++) {
+      const ki = ka[i];
+      const ci = fa[i];
+      for (let j = 0; j < kb.length; j++) table.addProduct(ki + kb[j], ci, fb[j]);
+      if (table.overflow) return null;
+    }
+  }
+  const r = table.result();
+  return fieldsFromKeys(layout, r.keys, r.coefs, den);
+}
+
 /** Product terms accumulated in doubles; null when a coefficient leaves the safe-integer range. */
 function mulSmall(ka: number[], ca: readonly bigint[], kb: number[], cb: readonly bigint[]): { keys: Float64Array; coefs: Float64Array } | null {
   const fa = smallCoefficients(ca);

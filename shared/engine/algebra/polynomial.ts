@@ -14,7 +14,7 @@ import { Rational, bigGcd } from "./rational";
 import { sortNames } from "./names";
 import { MAX_EXPONENT } from "./monomial-layout";
 import { RationalTermSum, canonicalFields, normalizeDen, type PolyFields } from "./polynomial-build";
-import { addScaled, mulByTerm, mulSparse } from "./polynomial-arithmetic";
+import { addScaled, mulByTerm, mulSparse, sumOfProductsPacked } from "./polynomial-arithmetic";
 import { derivativeFields, evaluatePoly, substitutedFields } from "./polynomial-calculus";
 import { polyInfix, polyTex } from "./polynomial-print";
 
@@ -264,6 +264,15 @@ export class Poly {
     if (o.coefs.length === 1) return Poly.fromFields(mulByTerm(this, o));
     if (this.coefs.length === 1) return Poly.fromFields(mulByTerm(o, this));
     return Poly.fromFields(mulSparse(this, o));
+  }
+
+  /** Σ x_k·y_k, in one pass where the terms allow: what cancels between the products costs no decoding. */
+  static sumOfProducts(pairs: ReadonlyArray<readonly [Poly, Poly]>): Poly {
+    const live = pairs.filter(([x, y]) => x.coefs.length > 0 && y.coefs.length > 0);
+    if (live.length === 0) return Poly.ZERO;
+    const packed = live.length > 1 ? sumOfProductsPacked(live) : null;
+    if (packed) return Poly.fromFields(packed);
+    return live.reduce((sum, [x, y]) => sum.add(x.mul(y)), Poly.ZERO);
   }
 
   pow(n: number): Poly {

@@ -195,8 +195,10 @@ export class RationalFunction {
     const [pn, qn] = logDerivativeTimes(this.num, v);
     const [pd, qd] = logDerivativeTimes(this.den, v);
     // Most symbols leave N and D unreduced: their product is then shared by all of them.
-    const bottom = qn === this.num && qd === this.den ? (this.numTimesDen ??= this.num.mul(this.den)) : qn.mul(qd);
-    const f = RationalFunction.fromCoprime(pn.mul(qd).sub(pd.mul(qn)), bottom);
+    const unreduced = qn === this.num && qd === this.den;
+    const bottom = unreduced ? (this.numTimesDen ??= this.num.mul(this.den)) : qn.mul(qd);
+    const top = unreduced ? crossLogDerivative(this.num, this.den, v) : pn.mul(qd).sub(pd.mul(qn));
+    const f = RationalFunction.fromCoprime(top, bottom);
     // The denominator is known as a product: compact forms print it so, without searching for factors.
     if (!f.isZero()) {
       f.denominatorFactors = [qn, qd].filter((q) => !q.isConstant());
@@ -427,6 +429,22 @@ function wrapDenominator(d: Poly): string {
 }
 
 /** v P'/P in lowest terms as [top, bottom] (bottom divides P); [0, 1] when P is free of v. */
+/**
+ * v·(N' D − N D') for N = Σ N_i v^i and D = Σ D_j v^j, as Σ_{i≠j} (i − j) N_i D_j v^(i+j): the
+ * products of equal powers cancel and are never formed. For N and D of degree 1 in v (every
+ * resistance of a resistive network) that is two products of halves, a quarter of the work of
+ * v N'·D − v D'·N each, summed in one pass, so that what cancels between them is never decoded.
+ */
+function crossLogDerivative(n: Poly, d: Poly, v: string): Poly {
+  const ns = n.coefficientsIn(v);
+  const ds = d.coefficientsIn(v);
+  const pairs: [Poly, Poly][] = [];
+  for (let i = 0; i < ns.length; i++) {
+    for (let j = 0; j < ds.length; j++) if (i !== j) pairs.push([ns[i].mul(Poly.monomial(i - j, { [v]: i + j })), ds[j]]);
+  }
+  return Poly.sumOfProducts(pairs);
+}
+
 function logDerivativeTimes(p: Poly, v: string): [Poly, Poly] {
   const d = p.degreeIn(v);
   if (d <= 0) return [Poly.zero(), Poly.one()];
