@@ -1,6 +1,8 @@
 // What the domain refuses, in its own words: each refusal is a kind (not found, forbidden, conflict…)
 // with a stable code and a message for people. server/lib/errors.ts turns each kind into its HTTP answer.
 
+import { SolverStopped } from "../solver/pool.js";
+
 export interface DomainErrorParts {
   // Which input is wrong and why, keyed by the input's name.
   fields?: Record<string, string>;
@@ -85,4 +87,8 @@ export class Unavailable extends ofKind("unavailable") {}
 export const notFound = (what = "That") => new NotFound("not_found", `${what} was not found.`);
 export const forbidden = (message = "Your role in this team does not allow this.") => new Forbidden("forbidden", message);
 export const signInRequired = () => new Unauthenticated("unauthenticated", "Sign in to continue.");
-export const solverStopping = () => new Unavailable("solver_stopped", "The server is stopping; solve again in a moment.", { retryAfter: 5 });
+
+/** For a solver call's catch: a stopping solver's refusal as the domain's 503, anything else as it was. */
+export function rethrowSolverStopped(error: unknown): never {
+  throw error instanceof SolverStopped ? new Unavailable("solver_stopped", "The server is stopping; solve again in a moment.", { retryAfter: 5 }) : error;
+}

@@ -1,8 +1,7 @@
 // Reading what people type: size bounds first (no parse at all past them), then the engine's reader
 // on its own thread under the solver's caps, so no network or cell can hold up the request thread.
-import { Invalid, solverStopping, Unprocessable } from "./errors.js";
+import { Invalid, rethrowSolverStopped, Unprocessable } from "./errors.js";
 import type { CapBreach } from "../solver/caps.js";
-import { SolverStopped } from "../solver/pool.js";
 import type { ReadOutcome } from "../solver/read-task.js";
 import { checkExpressionBounds } from "./expression-bounds.js";
 import { parseNetwork, type CellDefinition, type Diagnostic, type Network } from "../solver/engine.js";
@@ -26,9 +25,7 @@ function readsInline(kind: ReadOutcome["kind"], input: unknown, typedChars: numb
 async function read<K extends ReadOutcome["kind"]>(services: Services, kind: K, input: unknown): Promise<Extract<ReadOutcome, { kind: K }>> {
   const typedChars = checkExpressionBounds(input, services.settings.expressions);
   if (readsInline(kind, input, typedChars)) return { kind: "network", ...parseNetwork(input) } as Extract<ReadOutcome, { kind: K }>;
-  const outcome = await services.solver.read(kind, input).catch((error: unknown) => {
-    throw error instanceof SolverStopped ? solverStopping() : error;
-  });
+  const outcome = await services.solver.read(kind, input).catch(rethrowSolverStopped);
   if (outcome.kind === "capped") throw readCapped(outcome.breach);
   return outcome as Extract<ReadOutcome, { kind: K }>;
 }

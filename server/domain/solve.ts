@@ -4,14 +4,13 @@
 import { and, eq } from "drizzle-orm";
 import { revisions } from "../db/schema.js";
 import { failureRecord } from "../lib/errors.js";
-import { DomainError, solverStopping, TooMany, Unavailable, Unprocessable } from "./errors.js";
+import { DomainError, rethrowSolverStopped, TooMany, Unavailable, Unprocessable } from "./errors.js";
 import { breachMessage, resultBreach, sizeBreach, type CapBreach } from "../solver/caps.js";
 import { cachedDerivation, noteCacheHit, solveKey, storeDerivation } from "../solver/cache.js";
 import { deriveOutcome, type Derivation, type SolveOutcome } from "../solver/derive.js";
 import { requireNetworkRole } from "./access.js";
 import { withTeamCells } from "./cells.js";
 import type { Network, SolveOptions } from "../solver/engine.js";
-import { SolverStopped } from "../solver/pool.js";
 import { readNetwork } from "./reading.js";
 import { revisionView, storeRevision, type RevisionView } from "./revisions.js";
 import type { Services } from "./services.js";
@@ -138,9 +137,7 @@ type WorkerServices = Pick<Services, "db" | "solver" | "settings" | "log">;
 async function solveOnThread(services: WorkerServices, data: SolveJobData): Promise<Derivation> {
   const { db, solver, log } = services;
   const owner = { userId: data.userId, teamId: data.teamId };
-  const outcome = await solver.solve(data.circuit, data.options, data.key, owner, { onStart: () => void markSolving(db, data.jobId).catch(() => undefined) }).catch((error: unknown) => {
-    throw error instanceof SolverStopped ? solverStopping() : error;
-  });
+  const outcome = await solver.solve(data.circuit, data.options, data.key, owner, { onStart: () => void markSolving(db, data.jobId).catch(() => undefined) }).catch(rethrowSolverStopped);
   if (outcome.kind === "engine_failed") log.error({ networkId: data.networkId, engineError: outcome.message }, "the engine failed on a network");
   const derivation = derivationOf(outcome);
   await storeDerivation(db, data.key, derivation);

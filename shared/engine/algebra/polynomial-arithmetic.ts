@@ -79,14 +79,7 @@ export function sumOfProductsPacked(pairs: ReadonlyArray<readonly [Poly, Poly]>)
     const fa = smallCoefficients(x.coefs);
     const fb = fa && smallCoefficients(y.coefs);
     if (!fa || !fb) return null;
-    const ka = keysIn(x, layout) as number[];
-    const kb = keysIn(y, layout) as number[];
-    for (let i = 0; i < ka.length; i++) {
-      const ki = ka[i];
-      const ci = fa[i];
-      for (let j = 0; j < kb.length; j++) table.addProduct(ki + kb[j], ci, fb[j]);
-      if (table.overflow) return null;
-    }
+    if (!addProducts(table, keysIn(x, layout) as number[], fa, keysIn(y, layout) as number[], fb)) return null;
   }
   const r = table.result();
   return fieldsFromKeys(layout, r.keys, r.coefs, den);
@@ -98,13 +91,18 @@ function mulSmall(ka: number[], ca: readonly bigint[], kb: number[], cb: readonl
   const fb = fa && smallCoefficients(cb);
   if (!fa || !fb) return null;
   const table = new TermTable(Math.min(ka.length * kb.length, 1 << 16));
+  return addProducts(table, ka, fa, kb, fb) ? table.result() : null;
+}
+
+/** Adds the product of two polynomials' packed terms into the table; false once a coefficient leaves doubles. */
+function addProducts(table: TermTable, ka: number[], fa: Float64Array, kb: number[], fb: Float64Array): boolean {
   for (let i = 0; i < ka.length; i++) {
     const ki = ka[i];
     const ci = fa[i];
     for (let j = 0; j < kb.length; j++) table.addProduct(ki + kb[j], ci, fb[j]);
-    if (table.overflow) return null;
+    if (table.overflow) return false;
   }
-  return table.result();
+  return true;
 }
 
 /** p times a one-term polynomial m: exponents shift, the graded order is unchanged. */

@@ -428,7 +428,6 @@ function wrapDenominator(d: Poly): string {
   return d.termCount() === 1 && d.vars.length === 1 && d.degreeIn(d.vars[0]) === 1 && d.coefs[0] === 1n ? s : `(${s})`;
 }
 
-/** v P'/P in lowest terms as [top, bottom] (bottom divides P); [0, 1] when P is free of v. */
 /**
  * v·(N' D − N D') for N = Σ N_i v^i and D = Σ D_j v^j, as Σ_{i≠j} (i − j) N_i D_j v^(i+j): the
  * products of equal powers cancel and are never formed. For N and D of degree 1 in v (every
@@ -445,6 +444,7 @@ function crossLogDerivative(n: Poly, d: Poly, v: string): Poly {
   return Poly.sumOfProducts(pairs);
 }
 
+/** v P'/P in lowest terms as [top, bottom] (bottom divides P); [0, 1] when P is free of v. */
 function logDerivativeTimes(p: Poly, v: string): [Poly, Poly] {
   const d = p.degreeIn(v);
   if (d <= 0) return [Poly.zero(), Poly.one()];
